@@ -1,0 +1,43 @@
+import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import type { BoardAlias } from "./BoardAlias";
+import type { BoardRevision } from "./BoardRevision";
+import type { Manufacturer } from "./Manufacturer";
+
+export const BOARD_KINDS = ["flight_controller", "aio", "esc_4in1", "pdb", "power_module"] as const;
+export type BoardKind = (typeof BOARD_KINDS)[number];
+
+export class BoardModel extends Model<InferAttributes<BoardModel>, InferCreationAttributes<BoardModel>> {
+  declare id: CreationOptional<number>;
+  declare manufacturerId: ForeignKey<Manufacturer["id"]>;
+  declare slug: string;
+  declare name: string;
+  declare kind: BoardKind;
+  declare mountingPattern: string;
+  declare minCells: CreationOptional<number>;
+  declare maxCells: number;
+  declare description: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare manufacturer?: NonAttribute<Manufacturer>;
+  declare revisions?: NonAttribute<BoardRevision[]>;
+  declare aliases?: NonAttribute<BoardAlias[]>;
+
+  static initModel(sequelize: Sequelize) {
+    BoardModel.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        slug: { type: DataTypes.TEXT, allowNull: false },
+        name: { type: DataTypes.TEXT, allowNull: false },
+        kind: { type: DataTypes.TEXT, allowNull: false },
+        mountingPattern: { type: DataTypes.TEXT, allowNull: false },
+        minCells: { type: DataTypes.SMALLINT, allowNull: false, defaultValue: 1 },
+        maxCells: { type: DataTypes.SMALLINT, allowNull: false },
+        description: { type: DataTypes.TEXT, allowNull: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: "board_models", underscored: true },
+    );
+  }
+}

@@ -1,0 +1,60 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export type VoltageScaleUnit = "V/V" | "mV/V";
+export type CurrentScaleUnit = "mV/A" | "A/V";
+export type CurrentOffsetUnit = "mV" | "mA";
+export type Response = "proportional" | "inverse";
+
+/** The unit definition of one firmware family: see the migration for what each column means. */
+export class FirmwareFamily extends Model<InferAttributes<FirmwareFamily>, InferCreationAttributes<FirmwareFamily>> {
+  declare id: CreationOptional<number>;
+  declare slug: string;
+  declare name: string;
+  declare description: string | null;
+  declare voltageScaleUnit: VoltageScaleUnit;
+  declare voltageScaleStep: number;
+  declare voltageScaleResponse: Response;
+  declare voltageScaleMin: number;
+  declare voltageScaleMax: number;
+  declare currentScaleUnit: CurrentScaleUnit;
+  declare currentScaleStep: number;
+  declare currentScaleResponse: Response;
+  declare currentScaleMin: number;
+  declare currentScaleMax: number;
+  declare currentOffsetUnit: CurrentOffsetUnit;
+  declare currentOffsetStep: number;
+  declare currentOffsetMin: number;
+  declare currentOffsetMax: number;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    const num = { type: DataTypes.DOUBLE, allowNull: false };
+    const text = { type: DataTypes.TEXT, allowNull: false };
+    FirmwareFamily.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        slug: text,
+        name: text,
+        description: { type: DataTypes.TEXT, allowNull: true },
+        voltageScaleUnit: text,
+        voltageScaleStep: num,
+        voltageScaleResponse: text,
+        voltageScaleMin: num,
+        voltageScaleMax: num,
+        currentScaleUnit: text,
+        currentScaleStep: num,
+        currentScaleResponse: text,
+        currentScaleMin: num,
+        currentScaleMax: num,
+        currentOffsetUnit: text,
+        currentOffsetStep: num,
+        currentOffsetMin: num,
+        currentOffsetMax: num,
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: "firmware_families", underscored: true },
+    );
+  }
+}

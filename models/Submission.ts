@@ -1,0 +1,54 @@
+import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import type { BoardRevision } from "./BoardRevision";
+import type { FirmwareFamily } from "./FirmwareFamily";
+import type { User } from "./User";
+
+export const SENSING_SOURCES = ["board_adc", "esc_telemetry", "power_module", "estimate"] as const;
+export type SensingSource = (typeof SENSING_SOURCES)[number];
+export const METHODS = ["multimeter", "bench_clamp", "fly_recharge", "unverified"] as const;
+export type Method = (typeof METHODS)[number];
+export const STATUSES = ["pending", "approved", "rejected", "changes_requested"] as const;
+export type SubmissionStatus = (typeof STATUSES)[number];
+
+export class Submission extends Model<InferAttributes<Submission>, InferCreationAttributes<Submission>> {
+  declare id: CreationOptional<number>;
+  declare boardRevisionId: ForeignKey<BoardRevision["id"]>;
+  declare firmwareFamilyId: ForeignKey<FirmwareFamily["id"]>;
+  declare contributorId: ForeignKey<User["id"]>;
+  declare firmwareVersion: string;
+  declare sensingSource: SensingSource;
+  declare method: Method;
+  declare voltageScale: number | null;
+  declare currentScale: number | null;
+  declare currentOffset: number | null;
+  declare status: CreationOptional<SubmissionStatus>;
+  declare notes: string | null;
+  declare version: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare boardRevision?: NonAttribute<BoardRevision>;
+  declare firmwareFamily?: NonAttribute<FirmwareFamily>;
+  declare contributor?: NonAttribute<User>;
+
+  static initModel(sequelize: Sequelize) {
+    Submission.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        firmwareVersion: { type: DataTypes.TEXT, allowNull: false },
+        sensingSource: { type: DataTypes.TEXT, allowNull: false },
+        method: { type: DataTypes.TEXT, allowNull: false },
+        voltageScale: { type: DataTypes.DOUBLE, allowNull: true },
+        currentScale: { type: DataTypes.DOUBLE, allowNull: true },
+        currentOffset: { type: DataTypes.DOUBLE, allowNull: true },
+        status: { type: DataTypes.TEXT, allowNull: false, defaultValue: "pending" },
+        notes: { type: DataTypes.TEXT, allowNull: true },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      // version: true makes every save check and bump the version column (optimistic locking)
+      { sequelize, tableName: "submissions", underscored: true, version: true },
+    );
+  }
+}

@@ -1,0 +1,40 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export const ROLES = ["contributor", "moderator", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<string>;
+  declare name: string;
+  declare email: string;
+  declare emailVerified: Date | null;
+  declare image: string | null;
+  declare passwordHash: string | null;
+  declare role: CreationOptional<Role>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    User.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        name: { type: DataTypes.TEXT, allowNull: false },
+        email: { type: DataTypes.TEXT, allowNull: false },
+        emailVerified: { type: DataTypes.DATE, allowNull: true },
+        image: { type: DataTypes.TEXT, allowNull: true },
+        passwordHash: { type: DataTypes.TEXT, allowNull: true },
+        role: { type: DataTypes.TEXT, allowNull: false, defaultValue: "contributor" },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      {
+        sequelize,
+        tableName: "users",
+        underscored: true,
+        // never hand the hash to a page or an API response by accident
+        defaultScope: { attributes: { exclude: ["passwordHash"] } },
+        scopes: { withPassword: { attributes: { include: ["passwordHash"] } } },
+      },
+    );
+  }
+}

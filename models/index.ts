@@ -1,0 +1,30 @@
+import type { Sequelize } from "sequelize";
+import { getSequelize } from "@/lib/db/sequelize";
+import { associate } from "./associations";
+import { BoardAlias } from "./BoardAlias";
+import { BoardModel } from "./BoardModel";
+import { BoardRevision } from "./BoardRevision";
+import { FirmwareFamily } from "./FirmwareFamily";
+import { Manufacturer } from "./Manufacturer";
+import { Submission } from "./Submission";
+import { User } from "./User";
+
+export { BoardAlias, BoardModel, BoardRevision, FirmwareFamily, Manufacturer, Submission, User };
+export { BOARD_KINDS, type BoardKind } from "./BoardModel";
+export { ROLES, type Role } from "./User";
+export { METHODS, SENSING_SOURCES, STATUSES, type Method, type SensingSource, type SubmissionStatus } from "./Submission";
+
+let initialisedWith: Sequelize | undefined;
+
+/** Binds every model to the app's Sequelize instance (once) and returns it. */
+export function db(): Sequelize {
+  const sequelize = getSequelize();
+  if (initialisedWith !== sequelize) {
+    for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission]) {
+      model.initModel(sequelize);
+    }
+    associate();
+    initialisedWith = sequelize;
+  }
+  return sequelize;
+}

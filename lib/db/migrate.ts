@@ -1,11 +1,11 @@
 import path from "node:path";
-import { pathToFileURL } from "node:url";
-import type { QueryInterface, Sequelize } from "sequelize";
+import { Sequelize, type QueryInterface } from "sequelize";
+import { require as tsxRequire } from "tsx/cjs/api";
 import { SequelizeStorage, Umzug } from "umzug";
 
 type MigrationModule = {
-  up: (qi: QueryInterface, s: typeof import("sequelize")) => Promise<unknown>;
-  down: (qi: QueryInterface, s: typeof import("sequelize")) => Promise<unknown>;
+  up: (qi: QueryInterface, s: typeof Sequelize) => Promise<unknown>;
+  down: (qi: QueryInterface, s: typeof Sequelize) => Promise<unknown>;
 };
 
 // The same files sequelize-cli runs, driven from code so that `npm start` and `npm test` need no
@@ -15,12 +15,12 @@ function runnerFor(sequelize: Sequelize, folder: "migrations" | "seeders", root 
     migrations: {
       glob: [`${folder}/*.{ts,js}`, { cwd: root }],
       resolve: ({ name, path: file, context }) => {
+        // tsx loads the TypeScript file the same way sequelize-cli does (through .sequelizerc),
+        // whether we run under the launcher or inside vitest.
         const load = async (): Promise<MigrationModule> => {
-          const mod = await import(pathToFileURL(path.resolve(root, file!)).href);
-          // a CommonJS module loaded through import() exposes its exports on .default
+          const mod = tsxRequire(path.resolve(root, file!), __filename);
           return (mod.up ? mod : mod.default) as MigrationModule;
         };
-        const Sequelize = require("sequelize") as typeof import("sequelize");
         return {
           name,
           up: async () => (await load()).up(context, Sequelize),

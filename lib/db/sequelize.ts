@@ -1,6 +1,6 @@
 import pg from "pg";
 import { Sequelize } from "sequelize";
-import { env } from "@/lib/env";
+import { databaseUrl, env } from "@/lib/env";
 
 // PostgreSQL returns bigint (count(*)) and numeric as strings by default; the values we store are
 // far below 2^53, so parse them as numbers once here instead of at every call site.
@@ -23,7 +23,7 @@ export function createSequelize(url: string, opts: { logging?: boolean; poolMax?
 export function getSequelize(): Sequelize {
   if (!globalForDb.shuntbookSequelize) {
     const e = env();
-    globalForDb.shuntbookSequelize = createSequelize(e.DATABASE_URL, { logging: e.SHUNTBOOK_SQL_LOG });
+    globalForDb.shuntbookSequelize = createSequelize(databaseUrl(e), { logging: e.SHUNTBOOK_SQL_LOG });
   }
   return globalForDb.shuntbookSequelize;
 }

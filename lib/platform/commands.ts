@@ -1,0 +1,19 @@
+import path from "node:path";
+import { env } from "@/lib/env";
+import { runApp } from "./run-app";
+import { runTests } from "./test-run";
+
+const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
+  start: () => runApp("start"),
+  dev: () => runApp("dev"),
+  test: (args) => runTests(args),
+};
+
+/** Dispatches `npm start|run dev|test` (see bootstrap.mjs) and exits with the command's status. */
+export async function runCommand(name: string, args: string[]): Promise<void> {
+  const command = COMMANDS[name];
+  if (!command) throw new Error(`unknown command '${name}'; expected one of ${Object.keys(COMMANDS).join(", ")}`);
+  env(); // fail fast, with the variable named, on a bad environment
+  process.env.SHUNTBOOK_ROOT ??= path.resolve(".");
+  process.exit(await command(args));
+}

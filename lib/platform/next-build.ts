@@ -1,0 +1,37 @@
+import { spawnSync } from "node:child_process";
+import { existsSync, readdirSync, statSync } from "node:fs";
+import path from "node:path";
+import { log } from "./log";
+
+// What a production build depends on; a newer file in any of these means the build is stale.
+const BUILD_INPUTS = ["app", "components", "lib", "models", "public", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json", "package-lock.json"];
+
+function newestMtime(target: string): number {
+  if (!existsSync(target)) return 0;
+  const stat = statSync(target);
+  if (!stat.isDirectory()) return stat.mtimeMs;
+  let newest = stat.mtimeMs;
+  for (const entry of readdirSync(target)) newest = Math.max(newest, newestMtime(path.join(target, entry)));
+  return newest;
+}
+
+export function buildIsStale(root: string): boolean {
+  const buildId = path.join(root, ".next", "BUILD_ID");
+  if (!existsSync(buildId)) return true;
+  const builtAt = statSync(buildId).mtimeMs;
+  return BUILD_INPUTS.some((input) => newestMtime(path.join(root, input)) > builtAt);
+}
+
+export function nextBin(root: string): string {
+  return path.join(root, "node_modules", "next", "dist", "bin", "next");
+}
+
+/** Runs `next build` only when the sources changed since the last build. */
+export function buildIfNeeded(root: string, env: NodeJS.ProcessEnv): void {
+  if (!buildIsStale(root)) return;
+  log("building the app (next build) ...");
+  const started = Date.now();
+  const r = spawnSync(process.execPath, [nextBin(root), "build"], { cwd: root, stdio: "inherit", env });
+  if (r.status !== 0) throw new Error("next build failed; see the output above");
+  log(`built in ${Math.round((Date.now() - started) / 1000)} s`);
+}

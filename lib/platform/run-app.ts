@@ -1,0 +1,54 @@
+import path from "node:path";
+import { databaseUrl, env } from "@/lib/env";
+import { spawnGroup, stopGroup, waitForExit } from "./child-process";
+import { prepareDatabase } from "./database";
+import { Lifecycle } from "./lifecycle";
+import { log } from "./log";
+import { buildIfNeeded, nextBin } from "./next-build";
+import { describeCluster, ensureDatabase, initCluster, startCluster, stopCluster } from "./postgres-cluster";
+
+/**
+ * `npm start` / `npm run dev`: bring up PostgreSQL (the embedded cluster in .data unless
+ * DATABASE_URL names another server), migrate, seed an empty database, then serve the app on
+ * 127.0.0.1:PORT until Ctrl-C, and stop everything cleanly.
+ */
+export async function runApp(mode: "start" | "dev"): Promise<number> {
+  const root = process.cwd();
+  const e = env();
+  const lifecycle = new Lifecycle();
+  try {
+    const url = await bringUpDatabase(root, lifecycle);
+    await prepareDatabase(url, { seedWhenEmpty: true });
+
+    const appEnv = { ...process.env, DATABASE_URL: url, PORT: String(e.PORT) };
+    if (mode === "start") buildIfNeeded(root, { ...appEnv, NODE_ENV: "production" });
+    const app = spawnGroup(process.execPath, [nextBin(root), mode, "-H", "127.0.0.1", "-p", String(e.PORT)], {
+      cwd: root,
+      stdio: "inherit",
+      env: { ...appEnv, NODE_ENV: mode === "start" ? "production" : "development" },
+    });
+    lifecycle.onStop("the app", () => stopGroup(app));
+    log(`Shuntbook: http://127.0.0.1:${e.PORT}  (Ctrl-C stops the app and the database)`);
+    const code = await waitForExit(app);
+    await lifecycle.stop();
+    return code;
+  } catch (error) {
+    await lifecycle.stop();
+    throw error;
+  }
+}
+
+async function bringUpDatabase(root: string, lifecycle: Lifecycle): Promise<string> {
+  const e = env();
+  if (e.DATABASE_URL) {
+    log("DATABASE_URL is set: using that server, not the embedded cluster");
+    return e.DATABASE_URL;
+  }
+  const cluster = describeCluster(path.resolve(root, e.SHUNTBOOK_DATA_DIR), e.SHUNTBOOK_PG_PORT);
+  initCluster(cluster);
+  startCluster(cluster);
+  lifecycle.onStop("PostgreSQL", () => stopCluster(cluster));
+  const url = databaseUrl(e);
+  await ensureDatabase(url, new URL(url).pathname.slice(1));
+  return url;
+}

@@ -1,0 +1,105 @@
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { createSequelize } from "@/lib/db/sequelize";
+import { migrateUp, seedUp } from "@/lib/db/migrate";
+import { TEMPLATE_DATABASES } from "./test-templates";
+import { spawnGroup, stopGroup, waitForExit } from "./child-process";
+import { Lifecycle } from "./lifecycle";
+import { log } from "./log";
+import { buildIfNeeded, nextBin } from "./next-build";
+import { aptInstall, isRoot } from "./postgres-binaries";
+import { describeCluster, ensureDatabase, initCluster, startCluster, stopCluster, type Cluster } from "./postgres-cluster";
+import { freePort, waitForHttp } from "./wait-for-http";
+
+const CHROMIUM = "/usr/bin/chromium";
+
+/**
+ * `npm test`: one throwaway cluster in a temporary folder on a free port (never .data), the
+ * migrations run from zero into a template database (and a seeded copy), the built app served
+ * on a seeded database for the browser tests, then vitest over every test. Everything started
+ * is stopped again, whatever the tests do, and the exit status is vitest's.
+ */
+export async function runTests(vitestArgs: string[]): Promise<number> {
+  const root = process.cwd();
+  const lifecycle = new Lifecycle();
+  try {
+    ensureChromium();
+    const cluster = await startThrowawayCluster(lifecycle);
+    await prepareTemplates(cluster);
+
+    const appUrl = await startAppUnderTest(root, cluster, lifecycle);
+    const vitest = spawnGroup(process.execPath, [path.join(root, "node_modules/vitest/vitest.mjs"), "run", ...vitestArgs], {
+      cwd: root,
+      stdio: "inherit",
+      env: {
+        ...process.env,
+        NODE_ENV: "test",
+        SHUNTBOOK_TEST_PG_URL: cluster.url("postgres"),
+        SHUNTBOOK_TEST_APP_URL: appUrl,
+        DATABASE_URL: cluster.url(TEMPLATE_DATABASES.migrated),
+      },
+    });
+    lifecycle.onStop("vitest", () => stopGroup(vitest));
+    const code = await waitForExit(vitest);
+    await lifecycle.stop();
+    return code;
+  } catch (error) {
+    await lifecycle.stop();
+    throw error;
+  }
+}
+
+function ensureChromium(): void {
+  if (existsSync(CHROMIUM)) return;
+  if (!isRoot()) throw new Error(`the browser tests need Debian's Chromium at ${CHROMIUM}: sudo apt-get install chromium`);
+  log("installing Debian's chromium package for the browser tests ...");
+  aptInstall(["chromium"]);
+}
+
+async function startThrowawayCluster(lifecycle: Lifecycle): Promise<Cluster> {
+  const base = mkdtempSync(path.join(os.tmpdir(), "shuntbook-test-"));
+  lifecycle.onStop("the test cluster's folder", () => rmSync(base, { recursive: true, force: true }));
+  const cluster = describeCluster(base, await freePort());
+  initCluster(cluster);
+  startCluster(cluster, { durable: false });
+  lifecycle.onStop("PostgreSQL", () => stopCluster(cluster));
+  return cluster;
+}
+
+/** Migrations from zero into one template, then a copy of it with the demo scenario seeded. */
+async function prepareTemplates(cluster: Cluster): Promise<void> {
+  const started = Date.now();
+  await ensureDatabase(cluster.url("postgres"), TEMPLATE_DATABASES.migrated);
+  await withSequelize(cluster.url(TEMPLATE_DATABASES.migrated), (s) => migrateUp(s));
+  await ensureDatabase(cluster.url("postgres"), TEMPLATE_DATABASES.seeded, TEMPLATE_DATABASES.migrated);
+  await withSequelize(cluster.url(TEMPLATE_DATABASES.seeded), (s) => seedUp(s));
+  log(`test templates ready in ${Date.now() - started} ms`);
+}
+
+async function withSequelize<T>(url: string, fn: (s: ReturnType<typeof createSequelize>) => Promise<T>): Promise<T> {
+  const sequelize = createSequelize(url, { poolMax: 2 });
+  try {
+    return await fn(sequelize);
+  } finally {
+    await sequelize.close();
+  }
+}
+
+/** The production build, served on its own seeded database, for the browser and HTTP tests. */
+async function startAppUnderTest(root: string, cluster: Cluster, lifecycle: Lifecycle): Promise<string> {
+  const database = "shuntbook_app_under_test";
+  await ensureDatabase(cluster.url("postgres"), database, TEMPLATE_DATABASES.seeded);
+  const port = await freePort();
+  const appEnv = { ...process.env, NODE_ENV: "production" as const, DATABASE_URL: cluster.url(database), PORT: String(port) };
+  buildIfNeeded(root, appEnv);
+  const app = spawnGroup(process.execPath, [nextBin(root), "start", "-H", "127.0.0.1", "-p", String(port)], {
+    cwd: root,
+    stdio: ["ignore", "ignore", "inherit"],
+    env: appEnv,
+  });
+  lifecycle.onStop("the app under test", () => stopGroup(app));
+  const url = `http://127.0.0.1:${port}`;
+  await waitForHttp(url);
+  return url;
+}

@@ -33,7 +33,7 @@ function roundTo(x: number, rounding: StepRounding): number {
  * (the integer to enter) and the value it represents. A null median (no data) gives null.
  *
  * The ratio median / step is first cut to 12 significant digits: binary floating point turns a
- * decimal midpoint such as 11.05 / 0.1 into 110.49999999999999, and a person expects 111. Real
+ * decimal midpoint such as 11.35 / 0.1 into 113.49999999999999, and a person expects 114. Real
  * differences at the 12th digit are far below any setting step.
  */
 export function recommendValue(

@@ -1,12 +1,14 @@
 import path from "node:path";
 import { env } from "@/lib/env";
 import { runApp } from "./run-app";
+import { runStatsRebuild } from "./run-task";
 import { runTests } from "./test-run";
 
 const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   start: () => runApp("start"),
   dev: () => runApp("dev"),
   test: (args) => runTests(args),
+  "stats:rebuild": () => runStatsRebuild(),
 };
 
 /** Dispatches `npm start|run dev|test` (see bootstrap.mjs) and exits with the command's status. */

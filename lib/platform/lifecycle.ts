@@ -10,7 +10,8 @@ export class Lifecycle {
   private cleanups: Cleanup[] = [];
   private stopping: Promise<void> | undefined;
 
-  constructor() {
+  /** One-shot commands (stats:rebuild) may use the cluster a running `npm start` owns; servers may not. */
+  constructor(readonly mayShareRunningCluster = false) {
     for (const signal of ["SIGINT", "SIGTERM", "SIGHUP"] as const) {
       process.on(signal, () => {
         log(`${signal} received, shutting down ...`);

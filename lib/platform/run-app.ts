@@ -5,7 +5,7 @@ import { prepareDatabase } from "./database";
 import { Lifecycle } from "./lifecycle";
 import { log } from "./log";
 import { buildIfNeeded, nextBin } from "./next-build";
-import { describeCluster, ensureDatabase, initCluster, startCluster, stopCluster } from "./postgres-cluster";
+import { describeCluster, ensureDatabase, initCluster, isClusterRunning, startCluster, stopCluster } from "./postgres-cluster";
 
 /**
  * `npm start` / `npm run dev`: bring up PostgreSQL (the embedded cluster in .data unless
@@ -38,7 +38,11 @@ export async function runApp(mode: "start" | "dev"): Promise<number> {
   }
 }
 
-async function bringUpDatabase(root: string, lifecycle: Lifecycle): Promise<string> {
+/**
+ * The app's database: DATABASE_URL, or the embedded cluster (started here and stopped by the
+ * lifecycle, unless a running `npm start` already has it up, in which case it is shared).
+ */
+export async function bringUpDatabase(root: string, lifecycle: Lifecycle): Promise<string> {
   const e = env();
   if (e.DATABASE_URL) {
     log("DATABASE_URL is set: using that server, not the embedded cluster");
@@ -46,8 +50,12 @@ async function bringUpDatabase(root: string, lifecycle: Lifecycle): Promise<stri
   }
   const cluster = describeCluster(path.resolve(root, e.SHUNTBOOK_DATA_DIR), e.SHUNTBOOK_PG_PORT);
   initCluster(cluster);
-  startCluster(cluster);
-  lifecycle.onStop("PostgreSQL", () => stopCluster(cluster));
+  if (isClusterRunning(cluster) && lifecycle.mayShareRunningCluster) {
+    log("PostgreSQL is already running for this project; using it");
+  } else {
+    startCluster(cluster);
+    lifecycle.onStop("PostgreSQL", () => stopCluster(cluster));
+  }
   const url = databaseUrl(e);
   await ensureDatabase(url, new URL(url).pathname.slice(1));
   return url;

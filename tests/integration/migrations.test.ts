@@ -8,6 +8,7 @@ const database = useTestDatabase("migrated");
 
 const EXPECTED_TABLES = [
   "board_aliases",
+  "board_stats",
   "board_models",
   "board_revisions",
   "firmware_families",

@@ -1,0 +1,12 @@
+// The three calibrated settings Shuntbook publishes, each a column of `submissions`.
+export const QUANTITIES = ["voltage_scale", "current_scale", "current_offset"] as const;
+export type Quantity = (typeof QUANTITIES)[number];
+
+export const QUANTITY_LABELS: Record<Quantity, string> = {
+  voltage_scale: "Voltage scale",
+  current_scale: "Current scale",
+  current_offset: "Current offset",
+};
+
+/** One (board revision, firmware family) pair: values from different families are never mixed. */
+export type GroupKey = { boardRevisionId: number; firmwareFamilyId: number };

@@ -23,6 +23,8 @@ const EnvSchema = z.object({
   /** Set by `npm test` for the test files: the throwaway cluster and the app under test. */
   SHUNTBOOK_TEST_PG_URL: postgresUrl.optional(),
   SHUNTBOOK_TEST_APP_URL: z.url().optional(),
+  /** `0` makes npm test skip building and serving the app (quick local runs; browser tests then fail). */
+  SHUNTBOOK_TEST_APP: z.enum(["0", "1"]).default("1"),
 });
 
 export type Env = z.infer<typeof EnvSchema>;

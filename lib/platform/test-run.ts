@@ -2,6 +2,7 @@ import { existsSync, mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { createSequelize } from "@/lib/db/sequelize";
+import { env } from "@/lib/env";
 import { migrateUp, seedUp } from "@/lib/db/migrate";
 import { TEMPLATE_DATABASES } from "./test-templates";
 import { spawnGroup, stopGroup, waitForExit } from "./child-process";
@@ -28,7 +29,7 @@ export async function runTests(vitestArgs: string[]): Promise<number> {
     const cluster = await startThrowawayCluster(lifecycle);
     await prepareTemplates(cluster);
 
-    const appUrl = await startAppUnderTest(root, cluster, lifecycle);
+    const appUrl = env().SHUNTBOOK_TEST_APP === "1" ? await startAppUnderTest(root, cluster, lifecycle) : undefined;
     const vitest = spawnGroup(process.execPath, [path.join(root, "node_modules/vitest/vitest.mjs"), "run", ...vitestArgs], {
       cwd: root,
       stdio: "inherit",
@@ -36,7 +37,7 @@ export async function runTests(vitestArgs: string[]): Promise<number> {
         ...process.env,
         NODE_ENV: "test",
         SHUNTBOOK_TEST_PG_URL: cluster.url("postgres"),
-        SHUNTBOOK_TEST_APP_URL: appUrl,
+        ...(appUrl ? { SHUNTBOOK_TEST_APP_URL: appUrl } : {}),
         DATABASE_URL: cluster.url(TEMPLATE_DATABASES.migrated),
       },
     });

@@ -8,9 +8,9 @@ const database = useTestDatabase("migrated");
 
 const EXPECTED_TABLES = [
   "board_aliases",
-  "board_stats",
   "board_models",
   "board_revisions",
+  "board_stats",
   "firmware_families",
   "manufacturers",
   "submissions",

@@ -13,9 +13,11 @@ export async function up(queryInterface: QueryInterface) {
       contributor_id      uuid NOT NULL REFERENCES users(id) ON DELETE RESTRICT,
       sensing_source      text NOT NULL CHECK (sensing_source IN ('board_adc', 'esc_telemetry', 'power_module', 'estimate')),
       method              text NOT NULL CHECK (method IN ('multimeter', 'bench_clamp', 'fly_recharge', 'unverified')),
-      voltage_scale       double precision CHECK (voltage_scale > 0 AND voltage_scale < 1000000),
-      current_scale       double precision CHECK (current_scale > 0 AND current_scale < 1000000),
-      current_offset      double precision CHECK (abs(current_offset) < 1000000),
+      -- bounded away from 0 as well as above: no firmware setting is smaller than 1e-6, and tiny
+      -- magnitudes would make the statistics' float arithmetic underflow
+      voltage_scale       double precision CHECK (voltage_scale >= 0.000001 AND voltage_scale < 1000000),
+      current_scale       double precision CHECK (current_scale >= 0.000001 AND current_scale < 1000000),
+      current_offset      double precision CHECK (current_offset = 0 OR abs(current_offset) BETWEEN 0.000001 AND 1000000),
       status              text NOT NULL DEFAULT 'pending' CHECK (status IN ('pending', 'approved', 'rejected', 'changes_requested')),
       notes               text CHECK (notes IS NULL OR length(notes) <= 10000),
       version             integer NOT NULL DEFAULT 0 CHECK (version >= 0),

@@ -1,0 +1,239 @@
+import { QueryTypes, type Sequelize } from "sequelize";
+import { CONFIDENCE_EXPLANATIONS, CONFIDENCE_TITLES, flagPoints, recommendValue, type ConfidenceLabel } from "@/lib/stats";
+import type { BoardKind } from "@/models/BoardModel";
+import type { FirmwareFamily } from "@/models/FirmwareFamily";
+import type { Method } from "@/models/Submission";
+import { QUANTITIES, type Quantity } from "./quantities";
+import { QUANTITY_KEYS, type BoardValues, type FamilyUnits, type GroupValues, type QuantityValues, type ValuePoint } from "./board-values-types";
+
+// Reads one board's published values from PostgreSQL, uncached (board-values.ts caches them).
+// The figures come from board_stats as PostgreSQL computed them; only the per-value flags are
+// computed here, with lib/stats, because they belong to each value rather than to the group.
+
+export type BoardHeader = {
+  id: number;
+  slug: string;
+  name: string;
+  kind: BoardKind;
+  manufacturerSlug: string;
+  manufacturerName: string;
+  /** Changes whenever anything in this board's values response can change; see STAMP_SQL. */
+  stamp: string;
+};
+
+const epoch = (expr: string) => `coalesce((extract(epoch FROM ${expr}) * 1000000)::bigint, 0)`;
+
+// One cheap round trip that fingerprints everything the values response is built from: the board
+// and maker rows, its revisions, its board_stats rows (rewritten with a new computed_at on every
+// refresh), its approved submissions (the points) and the firmware families (the units). Counts
+// catch deletions that leave the newest timestamp unchanged. Each part uses an index on the board's
+// revisions (board_stats' primary key and submissions_group_status_idx both start with the revision).
+const BOARD_SQL = `
+  SELECT bm.id, bm.slug, bm.name, bm.kind, m.slug AS "manufacturerSlug", m.name AS "manufacturerName",
+         concat_ws('|', bm.id, ${epoch("bm.updated_at")}, ${epoch("m.updated_at")},
+           (SELECT count(*) || ':' || ${epoch("max(br.updated_at)")} FROM board_revisions br WHERE br.board_model_id = bm.id),
+           (SELECT count(*) || ':' || ${epoch("max(bs.computed_at)")} FROM board_stats bs
+              JOIN board_revisions br ON br.id = bs.board_revision_id WHERE br.board_model_id = bm.id),
+           (SELECT count(*) || ':' || ${epoch("max(s.updated_at)")} FROM submissions s
+              JOIN board_revisions br ON br.id = s.board_revision_id WHERE br.board_model_id = bm.id AND s.status = 'approved'),
+           (SELECT count(*) || ':' || ${epoch("max(ff.updated_at)")} FROM firmware_families ff)) AS stamp
+    FROM board_models bm JOIN manufacturers m ON m.id = bm.manufacturer_id
+   WHERE bm.slug = $slug`;
+
+/** The board's header and freshness stamp, or null when no board has this slug. */
+export async function readBoardHeader(sequelize: Sequelize, slug: string): Promise<BoardHeader | null> {
+  // no stored slug is longer (CHECK on board_models.slug): skip the round trip
+  if (slug.length > 120) return null;
+  const [row] = await sequelize.query<BoardHeader>(BOARD_SQL, { bind: { slug }, type: QueryTypes.SELECT });
+  return row ?? null;
+}
+
+type StatsRow = {
+  revisionId: number;
+  familyId: number;
+  quantity: Quantity;
+  n: number;
+  median: number;
+  q1: number;
+  q3: number;
+  iqr: number;
+  mad: number;
+  scaledMad: number;
+  ciLow: number | null;
+  ciHigh: number | null;
+  ciCoverage: number | null;
+  outlierCount: number;
+  tukeyCount: number;
+  methodCounts: Partial<Record<Method, number>>;
+  recommendedValue: number;
+  confidence: ConfidenceLabel;
+  lastValueAt: Date;
+  computedAt: Date;
+};
+
+type PointRow = {
+  revisionId: number;
+  familyId: number;
+  method: Method;
+  updatedAt: Date;
+} & Record<Quantity, number | null>;
+
+type FamilyRow = Pick<
+  FirmwareFamily,
+  | "id" | "slug" | "name" | "description"
+  | "voltageScaleUnit" | "voltageScaleStep" | "voltageScaleResponse" | "voltageScaleMin" | "voltageScaleMax"
+  | "currentScaleUnit" | "currentScaleStep" | "currentScaleResponse" | "currentScaleMin" | "currentScaleMax"
+  | "currentOffsetUnit" | "currentOffsetStep" | "currentOffsetMin" | "currentOffsetMax"
+>;
+
+const REVISIONS_SQL = `SELECT id, label, position FROM board_revisions WHERE board_model_id = $board ORDER BY position, id`;
+
+const STATS_SQL = `
+  SELECT bs.board_revision_id AS "revisionId", bs.firmware_family_id AS "familyId", bs.quantity, bs.n,
+         bs.median, bs.q1, bs.q3, bs.iqr, bs.mad, bs.scaled_mad AS "scaledMad",
+         bs.ci_low AS "ciLow", bs.ci_high AS "ciHigh", bs.ci_coverage AS "ciCoverage",
+         bs.outlier_count AS "outlierCount", bs.tukey_count AS "tukeyCount", bs.method_counts AS "methodCounts",
+         bs.recommended_value AS "recommendedValue", bs.confidence,
+         bs.last_value_at AS "lastValueAt", bs.computed_at AS "computedAt"
+    FROM board_stats bs JOIN board_revisions br ON br.id = bs.board_revision_id
+   WHERE br.board_model_id = $board`;
+
+// Oldest first, so a chart of the points reads left to right in time.
+const POINTS_SQL = `
+  SELECT s.board_revision_id AS "revisionId", s.firmware_family_id AS "familyId", s.method, s.updated_at AS "updatedAt",
+         s.voltage_scale, s.current_scale, s.current_offset
+    FROM submissions s JOIN board_revisions br ON br.id = s.board_revision_id
+   WHERE br.board_model_id = $board AND s.status = 'approved'
+   ORDER BY s.updated_at, s.id`;
+
+const FAMILIES_SQL = `
+  SELECT id, slug, name, description,
+         voltage_scale_unit AS "voltageScaleUnit", voltage_scale_step AS "voltageScaleStep",
+         voltage_scale_response AS "voltageScaleResponse", voltage_scale_min AS "voltageScaleMin", voltage_scale_max AS "voltageScaleMax",
+         current_scale_unit AS "currentScaleUnit", current_scale_step AS "currentScaleStep",
+         current_scale_response AS "currentScaleResponse", current_scale_min AS "currentScaleMin", current_scale_max AS "currentScaleMax",
+         current_offset_unit AS "currentOffsetUnit", current_offset_step AS "currentOffsetStep",
+         current_offset_min AS "currentOffsetMin", current_offset_max AS "currentOffsetMax"
+    FROM firmware_families ORDER BY name, id`;
+
+export function familyUnits(f: FamilyRow): FamilyUnits {
+  return {
+    slug: f.slug,
+    name: f.name,
+    description: f.description,
+    voltageScale: { unit: f.voltageScaleUnit, step: f.voltageScaleStep, response: f.voltageScaleResponse, min: f.voltageScaleMin, max: f.voltageScaleMax },
+    currentScale: { unit: f.currentScaleUnit, step: f.currentScaleStep, response: f.currentScaleResponse, min: f.currentScaleMin, max: f.currentScaleMax },
+    currentOffset: { unit: f.currentOffsetUnit, step: f.currentOffsetStep, min: f.currentOffsetMin, max: f.currentOffsetMax },
+  };
+}
+
+const UNIT_OF: Record<Quantity, (u: FamilyUnits) => { unit: string; step: number }> = {
+  voltage_scale: (u) => u.voltageScale,
+  current_scale: (u) => u.currentScale,
+  current_offset: (u) => u.currentOffset,
+};
+
+function quantityValues(row: StatsRow, units: FamilyUnits, points: ValuePoint[]): QuantityValues {
+  const { unit, step } = UNIT_OF[row.quantity](units);
+  // board_stats keeps the recommendation as a whole setting; recommendValue turns it back into the
+  // physical value with the same 12-digit cut the recommendation itself used (lib/stats/recommend.ts)
+  const physical = recommendValue(row.recommendedValue * step, step)!;
+  return {
+    n: row.n,
+    median: row.median,
+    q1: row.q1,
+    q3: row.q3,
+    iqr: row.iqr,
+    mad: row.mad,
+    scaledMad: row.scaledMad,
+    ciLow: row.ciLow,
+    ciHigh: row.ciHigh,
+    ciCoverage: row.ciCoverage,
+    outlierCount: row.outlierCount,
+    tukeyCount: row.tukeyCount,
+    methodCounts: row.methodCounts,
+    recommended: { setting: row.recommendedValue, value: physical.value, unit, step },
+    confidence: { label: row.confidence, title: CONFIDENCE_TITLES[row.confidence], explanation: CONFIDENCE_EXPLANATIONS[row.confidence] },
+    lastChangeAt: row.lastValueAt.toISOString(),
+    computedAt: row.computedAt.toISOString(),
+    points,
+  };
+}
+
+/** The group's approved values of one quantity, flagged by lib/stats over exactly those values. */
+function pointsOf(rows: PointRow[], quantity: Quantity): ValuePoint[] {
+  const present = rows.filter((r) => r[quantity] !== null);
+  const flags = flagPoints(present.map((r) => r[quantity]!));
+  return present.map((r, i) => ({
+    value: flags[i].value,
+    method: r.method,
+    date: r.updatedAt.toISOString(),
+    outlier: flags[i].outlier,
+    modifiedZ: flags[i].modifiedZ,
+  }));
+}
+
+const groupKey = (revisionId: number, familyId: number) => `${revisionId}:${familyId}`;
+
+function groupBy<T>(rows: T[], key: (row: T) => string): Map<string, T[]> {
+  const out = new Map<string, T[]>();
+  for (const row of rows) {
+    const k = key(row);
+    const list = out.get(k);
+    if (list) list.push(row);
+    else out.set(k, [row]);
+  }
+  return out;
+}
+
+/**
+ * Every revision's published values with points, and every firmware family's units (the filter
+ * needs to know which family slugs exist). Four queries, run side by side.
+ */
+export async function readBoardValues(sequelize: Sequelize, header: BoardHeader): Promise<{ values: BoardValues; allFamilies: FamilyUnits[] }> {
+  const bind = { board: header.id };
+  const [revisions, stats, points, families] = await Promise.all([
+    sequelize.query<{ id: number; label: string; position: number }>(REVISIONS_SQL, { bind, type: QueryTypes.SELECT }),
+    sequelize.query<StatsRow>(STATS_SQL, { bind, type: QueryTypes.SELECT }),
+    sequelize.query<PointRow>(POINTS_SQL, { bind, type: QueryTypes.SELECT }),
+    sequelize.query<FamilyRow>(FAMILIES_SQL, { type: QueryTypes.SELECT }),
+  ]);
+
+  const unitsById = new Map(families.map((f) => [f.id, familyUnits(f)]));
+  const statsByGroup = groupBy(stats, (r) => groupKey(r.revisionId, r.familyId));
+  const pointsByGroup = groupBy(points, (r) => groupKey(r.revisionId, r.familyId));
+  const usedFamilies = new Set<number>();
+  let newest: string | null = null;
+
+  const revisionValues = revisions.map((revision) => {
+    const groups: GroupValues[] = [];
+    for (const family of families) {
+      const rows = statsByGroup.get(groupKey(revision.id, family.id));
+      if (!rows) continue;
+      const units = unitsById.get(family.id)!;
+      const groupPoints = pointsByGroup.get(groupKey(revision.id, family.id)) ?? [];
+      const group = { family: family.slug, lastChangeAt: "", voltageScale: null, currentScale: null, currentOffset: null } as GroupValues;
+      for (const quantity of QUANTITIES) {
+        const row = rows.find((r) => r.quantity === quantity);
+        if (!row) continue;
+        const q = quantityValues(row, units, pointsOf(groupPoints, quantity));
+        group[QUANTITY_KEYS[quantity]] = q;
+        if (q.lastChangeAt > group.lastChangeAt) group.lastChangeAt = q.lastChangeAt;
+      }
+      if (newest === null || group.lastChangeAt > newest) newest = group.lastChangeAt;
+      usedFamilies.add(family.id);
+      groups.push(group);
+    }
+    return { id: revision.id, label: revision.label, position: revision.position, families: groups };
+  });
+
+  return {
+    values: {
+      board: { slug: header.slug, name: header.name, kind: header.kind, manufacturer: { slug: header.manufacturerSlug, name: header.manufacturerName } },
+      families: families.filter((f) => usedFamilies.has(f.id)).map((f) => unitsById.get(f.id)!),
+      revisions: revisionValues,
+      lastChangeAt: newest,
+    },
+    allFamilies: [...unitsById.values()],
+  };
+}

@@ -20,6 +20,22 @@ const EnvSchema = z.object({
   PORT: port.default(3000),
   /** Log every SQL statement (1) or not (0). */
   SHUNTBOOK_SQL_LOG: z.enum(["0", "1"]).default("0").transform((v) => v === "1"),
+  /** Outgoing mail. Unset: `npm start` and `npm test` run a local SMTP catcher (maildev) and set it. */
+  SMTP_URL: z.string().regex(/^smtps?:\/\/\S+$/, "must be an smtp:// or smtps:// URL").optional(),
+  /** Web inbox of the local SMTP catcher, shown in the README and used by browser tests. */
+  MAIL_INBOX_URL: z.url().optional(),
+  MAIL_FROM: z.string().min(3).default("Shuntbook <no-reply@shuntbook.test>"),
+  /** Ports of the local SMTP catcher that the launcher starts when SMTP_URL is unset. */
+  SHUNTBOOK_MAIL_SMTP_PORT: port.default(1025),
+  SHUNTBOOK_MAIL_WEB_PORT: port.default(1080),
+  /** S3-compatible store for evidence photos. Unset: the launcher runs a local fake (s3rver) and sets it. */
+  S3_ENDPOINT: z.url().optional(),
+  S3_REGION: z.string().min(1).default("us-east-1"),
+  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, "must be a valid bucket name").default("shuntbook-evidence"),
+  // s3rver's fixed credentials; a real store gets its own through the environment
+  S3_ACCESS_KEY_ID: z.string().min(1).default("S3RVER"),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).default("S3RVER"),
+  SHUNTBOOK_S3_PORT: port.default(4569),
   /** Set by `npm test` for the test files: the throwaway cluster and the app under test. */
   SHUNTBOOK_TEST_PG_URL: postgresUrl.optional(),
   SHUNTBOOK_TEST_APP_URL: z.url().optional(),

@@ -2,6 +2,7 @@ import path from "node:path";
 import { databaseUrl, env } from "@/lib/env";
 import { spawnGroup, stopGroup, waitForExit } from "./child-process";
 import { prepareDatabase } from "./database";
+import { startFakes } from "./fakes";
 import { Lifecycle } from "./lifecycle";
 import { log } from "./log";
 import { buildIfNeeded, nextBin } from "./next-build";
@@ -20,7 +21,15 @@ export async function runApp(mode: "start" | "dev"): Promise<number> {
     const url = await bringUpDatabase(root, lifecycle);
     await prepareDatabase(url, { seedWhenEmpty: true });
 
-    const appEnv = { ...process.env, DATABASE_URL: url, PORT: String(e.PORT) };
+    const services = await startFakes(root, lifecycle, {
+      stateDir: path.resolve(root, e.SHUNTBOOK_DATA_DIR),
+      smtpPort: e.SHUNTBOOK_MAIL_SMTP_PORT,
+      webPort: e.SHUNTBOOK_MAIL_WEB_PORT,
+      s3Port: e.SHUNTBOOK_S3_PORT,
+      bucket: e.S3_BUCKET,
+      env: process.env,
+    });
+    const appEnv = { ...process.env, ...services, DATABASE_URL: url, PORT: String(e.PORT) };
     if (mode === "start") buildIfNeeded(root, { ...appEnv, NODE_ENV: "production" });
     const app = spawnGroup(process.execPath, [nextBin(root), mode, "-H", "127.0.0.1", "-p", String(e.PORT)], {
       cwd: root,
@@ -29,6 +38,7 @@ export async function runApp(mode: "start" | "dev"): Promise<number> {
     });
     lifecycle.onStop("the app", () => stopGroup(app));
     log(`Shuntbook: http://127.0.0.1:${e.PORT}  (Ctrl-C stops the app and the database)`);
+    if (services.MAIL_INBOX_URL) log(`mail sent by the app lands in the inbox at ${services.MAIL_INBOX_URL}`);
     const code = await waitForExit(app);
     await lifecycle.stop();
     return code;

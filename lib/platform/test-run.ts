@@ -6,6 +6,7 @@ import { env } from "@/lib/env";
 import { migrateUp, seedUp } from "@/lib/db/migrate";
 import { TEMPLATE_DATABASES } from "./test-templates";
 import { spawnGroup, stopGroup, waitForExit } from "./child-process";
+import { startFakes } from "./fakes";
 import { Lifecycle } from "./lifecycle";
 import { log } from "./log";
 import { buildIfNeeded, nextBin } from "./next-build";
@@ -18,7 +19,8 @@ const CHROMIUM = "/usr/bin/chromium";
 /**
  * `npm test`: one throwaway cluster in a temporary folder on a free port (never .data), the
  * migrations run from zero into a template database (and a seeded copy), the built app served
- * on a seeded database for the browser tests, then vitest over every test. Everything started
+ * on a seeded database for the browser tests, the mail catcher and the S3 fake on free ports,
+ * then vitest over every test. Everything started
  * is stopped again, whatever the tests do, and the exit status is vitest's.
  */
 export async function runTests(vitestArgs: string[]): Promise<number> {
@@ -26,15 +28,26 @@ export async function runTests(vitestArgs: string[]): Promise<number> {
   const lifecycle = new Lifecycle();
   try {
     ensureChromium();
-    const cluster = await startThrowawayCluster(lifecycle);
+    const scratch = mkdtempSync(path.join(os.tmpdir(), "shuntbook-test-"));
+    lifecycle.onStop("the test scratch folder", () => rmSync(scratch, { recursive: true, force: true }));
+    const cluster = await startThrowawayCluster(scratch, lifecycle);
     await prepareTemplates(cluster);
+    const services = await startFakes(root, lifecycle, {
+      stateDir: scratch,
+      smtpPort: await freePort(),
+      webPort: await freePort(),
+      s3Port: await freePort(),
+      bucket: env().S3_BUCKET,
+      env: {},
+    });
 
-    const appUrl = env().SHUNTBOOK_TEST_APP === "1" ? await startAppUnderTest(root, cluster, lifecycle) : undefined;
+    const appUrl = env().SHUNTBOOK_TEST_APP === "1" ? await startAppUnderTest(root, cluster, services, lifecycle) : undefined;
     const vitest = spawnGroup(process.execPath, [path.join(root, "node_modules/vitest/vitest.mjs"), "run", ...vitestArgs], {
       cwd: root,
       stdio: "inherit",
       env: {
         ...process.env,
+        ...services,
         NODE_ENV: "test",
         SHUNTBOOK_TEST_PG_URL: cluster.url("postgres"),
         ...(appUrl ? { SHUNTBOOK_TEST_APP_URL: appUrl } : {}),
@@ -58,10 +71,8 @@ function ensureChromium(): void {
   aptInstall(["chromium"]);
 }
 
-async function startThrowawayCluster(lifecycle: Lifecycle): Promise<Cluster> {
-  const base = mkdtempSync(path.join(os.tmpdir(), "shuntbook-test-"));
-  lifecycle.onStop("the test cluster's folder", () => rmSync(base, { recursive: true, force: true }));
-  const cluster = describeCluster(base, await freePort());
+async function startThrowawayCluster(scratch: string, lifecycle: Lifecycle): Promise<Cluster> {
+  const cluster = describeCluster(scratch, await freePort());
   initCluster(cluster);
   startCluster(cluster, { durable: false });
   lifecycle.onStop("PostgreSQL", () => stopCluster(cluster));
@@ -88,11 +99,11 @@ async function withSequelize<T>(url: string, fn: (s: ReturnType<typeof createSeq
 }
 
 /** The production build, served on its own seeded database, for the browser and HTTP tests. */
-async function startAppUnderTest(root: string, cluster: Cluster, lifecycle: Lifecycle): Promise<string> {
+async function startAppUnderTest(root: string, cluster: Cluster, services: Record<string, string>, lifecycle: Lifecycle): Promise<string> {
   const database = "shuntbook_app_under_test";
   await ensureDatabase(cluster.url("postgres"), database, TEMPLATE_DATABASES.seeded);
   const port = await freePort();
-  const appEnv = { ...process.env, NODE_ENV: "production" as const, DATABASE_URL: cluster.url(database), PORT: String(port) };
+  const appEnv = { ...process.env, ...services, NODE_ENV: "production" as const, DATABASE_URL: cluster.url(database), PORT: String(port) };
   buildIfNeeded(root, appEnv);
   const app = spawnGroup(process.execPath, [nextBin(root), "start", "-H", "127.0.0.1", "-p", String(port)], {
     cwd: root,

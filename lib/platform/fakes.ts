@@ -1,0 +1,93 @@
+import { mkdirSync } from "node:fs";
+import path from "node:path";
+import { spawnGroup, stopGroup } from "./child-process";
+import type { Lifecycle } from "./lifecycle";
+import { log } from "./log";
+import { waitForHttp } from "./wait-for-http";
+
+// Local stand-ins for the hosted services, on loopback only: an SMTP catcher with a web inbox for
+// outgoing mail, and an S3-compatible store for evidence photos. The app reaches them through the
+// same SDKs it would use against the real services (nodemailer, @aws-sdk/client-s3).
+
+export type MailCatcher = { smtpUrl: string; inboxUrl: string };
+export type ObjectStore = { endpoint: string };
+
+function nodeBin(root: string, relative: string): string {
+  return path.join(root, "node_modules", relative);
+}
+
+export async function startMailCatcher(
+  root: string,
+  opts: { smtpPort: number; webPort: number; mailDir: string; lifecycle: Lifecycle },
+): Promise<MailCatcher> {
+  mkdirSync(opts.mailDir, { recursive: true });
+  const child = spawnGroup(
+    process.execPath,
+    [
+      nodeBin(root, "maildev/dist/bin/maildev.js"),
+      "--ip", "127.0.0.1", "--web-ip", "127.0.0.1",
+      "--smtp", String(opts.smtpPort), "--web", String(opts.webPort),
+      "--mail-directory", opts.mailDir, "--silent",
+    ],
+    // maildev warns that some of its dependencies prefer Node 22; it works on 20 (stack notes)
+    { cwd: root, stdio: ["ignore", "ignore", "ignore"] },
+  );
+  opts.lifecycle.onStop("the mail catcher", () => stopGroup(child));
+  const inboxUrl = `http://127.0.0.1:${opts.webPort}`;
+  await waitForHttp(`${inboxUrl}/api/email`, 30_000);
+  log(`mail catcher: SMTP 127.0.0.1:${opts.smtpPort}, inbox ${inboxUrl}`);
+  return { smtpUrl: `smtp://127.0.0.1:${opts.smtpPort}`, inboxUrl };
+}
+
+export async function startObjectStore(
+  root: string,
+  opts: { port: number; dataDir: string; bucket: string; lifecycle: Lifecycle },
+): Promise<ObjectStore> {
+  mkdirSync(opts.dataDir, { recursive: true });
+  const child = spawnGroup(
+    process.execPath,
+    [
+      nodeBin(root, "s3rver/bin/s3rver.js"),
+      "--address", "127.0.0.1", "--port", String(opts.port), "--directory", opts.dataDir,
+      "--configure-bucket", opts.bucket, "--silent",
+    ],
+    { cwd: root, stdio: ["ignore", "ignore", "inherit"] },
+  );
+  opts.lifecycle.onStop("the object store", () => stopGroup(child));
+  const endpoint = `http://127.0.0.1:${opts.port}`;
+  await waitForHttp(endpoint, 30_000);
+  log(`object store (S3 fake): ${endpoint}, bucket ${opts.bucket}`);
+  return { endpoint };
+}
+
+/**
+ * Starts whichever fakes the environment does not replace with a real service, and returns the
+ * variables the app needs to reach them.
+ */
+export async function startFakes(
+  root: string,
+  lifecycle: Lifecycle,
+  opts: {
+    stateDir: string;
+    smtpPort: number;
+    webPort: number;
+    s3Port: number;
+    bucket: string;
+    /** Variables that may already name real services (then no fake is started). */
+    env: Partial<Record<"SMTP_URL" | "S3_ENDPOINT", string | undefined>>;
+  },
+): Promise<Record<string, string>> {
+  const out: Record<string, string> = {};
+  if (!opts.env.SMTP_URL) {
+    const mail = await startMailCatcher(root, {
+      smtpPort: opts.smtpPort, webPort: opts.webPort, mailDir: path.join(opts.stateDir, "mail"), lifecycle,
+    });
+    out.SMTP_URL = mail.smtpUrl;
+    out.MAIL_INBOX_URL = mail.inboxUrl;
+  }
+  if (!opts.env.S3_ENDPOINT) {
+    const store = await startObjectStore(root, { port: opts.s3Port, dataDir: path.join(opts.stateDir, "s3"), bucket: opts.bucket, lifecycle });
+    out.S3_ENDPOINT = store.endpoint;
+  }
+  return out;
+}

@@ -27,7 +27,7 @@ export async function runApp(mode: "start" | "dev"): Promise<number> {
       webPort: e.SHUNTBOOK_MAIL_WEB_PORT,
       s3Port: e.SHUNTBOOK_S3_PORT,
       bucket: e.S3_BUCKET,
-      env: process.env,
+      env: { SMTP_URL: e.SMTP_URL, S3_ENDPOINT: e.S3_ENDPOINT },
     });
     const appEnv = { ...process.env, ...services, DATABASE_URL: url, PORT: String(e.PORT) };
     if (mode === "start") buildIfNeeded(root, { ...appEnv, NODE_ENV: "production" });

@@ -1,0 +1,129 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { cache, type ReactNode } from "react";
+import { RevisionHardware } from "@/components/revision-hardware";
+import { SafetyNote } from "@/components/safety-note";
+import { formatCells, formatMounting } from "@/lib/catalogue/format";
+import { getBoardBySlug } from "@/lib/catalogue/get-board";
+import { kindLabel } from "@/lib/catalogue/kinds";
+import { catalogueQueryString } from "@/lib/catalogue/search-params";
+
+export const dynamic = "force-dynamic";
+
+type Props = { params: Promise<{ slug: string }> };
+
+// metadata and the page read the same board: one query per request
+const loadBoard = cache(getBoardBySlug);
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const board = await loadBoard((await params).slug);
+  if (!board) return { title: "Board not found" };
+  return {
+    title: `${board.name} by ${board.manufacturer.name}`,
+    description: `Sensor hardware and community calibration values for the ${board.manufacturer.name} ${board.name}, per revision.`,
+  };
+}
+
+export default async function BoardPage({ params }: Props) {
+  const board = await loadBoard((await params).slug);
+  if (!board) notFound();
+
+  const facts: { term: string; value: ReactNode }[] = [
+    {
+      term: "Mounting (mm)",
+      value: (
+        <Link
+          href={`/boards${catalogueQueryString({ mounting: board.mountingPattern })}`}
+          className="font-mono whitespace-nowrap"
+          aria-label={`${formatMounting(board.mountingPattern)} millimetres: show boards with this mounting`}
+        >
+          {formatMounting(board.mountingPattern)}
+        </Link>
+      ),
+    },
+    { term: "Cells", value: formatCells(board.minCells, board.maxCells) },
+    { term: "Revisions", value: board.revisions.length },
+    { term: "Approved values", value: board.revisions.reduce((sum, r) => sum + r.approvedCount, 0) },
+  ];
+
+  return (
+    <div className="space-y-8">
+      <nav aria-label="Breadcrumb">
+        <ol className="flex flex-wrap items-center gap-2 text-small">
+          <li>
+            <Link href="/boards">Boards</Link>
+          </li>
+          <li aria-hidden="true" className="text-muted">
+            /
+          </li>
+          <li>
+            <span aria-current="page">{board.name}</span>
+          </li>
+        </ol>
+      </nav>
+
+      <header>
+        <p className="font-display text-lg font-bold tracking-wider uppercase">
+          <Link href={`/boards${catalogueQueryString({ kind: board.kind })}`} className="no-underline hover:underline">
+            {kindLabel(board.kind)}
+          </Link>
+        </p>
+        <h1 className="font-display text-title uppercase">{board.name}</h1>
+        <p className="mt-2 text-lead">
+          by{" "}
+          {board.manufacturer.website ? (
+            <a href={board.manufacturer.website} rel="external noopener noreferrer" className="font-semibold">
+              {board.manufacturer.name}
+            </a>
+          ) : (
+            <strong>{board.manufacturer.name}</strong>
+          )}
+        </p>
+      </header>
+
+      <div className="grid gap-8 lg:grid-cols-[1fr_24rem] lg:items-start">
+        <div className="space-y-6">
+          <dl className="grid grid-cols-2 gap-px overflow-hidden rounded-md border-3 border-rule bg-rule sm:grid-cols-4">
+            {facts.map((f) => (
+              <div key={f.term} className="bg-surface px-4 py-3">
+                <dt className="font-display text-base font-semibold tracking-wide text-muted uppercase">{f.term}</dt>
+                <dd className="mt-1 font-mono text-lg">{f.value}</dd>
+              </div>
+            ))}
+          </dl>
+
+          <div>
+            <h2 className="font-display text-lg font-bold tracking-wide uppercase">Also known as</h2>
+            {board.aliases.length > 0 ? (
+              <ul className="mt-2 flex flex-wrap gap-2">
+                {board.aliases.map((alias) => (
+                  <li key={alias} className="rounded-full border-2 border-rule-soft bg-surface px-3 py-1">
+                    {alias}
+                  </li>
+                ))}
+              </ul>
+            ) : (
+              <p className="mt-1 sb-unknown">no other names on record</p>
+            )}
+          </div>
+
+          {board.description && <p className="max-w-prose">{board.description}</p>}
+        </div>
+
+        <SafetyNote />
+      </div>
+
+      <section aria-labelledby="revisions-title" className="space-y-4">
+          <h2 id="revisions-title" className="font-display text-heading uppercase">
+            Revisions and sensor hardware
+          </h2>
+          {board.revisions.length > 0 ? (
+            board.revisions.map((revision) => <RevisionHardware key={revision.id} revision={revision} />)
+          ) : (
+            <p className="sb-unknown">No revision of this board is on record yet.</p>
+          )}
+      </section>
+    </div>
+  );
+}

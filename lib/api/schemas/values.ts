@@ -76,9 +76,15 @@ export const QuantityValuesSchema = z
     computedAt: iso,
     points: z.array(ValuePointSchema).optional().meta({ description: "Only with points=1; oldest first." }),
   })
-  .meta({ id: "QuantityValues", description: "Statistics of one setting; every figure is in setting steps." });
+  .meta({
+    id: "QuantityValues",
+    description: "Statistics of one setting; every figure is in setting steps. Null when nobody has calibrated this setting yet.",
+  });
 
-const quantity = QuantityValuesSchema.nullable().meta({ description: "Null when nobody has calibrated this setting yet." });
+// Null when nobody has calibrated this setting yet. No .meta() here: it would inline the schema
+// instead of referencing it. (zod-to-openapi marks the QuantityValues component itself nullable
+// because its first use is nullable; that holds as long as every use is.)
+const quantity = QuantityValuesSchema.nullable();
 
 export const GroupValuesSchema = z
   .object({

@@ -1,0 +1,85 @@
+import type { OperationView } from "@/lib/api/openapi-view";
+
+// One endpoint of the API docs page: what it does, its parameters, its responses, and a curl line.
+export function ApiOperation({ op, curl }: { op: OperationView; curl: string }) {
+  return (
+    <section id={`op-${op.id}`} aria-labelledby={`op-${op.id}-title`} className="scroll-mt-4 space-y-4 rounded-md border-3 border-rule bg-surface p-4 sm:p-6">
+      <h2 id={`op-${op.id}-title`} className="flex flex-wrap items-baseline gap-3">
+        <span className="rounded-sm bg-ink px-2 py-0.5 font-mono text-base font-bold text-paper">{op.method}</span>
+        <span className="font-mono text-lg font-bold break-all">/api/v1{op.path}</span>
+      </h2>
+      {op.summary && <p className="text-lead">{op.summary}</p>}
+      {op.description && <p className="max-w-prose">{op.description}</p>}
+
+      {op.parameters.length > 0 && (
+        <div>
+          <h3 className="font-display text-lg font-bold tracking-wide uppercase">Parameters</h3>
+          <div className="mt-2 overflow-x-auto">
+            <table className="w-full border-collapse text-left text-small">
+              <thead>
+                <tr className="border-b-2 border-rule">
+                  <th scope="col" className="py-2 pr-4">Name</th>
+                  <th scope="col" className="py-2 pr-4">In</th>
+                  <th scope="col" className="py-2 pr-4">Accepts</th>
+                  <th scope="col" className="py-2">Meaning</th>
+                </tr>
+              </thead>
+              <tbody>
+                {op.parameters.map((p) => (
+                  <tr key={`${p.in}-${p.name}`} className="border-b border-rule-soft align-top">
+                    <th scope="row" className="py-2 pr-4 font-mono font-bold">
+                      {p.name}
+                      {p.required && <span className="ml-1 font-body font-normal text-muted">(required)</span>}
+                    </th>
+                    <td className="py-2 pr-4">{p.in}</td>
+                    <td className="py-2 pr-4">
+                      {p.values ? (
+                        <span className="font-mono">{p.values.join(" | ")}</span>
+                      ) : (
+                        <>
+                          <span className="font-mono">{p.type}</span>
+                          {p.pattern && (
+                            <span className="block text-muted">
+                              pattern <code className="font-mono break-all">{p.pattern}</code>
+                            </span>
+                          )}
+                          {p.limits && <span className="block text-muted">{p.limits}</span>}
+                        </>
+                      )}
+                    </td>
+                    <td className="py-2">{p.description}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </div>
+      )}
+
+      <div>
+        <h3 className="font-display text-lg font-bold tracking-wide uppercase">Responses</h3>
+        <ul className="mt-2 space-y-1">
+          {op.responses.map((r) => (
+            <li key={r.status}>
+              <span className="font-mono font-bold">{r.status}</span> {r.description}
+              {r.ref && (
+                <>
+                  {" "}
+                  Body: <a href={`#schema-${r.ref}`} className="font-mono">{r.ref}</a>.
+                </>
+              )}
+              {r.headers.length > 0 && <span className="text-muted"> Headers: {r.headers.join(", ")}.</span>}
+            </li>
+          ))}
+        </ul>
+      </div>
+
+      <div>
+        <h3 className="font-display text-lg font-bold tracking-wide uppercase">Try it</h3>
+        <pre className="mt-2 overflow-x-auto rounded-md bg-sunken p-3 font-mono text-small">
+          <code>{curl}</code>
+        </pre>
+      </div>
+    </section>
+  );
+}

@@ -41,7 +41,7 @@ export const CatalogueParamsSchema = z.object({
   q: z
     .string()
     .trim()
-    .max(QUERY_MAX_LENGTH, `search text must be at most ${QUERY_MAX_LENGTH} characters`)
+    .max(QUERY_MAX_LENGTH, `q (the search text) must be at most ${QUERY_MAX_LENGTH} characters`)
     .optional(),
   kind: z
     .enum(BOARD_KINDS, { error: `kind must be one of: ${BOARD_KINDS.join(", ")}` })

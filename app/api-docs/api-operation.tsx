@@ -6,7 +6,7 @@ export function ApiOperation({ op, curl }: { op: OperationView; curl: string }) 
     <section id={`op-${op.id}`} aria-labelledby={`op-${op.id}-title`} className="scroll-mt-4 space-y-4 rounded-md border-3 border-rule bg-surface p-4 sm:p-6">
       <h2 id={`op-${op.id}-title`} className="flex flex-wrap items-baseline gap-3">
         <span className="rounded-sm bg-ink px-2 py-0.5 font-mono text-base font-bold text-paper">{op.method}</span>
-        <span className="font-mono text-lg font-bold break-all">/api/v1{op.path}</span>
+        <span className="font-mono text-lg font-bold break-all">{`/api/v1${op.path}`}</span>
       </h2>
       {op.summary && <p className="text-lead">{op.summary}</p>}
       {op.description && <p className="max-w-prose">{op.description}</p>}

@@ -6,8 +6,11 @@ import { QueryTypes } from "sequelize";
 export type Fixture = { familyId: number; revisionIds: number[]; userId: string; boardId: number };
 
 export async function insertFixture(sequelize: Sequelize, opts: { revisions?: number } = {}): Promise<Fixture> {
-  const one = async <T>(sql: string, bind: unknown[] = []) =>
-    (await sequelize.query<T>(sql, { bind, type: QueryTypes.SELECT }))[0];
+  const one = async <T extends object>(sql: string, bind: unknown[] = []): Promise<T> => {
+    const [row] = await sequelize.query<T>(sql, { bind, type: QueryTypes.SELECT });
+    if (!row) throw new Error(`fixture insert returned no row: ${sql}`);
+    return row;
+  };
   const maker = await one<{ id: number }>("INSERT INTO manufacturers (slug, name) VALUES ('fixture-maker', 'Fixture Maker') RETURNING id");
   const board = await one<{ id: number }>(
     "INSERT INTO board_models (manufacturer_id, slug, name, kind, mounting_pattern, max_cells) VALUES ($1, 'fixture-board', 'Fixture Board', 'flight_controller', '20x20', 6) RETURNING id",

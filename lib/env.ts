@@ -18,6 +18,8 @@ const EnvSchema = z.object({
   SHUNTBOOK_PG_BIN: z.string().min(1).optional(),
   /** Port the web app listens on. */
   PORT: port.default(3000),
+  /** Build folder of the app (next.config.mjs reads it too). */
+  SHUNTBOOK_NEXT_DIST_DIR: z.string().regex(/^\.next[\w-]*$/, "must be .next or start with .next").default(".next"),
   /** Log every SQL statement (1) or not (0). */
   SHUNTBOOK_SQL_LOG: z.enum(["0", "1"]).default("0").transform((v) => v === "1"),
   /** Outgoing mail. Unset: `npm start` and `npm test` run a local SMTP catcher (maildev) and set it. */

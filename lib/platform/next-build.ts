@@ -1,10 +1,11 @@
 import { spawnSync } from "node:child_process";
 import { existsSync, readdirSync, statSync } from "node:fs";
 import path from "node:path";
+import { env } from "@/lib/env";
 import { log } from "./log";
 
 // What a production build depends on; a newer file in any of these means the build is stale.
-const BUILD_INPUTS = ["app", "components", "lib", "models", "public", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json", "package-lock.json"];
+const BUILD_INPUTS = ["app", "components", "lib", "models", "public", "proxy.ts", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json", "package-lock.json"];
 
 function newestMtime(target: string): number {
   if (!existsSync(target)) return 0;
@@ -16,7 +17,7 @@ function newestMtime(target: string): number {
 }
 
 export function buildIsStale(root: string): boolean {
-  const buildId = path.join(root, ".next", "BUILD_ID");
+  const buildId = path.join(root, env().SHUNTBOOK_NEXT_DIST_DIR, "BUILD_ID");
   if (!existsSync(buildId)) return true;
   const builtAt = statSync(buildId).mtimeMs;
   return BUILD_INPUTS.some((input) => newestMtime(path.join(root, input)) > builtAt);

@@ -1,4 +1,4 @@
-import { existsSync, mkdirSync } from "node:fs";
+import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -103,8 +103,9 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
   it("malformed catalogue parameters get a page naming each bad field, never a 500", async () => {
     const page = await phone.newPage();
     const res = await page.goto(`/boards?page=abc&kind=bogus&sort=xyz&q=${"x".repeat(101)}`);
-    // 400 comes from the root proxy.ts (lib/catalogue/request-guard.ts); a page alone cannot set it
-    expect(existsSync(path.resolve(__dirname, "../../proxy.ts")) ? [400] : [200, 400]).toContain(res?.status());
+    // a page cannot set its status in the App Router; what matters is a friendly page, never a 500
+    // (a proxy.ts rewrite to the same URL loops under `next start -H 127.0.0.1`, so there is none)
+    expect(res?.status()).toBe(200);
     const alert = page.getByRole("alert");
     for (const field of ["page", "kind", "sort", "q"]) {
       expect(await alert.getByRole("term").filter({ hasText: new RegExp(`^${field}$`) }).count()).toBe(1);

@@ -18,7 +18,9 @@ const loadBoard = cache(getBoardBySlug);
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const board = await loadBoard((await params).slug);
-  if (!board) return { title: "Board not found" };
+  // notFound() here as well as in the page: metadata is resolved first, so the 404 is decided
+  // before any HTML streams and the not-found page is rendered on the server
+  if (!board) notFound();
   return {
     title: `${board.name} by ${board.manufacturer.name}`,
     description: `Sensor hardware and community calibration values for the ${board.manufacturer.name} ${board.name}, per revision.`,

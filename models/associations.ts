@@ -1,9 +1,14 @@
 import { BoardAlias } from "./BoardAlias";
 import { BoardModel } from "./BoardModel";
 import { BoardRevision } from "./BoardRevision";
+import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { Manufacturer } from "./Manufacturer";
+import { IdempotencyKey } from "./IdempotencyKey";
 import { Submission } from "./Submission";
+import { SubmissionBenchPoint } from "./SubmissionBenchPoint";
+import { SubmissionCycle } from "./SubmissionCycle";
+import { SubmissionVoltageReading } from "./SubmissionVoltageReading";
 import { User } from "./User";
 
 // Every association lives here, so the graph can be read in one place.
@@ -25,4 +30,22 @@ export function associate(): void {
 
   User.hasMany(Submission, { foreignKey: "contributorId", as: "submissions" });
   Submission.belongsTo(User, { foreignKey: "contributorId", as: "contributor" });
+
+  User.hasMany(EvidencePhoto, { foreignKey: "uploaderId", as: "evidencePhotos" });
+  EvidencePhoto.belongsTo(User, { foreignKey: "uploaderId", as: "uploader" });
+
+  Submission.hasMany(EvidencePhoto, { foreignKey: "submissionId", as: "evidencePhotos" });
+  EvidencePhoto.belongsTo(Submission, { foreignKey: "submissionId", as: "submission" });
+
+  // a submission's evidence, ordered by position when read
+  Submission.hasMany(SubmissionVoltageReading, { foreignKey: "submissionId", as: "voltageReadings" });
+  SubmissionVoltageReading.belongsTo(Submission, { foreignKey: "submissionId", as: "submission" });
+  Submission.hasMany(SubmissionCycle, { foreignKey: "submissionId", as: "cycles" });
+  SubmissionCycle.belongsTo(Submission, { foreignKey: "submissionId", as: "submission" });
+  Submission.hasMany(SubmissionBenchPoint, { foreignKey: "submissionId", as: "benchPoints" });
+  SubmissionBenchPoint.belongsTo(Submission, { foreignKey: "submissionId", as: "submission" });
+
+  User.hasMany(IdempotencyKey, { foreignKey: "userId", as: "idempotencyKeys" });
+  IdempotencyKey.belongsTo(User, { foreignKey: "userId", as: "user" });
+  IdempotencyKey.belongsTo(Submission, { foreignKey: "submissionId", as: "submission" });
 }

@@ -4,12 +4,19 @@ import { associate } from "./associations";
 import { BoardAlias } from "./BoardAlias";
 import { BoardModel } from "./BoardModel";
 import { BoardRevision } from "./BoardRevision";
+import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
+import { IdempotencyKey } from "./IdempotencyKey";
 import { Manufacturer } from "./Manufacturer";
 import { Submission } from "./Submission";
+import { SubmissionBenchPoint } from "./SubmissionBenchPoint";
+import { SubmissionCycle } from "./SubmissionCycle";
+import { SubmissionVoltageReading } from "./SubmissionVoltageReading";
 import { User } from "./User";
 
-export { BoardAlias, BoardModel, BoardRevision, FirmwareFamily, Manufacturer, Submission, User };
+export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, Manufacturer, Submission, User };
+export { IdempotencyKey, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
+export { MEASURED_AT, type MeasuredAt } from "./SubmissionVoltageReading";
 export { BOARD_KINDS, type BoardKind } from "./BoardModel";
 export { ROLES, type Role } from "./User";
 export { METHODS, SENSING_SOURCES, STATUSES, type Method, type SensingSource, type SubmissionStatus } from "./Submission";
@@ -20,7 +27,8 @@ let initialisedWith: Sequelize | undefined;
 export function db(): Sequelize {
   const sequelize = getSequelize();
   if (initialisedWith !== sequelize) {
-    for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission]) {
+    for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission, EvidencePhoto,
+      SubmissionVoltageReading, SubmissionCycle, SubmissionBenchPoint, IdempotencyKey]) {
       model.initModel(sequelize);
     }
     associate();

@@ -11,6 +11,7 @@ const EXPECTED_TABLES = [
   "board_models",
   "board_revisions",
   "board_stats",
+  "evidence_photos",
   "firmware_families",
   "manufacturers",
   "submissions",

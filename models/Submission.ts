@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import type { EvidenceSummary } from "@/lib/calibration/evidence";
 import type { BoardRevision } from "./BoardRevision";
 import type { FirmwareFamily } from "./FirmwareFamily";
 import type { User } from "./User";
@@ -24,6 +25,10 @@ export class Submission extends Model<InferAttributes<Submission>, InferCreation
   declare status: CreationOptional<SubmissionStatus>;
   declare notes: string | null;
   declare version: CreationOptional<number>;
+  /** Set by lib/submissions from the evidence (migrations/20261205000100-…). */
+  declare evidenceMismatch: CreationOptional<boolean>;
+  declare evidenceSummary: EvidenceSummary | null;
+  declare moderatorNote: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -44,6 +49,9 @@ export class Submission extends Model<InferAttributes<Submission>, InferCreation
         status: { type: DataTypes.TEXT, allowNull: false, defaultValue: "pending" },
         notes: { type: DataTypes.TEXT, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        evidenceMismatch: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        evidenceSummary: { type: DataTypes.JSONB, allowNull: true },
+        moderatorNote: { type: DataTypes.TEXT, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

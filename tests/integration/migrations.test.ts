@@ -13,7 +13,11 @@ const EXPECTED_TABLES = [
   "board_stats",
   "evidence_photos",
   "firmware_families",
+  "idempotency_keys",
   "manufacturers",
+  "submission_bench_points",
+  "submission_cycles",
+  "submission_voltage_readings",
   "submissions",
   "users",
 ];

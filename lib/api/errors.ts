@@ -9,6 +9,10 @@ export const ERROR_CODES = {
   403: "forbidden",
   404: "not_found",
   405: "method_not_allowed",
+  // a stale version or a state that no longer allows the change (RFC 9110 §15.5.10)
+  409: "conflict",
+  // well-formed but refused, e.g. an Idempotency-Key reused with a different body (RFC 9110 §15.5.21)
+  422: "unprocessable_content",
   500: "internal_error",
   503: "service_unavailable",
 } as const;

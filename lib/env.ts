@@ -38,6 +38,18 @@ const EnvSchema = z.object({
   S3_ACCESS_KEY_ID: z.string().min(1).default("S3RVER"),
   S3_SECRET_ACCESS_KEY: z.string().min(1).default("S3RVER"),
   SHUNTBOOK_S3_PORT: port.default(4569),
+  /**
+   * Public base URL of the app, for the links in mails (magic link, password reset) and for
+   * next-auth's callbacks. `npm start` / `npm test` set it to the address they serve on.
+   */
+  NEXTAUTH_URL: z.url().optional(),
+  /**
+   * Key that next-auth derives the session JWT's encryption key from. `npm start` generates one
+   * once and keeps it in <SHUNTBOOK_DATA_DIR>/nextauth-secret; `npm test` makes a random one per run.
+   */
+  NEXTAUTH_SECRET: z.string().min(32, "must be at least 32 characters (e.g. openssl rand -base64 32)").optional(),
+  /** `0` keeps the job worker (lib/jobs) out of the app process, e.g. on web-only instances. */
+  SHUNTBOOK_JOB_WORKER: z.enum(["0", "1"]).default("1"),
   /** Set by `npm test` for the test files: the throwaway cluster and the app under test. */
   SHUNTBOOK_TEST_PG_URL: postgresUrl.optional(),
   SHUNTBOOK_TEST_APP_URL: z.url().optional(),

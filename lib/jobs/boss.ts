@@ -1,0 +1,53 @@
+import PgBoss from "pg-boss";
+import { databaseUrl } from "@/lib/env";
+import { JOBS } from "./handlers";
+
+// pg-boss keeps its jobs in PostgreSQL, in its own schema `pgboss` (created by the migration
+// 20261202001000-create-pgboss-schema from pg-boss's own construction plan, so that a fresh
+// database and every test clone already have it; pg-boss only checks the version at start).
+// One instance per process, on its own small pool, made on first use and kept on globalThis so
+// that dev reloads do not leak pools.
+
+export const BOSS_SCHEMA = "pgboss";
+
+type BossHolder = { url: string; boss: PgBoss; started: Promise<PgBoss> };
+const globalForJobs = globalThis as unknown as { shuntbookBoss?: BossHolder };
+
+/** The started pg-boss instance for DATABASE_URL, with every queue in JOBS created. */
+export function boss(opts: { supervise?: boolean } = {}): Promise<PgBoss> {
+  const url = databaseUrl();
+  const held = globalForJobs.shuntbookBoss;
+  if (held && held.url === url) return held.started;
+  const instance = new PgBoss({
+    connectionString: url,
+    schema: BOSS_SCHEMA,
+    max: 3,
+    // maintenance (expiring stuck jobs, archiving) runs where the worker runs
+    supervise: opts.supervise ?? false,
+    schedule: false,
+  });
+  instance.on("error", (error) => console.error("[jobs] pg-boss:", error));
+  const started = (async () => {
+    await instance.start();
+    for (const [name, def] of Object.entries(JOBS)) {
+      const options = { name, retryLimit: def.retryLimit, retryDelay: def.retryDelay, retryBackoff: def.retryBackoff, expireInSeconds: def.expireInSeconds };
+      await instance.createQueue(name, options); // ON CONFLICT DO NOTHING inside pg-boss
+      await instance.updateQueue(name, options); // so a changed retry policy applies to an existing queue
+    }
+    return instance;
+  })();
+  globalForJobs.shuntbookBoss = { url, boss: instance, started };
+  started.catch(() => {
+    if (globalForJobs.shuntbookBoss?.boss === instance) globalForJobs.shuntbookBoss = undefined;
+  });
+  return started;
+}
+
+/** Stops this process's pg-boss (workers finish their current job first). Tests call it in afterAll. */
+export async function stopBoss(): Promise<void> {
+  const held = globalForJobs.shuntbookBoss;
+  globalForJobs.shuntbookBoss = undefined;
+  if (!held) return;
+  const instance = await held.started.catch(() => undefined);
+  await instance?.stop({ graceful: true, wait: true, timeout: 10_000 });
+}

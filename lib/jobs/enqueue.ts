@@ -1,0 +1,31 @@
+import { QueryTypes, type Transaction } from "sequelize";
+import { db } from "@/models";
+import { boss } from "./boss";
+import { isJobName, JOBS } from "./handlers";
+
+type Executor = { executeSql(text: string, values: unknown[]): Promise<{ rows: unknown[] }> };
+
+/**
+ * pg-boss 10 lets send() run its INSERT through any executor. This one runs it on the connection
+ * of a Sequelize transaction, so the job is committed or rolled back together with the rows the
+ * transaction writes: a status change and the mail that tells someone about it commit as one, and
+ * a mail that later fails to send is retried by the queue without touching the status change.
+ */
+function inTransaction(transaction: Transaction): Executor {
+  return {
+    executeSql: async (text, values) => {
+      const rows = await db().query(text, { bind: values, transaction, type: QueryTypes.SELECT });
+      return { rows };
+    },
+  };
+}
+
+/** Puts a job on the queue (inside `opts.transaction` when given). Throws on an unknown job or bad data. */
+export async function enqueue(name: string, data: object, opts: { transaction?: Transaction } = {}): Promise<void> {
+  if (!isJobName(name)) throw new Error(`unknown job '${name}': add it to lib/jobs/handlers.ts`);
+  const checked = JOBS[name].parse(data) as object; // refuse bad data now, not at 3 a.m. in the worker
+  const queue = await boss();
+  const id = await queue.send(name, checked, opts.transaction ? { db: inTransaction(opts.transaction) } : {});
+  // pg-boss returns null when the insert matched no queue row; never drop a job silently
+  if (!id) throw new Error(`job '${name}' was not enqueued: its queue does not exist`);
+}

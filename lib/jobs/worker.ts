@@ -1,0 +1,55 @@
+import type PgBoss from "pg-boss";
+import { boss } from "./boss";
+import { JOBS, type JobName } from "./handlers";
+
+// The job worker. In the app it runs inside the Next.js server process (instrumentation.ts starts
+// it once per process); several app instances may each run one, since pg-boss hands every job to
+// exactly one fetcher (SELECT … FOR UPDATE SKIP LOCKED). Tests call drainJobsOnce() instead.
+
+async function runOne(name: JobName, data: unknown): Promise<void> {
+  const def = JOBS[name];
+  await def.run(def.parse(data) as never);
+}
+
+/** Starts polling every queue in JOBS (every 2 s). Safe to call twice: the second call does nothing. */
+export async function startJobWorker(): Promise<void> {
+  const g = globalThis as unknown as { shuntbookWorker?: Promise<void> };
+  g.shuntbookWorker ??= (async () => {
+    const queue = await boss({ supervise: true });
+    for (const name of Object.keys(JOBS) as JobName[]) {
+      // a throw fails the job; pg-boss then retries it per the queue's policy
+      await queue.work(name, { pollingIntervalSeconds: 2, batchSize: 1 }, async ([job]) => runOne(name, job.data));
+    }
+    console.log(`[jobs] worker polling ${Object.keys(JOBS).join(", ")}`);
+  })();
+  await g.shuntbookWorker;
+}
+
+export type DrainResult = { completed: number; failed: number; errors: string[] };
+
+/**
+ * Fetches every job that is due right now, runs each once, and marks it completed or failed
+ * (failed jobs with retries left come back after their delay). For tests and one-off scripts.
+ */
+export async function drainJobsOnce(): Promise<DrainResult> {
+  const queue = await boss();
+  const result: DrainResult = { completed: 0, failed: 0, errors: [] };
+  for (const name of Object.keys(JOBS) as JobName[]) {
+    let jobs: PgBoss.Job<object>[];
+    while ((jobs = await queue.fetch<object>(name, { batchSize: 20 })).length > 0) {
+      for (const job of jobs) {
+        try {
+          await runOne(name, job.data);
+          await queue.complete(name, job.id);
+          result.completed++;
+        } catch (error) {
+          const message = error instanceof Error ? error.message : String(error);
+          await queue.fail(name, job.id, { message });
+          result.failed++;
+          result.errors.push(`${name} ${job.id}: ${message}`);
+        }
+      }
+    }
+  }
+  return result;
+}

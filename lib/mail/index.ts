@@ -1,0 +1,1 @@
+export { sendMail, MailMessageSchema, type MailMessage } from "./send";

@@ -41,7 +41,8 @@ export function sessionTokenFrom(cookies: ReadonlyMap<string, string>): string |
 /** A Cookie request header as a map (RFC 6265 §5.4 syntax; values are not decoded: JWTs need none). */
 export function parseCookieHeader(header: string | null | undefined): Map<string, string> {
   const out = new Map<string, string>();
-  for (const part of (header ?? "").split(";")) {
+  for (const raw of (header ?? "").split(";")) {
+    const part = raw.trim();
     const eq = part.indexOf("=");
     if (eq <= 0) continue;
     const key = part.slice(0, eq).trim();

@@ -1,4 +1,5 @@
 import path from "node:path";
+import { persistentAuthSecret } from "@/lib/auth/secret-file";
 import { databaseUrl, env } from "@/lib/env";
 import { spawnGroup, stopGroup, waitForExit } from "./child-process";
 import { prepareDatabase } from "./database";
@@ -29,7 +30,7 @@ export async function runApp(mode: "start" | "dev"): Promise<number> {
       bucket: e.S3_BUCKET,
       env: { SMTP_URL: e.SMTP_URL, S3_ENDPOINT: e.S3_ENDPOINT },
     });
-    const appEnv = { ...process.env, ...services, DATABASE_URL: url, PORT: String(e.PORT) };
+    const appEnv = { ...process.env, ...services, ...authEnv(root), DATABASE_URL: url, PORT: String(e.PORT) };
     if (mode === "start") buildIfNeeded(root, { ...appEnv, NODE_ENV: "production" });
     const app = spawnGroup(process.execPath, [nextBin(root), mode, "-H", "127.0.0.1", "-p", String(e.PORT)], {
       cwd: root,
@@ -46,6 +47,18 @@ export async function runApp(mode: "start" | "dev"): Promise<number> {
     await lifecycle.stop();
     throw error;
   }
+}
+
+/**
+ * next-auth's base URL (links in mails point there) and the secret its session JWTs are encrypted
+ * with: the environment's, else the address we serve on and a secret kept in the data folder.
+ */
+function authEnv(root: string): { NEXTAUTH_URL: string; NEXTAUTH_SECRET: string } {
+  const e = env();
+  return {
+    NEXTAUTH_URL: e.NEXTAUTH_URL ?? `http://127.0.0.1:${e.PORT}`,
+    NEXTAUTH_SECRET: e.NEXTAUTH_SECRET ?? persistentAuthSecret(path.resolve(root, e.SHUNTBOOK_DATA_DIR)),
+  };
 }
 
 /**

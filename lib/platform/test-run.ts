@@ -1,6 +1,7 @@
 import { existsSync, mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
+import { randomAuthSecret } from "@/lib/auth/secret-file";
 import { createSequelize } from "@/lib/db/sequelize";
 import { env } from "@/lib/env";
 import { migrateUp, seedUp } from "@/lib/db/migrate";
@@ -41,7 +42,11 @@ export async function runTests(vitestArgs: string[]): Promise<number> {
       env: {},
     });
 
-    const appUrl = env().SHUNTBOOK_TEST_APP === "1" ? await startAppUnderTest(root, cluster, services, lifecycle) : undefined;
+    // one session secret for the app under test and the test files, so that tests/support/auth.ts
+    // can sign session cookies the app accepts; fresh per run
+    const authSecret = randomAuthSecret();
+    const appUrl =
+      env().SHUNTBOOK_TEST_APP === "1" ? await startAppUnderTest(root, cluster, { ...services, NEXTAUTH_SECRET: authSecret }, lifecycle) : undefined;
     const vitest = spawnGroup(process.execPath, [path.join(root, "node_modules/vitest/vitest.mjs"), "run", ...vitestArgs], {
       cwd: root,
       stdio: "inherit",
@@ -50,6 +55,8 @@ export async function runTests(vitestArgs: string[]): Promise<number> {
         ...services,
         NODE_ENV: "test",
         SHUNTBOOK_TEST_PG_URL: cluster.url("postgres"),
+        NEXTAUTH_SECRET: authSecret,
+        NEXTAUTH_URL: appUrl ?? "http://127.0.0.1:3999",
         ...(appUrl ? { SHUNTBOOK_TEST_APP_URL: appUrl } : {}),
         DATABASE_URL: cluster.url(TEMPLATE_DATABASES.migrated),
       },
@@ -103,7 +110,15 @@ async function startAppUnderTest(root: string, cluster: Cluster, services: Recor
   const database = "shuntbook_app_under_test";
   await ensureDatabase(cluster.url("postgres"), database, TEMPLATE_DATABASES.seeded);
   const port = await freePort();
-  const appEnv = { ...process.env, ...services, NODE_ENV: "production" as const, DATABASE_URL: cluster.url(database), PORT: String(port) };
+  const url = `http://127.0.0.1:${port}`;
+  const appEnv = {
+    ...process.env,
+    ...services,
+    NODE_ENV: "production" as const,
+    DATABASE_URL: cluster.url(database),
+    PORT: String(port),
+    NEXTAUTH_URL: url,
+  };
   buildIfNeeded(root, appEnv);
   const app = spawnGroup(process.execPath, [nextBin(root), "start", "-H", "127.0.0.1", "-p", String(port)], {
     cwd: root,
@@ -111,7 +126,6 @@ async function startAppUnderTest(root: string, cluster: Cluster, services: Recor
     env: appEnv,
   });
   lifecycle.onStop("the app under test", () => stopGroup(app));
-  const url = `http://127.0.0.1:${port}`;
   await waitForHttp(url);
   return url;
 }

@@ -1,0 +1,108 @@
+import { encode } from "next-auth/jwt";
+import { randomBytes } from "node:crypto";
+import { env, resetEnvCache } from "@/lib/env";
+import { authSecret, sessionCookieName, SESSION_MAX_AGE_SECONDS } from "@/lib/auth/session-cookie";
+import { db, User, type Role } from "@/models";
+import { runWithRequest } from "./next-headers";
+
+// Sign-in for tests: a session cookie exactly like the one next-auth sets after a real sign-in
+// (an encrypted JWT, A256GCM, keyed from NEXTAUTH_SECRET), for a user of the role you ask for in
+// the current test database. npm test gives vitest and the app under test the same secret, so
+// these cookies also work over HTTP against SHUNTBOOK_TEST_APP_URL.
+//
+// Calling guarded code directly (no HTTP):
+//
+//   import { vi } from "vitest";
+//   vi.mock("next/headers", () => import("@/tests/support/next-headers"));   // top of the file
+//   import { callRoute, inRequest, redirectTarget, sessionCookieFor, withCookie } from "@/tests/support/auth";
+//   useTestDatabase("seeded");
+//
+//   // a route handler (apiRoute guards read the Request's Cookie header; requireUser() inside the
+//   // handler reads next/headers, which callRoute points at the same request)
+//   const cookie = await sessionCookieFor("contributor");
+//   const res = await callRoute(POST, withCookie(new Request("http://test/api/v1/x", { method: "POST", body }), cookie));
+//   const res2 = await callRoute(PATCH, withCookie(req, cookie), { params: Promise.resolve({ id: "7" }) });
+//
+//   // a server action or a page: run it "inside" a request
+//   await inRequest(withCookie(new Request("http://test/contribute"), cookie), () => createSubmission(formData));
+//   // anonymous page access redirects; redirectTarget turns the thrown NEXT_REDIRECT into its URL
+//   expect(await redirectTarget(inRequest(new Request("http://test/moderation"), () => Page()))).toBe("/signin?next=%2Fmoderation");
+//
+// The roles: "contributor" | "moderator" | "admin"; anonymous is simply no cookie (ANONYMOUS).
+
+export const ANONYMOUS = "";
+
+/** Tests run without npm test (plain vitest) still get a secret; the app under test is then not reachable anyway. */
+function ensureSecret(): void {
+  if (!env().NEXTAUTH_SECRET) {
+    process.env.NEXTAUTH_SECRET = randomBytes(32).toString("base64url");
+    resetEnvCache();
+  }
+}
+
+export type TestAccount = { id: string; email: string; name: string; role: Role };
+
+/**
+ * Creates (or reuses, by e-mail) a user with that role in the current test database. The default
+ * e-mail is one per role, so repeated calls give the same person; pass `email` for a second one
+ * (e.g. "another contributor" for ownership checks).
+ */
+export async function testAccount(role: Role, opts: { email?: string; name?: string } = {}): Promise<TestAccount> {
+  db();
+  const email = (opts.email ?? `test-${role}@auth.test`).toLowerCase();
+  const [user] = await User.findOrCreate({
+    where: { email },
+    defaults: { email, name: opts.name ?? `Test ${role}`, role },
+  });
+  if (user.role !== role) await user.update({ role });
+  return { id: user.id, email: user.email, name: user.name, role };
+}
+
+/** A Cookie header value carrying a next-auth session for `account` (what the browser would send). */
+export async function sessionCookieForAccount(account: TestAccount, opts: { maxAgeSeconds?: number } = {}): Promise<string> {
+  ensureSecret();
+  const token = await encode({
+    token: { sub: account.id, email: account.email, name: account.name, role: account.role },
+    secret: authSecret(),
+    maxAge: opts.maxAgeSeconds ?? SESSION_MAX_AGE_SECONDS,
+  });
+  return `${sessionCookieName()}=${token}`;
+}
+
+/** `await sessionCookieFor("moderator")`: a Cookie header value signed in as a user of that role. */
+export async function sessionCookieFor(role: Role, opts: { email?: string; name?: string } = {}): Promise<string> {
+  return sessionCookieForAccount(await testAccount(role, opts));
+}
+
+/** A copy of `request` with the Cookie header set (or left without one for ANONYMOUS). */
+export function withCookie(request: Request, cookie: string): Request {
+  const copy = new Request(request);
+  if (cookie) copy.headers.set("cookie", cookie);
+  else copy.headers.delete("cookie");
+  return copy;
+}
+
+/** Runs fn (a server action, a page component, lib code using next/headers) as if serving `request`. */
+export function inRequest<T>(request: Request, fn: () => T): T {
+  return runWithRequest(request, fn);
+}
+
+/** Calls a route handler with `request`, next/headers pointing at the same request. */
+export function callRoute<C>(handler: (request: Request, context: C) => Promise<Response>, request: Request, context?: C): Promise<Response> {
+  return runWithRequest(request, () => handler(request, (context ?? { params: Promise.resolve({}) }) as C));
+}
+
+/**
+ * The URL a page or server action redirected to (next/navigation's redirect() throws an error
+ * whose digest is "NEXT_REDIRECT;<type>;<url>;<status>;"), or null when it finished without one.
+ */
+export async function redirectTarget(work: Promise<unknown> | (() => unknown)): Promise<string | null> {
+  try {
+    await (typeof work === "function" ? work() : work);
+    return null;
+  } catch (error) {
+    const digest = (error as { digest?: unknown })?.digest;
+    if (typeof digest === "string" && digest.startsWith("NEXT_REDIRECT;")) return digest.split(";").slice(2, -2).join(";");
+    throw error;
+  }
+}

@@ -1,9 +1,12 @@
+import { Account } from "./Account";
+import { AuthSession } from "./AuthSession";
 import { BoardAlias } from "./BoardAlias";
 import { BoardModel } from "./BoardModel";
 import { BoardRevision } from "./BoardRevision";
 import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { Manufacturer } from "./Manufacturer";
+import { PasswordResetToken } from "./PasswordResetToken";
 import { IdempotencyKey } from "./IdempotencyKey";
 import { Submission } from "./Submission";
 import { SubmissionBenchPoint } from "./SubmissionBenchPoint";
@@ -48,4 +51,12 @@ export function associate(): void {
   User.hasMany(IdempotencyKey, { foreignKey: "userId", as: "idempotencyKeys" });
   IdempotencyKey.belongsTo(User, { foreignKey: "userId", as: "user" });
   IdempotencyKey.belongsTo(Submission, { foreignKey: "submissionId", as: "submission" });
+
+  // sign-in (lib/auth); @next-auth/sequelize-adapter adds its own unaliased belongsTo on top
+  User.hasMany(Account, { foreignKey: "userId", as: "accounts" });
+  Account.belongsTo(User, { foreignKey: "userId", as: "user" });
+  User.hasMany(AuthSession, { foreignKey: "userId", as: "authSessions" });
+  AuthSession.belongsTo(User, { foreignKey: "userId", as: "user" });
+  User.hasMany(PasswordResetToken, { foreignKey: "userId", as: "passwordResetTokens" });
+  PasswordResetToken.belongsTo(User, { foreignKey: "userId", as: "user" });
 }

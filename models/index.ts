@@ -1,6 +1,8 @@
 import type { Sequelize } from "sequelize";
 import { getSequelize } from "@/lib/db/sequelize";
+import { Account } from "./Account";
 import { associate } from "./associations";
+import { AuthSession } from "./AuthSession";
 import { BoardAlias } from "./BoardAlias";
 import { BoardModel } from "./BoardModel";
 import { BoardRevision } from "./BoardRevision";
@@ -8,16 +10,20 @@ import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { IdempotencyKey } from "./IdempotencyKey";
 import { Manufacturer } from "./Manufacturer";
+import { PasswordResetToken } from "./PasswordResetToken";
+import { RateLimit } from "./RateLimit";
 import { Submission } from "./Submission";
 import { SubmissionBenchPoint } from "./SubmissionBenchPoint";
 import { SubmissionCycle } from "./SubmissionCycle";
 import { SubmissionVoltageReading } from "./SubmissionVoltageReading";
 import { User } from "./User";
+import { VerificationToken } from "./VerificationToken";
 
 export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, Manufacturer, Submission, User };
 export { IdempotencyKey, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
 export { MEASURED_AT, type MeasuredAt } from "./SubmissionVoltageReading";
 export { BOARD_KINDS, type BoardKind } from "./BoardModel";
+export { Account, AuthSession, PasswordResetToken, RateLimit, VerificationToken };
 export { ROLES, type Role } from "./User";
 export { METHODS, SENSING_SOURCES, STATUSES, type Method, type SensingSource, type SubmissionStatus } from "./Submission";
 
@@ -28,7 +34,8 @@ export function db(): Sequelize {
   const sequelize = getSequelize();
   if (initialisedWith !== sequelize) {
     for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission, EvidencePhoto,
-      SubmissionVoltageReading, SubmissionCycle, SubmissionBenchPoint, IdempotencyKey]) {
+      SubmissionVoltageReading, SubmissionCycle, SubmissionBenchPoint, IdempotencyKey,
+      Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit]) {
       model.initModel(sequelize);
     }
     associate();

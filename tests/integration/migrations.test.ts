@@ -7,6 +7,7 @@ import { useTestDatabase } from "@/tests/support/database";
 const database = useTestDatabase("migrated");
 
 const EXPECTED_TABLES = [
+  "accounts",
   "board_aliases",
   "board_models",
   "board_revisions",
@@ -15,11 +16,15 @@ const EXPECTED_TABLES = [
   "firmware_families",
   "idempotency_keys",
   "manufacturers",
+  "password_reset_tokens",
+  "rate_limits",
+  "sessions",
   "submission_bench_points",
   "submission_cycles",
   "submission_voltage_readings",
   "submissions",
   "users",
+  "verification_tokens",
 ];
 
 describe("migrations", () => {
@@ -37,9 +42,18 @@ describe("migrations", () => {
       )
       .then((rows) => rows.map((r) => r.name));
 
+  // the job queue's own schema (lib/jobs), made by a migration from pg-boss's construction plan
+  const jobSchemaExists = () =>
+    sequelize
+      .query<{ n: number }>("SELECT count(*) AS n FROM information_schema.tables WHERE table_schema = 'pgboss' AND table_name IN ('job', 'queue', 'version')", {
+        type: QueryTypes.SELECT,
+      })
+      .then(([row]) => row.n === 3);
+
   it("the template was migrated from zero: nothing pending, every table present", async () => {
     expect(await pendingMigrations(sequelize)).toEqual([]);
     expect(await tables()).toEqual(EXPECTED_TABLES);
+    expect(await jobSchemaExists()).toBe(true);
   });
 
   it("every down runs, leaving no table and no extension, then every up applies again", async () => {
@@ -50,10 +64,12 @@ describe("migrations", () => {
       type: QueryTypes.SELECT,
     });
     expect(ext.n).toBe(0);
+    expect(await jobSchemaExists()).toBe(false);
 
     const ups = await migrateUp(sequelize);
     expect(ups).toEqual([...downs].reverse());
     expect(await tables()).toEqual(EXPECTED_TABLES);
+    expect(await jobSchemaExists()).toBe(true);
   });
 
   it("check constraints refuse impossible values", async () => {

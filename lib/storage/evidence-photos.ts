@@ -1,0 +1,186 @@
+import { randomUUID } from "node:crypto";
+import { Op, Transaction } from "sequelize";
+import { z } from "zod";
+import { ApiError, badRequest, notFound } from "@/lib/api/errors";
+import { EvidencePhoto, Submission, db, type Role } from "@/models";
+import { MAX_PHOTOS_PER_SUBMISSION, MAX_UNATTACHED_PHOTOS_PER_USER } from "./limits";
+import { deleteOrphanObject, getObject, putObject } from "./object-store";
+import { PHOTO_FIELD, sanitisePhoto } from "./photo-image";
+
+// Evidence photos: stored, shown and removed under one visibility rule.
+//   - The uploader, moderators and admins may always see a photo (moderators must judge evidence
+//     before anything is public); removed photos stay visible to moderators and admins only.
+//   - Anyone may see it once its submission is approved: then it backs a published value.
+//   - Everyone else gets 404, never 403, so a photo's existence does not leak.
+
+/** Who is asking: the signed-in user (lib/auth's SessionUser fits), or null for a visitor. */
+export type PhotoViewer = { id: string; role: Role } | null;
+
+/** What an upload returns, and what a list of a submission's photos holds. */
+export type PhotoSummary = { id: string; width: number; height: number; byteSize: number };
+
+/** The field the submission form sends its photo ids in; attach errors name it. */
+export const PHOTO_IDS_FIELD = "photoIds";
+
+const STAFF: readonly Role[] = ["moderator", "admin"];
+const OBJECT_PREFIX = "evidence";
+const photoId = z.uuid();
+
+export function photoUrl(id: string): string {
+  return `/api/v1/photos/${id}`;
+}
+
+function summary(photo: EvidencePhoto): PhotoSummary {
+  return { id: photo.id, width: photo.width, height: photo.height, byteSize: photo.byteSize };
+}
+
+function isStaff(viewer: PhotoViewer): boolean {
+  return viewer !== null && STAFF.includes(viewer.role);
+}
+
+function isPublic(photo: EvidencePhoto): boolean {
+  return !photo.deletedAt && photo.submission?.status === "approved";
+}
+
+function canView(photo: EvidencePhoto, viewer: PhotoViewer): boolean {
+  if (isStaff(viewer) || isPublic(photo)) return true;
+  return viewer !== null && viewer.id === photo.uploaderId && !photo.deletedAt;
+}
+
+const hidden = () => notFound("There is no photo with this id.", "id");
+
+/**
+ * Checks, re-encodes (dropping EXIF/GPS) and stores one uploaded photo for `uploaderId`. Every
+ * refusal is an ApiError 400 naming the `file` field, raised before anything is written.
+ */
+export async function storeEvidencePhoto(uploaderId: string, bytes: Uint8Array): Promise<PhotoSummary> {
+  db();
+  const waiting = await EvidencePhoto.count({ where: { uploaderId, submissionId: null } });
+  if (waiting >= MAX_UNATTACHED_PHOTOS_PER_USER) {
+    throw badRequest({
+      [PHOTO_FIELD]: [`You have ${waiting} photos not yet part of a submission (the limit is ${MAX_UNATTACHED_PHOTOS_PER_USER}). Submit or remove some first.`],
+    });
+  }
+  const image = await sanitisePhoto(bytes);
+  const id = randomUUID();
+  const objectKey = `${OBJECT_PREFIX}/${id}.${image.extension}`;
+  await putObject(objectKey, image.data, image.contentType);
+  try {
+    const photo = await EvidencePhoto.create({
+      id, uploaderId, submissionId: null, objectKey, contentType: image.contentType,
+      byteSize: image.byteSize, width: image.width, height: image.height, sha256: image.sha256,
+    });
+    return summary(photo);
+  } catch (error) {
+    // no row points at the object, so it is not a photo yet: undo the put, keep the store tidy
+    await deleteOrphanObject(objectKey).catch(() => undefined);
+    throw error;
+  }
+}
+
+async function loadPhoto(id: string, options: { transaction?: Transaction; lock?: boolean } = {}): Promise<EvidencePhoto | null> {
+  if (!photoId.safeParse(id).success) return null;
+  db();
+  return EvidencePhoto.findByPk(id, {
+    paranoid: false,
+    include: [{ model: Submission, as: "submission", attributes: ["id", "status"] }],
+    transaction: options.transaction,
+    // lock the photo row only; the submission is locked separately where it matters
+    ...(options.lock && options.transaction ? { lock: { level: options.transaction.LOCK.UPDATE, of: EvidencePhoto } } : {}),
+  });
+}
+
+export type ViewablePhoto = {
+  id: string;
+  objectKey: string;
+  contentType: string;
+  byteSize: number;
+  sha256: string;
+  /** Visible to anyone (approved submission): the response may be cached publicly. */
+  isPublic: boolean;
+};
+
+/** A photo the viewer may see (one database read, no object store); ApiError 404 for everyone else. */
+export async function findViewablePhoto(id: string, viewer: PhotoViewer): Promise<ViewablePhoto> {
+  const photo = await loadPhoto(id);
+  if (!photo || !canView(photo, viewer)) throw hidden();
+  const { objectKey, contentType, byteSize, sha256 } = photo;
+  return { id: photo.id, objectKey, contentType, byteSize, sha256, isPublic: isPublic(photo) };
+}
+
+/** The stored bytes of a photo found by findViewablePhoto, as a stream. */
+export async function readPhotoObject(photo: ViewablePhoto): Promise<ReadableStream<Uint8Array>> {
+  const object = await getObject(photo.objectKey);
+  if (!object) {
+    console.error(`[photos] ${photo.id}: object ${photo.objectKey} is missing from the store`);
+    throw hidden();
+  }
+  return object.body;
+}
+
+/**
+ * Soft-deletes a photo for its uploader, while it is not yet part of a submission or its
+ * submission still awaits review. Reviewed evidence stays: a published value must keep it.
+ */
+export async function removeEvidencePhoto(id: string, user: NonNullable<PhotoViewer>): Promise<void> {
+  await db().transaction(async (transaction) => {
+    const photo = await loadPhoto(id, { transaction, lock: true });
+    if (!photo || photo.deletedAt || !canView(photo, user)) throw hidden();
+    if (photo.uploaderId !== user.id) throw new ApiError(403, "Only the person who uploaded a photo can remove it.");
+    if (photo.submissionId !== null) {
+      // share-lock the submission so a moderator cannot approve it while the photo goes
+      const submission = await Submission.findByPk(photo.submissionId, { attributes: ["id", "status"], transaction, lock: transaction.LOCK.SHARE });
+      if (submission?.status !== "pending") {
+        throw new ApiError(409, "This photo belongs to a submission that has been reviewed, so it is kept as its evidence.");
+      }
+    }
+    await photo.destroy({ transaction });
+  });
+}
+
+/**
+ * Makes photos part of a new submission, inside the transaction that creates it. Each photo must
+ * have been uploaded by `userId`, not be removed, and not belong to another submission; otherwise
+ * this throws ApiError 400 naming `photoIds` (and the caller's transaction rolls back).
+ */
+export async function attachPhotosToSubmission(
+  photoIds: readonly string[],
+  submissionId: number,
+  userId: string,
+  transaction: Transaction,
+): Promise<PhotoSummary[]> {
+  const ids = [...new Set(photoIds)];
+  if (ids.length === 0) return [];
+  const malformed = ids.filter((id) => !photoId.safeParse(id).success);
+  if (malformed.length) throw badRequest({ [PHOTO_IDS_FIELD]: [`Not a photo id: ${malformed.slice(0, 3).join(", ")}.`] });
+  db();
+  const submission = await Submission.findByPk(submissionId, { attributes: ["id", "contributorId"], transaction });
+  if (!submission || submission.contributorId !== userId) {
+    // a programming error in the caller, not something a contributor can cause
+    throw new Error(`attachPhotosToSubmission: submission ${submissionId} does not belong to user ${userId}`);
+  }
+  const already = await EvidencePhoto.count({ where: { submissionId }, transaction });
+  if (already + ids.length > MAX_PHOTOS_PER_SUBMISSION) {
+    throw badRequest({ [PHOTO_IDS_FIELD]: [`A submission can have at most ${MAX_PHOTOS_PER_SUBMISSION} photos; remove ${already + ids.length - MAX_PHOTOS_PER_SUBMISSION}.`] });
+  }
+  const [, attached] = await EvidencePhoto.update(
+    { submissionId },
+    { where: { id: { [Op.in]: ids }, uploaderId: userId, submissionId: null, deletedAt: null }, transaction, returning: true },
+  );
+  if (attached.length !== ids.length) {
+    const missing = ids.filter((id) => !attached.some((p) => p.id === id)).length;
+    throw badRequest({
+      [PHOTO_IDS_FIELD]: [
+        `${missing === 1 ? "One photo is" : `${missing} photos are`} no longer available (removed, already part of a submission, or uploaded by someone else). Remove ${missing === 1 ? "it" : "them"} from the form and upload again.`,
+      ],
+    });
+  }
+  return attached.map(summary);
+}
+
+/** A submission's photos (not removed), oldest first, for its page and the review queue. */
+export async function listSubmissionPhotos(submissionId: number, transaction?: Transaction): Promise<PhotoSummary[]> {
+  db();
+  const photos = await EvidencePhoto.findAll({ where: { submissionId }, order: [["createdAt", "ASC"], ["id", "ASC"]], transaction });
+  return photos.map(summary);
+}

@@ -29,28 +29,30 @@ export class FirmwareFamily extends Model<InferAttributes<FirmwareFamily>, Infer
   declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
-    const num = { type: DataTypes.DOUBLE, allowNull: false };
-    const text = { type: DataTypes.TEXT, allowNull: false };
+    // fresh objects per attribute: Sequelize writes each attribute's column name into its
+    // definition, so one shared object would map every column onto the first one's
+    const num = () => ({ type: DataTypes.DOUBLE, allowNull: false });
+    const text = () => ({ type: DataTypes.TEXT, allowNull: false });
     FirmwareFamily.init(
       {
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        slug: text,
-        name: text,
+        slug: text(),
+        name: text(),
         description: { type: DataTypes.TEXT, allowNull: true },
-        voltageScaleUnit: text,
-        voltageScaleStep: num,
-        voltageScaleResponse: text,
-        voltageScaleMin: num,
-        voltageScaleMax: num,
-        currentScaleUnit: text,
-        currentScaleStep: num,
-        currentScaleResponse: text,
-        currentScaleMin: num,
-        currentScaleMax: num,
-        currentOffsetUnit: text,
-        currentOffsetStep: num,
-        currentOffsetMin: num,
-        currentOffsetMax: num,
+        voltageScaleUnit: text(),
+        voltageScaleStep: num(),
+        voltageScaleResponse: text(),
+        voltageScaleMin: num(),
+        voltageScaleMax: num(),
+        currentScaleUnit: text(),
+        currentScaleStep: num(),
+        currentScaleResponse: text(),
+        currentScaleMin: num(),
+        currentScaleMax: num(),
+        currentOffsetUnit: text(),
+        currentOffsetStep: num(),
+        currentOffsetMin: num(),
+        currentOffsetMax: num(),
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

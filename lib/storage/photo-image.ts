@@ -51,7 +51,8 @@ export async function sanitisePhoto(bytes: Uint8Array): Promise<SanitisedPhoto> 
   // before any pixel is decoded; limitInputPixels below enforces the same bound inside libvips.
   let header: Metadata;
   try {
-    header = await sharp(bytes).metadata();
+    // header only (no pixels are decoded), so no pixel limit here: the check below names the size
+    header = await sharp(bytes, { limitInputPixels: false }).metadata();
   } catch {
     refuse(`The ${LABEL[type]} file could not be read; it may be damaged or incomplete.`);
   }

@@ -114,6 +114,8 @@ describe("sanitisePhoto", () => {
     const bomb = await pngClaiming(10_000, 10_000);
     expect(bomb.byteLength).toBeLessThan(200);
     expect(await refusal(bomb)).toMatch(/10000 × 10000 pixels \(100 megapixels\); the limit is 40 megapixels/);
+    // beyond libvips' own default limit too, still refused with the size named
+    expect(await refusal(await pngClaiming(60_000, 60_000))).toMatch(/60000 × 60000 pixels \(3600 megapixels\)/);
   });
 
   it("accepts the pixel limit itself and refuses one row more (header check)", async () => {

@@ -5,7 +5,8 @@ import { ApiError, badRequest, notFound } from "@/lib/api/errors";
 import { EvidencePhoto, Submission, db, type Role } from "@/models";
 import { MAX_PHOTOS_PER_SUBMISSION, MAX_UNATTACHED_PHOTOS_PER_USER } from "./limits";
 import { deleteOrphanObject, getObject, putObject } from "./object-store";
-import { PHOTO_FIELD, sanitisePhoto } from "./photo-image";
+import { PHOTO_FIELD, PHOTO_IDS_FIELD, photoUrl, type PhotoSummary } from "./photo-api";
+import { sanitisePhoto } from "./photo-image";
 
 // Evidence photos: stored, shown and removed under one visibility rule.
 //   - The uploader, moderators and admins may always see a photo (moderators must judge evidence
@@ -16,19 +17,11 @@ import { PHOTO_FIELD, sanitisePhoto } from "./photo-image";
 /** Who is asking: the signed-in user (lib/auth's SessionUser fits), or null for a visitor. */
 export type PhotoViewer = { id: string; role: Role } | null;
 
-/** What an upload returns, and what a list of a submission's photos holds. */
-export type PhotoSummary = { id: string; width: number; height: number; byteSize: number };
-
-/** The field the submission form sends its photo ids in; attach errors name it. */
-export const PHOTO_IDS_FIELD = "photoIds";
+export { PHOTO_IDS_FIELD, photoUrl, type PhotoSummary };
 
 const STAFF: readonly Role[] = ["moderator", "admin"];
 const OBJECT_PREFIX = "evidence";
 const photoId = z.uuid();
-
-export function photoUrl(id: string): string {
-  return `/api/v1/photos/${id}`;
-}
 
 function summary(photo: EvidencePhoto): PhotoSummary {
   return { id: photo.id, width: photo.width, height: photo.height, byteSize: photo.byteSize };

@@ -13,6 +13,8 @@ export const MAX_PHOTO_PIXELS = 40_000_000;
 /** Formats recognised by their magic bytes; the declared Content-Type and the file name are ignored. */
 export const ACCEPTED_INPUT_TYPES = ["image/jpeg", "image/png", "image/webp"] as const;
 export type AcceptedInputType = (typeof ACCEPTED_INPUT_TYPES)[number];
+/** The accepted formats in words, for messages and hints. */
+export const ACCEPTED_LABEL = "JPEG, PNG or WebP";
 
 /** What we store after re-encoding: JPEG stays JPEG, PNG and WebP become WebP (keeps transparency). */
 export const STORED_TYPES = ["image/jpeg", "image/webp"] as const;
@@ -28,4 +30,9 @@ export const MAX_UNATTACHED_PHOTOS_PER_USER = 30;
 export function formatMegabytes(bytes: number): string {
   const mb = bytes / (1024 * 1024);
   return `${mb >= 10 || Number.isInteger(mb) ? Math.round(mb) : mb.toFixed(1)} MB`;
+}
+
+/** A stored photo's size for people: KB below a megabyte, else as formatMegabytes. */
+export function formatFileSize(bytes: number): string {
+  return bytes < 1024 * 1024 ? `${Math.max(1, Math.round(bytes / 1024))} KB` : formatMegabytes(bytes);
 }

@@ -1,7 +1,8 @@
 import { createHash } from "node:crypto";
 import sharp, { type Metadata, type OutputInfo } from "sharp";
 import { badRequest } from "@/lib/api/errors";
-import { ACCEPTED_INPUT_TYPES, MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, formatMegabytes, type AcceptedInputType, type StoredType } from "./limits";
+import { PHOTO_FIELD } from "./photo-api";
+import { ACCEPTED_INPUT_TYPES, ACCEPTED_LABEL, MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, formatMegabytes, type AcceptedInputType, type StoredType } from "./limits";
 
 // Turns an uploaded file into the bytes we store. Phone photos carry EXIF with GPS position, the
 // camera's serial number and the time; evidence is public once approved, so none of it may leave
@@ -19,11 +20,7 @@ export type SanitisedPhoto = {
   sha256: string;
 };
 
-/** The field every refusal names; the upload form's file input. */
-export const PHOTO_FIELD = "file";
-
 const LABEL: Record<AcceptedInputType, string> = { "image/jpeg": "JPEG", "image/png": "PNG", "image/webp": "WebP" };
-const ACCEPTED_LIST = ACCEPTED_INPUT_TYPES.map((t) => LABEL[t]).join(", ");
 
 function refuse(message: string): never {
   throw badRequest({ [PHOTO_FIELD]: [message] });
@@ -45,7 +42,7 @@ export async function sanitisePhoto(bytes: Uint8Array): Promise<SanitisedPhoto> 
     refuse(`The photo is ${formatMegabytes(bytes.byteLength)}; the limit is ${formatMegabytes(MAX_PHOTO_BYTES)}.`);
   }
   const type = await sniffPhotoType(bytes);
-  if (!type) refuse(`This file is not a ${ACCEPTED_LIST} image. Other formats (including HEIC, GIF and PDF) are not accepted; export the photo as JPEG.`);
+  if (!type) refuse(`This file is not a ${ACCEPTED_LABEL} image. Other formats (including HEIC, GIF and PDF) are not accepted; export the photo as JPEG.`);
 
   // The header's dimensions first, so a decompression bomb is refused with its size named,
   // before any pixel is decoded; limitInputPixels below enforces the same bound inside libvips.

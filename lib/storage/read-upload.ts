@@ -1,6 +1,6 @@
 import { badRequest } from "@/lib/api/errors";
 import { MAX_PHOTO_BYTES, formatMegabytes } from "./limits";
-import { PHOTO_FIELD } from "./photo-image";
+import { PHOTO_FIELD } from "./photo-api";
 
 // Reads one uploaded file from a request without ever holding more than the limit in memory. A
 // body announced as too large is refused before a byte is read; a body without a length (chunked)

@@ -99,9 +99,9 @@ describe("POST /api/v1/photos", () => {
     oversized.set(await jpegWithGps());
     const cases: Array<[string, string, Request, number, RegExp]> = [
       ["anonymous", ANONYMOUS, uploadForm(await jpegWithGps()), 401, /Sign in/],
-      ["GIF named .jpg and declared image/jpeg", cookie, uploadForm(await gif(), { name: "photo.jpg", type: "image/jpeg" }), 400, /not a JPEG, PNG, WebP image/],
-      ["SVG declared image/png", cookie, uploadForm(SVG, { name: "x.png", type: "image/png" }), 400, /not a JPEG, PNG, WebP image/],
-      ["a script declared image/jpeg", cookie, uploadForm(SCRIPT), 400, /not a JPEG, PNG, WebP image/],
+      ["GIF named .jpg and declared image/jpeg", cookie, uploadForm(await gif(), { name: "photo.jpg", type: "image/jpeg" }), 400, /not a JPEG, PNG or WebP image/],
+      ["SVG declared image/png", cookie, uploadForm(SVG, { name: "x.png", type: "image/png" }), 400, /not a JPEG, PNG or WebP image/],
+      ["a script declared image/jpeg", cookie, uploadForm(SCRIPT), 400, /not a JPEG, PNG or WebP image/],
       ["over 8 MB", cookie, uploadForm(oversized), 400, /8 MB/],
       ["a decompression bomb", cookie, uploadForm(await pngClaiming(20_000, 20_000), { name: "bomb.png", type: "image/png" }), 400, /megapixels/],
       ["no file at all", cookie, new Request("http://test.local/api/v1/photos", { method: "POST", body: new FormData() }), 400, /Choose a photo/],

@@ -26,9 +26,12 @@ export type WorksheetFamily = Pick<
   | "currentOffsetMax"
 >;
 
+/** "The reported mAh" → "the reported mAh": only the first letter, so units keep their case. */
+const lowerFirst = (label: string) => label.charAt(0).toLowerCase() + label.slice(1);
+
 /** A number: "Enter …" when missing, "… must be a number" otherwise (zod refuses NaN and ±Infinity). */
 export const numberField = (label: string) =>
-  z.number({ error: (issue) => (issue.input == null || issue.input === "" ? `Enter ${label.toLowerCase()}` : `${label} must be a number`) });
+  z.number({ error: (issue) => (issue.input == null || issue.input === "" ? `Enter ${lowerFirst(label)}` : `${label} must be a number`) });
 
 export const positiveNumber = (label: string, unit: string, max?: number) => {
   const field = numberField(label).positive(`${label} must be more than 0 ${unit}`.trim());

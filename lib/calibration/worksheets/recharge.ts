@@ -184,7 +184,8 @@ export function rechargeWorksheet(input: RechargeWorksheetInput, family: Workshe
   }
 
   const lastRun = usable.slice(-STOP_CYCLES);
-  const met = lastRun.length === STOP_CYCLES && lastRun.every((it) => Math.abs(it.ratio - 1) <= STOP_TOLERANCE);
+  // 1010 ÷ 1000 − 1 is 0.010000000000000009 in binary: a figure that is 1 % in decimal counts as 1 %
+  const met = lastRun.length === STOP_CYCLES && lastRun.every((it) => Math.abs(it.ratio - 1) <= STOP_TOLERANCE + 1e-12);
   // Done and on the safe side (or exact): keep what is flying. Otherwise the safe rounding.
   const recommendedSetting = met && latest.ratio >= 1 ? latest.scaleUsed : next.recommended.setting;
   const cyclesText = lastRun.map((it) => it.index + 1).join(" and ");

@@ -14,7 +14,9 @@ type Executor = { executeSql(text: string, values: unknown[]): Promise<{ rows: u
 function inTransaction(transaction: Transaction): Executor {
   return {
     executeSql: async (text, values) => {
-      const rows = await db().query(text, { bind: values, transaction, type: QueryTypes.SELECT });
+      // Sequelize refuses undefined binds, pg-boss leaves unset options undefined: both mean NULL
+      const bind = values.map((v) => (v === undefined ? null : v));
+      const rows = await db().query(text, { bind, transaction, type: QueryTypes.SELECT });
       return { rows };
     },
   };

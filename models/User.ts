@@ -11,6 +11,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare image: string | null;
   declare passwordHash: string | null;
   declare role: CreationOptional<Role>;
+  /** Sessions from before this moment are refused by the guard (lib/auth/guard.ts). */
+  declare passwordChangedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -24,6 +26,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         image: { type: DataTypes.TEXT, allowNull: true },
         passwordHash: { type: DataTypes.TEXT, allowNull: true },
         role: { type: DataTypes.TEXT, allowNull: false, defaultValue: "contributor" },
+        passwordChangedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -4,6 +4,7 @@ import { ApiError } from "@/lib/api/errors";
 import type { ApiGuard } from "@/lib/api/guard";
 import { db, User, type Role } from "@/models";
 import { roleSatisfies } from "./roles";
+import { assertSameOrigin } from "./same-origin";
 import { signInPath } from "./safe-next";
 import { decodeSessionToken, parseCookieHeader, sessionTokenFrom } from "./session-cookie";
 
@@ -13,7 +14,8 @@ import { decodeSessionToken, parseCookieHeader, sessionTokenFrom } from "./sessi
 // Role changes take effect AT ONCE: the session JWT proves who the caller is (its `sub` is the
 // user id), but the role is re-read from the users table (a primary-key lookup) on every guarded
 // request, so a promotion or demotion applies to the very next request with the same cookie. The
-// role inside the JWT is only a hint for display. A deleted user's cookie stops working the same way.
+// role inside the JWT is only a hint for display. A deleted user's cookie stops working the same way,
+// and so does every session that signed in before the user's last password change.
 
 export type SessionUser = { id: string; email: string; name: string; role: Role };
 
@@ -24,8 +26,12 @@ async function userForToken(token: string | undefined): Promise<SessionUser | nu
   // a uuid check first, so that a token from elsewhere never reaches PostgreSQL as a bad uuid
   if (!id || !/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id)) return null;
   db();
-  const user = await User.findByPk(id, { attributes: ["id", "email", "name", "role"] });
-  return user ? { id: user.id, email: user.email, name: user.name, role: user.role } : null;
+  const user = await User.findByPk(id, { attributes: ["id", "email", "name", "role", "passwordChangedAt"] });
+  if (!user) return null;
+  // a password change (or reset) ends every session signed in before it
+  const authTime = typeof claims?.authTime === "number" ? claims.authTime : 0;
+  if (user.passwordChangedAt && authTime < user.passwordChangedAt.getTime()) return null;
+  return { id: user.id, email: user.email, name: user.name, role: user.role };
 }
 
 /** The signed-in user of the current request (pages, server actions, route handlers), or null. */
@@ -75,14 +81,16 @@ export async function requirePageRole(nextPath: string, ...roles: Role[]): Promi
   return user;
 }
 
-/** apiRoute guard: any signed-in user (401 otherwise). */
+/** apiRoute guard: any signed-in user (401 otherwise; 403 for a write from another site's page). */
 export const signedIn: ApiGuard = async (request) => {
+  assertSameOrigin(request);
   mustBeSignedIn(await userFromRequest(request));
 };
 
-/** apiRoute guard: a signed-in user with one of `roles` or higher (401 anonymous, 403 wrong role). */
+/** apiRoute guard: a signed-in user with one of `roles` or higher (401 anonymous, 403 wrong role or another site's page). */
 export function role(...roles: Role[]): ApiGuard {
   return async (request) => {
+    assertSameOrigin(request);
     checkRole(mustBeSignedIn(await userFromRequest(request)), roles);
   };
 }

@@ -1,5 +1,6 @@
-import { decode, type JWT } from "next-auth/jwt";
+import { decode, encode, type JWT } from "next-auth/jwt";
 import { env } from "@/lib/env";
+import type { Role } from "@/models/User";
 
 // The session cookie next-auth issues (strategy "jwt"): an encrypted JWT (JWE, A256GCM) whose key
 // is derived from NEXTAUTH_SECRET. The guard reads it itself instead of going through
@@ -59,4 +60,25 @@ export async function decodeSessionToken(token: string | undefined): Promise<JWT
   } catch {
     return null; // a bad cookie is the same as no cookie: the caller is anonymous
   }
+}
+
+/** What Shuntbook puts into the session JWT besides next-auth's own name/email/sub. */
+export type SessionClaims = {
+  sub: string;
+  email: string;
+  name: string;
+  /** A display hint only: the guard reads the role from the database. */
+  role: Role;
+  /** When this person signed in (epoch ms). Sessions from before their last password change stop working. */
+  authTime: number;
+};
+
+export async function encodeSessionToken(claims: SessionClaims, maxAgeSeconds = SESSION_MAX_AGE_SECONDS): Promise<string> {
+  return encode({ token: { ...claims } satisfies JWT, secret: authSecret(), maxAge: maxAgeSeconds });
+}
+
+/** A Set-Cookie value next-auth would accept as its own session cookie (same name and flags). */
+export function sessionSetCookie(token: string, maxAgeSeconds = SESSION_MAX_AGE_SECONDS): string {
+  const secure = usesSecureCookies() ? "; Secure" : "";
+  return `${sessionCookieName()}=${token}; Path=/; HttpOnly; SameSite=Lax; Max-Age=${maxAgeSeconds}${secure}`;
 }

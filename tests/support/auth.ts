@@ -1,7 +1,6 @@
-import { encode } from "next-auth/jwt";
 import { randomBytes } from "node:crypto";
 import { env, resetEnvCache } from "@/lib/env";
-import { authSecret, sessionCookieName, SESSION_MAX_AGE_SECONDS } from "@/lib/auth/session-cookie";
+import { encodeSessionToken, sessionCookieName, SESSION_MAX_AGE_SECONDS } from "@/lib/auth/session-cookie";
 import { db, User, type Role } from "@/models";
 import { runWithRequest } from "./next-headers";
 
@@ -59,13 +58,15 @@ export async function testAccount(role: Role, opts: { email?: string; name?: str
 }
 
 /** A Cookie header value carrying a next-auth session for `account` (what the browser would send). */
-export async function sessionCookieForAccount(account: TestAccount, opts: { maxAgeSeconds?: number } = {}): Promise<string> {
+export async function sessionCookieForAccount(
+  account: TestAccount,
+  opts: { maxAgeSeconds?: number; signedInAt?: Date } = {},
+): Promise<string> {
   ensureSecret();
-  const token = await encode({
-    token: { sub: account.id, email: account.email, name: account.name, role: account.role },
-    secret: authSecret(),
-    maxAge: opts.maxAgeSeconds ?? SESSION_MAX_AGE_SECONDS,
-  });
+  const token = await encodeSessionToken(
+    { sub: account.id, email: account.email, name: account.name, role: account.role, authTime: (opts.signedInAt ?? new Date()).getTime() },
+    opts.maxAgeSeconds ?? SESSION_MAX_AGE_SECONDS,
+  );
   return `${sessionCookieName()}=${token}`;
 }
 
@@ -105,4 +106,35 @@ export async function redirectTarget(work: Promise<unknown> | (() => unknown)): 
     if (typeof digest === "string" && digest.startsWith("NEXT_REDIRECT;")) return digest.split(";").slice(2, -2).join(";");
     throw error;
   }
+}
+
+/** A mail as the local mail catcher's REST API (maildev, GET /api/email) returns it. */
+export type CaughtMail = { id: string; subject: string; text: string; html: string; to: { address: string }[]; date: string };
+
+/** Mails the catcher holds for `address`, newest last (npm test sets MAIL_INBOX_URL). */
+export async function mailsTo(address: string): Promise<CaughtMail[]> {
+  const inbox = env().MAIL_INBOX_URL;
+  if (!inbox) throw new Error("MAIL_INBOX_URL is not set: run the suite with npm test");
+  const res = await fetch(new URL("/api/email", inbox));
+  const all = (await res.json()) as CaughtMail[];
+  return all
+    .filter((m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase()))
+    .sort((a, b) => Date.parse(a.date) - Date.parse(b.date));
+}
+
+/** Waits (up to `timeoutMs`) until the catcher holds at least `count` mails for `address`. */
+export async function waitForMails(address: string, count = 1, timeoutMs = 10_000): Promise<CaughtMail[]> {
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const mails = await mailsTo(address);
+    if (mails.length >= count || Date.now() > until) return mails;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+/** The first http(s) link in a mail's text that contains `fragment`. */
+export function linkIn(mail: CaughtMail, fragment: string): string {
+  const link = mail.text.match(/https?:\/\/\S+/g)?.find((u) => u.includes(fragment));
+  if (!link) throw new Error(`no link with ${fragment} in mail "${mail.subject}"`);
+  return link;
 }

@@ -1,0 +1,22 @@
+import NextAuth from "next-auth";
+import type { NextRequest } from "next/server";
+import { authOptions } from "@/lib/auth/options";
+import { limitAuthRequest } from "@/lib/auth/route-limits";
+
+// next-auth's endpoints (/api/auth/signin, callback, session, csrf, signout, …), with the sign-in
+// rate limit in front. Our own account endpoints are static routes beside this one
+// (/api/auth/sign-up, password-reset, profile), which Next.js matches before this catch-all.
+export const dynamic = "force-dynamic";
+
+type Context = { params: Promise<{ nextauth: string[] }> };
+
+async function handle(request: NextRequest, context: Context): Promise<Response> {
+  const { nextauth = [] } = await context.params;
+  const limit = await limitAuthRequest(request, nextauth);
+  if (limit.blocked) return limit.blocked;
+  const response: Response = await NextAuth(request, context, authOptions());
+  await limit.afterwards(response);
+  return response;
+}
+
+export { handle as GET, handle as POST };

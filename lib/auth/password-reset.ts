@@ -1,0 +1,66 @@
+import { createHash, randomBytes } from "node:crypto";
+import { col, fn, Op, where } from "sequelize";
+import { ApiError } from "@/lib/api/errors";
+import { enqueue } from "@/lib/jobs";
+import { passwordChangedMail, passwordResetMail } from "@/lib/mail/templates";
+import { db, PasswordResetToken, User } from "@/models";
+import { hashPassword } from "./passwords";
+import { siteUrl } from "./site-url";
+
+// Password reset by e-mail. The link carries 32 random bytes; the table keeps only their SHA-256
+// (a fast hash is enough: the token is random, not a password). A token works once, for an hour,
+// and asking again retires the earlier ones. Both steps run in one transaction with the mail
+// they cause, which goes out through the job queue (retried if the relay is down).
+
+export const RESET_TOKEN_MINUTES = 60;
+
+export const hashResetToken = (token: string) => createHash("sha256").update(token).digest("hex");
+
+/**
+ * Starts a reset for `email` if an account has it. Says nothing about whether one does: the
+ * caller answers the same either way, so the form cannot be used to find out who has an account.
+ * Returns the token for tests; never show it to the requester.
+ */
+export async function requestPasswordReset(email: string): Promise<string | null> {
+  const sequelize = db();
+  const user = await User.findOne({ where: where(fn("lower", col("email")), email.toLowerCase()) });
+  if (!user) return null;
+  const token = randomBytes(32).toString("base64url");
+  await sequelize.transaction(async (transaction) => {
+    const now = new Date();
+    await PasswordResetToken.update({ usedAt: now }, { where: { userId: user.id, usedAt: null }, transaction });
+    await PasswordResetToken.create(
+      { userId: user.id, tokenHash: hashResetToken(token), expiresAt: new Date(now.getTime() + RESET_TOKEN_MINUTES * 60_000), createdAt: now },
+      { transaction },
+    );
+    const url = siteUrl(`/reset-password?token=${encodeURIComponent(token)}`);
+    await enqueue("mail.send", { to: user.email, ...passwordResetMail({ name: user.name, url, minutes: RESET_TOKEN_MINUTES }) }, { transaction });
+  });
+  return token;
+}
+
+const BAD_LINK = "This reset link has expired or was already used. Ask for a new one.";
+
+/** Sets the new password if the token is good; returns the account's e-mail so the page can offer sign-in. */
+export async function completePasswordReset(token: string, newPassword: string): Promise<{ email: string }> {
+  const sequelize = db();
+  const newHash = await hashPassword(newPassword);
+  return sequelize.transaction(async (transaction) => {
+    // the row lock makes two submissions of one link race for it: the second finds it used
+    const row = await PasswordResetToken.findOne({
+      where: { tokenHash: hashResetToken(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
+    if (!row) throw new ApiError(400, BAD_LINK, { token: [BAD_LINK] });
+    const user = await User.findByPk(row.userId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!user) throw new ApiError(400, BAD_LINK, { token: [BAD_LINK] });
+    const now = new Date();
+    await row.update({ usedAt: now }, { transaction });
+    await PasswordResetToken.update({ usedAt: now }, { where: { userId: user.id, usedAt: null }, transaction });
+    // passwordChangedAt ends every session from before now, including any an intruder holds
+    await User.scope("withPassword").update({ passwordHash: newHash, passwordChangedAt: now }, { where: { id: user.id }, transaction });
+    await enqueue("mail.send", { to: user.email, ...passwordChangedMail({ name: user.name, signInUrl: siteUrl("/signin") }) }, { transaction });
+    return { email: user.email };
+  });
+}

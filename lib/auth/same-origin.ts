@@ -1,0 +1,21 @@
+import { ApiError } from "@/lib/api/errors";
+
+// A second lock against cross-site requests, beside the session cookie's SameSite=Lax: a browser
+// names the page's origin on every POST/PATCH/PUT/DELETE, and it must be this site. Requests
+// without an Origin header (curl, server-to-server, tests) are not from a browser page and pass.
+
+const SAFE = new Set(["GET", "HEAD", "OPTIONS"]);
+
+export function assertSameOrigin(request: Request): void {
+  if (SAFE.has(request.method)) return;
+  const origin = request.headers.get("origin");
+  if (!origin) return;
+  const host = request.headers.get("x-forwarded-host")?.split(",")[0]?.trim() || request.headers.get("host");
+  let originHost: string | undefined;
+  try {
+    originHost = new URL(origin).host;
+  } catch {
+    originHost = undefined;
+  }
+  if (!host || originHost !== host) throw new ApiError(403, "This request came from another site's page and was refused.");
+}

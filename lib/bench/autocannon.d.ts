@@ -38,7 +38,12 @@ declare module "autocannon" {
       non2xx: number;
       statusCodeStats: Record<string, { count: number }>;
     };
-    type Instance = PromiseLike<Result> & { stop(): void };
+    type Instance = PromiseLike<Result> & {
+      stop(): void;
+      on(event: "start", listener: () => void): Instance;
+      /** every response; responseTime in ms */
+      on(event: "response", listener: (client: unknown, statusCode: number, resBytes: number, responseTime: number) => void): Instance;
+    };
   }
   function autocannon(options: autocannon.Options): autocannon.Instance;
   export = autocannon;

@@ -1,20 +1,23 @@
 import autocannon from "autocannon";
-import type { LoadResult } from "./figures";
+import type { Samples } from "./figures";
 
-// One target under load with autocannon: an unrecorded warm-up, then the measured run. Every
-// request goes through setupRequest, for every target alike (so the load generator does the same
-// work per request whatever it drives), and asks for whatever `pick` returns: for the lookups a
-// board drawn uniformly at random from the whole data set, fresh for each request.
+// One target under load with autocannon, collecting raw samples (responses completed in each
+// whole second of the run, and every response's latency) so that runs split into interleaved
+// rounds can be pooled (figures.ts). Every request goes through setupRequest, for every target
+// alike, so the load generator does the same work per request whatever it drives; it asks for
+// whatever `pick` returns: for the lookups a board drawn uniformly at random from the whole data
+// set, fresh for each request.
 
 export type Pick = () => { path: string; headers?: Record<string, string> };
 
-export type LoadShape = { connections: number; duration: number; warmup: number };
-
-function once(url: string, pick: Pick, connections: number, duration: number): Promise<autocannon.Result> {
+export async function sample(url: string, pick: Pick, connections: number, seconds: number): Promise<Samples> {
+  const perSecond: number[] = [];
+  const latenciesMs: number[] = [];
+  let startedAt = performance.now();
   const instance = autocannon({
     url,
     connections,
-    duration,
+    duration: seconds,
     pipelining: 1,
     timeout: 10,
     requests: [
@@ -26,12 +29,23 @@ function once(url: string, pick: Pick, connections: number, duration: number): P
       },
     ],
   });
-  return Promise.resolve(instance);
+  instance.on("start", () => (startedAt = performance.now()));
+  instance.on("response", (_client, _status, _bytes, responseTime) => {
+    latenciesMs.push(responseTime);
+    const second = Math.floor((performance.now() - startedAt) / 1000);
+    while (perSecond.length <= second) perSecond.push(0);
+    perSecond[second]++;
+  });
+  const result = await instance;
+  // the last second is cut short by the end of the run; it would drag the median down
+  if (perSecond.length > seconds) perSecond.length = seconds;
+  const statusCounts = Object.fromEntries(Object.entries(result.statusCodeStats).map(([code, s]) => [code, Number(s.count)]));
+  return { perSecond, latenciesMs, statusCounts, errors: result.errors };
 }
 
-export async function drive(url: string, pick: Pick, shape: LoadShape): Promise<LoadResult> {
-  if (shape.warmup > 0) await once(url, pick, shape.connections, shape.warmup);
-  return once(url, pick, shape.connections, shape.duration);
+/** Load without recording: brings the JIT, the caches and the connection pools to their steady state. */
+export async function warmUp(url: string, pick: Pick, connections: number, seconds: number): Promise<void> {
+  if (seconds > 0) await sample(url, pick, connections, seconds);
 }
 
 /** A uniform draw from `items` per call. */

@@ -1,3 +1,5 @@
+import { quantileType7 } from "@/lib/stats";
+
 // The benchmark's arithmetic, kept free of I/O so that tests can check it: one run's figures
 // from an autocannon result, the ratios between targets measured at the same size and connection
 // count, and the verdict on each of the targets.
@@ -30,8 +32,11 @@ export type RunFigures = {
   /** submissions in the data set the app served */
   size: number;
   connections: number;
-  /** mean of autocannon's per-second samples */
+  /** median of the per-second response counts, pooled over the interleaved rounds */
   reqPerSec: number;
+  /** first and third quartile of the same counts: how much the machine wobbled */
+  reqPerSecQ1: number;
+  reqPerSecQ3: number;
   p50Ms: number;
   p99Ms: number;
   requests: number;
@@ -41,31 +46,50 @@ export type RunFigures = {
   errors: number;
 };
 
-/** What figuresOf reads from an autocannon result. */
-export type LoadResult = {
-  requests: { average: number; total: number };
-  latency: { p50: number; p99: number };
+/** Raw samples of one round of one target (drive.ts). */
+export type Samples = {
+  /** responses completed in each whole second */
+  perSecond: number[];
+  /** every response's latency, ms */
+  latenciesMs: number[];
+  statusCounts: Record<string, number>;
   errors: number;
-  timeouts: number;
-  statusCodeStats: Record<string, { count: number }>;
 };
 
-export function figuresOf(target: TargetId, size: number, connections: number, result: LoadResult): RunFigures {
+const byNumber = (a: number, b: number) => a - b;
+const tenth = (x: number) => Math.round(x * 10) / 10;
+
+/**
+ * Pools the rounds of one target at one size and connection count. Quantiles are the project's one
+ * definition, Hyndman–Fan type 7 (lib/stats/quantile.ts), so the median of an even count is the
+ * midpoint of the middle two.
+ */
+export function figuresOf(target: TargetId, size: number, connections: number, rounds: Samples[]): RunFigures {
+  const perSecond = rounds.flatMap((r) => r.perSecond).sort(byNumber);
+  const latencies = rounds.flatMap((r) => r.latenciesMs).sort(byNumber);
   const expected = String(TARGETS[target].expectedStatus);
-  const counts = Object.entries(result.statusCodeStats);
-  const answered = counts.reduce((sum, [, s]) => sum + Number(s.count), 0);
-  const right = counts.filter(([code]) => code === expected).reduce((sum, [, s]) => sum + Number(s.count), 0);
+  let answered = 0;
+  let right = 0;
+  for (const round of rounds) {
+    for (const [code, count] of Object.entries(round.statusCounts)) {
+      answered += count;
+      if (code === expected) right += count;
+    }
+  }
+  const q = (sorted: number[], p: number) => quantileType7(sorted, p) ?? 0;
   return {
     target,
     size,
     connections,
-    reqPerSec: result.requests.average,
-    p50Ms: result.latency.p50,
-    p99Ms: result.latency.p99,
-    requests: result.requests.total,
+    reqPerSec: q(perSecond, 0.5),
+    reqPerSecQ1: q(perSecond, 0.25),
+    reqPerSecQ3: q(perSecond, 0.75),
+    p50Ms: tenth(q(latencies, 0.5)),
+    p99Ms: tenth(q(latencies, 0.99)),
+    requests: latencies.length,
     wrongStatus: answered - right,
     // autocannon counts a timeout as an error too
-    errors: result.errors,
+    errors: rounds.reduce((sum, r) => sum + r.errors, 0),
   };
 }
 

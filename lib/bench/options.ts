@@ -15,8 +15,10 @@ export type BenchOptions = {
   sizes: number[];
   /** autocannon connection counts; every target is driven at each. */
   connections: number[];
-  /** Seconds each measured run lasts. */
+  /** Seconds each target is measured for, per size and connection count, in all. */
   duration: number;
+  /** The measured seconds are split into this many rounds, run in turn over the targets. */
+  rounds: number;
   /** Seconds of unrecorded load before each measured run. */
   warmup: number;
   /** Where the report goes, relative to the project; null: print only. */
@@ -33,7 +35,9 @@ export const USAGE = `npm run bench:lookup -- [flags]
                         default 10000,100000)
   --submissions N       shorthand for a single size
   --connections A,B     autocannon connection counts (default 8,64)
-  --duration S          seconds per measured run (1–600; default 10)
+  --duration S          seconds each target is measured for (1–600; default 10)
+  --rounds N            split them into N rounds that take the targets in turn, so that a burst
+                        of other work on the machine hits every target alike (1–10; default 2)
   --warmup S            seconds of unrecorded load before each run (0–60; default 2)
   --docs PATH           write the report into this Markdown file (default docs/benchmarks.md)
   --no-docs             print the report only
@@ -43,7 +47,7 @@ export const USAGE = `npm run bench:lookup -- [flags]
 
 The full run the issue asks for:  npm run bench:lookup -- --boards 5000 --sizes 10000,1000000`;
 
-const FLAGS_WITH_VALUE = ["boards", "sizes", "submissions", "connections", "duration", "warmup", "docs"] as const;
+const FLAGS_WITH_VALUE = ["boards", "sizes", "submissions", "connections", "duration", "rounds", "warmup", "docs"] as const;
 const SWITCHES = ["no-docs", "stock-rebuild", "help"] as const;
 
 const whole = (flag: string, min: number, max: number) =>
@@ -67,13 +71,15 @@ const Schema = z
     submissions: whole("submissions", 1, MAX_SUBMISSIONS).optional(),
     connections: list("connections", 1, 1_000).default([8, 64]),
     duration: whole("duration", 1, 600).default(10),
+    rounds: whole("rounds", 1, 10).default(2),
     warmup: whole("warmup", 0, 60).default(2),
     docs: z.string().min(1, "--docs needs a file path").default("docs/benchmarks.md"),
     "no-docs": z.boolean().default(false),
     "stock-rebuild": z.boolean().default(false),
     help: z.boolean().default(false),
   })
-  .refine((o) => !(o.sizes && o.submissions), { message: "give either --sizes or --submissions, not both", path: ["submissions"] });
+  .refine((o) => !(o.sizes && o.submissions), { message: "give either --sizes or --submissions, not both", path: ["submissions"] })
+  .refine((o) => o.duration >= o.rounds, { message: "--rounds cannot exceed --duration: each round lasts at least a second", path: ["rounds"] });
 
 export class BenchArgsError extends Error {
   constructor(readonly fieldErrors: Record<string, string[]>) {
@@ -127,6 +133,7 @@ export function parseBenchArgs(args: string[]): BenchOptions {
     sizes: o.sizes ?? (o.submissions !== undefined ? [o.submissions] : [10_000, 100_000]),
     connections: o.connections,
     duration: o.duration,
+    rounds: o.rounds,
     warmup: o.warmup,
     docs: o["no-docs"] ? null : o.docs,
     stockRebuild: o["stock-rebuild"],

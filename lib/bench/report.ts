@@ -49,19 +49,20 @@ function runRow(r: RunFigures): string[] {
     n(r.size),
     String(r.connections),
     n(Math.round(r.reqPerSec)),
+    `${n(Math.round(r.reqPerSecQ1))}–${n(Math.round(r.reqPerSecQ3))}`,
     String(r.p50Ms),
     String(r.p99Ms),
     n(r.requests),
     r.wrongStatus ? `${n(r.wrongStatus)} WRONG STATUS` : "ok",
   ];
 }
-const RUN_HEADER = ["target", "submissions", "conns", "req/s", "p50 ms", "p99 ms", "requests", "status"];
+const RUN_HEADER = ["target", "submissions", "conns", "req/s", "q1–q3", "p50 ms", "p99 ms", "requests", "status"];
 
 /** One line per run, printed as soon as it finishes. */
 export function runLine(r: RunFigures): string {
   const status = r.wrongStatus ? `, ${n(r.wrongStatus)} responses with the wrong status` : "";
   const errors = r.errors ? `, ${n(r.errors)} errors` : "";
-  return `(${TARGETS[r.target].letter}) ${TARGETS[r.target].label} @${r.connections}: ${n(Math.round(r.reqPerSec))} req/s, p50 ${r.p50Ms} ms, p99 ${r.p99Ms} ms${status}${errors}`;
+  return `(${TARGETS[r.target].letter}) ${TARGETS[r.target].label} @${r.connections}: ${n(Math.round(r.reqPerSec))} req/s (q1–q3 ${n(Math.round(r.reqPerSecQ1))}–${n(Math.round(r.reqPerSecQ3))}), p50 ${r.p50Ms} ms, p99 ${r.p99Ms} ms${status}${errors}`;
 }
 
 export function consoleSummary(report: BenchReport): string {

@@ -10,8 +10,8 @@ import { buildIfNeeded } from "@/lib/platform/next-build";
 import { describeCluster, ensureDatabase, initCluster, startCluster, stopCluster, type Cluster } from "@/lib/platform/postgres-cluster";
 import { freePort } from "@/lib/platform/wait-for-http";
 import { refreshGroups } from "@/lib/published/refresh";
-import { drive, uniformPicker, type Pick } from "./drive";
-import { RUN_ORDER, figuresOf, type RunFigures, type TargetId } from "./figures";
+import { sample, uniformPicker, warmUp, type Pick } from "./drive";
+import { RUN_ORDER, figuresOf, type RunFigures, type Samples, type TargetId } from "./figures";
 import { BenchArgsError, USAGE, parseBenchArgs, type BenchOptions } from "./options";
 import { explainLookups } from "./query-plans";
 import { recordResponses } from "./record-responses";
@@ -77,6 +77,12 @@ async function prepareSize(root: string, cluster: Cluster, options: BenchOptions
   }
 }
 
+/** Whole seconds per round, adding up to --duration. */
+function roundSeconds(options: BenchOptions): number[] {
+  const base = Math.floor(options.duration / options.rounds);
+  return Array.from({ length: options.rounds }, (_, i) => base + (i < options.duration % options.rounds ? 1 : 0));
+}
+
 async function measureSize(
   root: string,
   url: string,
@@ -105,11 +111,18 @@ async function measureSize(
     machine: () => ({ path: drawPath() }),
   };
   const runs: RunFigures[] = [];
+  const urlOf = (target: TargetId) => (target === "machine" ? bare.url : app.url);
+  const seconds = roundSeconds(options);
   try {
     for (const connections of options.connections) {
+      for (const target of RUN_ORDER) await warmUp(urlOf(target), picks[target], connections, options.warmup);
+      const rounds = new Map<TargetId, Samples[]>(RUN_ORDER.map((t) => [t, []]));
+      // the targets take turns, so that a burst of other work on the machine is shared among them
+      for (let round = 0; round < options.rounds; round++) {
+        for (const target of RUN_ORDER) rounds.get(target)!.push(await sample(urlOf(target), picks[target], connections, seconds[round]));
+      }
       for (const target of RUN_ORDER) {
-        const result = await drive(target === "machine" ? bare.url : app.url, picks[target], { connections, duration: options.duration, warmup: options.warmup });
-        const figures = figuresOf(target, prepared.report.submissions, connections, result);
+        const figures = figuresOf(target, prepared.report.submissions, connections, rounds.get(target)!);
         log(`${prepared.report.submissions.toLocaleString("en")} submissions ${runLine(figures)}`);
         runs.push(figures);
       }
@@ -120,14 +133,18 @@ async function measureSize(
   return runs;
 }
 
-async function machineLine(cluster: Cluster, root: string): Promise<string> {
+async function machineLine(cluster: Cluster, root: string, loadAtStart: number[]): Promise<string> {
   const sequelize = createSequelize(cluster.url("postgres"), { poolMax: 1 });
   try {
     const [{ server_version }] = await sequelize.query<{ server_version: string }>("SHOW server_version", { type: QueryTypes.SELECT });
     const next = JSON.parse(readFileSync(path.join(root, "node_modules/next/package.json"), "utf8")).version;
     const cannon = JSON.parse(readFileSync(path.join(root, "node_modules/autocannon/package.json"), "utf8")).version;
     const cpus = os.cpus();
-    return `${cpus.length} × ${cpus[0]?.model.trim() ?? "unknown CPU"}, ${Math.round(os.totalmem() / 2 ** 30)} GiB; Node ${process.version}, PostgreSQL ${server_version}, Next.js ${next}, autocannon ${cannon}.`;
+    const load = loadAtStart.map((x) => x.toFixed(2)).join(" / ");
+    return (
+      `${cpus.length} × ${cpus[0]?.model.trim() ?? "unknown CPU"}, ${Math.round(os.totalmem() / 2 ** 30)} GiB; Node ${process.version}, ` +
+      `PostgreSQL ${server_version}, Next.js ${next}, autocannon ${cannon}. Load average before the run: ${load} (1 / 5 / 15 min; other work on the machine lowers every figure).`
+    );
   } finally {
     await sequelize.close();
   }
@@ -137,7 +154,8 @@ function methodNotes(options: BenchOptions): string[] {
   return [
     "Each size is seeded into its own database on a throwaway PostgreSQL cluster (temporary folder, free port, fsync off), migrated from zero; the app runs `next start` on the production build against it, one process, restarted per size.",
     `Requests for (a), (b) and (d) each draw a board uniformly at random from all ${options.boards.toLocaleString("en")} boards (autocannon setupRequest); (b) sends back the ETag recorded for the board drawn. The default view is asked for (no filters, no points).`,
-    `Before a size is measured every board's values are fetched once (the cache as traffic would leave it, and the ETags and bytes for (b) and (d)). Each run follows ${options.warmup} s of unrecorded load and lasts ${options.duration} s; req/s is the mean of autocannon's per-second samples, latencies in whole ms.`,
+    `Before a size is measured every board's values are fetched once (the cache as traffic would leave it, and the ETags and bytes for (b) and (d)). At each connection count every target first gets ${options.warmup} s of unrecorded load; then each is measured for ${options.duration} s in all, in ${options.rounds} round(s) that take the targets in turn (c, a, b, d), so that other work on the machine falls on all of them.`,
+    "req/s is the median of the per-second response counts pooled over the rounds (q1–q3 beside it shows the wobble); p50 and p99 are over every response's latency; both are Hyndman–Fan type 7 quantiles (lib/stats). A run with any response of the wrong status (not 200, or not 304 for b) or any connection error is left out of the ratios.",
     "autocannon runs in the benchmark's process, the app and the bare server in their own, all on this machine: on few cores they share the CPU, so the ceilings are this machine's, not the framework's in general.",
   ];
 }
@@ -157,6 +175,8 @@ export async function runLookupBenchmark(args: string[]): Promise<number> {
   }
   const root = process.cwd();
   const startedAt = new Date();
+  const loadAtStart = os.loadavg();
+  if (loadAtStart[0] > 0.5 * os.cpus().length) log(`the machine is busy (load average ${loadAtStart[0].toFixed(2)}): expect noisy figures`);
   const perSize = options.connections.length * RUN_ORDER.length * (options.warmup + options.duration);
   log(
     `lookup benchmark: sizes ${options.sizes.map((s) => s.toLocaleString("en")).join(", ")} submissions over ${options.boards.toLocaleString("en")} boards; ` +
@@ -183,7 +203,7 @@ export async function runLookupBenchmark(args: string[]): Promise<number> {
     const report = {
       startedAt,
       totalMs: Date.now() - startedAt.getTime(),
-      machine: await machineLine(cluster, root),
+      machine: await machineLine(cluster, root, loadAtStart),
       command: `npm run bench:lookup -- ${args.join(" ")}`.trim(),
       method: methodNotes(options),
       sizes,

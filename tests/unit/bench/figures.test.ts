@@ -1,30 +1,43 @@
 import { describe, expect, it } from "vitest";
-import { figuresOf, headlineRatio, ratio, ratioLine, ratiosOf, verdicts, type LoadResult, type RunFigures, type TargetId } from "@/lib/bench/figures";
+import { figuresOf, headlineRatio, ratio, ratioLine, ratiosOf, verdicts, type RunFigures, type Samples, type TargetId } from "@/lib/bench/figures";
 
 // The benchmark's arithmetic. Expected values are worked by hand from the inputs written here;
 // the targets are the (a/c ≥ 0.8, b/c ≥ 0.9, p99 < 25 ms at 8 connections, flat lookup).
 
-function result(average: number, codes: Record<string, number>, extra: Partial<LoadResult> = {}): LoadResult {
-  const total = Object.values(codes).reduce((a, b) => a + b, 0);
-  return {
-    requests: { average, total },
-    latency: { p50: 3, p99: 12 },
-    errors: 0,
-    timeouts: 0,
-    statusCodeStats: Object.fromEntries(Object.entries(codes).map(([code, count]) => [code, { count }])),
-    ...extra,
-  };
+function samples(perSecond: number[], latenciesMs: number[], statusCounts: Record<string, number>): Samples {
+  return { perSecond, latenciesMs, statusCounts, errors: 0 };
 }
 
 function run(target: TargetId, size: number, connections: number, reqPerSec: number, p99Ms = 10): RunFigures {
-  return { target, size, connections, reqPerSec, p50Ms: 2, p99Ms, requests: 1000, wrongStatus: 0, errors: 0 };
+  return { target, size, connections, reqPerSec, reqPerSecQ1: reqPerSec, reqPerSecQ3: reqPerSec, p50Ms: 2, p99Ms, requests: 1000, wrongStatus: 0, errors: 0 };
 }
 
-describe("one run's figures", () => {
+describe("one target's figures, pooled over its rounds", () => {
+  // two rounds of 3 s and 2 s: per-second counts 5, 7, 6 | 10, 4 → sorted 4 5 6 7 10
+  const rounds = [
+    samples([5, 7, 6], [1, 2, 3, 4, 5, 6, 7, 8, 9, 10], { 200: 10 }),
+    samples([10, 4], [20, 30], { 200: 1, 304: 1 }),
+  ];
+
+  it("takes the median and quartiles of the per-second counts (type 7)", () => {
+    const f = figuresOf("lookup", 10, 8, rounds);
+    expect(f.reqPerSec).toBe(6); // middle of 4 5 6 7 10
+    expect(f.reqPerSecQ1).toBe(5); // h = 0.25 · 4 = 1 → 5
+    expect(f.reqPerSecQ3).toBe(7); // h = 3 → 7
+  });
+
+  it("takes p50 and p99 over every response of every round (type 7)", () => {
+    // latencies 1..10, 20, 30 (n = 12): p50 at h = 5.5 → 6.5; p99 at h = 10.89 → 20 + 0.89 · 10 = 28.9
+    const f = figuresOf("lookup", 10, 8, rounds);
+    expect(f.p50Ms).toBe(6.5);
+    expect(f.p99Ms).toBe(28.9);
+    expect(f.requests).toBe(12);
+  });
+
   it("counts responses whose status is not the target's", () => {
-    expect(figuresOf("revalidate", 10, 8, result(500, { 304: 4990, 200: 10 })).wrongStatus).toBe(10);
-    expect(figuresOf("lookup", 10, 8, result(500, { 200: 5000 })).wrongStatus).toBe(0);
-    expect(figuresOf("lookup", 10, 8, result(500, { 200: 4000, 500: 7 })).wrongStatus).toBe(7);
+    expect(figuresOf("lookup", 10, 8, rounds).wrongStatus).toBe(1); // the 304
+    expect(figuresOf("revalidate", 10, 8, rounds).wrongStatus).toBe(11); // every 200
+    expect(figuresOf("lookup", 10, 8, [samples([1], [1], { 200: 4000, 500: 7 })]).wrongStatus).toBe(7);
   });
 });
 

@@ -21,6 +21,7 @@ describe("bench:lookup flags", () => {
       sizes: [10_000, 100_000],
       connections: [8, 64],
       duration: 10,
+      rounds: 2,
       warmup: 2,
       docs: "docs/benchmarks.md",
       stockRebuild: false,
@@ -45,5 +46,6 @@ describe("bench:lookup flags", () => {
     expect(errorsOf(["--boards"])).toEqual({ boards: ["--boards needs a value"] });
     expect(errorsOf(["--bords", "5"])).toEqual({ bords: ["unknown flag --bords; see --help"] });
     expect(errorsOf(["--sizes", "10", "--submissions", "10"])).toEqual({ submissions: ["give either --sizes or --submissions, not both"] });
+    expect(errorsOf(["--duration", "3", "--rounds", "4"]).rounds).toEqual(["--rounds cannot exceed --duration: each round lasts at least a second"]);
   });
 });

@@ -132,9 +132,11 @@ export async function removeEvidencePhoto(id: string, user: NonNullable<PhotoVie
 }
 
 /**
- * Makes photos part of a new submission, inside the transaction that creates it. Each photo must
- * have been uploaded by `userId`, not be removed, and not belong to another submission; otherwise
- * this throws ApiError 400 naming `photoIds` (and the caller's transaction rolls back).
+ * Makes photos part of a submission, inside the transaction that creates (or edits) it. Each
+ * photo must have been uploaded by `userId`, not be removed, and not belong to another
+ * submission; photos already on this submission are accepted as they are, so an edit may send
+ * its whole list again. Otherwise this throws ApiError 400 naming `photoIds` (and the caller's
+ * transaction rolls back). Returns the listed photos.
  */
 export async function attachPhotosToSubmission(
   photoIds: readonly string[],
@@ -152,23 +154,25 @@ export async function attachPhotosToSubmission(
     // a programming error in the caller, not something a contributor can cause
     throw new Error(`attachPhotosToSubmission: submission ${submissionId} does not belong to user ${userId}`);
   }
-  const already = await EvidencePhoto.count({ where: { submissionId }, transaction });
-  if (already + ids.length > MAX_PHOTOS_PER_SUBMISSION) {
-    throw badRequest({ [PHOTO_IDS_FIELD]: [`A submission can have at most ${MAX_PHOTOS_PER_SUBMISSION} photos; remove ${already + ids.length - MAX_PHOTOS_PER_SUBMISSION}.`] });
+  const others = await EvidencePhoto.count({ where: { submissionId, id: { [Op.notIn]: ids } }, transaction });
+  if (others + ids.length > MAX_PHOTOS_PER_SUBMISSION) {
+    throw badRequest({ [PHOTO_IDS_FIELD]: [`A submission can have at most ${MAX_PHOTOS_PER_SUBMISSION} photos; remove ${others + ids.length - MAX_PHOTOS_PER_SUBMISSION}.`] });
   }
-  const [, attached] = await EvidencePhoto.update(
+  // the WHERE is the rule; a photo that another transaction attaches first no longer matches
+  await EvidencePhoto.update(
     { submissionId },
-    { where: { id: { [Op.in]: ids }, uploaderId: userId, submissionId: null, deletedAt: null }, transaction, returning: true },
+    { where: { id: { [Op.in]: ids }, uploaderId: userId, submissionId: null, deletedAt: null }, transaction },
   );
+  const attached = await EvidencePhoto.findAll({ where: { id: { [Op.in]: ids }, uploaderId: userId, submissionId }, transaction });
   if (attached.length !== ids.length) {
-    const missing = ids.filter((id) => !attached.some((p) => p.id === id)).length;
+    const missing = ids.length - attached.length;
     throw badRequest({
       [PHOTO_IDS_FIELD]: [
-        `${missing === 1 ? "One photo is" : `${missing} photos are`} no longer available (removed, already part of a submission, or uploaded by someone else). Remove ${missing === 1 ? "it" : "them"} from the form and upload again.`,
+        `${missing === 1 ? "One photo is" : `${missing} photos are`} no longer available (removed, already part of another submission, or uploaded by someone else). Remove ${missing === 1 ? "it" : "them"} from the form and upload again.`,
       ],
     });
   }
-  return attached.map(summary);
+  return ids.map((id) => summary(attached.find((p) => p.id === id)!));
 }
 
 /** A submission's photos (not removed), oldest first, for its page and the review queue. */

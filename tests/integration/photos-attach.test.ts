@@ -55,6 +55,17 @@ describe("attachPhotosToSubmission", () => {
     expect((await listSubmissionPhotos(submission)).map((p) => p.id).sort()).toEqual([...ids].sort());
   });
 
+  it("photos already on this submission are accepted again (an edit resends its list), and counted once", async () => {
+    const sequelize = db();
+    const submission = await insertSubmission(sequelize, fx, me.id);
+    const first = await photoOf(me.cookie);
+    await sequelize.transaction((t) => attachPhotosToSubmission([first], submission, me.id, t));
+    const second = await photoOf(me.cookie);
+    const again = await sequelize.transaction((t) => attachPhotosToSubmission([first, second], submission, me.id, t));
+    expect(again.map((p) => p.id)).toEqual([first, second]);
+    expect((await listSubmissionPhotos(submission)).map((p) => p.id).sort()).toEqual([first, second].sort());
+  });
+
   it("an empty list attaches nothing", async () => {
     const submission = await insertSubmission(db(), fx, me.id);
     expect(await db().transaction((t) => attachPhotosToSubmission([], submission, me.id, t))).toEqual([]);
@@ -77,7 +88,7 @@ describe("attachPhotosToSubmission", () => {
     const second = await insertSubmission(sequelize, fx, me.id);
     const taken = await photoOf(me.cookie);
     await sequelize.transaction((t) => attachPhotosToSubmission([taken], first, me.id, t));
-    expect((await attachError([taken], second)).fieldErrors.photoIds[0]).toMatch(/already part of a submission/);
+    expect((await attachError([taken], second)).fieldErrors.photoIds[0]).toMatch(/already part of another submission/);
 
     const removed = await photoOf(me.cookie);
     expect((await deletePhoto(me.cookie, removed)).status).toBe(204);

@@ -1,4 +1,5 @@
 import { AsyncLocalStorage } from "node:async_hooks";
+import { createRequire } from "node:module";
 import { RequestCookies } from "next/dist/server/web/spec-extension/cookies";
 
 // A stand-in for `next/headers` in vitest. Outside a Next.js server, the real cookies() and
@@ -9,6 +10,8 @@ import { RequestCookies } from "next/dist/server/web/spec-extension/cookies";
 //   vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 //
 // Outside any inRequest scope both return an empty request (an anonymous caller with no headers).
+// Packages that load next/headers with require() (next-auth does, inside its route handler) do
+// not go through vi.mock, so the CommonJS module's exports are pointed here too (end of file).
 
 type Scope = { headers: Headers; cookies: RequestCookies };
 const scope = new AsyncLocalStorage<Scope>();
@@ -37,3 +40,8 @@ export async function headers(): Promise<Headers> {
 export async function draftMode() {
   return { isEnabled: false, enable() {}, disable() {} };
 }
+
+// next/headers is a CommonJS module with plain assignable exports; one object is shared by every
+// require() of it in this test process
+const commonJs = createRequire(import.meta.url)("next/headers") as Record<string, unknown>;
+Object.assign(commonJs, { cookies, headers, draftMode });

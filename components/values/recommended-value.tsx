@@ -1,0 +1,58 @@
+import type { FamilyUnits, QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
+import { MIN_VALUES_TO_JUDGE } from "@/lib/stats/spread";
+import { ConfidenceBadge } from "./confidence-badge";
+import { QUANTITY_TITLES, settingFromParts, settingMeaning, settingText, type PartsFigures } from "./quantity-meaning";
+
+/**
+ * One recommended setting, big enough to read off a phone on the field: the whole number the
+ * pilot types in, what it stands for physically, the confidence label with n and what that label
+ * means. Below 3 values the number is shown quieter, as a hint rather than a recommendation.
+ */
+export function RecommendedValue({
+  quantity,
+  values: q,
+  units,
+  parts,
+}: {
+  quantity: QuantityKey;
+  values: QuantityValues | null;
+  units: FamilyUnits;
+  parts: PartsFigures;
+}) {
+  const headingId = `rec-${quantity}`;
+  const expected = settingFromParts(quantity, parts, units);
+  return (
+    <article aria-labelledby={headingId} className="flex flex-col gap-2 rounded-md border-3 border-rule bg-surface px-4 py-3" data-quantity={quantity}>
+      <h3 id={headingId} className="font-display text-lg font-bold tracking-wide uppercase">
+        {QUANTITY_TITLES[quantity]}
+      </h3>
+      {q ? (
+        <>
+          <p className="flex flex-col">
+            <span className="text-small text-muted">Setting to enter</span>
+            <span
+              className={`font-mono text-display font-bold tabular-nums ${q.n < MIN_VALUES_TO_JUDGE ? "text-muted" : "text-ink"}`}
+              data-testid={`setting-${quantity}`}
+            >
+              {settingText(q.recommended.setting)}
+            </span>
+          </p>
+          <ul className="text-small">
+            {settingMeaning(quantity, q.recommended.setting, units).map((line) => (
+              <li key={line}>{line}</li>
+            ))}
+          </ul>
+          <ConfidenceBadge label={q.confidence.label} title={q.confidence.title} n={q.n} />
+          <p className="text-small">{q.confidence.explanation}</p>
+          {expected !== null && (
+            <p className="border-t border-rule-soft pt-2 text-small text-muted">
+              This revision&rsquo;s parts list works out at <span className="font-mono font-bold text-ink">{settingText(expected)}</span>.
+            </p>
+          )}
+        </>
+      ) : (
+        <p className="sb-unknown">Nobody has published a {QUANTITY_TITLES[quantity].toLowerCase()} for this revision and firmware family yet.</p>
+      )}
+    </article>
+  );
+}

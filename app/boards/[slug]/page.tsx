@@ -4,14 +4,37 @@ import { notFound } from "next/navigation";
 import { cache, type ReactNode } from "react";
 import { RevisionHardware } from "@/components/revision-hardware";
 import { SafetyNote } from "@/components/safety-note";
+import { BoardValuesSection, type RevisionEntry } from "@/components/values/board-values-section";
+import { resolveSelection } from "@/components/values/selection";
 import { formatCells, formatMounting } from "@/lib/catalogue/format";
 import { getBoardBySlug } from "@/lib/catalogue/get-board";
 import { kindLabel } from "@/lib/catalogue/kinds";
 import { catalogueQueryString } from "@/lib/catalogue/search-params";
+import { getBoardValues, type BoardValues } from "@/lib/published/board-values";
 
 export const dynamic = "force-dynamic";
 
-type Props = { params: Promise<{ slug: string }> };
+type Props = { params: Promise<{ slug: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
+
+const firstString = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
+
+/**
+ * The values section's first view: the selection from ?revision=&family= (or the likeliest one),
+ * that group with its points as the API would send it, and the whole board's figures without
+ * points for the picker and the difference notes. Both come from the same in-memory cache.
+ */
+async function loadValues(slug: string, asked: { revision?: string; family?: string }) {
+  const overviewResult = await getBoardValues(slug);
+  if (!overviewResult?.ok) return null;
+  const overview = overviewResult.values;
+  const { selection, notices } = resolveSelection(overview.revisions, overview, asked);
+  let initial: { selection: NonNullable<typeof selection>; values: BoardValues } | null = null;
+  if (selection) {
+    const view = await getBoardValues(slug, { ...selection, points: true });
+    if (view?.ok) initial = { selection, values: view.values };
+  }
+  return { overview, initial, notices };
+}
 
 // metadata and the page read the same board: one query per request
 const loadBoard = cache(getBoardBySlug);
@@ -27,9 +50,20 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   };
 }
 
-export default async function BoardPage({ params }: Props) {
+export default async function BoardPage({ params, searchParams }: Props) {
   const board = await loadBoard((await params).slug);
   if (!board) notFound();
+  const query = await searchParams;
+  const values = await loadValues(board.slug, { revision: firstString(query.revision), family: firstString(query.family) });
+  const revisionEntries: RevisionEntry[] = board.revisions.map((r) => ({
+    label: r.label,
+    position: r.position,
+    dividerRatio: r.dividerRatio,
+    currentSensor: r.currentSensor,
+    shuntMilliohms: r.shuntMilliohms,
+    amplifierGain: r.amplifierGain,
+    sensitivityMvPerAmp: r.sensitivityMvPerAmp,
+  }));
 
   const facts: { term: string; value: ReactNode }[] = [
     {
@@ -84,36 +118,42 @@ export default async function BoardPage({ params }: Props) {
         </p>
       </header>
 
-      <div className="grid gap-8 lg:grid-cols-[1fr_24rem] lg:items-start">
-        <div className="space-y-6">
-          <dl className="grid grid-cols-2 gap-px overflow-hidden rounded-md border-3 border-rule bg-rule sm:grid-cols-4">
-            {facts.map((f) => (
-              <div key={f.term} className="bg-surface px-4 py-3">
-                <dt className="font-display text-base font-semibold tracking-wide text-muted uppercase">{f.term}</dt>
-                <dd className="mt-1 font-mono text-lg">{f.value}</dd>
-              </div>
-            ))}
-          </dl>
-
-          <div>
-            <h2 className="font-display text-lg font-bold tracking-wide uppercase">Also known as</h2>
-            {board.aliases.length > 0 ? (
-              <ul className="mt-2 flex flex-wrap gap-2">
-                {board.aliases.map((alias) => (
-                  <li key={alias} className="rounded-full border-2 border-rule-soft bg-surface px-3 py-1">
-                    {alias}
-                  </li>
-                ))}
-              </ul>
-            ) : (
-              <p className="mt-1 sb-unknown">no other names on record</p>
-            )}
+      <dl className="grid grid-cols-2 gap-px overflow-hidden rounded-md border-3 border-rule bg-rule sm:grid-cols-4">
+        {facts.map((f) => (
+          <div key={f.term} className="bg-surface px-4 py-3">
+            <dt className="font-display text-base font-semibold tracking-wide text-muted uppercase">{f.term}</dt>
+            <dd className="mt-1 font-mono text-lg">{f.value}</dd>
           </div>
+        ))}
+      </dl>
 
-          {board.description && <p className="max-w-prose">{board.description}</p>}
+      {/* the numbers a pilot came for, with the safety box beside them */}
+      <BoardValuesSection
+        slug={board.slug}
+        revisions={revisionEntries}
+        overview={values?.overview ?? { board: { slug: board.slug, name: board.name, kind: board.kind, manufacturer: board.manufacturer }, families: [], revisions: [], lastChangeAt: null }}
+        initial={values?.initial ?? null}
+        notices={values?.notices ?? []}
+        safety={<SafetyNote />}
+      />
+
+      <div className="space-y-6">
+        <div>
+          <h2 className="font-display text-lg font-bold tracking-wide uppercase">Also known as</h2>
+          {board.aliases.length > 0 ? (
+            <ul className="mt-2 flex flex-wrap gap-2">
+              {board.aliases.map((alias) => (
+                <li key={alias} className="rounded-full border-2 border-rule-soft bg-surface px-3 py-1">
+                  {alias}
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <p className="mt-1 sb-unknown">no other names on record</p>
+          )}
         </div>
 
-        <SafetyNote />
+        {board.description && <p className="max-w-prose">{board.description}</p>}
       </div>
 
       <section aria-labelledby="revisions-title" className="space-y-4">

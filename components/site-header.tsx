@@ -3,7 +3,10 @@ import { NavLink } from "./nav-link";
 import { ThemeSwitch } from "./theme-switch";
 
 // Later sections (contribute, worksheets, moderation) add their links to NAV_ITEMS.
-const NAV_ITEMS = [{ href: "/boards", label: "Boards" }];
+const NAV_ITEMS = [
+  { href: "/boards", label: "Boards" },
+  { href: "/submit", label: "Contribute" },
+];
 
 export function SiteHeader() {
   return (

@@ -224,7 +224,8 @@ export function submissionSchema(context: SchemaContext = {}) {
         .nullish()
         .transform((v) => v ?? []),
     })
-    .check((ctx) => crossFieldChecks(ctx.value as unknown as Loose, (path, message) => ctx.issues.push({ code: "custom", path, message, input: ctx.value })));
+    // `when` makes these run even after a field failed, so every message shows on the first submit
+    .superRefine((value, ctx) => crossFieldChecks(value as unknown as Loose, (path, message) => ctx.addIssue({ code: "custom", path, message })), { when: () => true });
 }
 
 export type SubmissionSchema = ReturnType<typeof submissionSchema>;
@@ -241,7 +242,7 @@ export const METHOD_EVIDENCE: Record<Method, { voltageCheck: "required" | "optio
   unverified: { voltageCheck: "none", cycles: false, bench: false },
 };
 
-// The object-level checks run even when a field inside failed (zod's .check), so they read the
+// The object-level checks run even when a field inside failed (`when` above), so they read the
 // value defensively: a field may still be a string or missing here.
 type Loose = { [k: string]: unknown };
 const present = (v: unknown) => v !== null && v !== undefined;

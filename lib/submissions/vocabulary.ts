@@ -51,3 +51,5 @@ export const STATUS_LABELS: Record<SubmissionStatus, string> = {
 
 /** A contributor may edit a submission only while a moderator has not decided it. */
 export const EDITABLE_STATUSES: readonly SubmissionStatus[] = ["pending", "changes_requested"];
+
+export type { Method, SensingSource, SubmissionStatus } from "@/models/Submission";

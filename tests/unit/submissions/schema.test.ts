@@ -180,3 +180,10 @@ describe("without a context the schema still checks what does not depend on it",
     expect(errorsOf({ ...base, currentScale: 0 }, plain).currentScale?.[0]).toMatch(/more than 0/);
   });
 });
+
+describe("every message on the first try", () => {
+  it("the cross-field rules speak even when other fields are still empty", () => {
+    const e = errorsOf({ ...base, boardRevisionId: null, sensingSource: "", method: "fly_recharge", cycles: [], currentScale: null });
+    expect(Object.keys(e).sort()).toEqual(["boardRevisionId", "cycles", "sensingSource", "voltageScale"]);
+  });
+});

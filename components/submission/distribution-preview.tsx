@@ -1,0 +1,91 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import { useWatch } from "react-hook-form";
+import { formatFigure, plural } from "@/lib/catalogue/format";
+import type { BoardValues, QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
+import { placeValue } from "@/lib/submissions/placement";
+import type { ChosenBoard, FamilyOption, SubmissionDraft } from "./draft";
+
+// Before sending: where the contributor's values fall among the approved ones for the same board
+// revision and firmware family (GET /api/v1/boards/{slug}/values), as the median, its 95 % range
+// and the value's modified z-score (lib/submissions/placement.ts).
+
+const QUANTITIES: { key: QuantityKey; title: string }[] = [
+  { key: "voltageScale", title: "Voltage scale" },
+  { key: "currentScale", title: "Current scale" },
+  { key: "currentOffset", title: "Current offset" },
+];
+
+async function fetchValues(slug: string, revision: string, family: string, signal?: AbortSignal): Promise<BoardValues> {
+  const query = new URLSearchParams({ revision, family, points: "1" });
+  const res = await fetch(`/api/v1/boards/${encodeURIComponent(slug)}/values?${query}`, { signal, headers: { accept: "application/json" } });
+  const body = await res.json().catch(() => null);
+  if (!res.ok) throw new Error(body?.error?.message ?? `The published values could not be loaded (HTTP ${res.status}).`);
+  return body as BoardValues;
+}
+
+function Row({ title, value, q }: { title: string; value: number; q: QuantityValues | null }) {
+  if (!q) {
+    return (
+      <li>
+        <strong>{title} {value}:</strong> nobody has an approved value here yet, so yours would be the first.
+      </li>
+    );
+  }
+  const p = placeValue(value, q, (q.points ?? []).map((x) => x.value));
+  const range = q.ciLow !== null && q.ciHigh !== null ? `, 95 % range for the median ${formatFigure(q.ciLow)}–${formatFigure(q.ciHigh)}` : "";
+  let where: string;
+  if (p.rule === "too_few") where = "too few approved values to judge how far off it is.";
+  else if (p.modifiedZ === null) where = "every approved value is the same and yours differs.";
+  else where = `modified z-score ${formatFigure(p.modifiedZ, 2)}${p.outlier ? " — far from the others (beyond ±3.5), so a moderator will look twice" : " — in line with the others"}.`;
+  return (
+    <li className={p.outlier ? "font-semibold" : ""}>
+      <strong>
+        {title} <span className="font-mono">{value}</span>:
+      </strong>{" "}
+      median <span className="font-mono">{formatFigure(q.median)}</span> of {plural(q.n, "approved value")}
+      {range}; {where}
+    </li>
+  );
+}
+
+export function DistributionPreview({ board, families }: { board: ChosenBoard | null; families: readonly FamilyOption[] }) {
+  const [revisionId, familyId, voltageScale, currentScale, currentOffset] = useWatch<SubmissionDraft>({
+    name: ["boardRevisionId", "firmwareFamilyId", "voltageScale", "currentScale", "currentOffset"],
+  }) as [number | null, number | null, number | null, number | null, number | null];
+  const revision = board?.revisions.find((r) => r.id === revisionId) ?? null;
+  const family = families.find((f) => f.id === familyId) ?? null;
+  const ready = Boolean(board && revision && family);
+  const values = useQuery({
+    queryKey: ["submit-values", board?.slug, revision?.label, family?.slug],
+    queryFn: ({ signal }) => fetchValues(board!.slug, revision!.label, family!.slug, signal),
+    enabled: ready,
+  });
+  if (!ready) return null;
+  const mine: Record<QuantityKey, number | null> = { voltageScale, currentScale, currentOffset };
+  const entered = QUANTITIES.filter((q) => typeof mine[q.key] === "number" && Number.isFinite(mine[q.key]!));
+  const group = values.data?.revisions.find((r) => r.label === revision!.label)?.families.find((g) => g.family === family!.slug) ?? null;
+
+  return (
+    <section aria-labelledby="placement-title" aria-live="polite" className="rounded-md border-2 border-rule bg-surface p-4">
+      <h3 id="placement-title" className="font-display text-lg font-bold tracking-wide uppercase">
+        How your values compare
+      </h3>
+      <p className="mt-1 text-small text-muted">
+        Approved values for the {board!.name} revision {revision!.label} under {family!.name}. A different value is not wrong:
+        boards vary, and this is how outliers get found.
+      </p>
+      {values.isLoading && <p className="mt-2">Loading the published values…</p>}
+      {values.error && <p className="mt-2 text-fault">{(values.error as Error).message}</p>}
+      {values.isSuccess && entered.length === 0 && <p className="mt-2">Enter a value above to see where it falls.</p>}
+      {values.isSuccess && entered.length > 0 && (
+        <ul className="mt-2 space-y-1">
+          {entered.map((q) => (
+            <Row key={q.key} title={q.title} value={mine[q.key]!} q={group?.[q.key] ?? null} />
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}

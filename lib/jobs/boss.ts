@@ -14,7 +14,7 @@ type BossHolder = { url: string; boss: PgBoss; started: Promise<PgBoss> };
 const globalForJobs = globalThis as unknown as { shuntbookBoss?: BossHolder };
 
 /** The started pg-boss instance for DATABASE_URL, with every queue in JOBS created. */
-export function boss(opts: { supervise?: boolean } = {}): Promise<PgBoss> {
+export function boss(): Promise<PgBoss> {
   const url = databaseUrl();
   const held = globalForJobs.shuntbookBoss;
   if (held && held.url === url) return held.started;
@@ -22,8 +22,9 @@ export function boss(opts: { supervise?: boolean } = {}): Promise<PgBoss> {
     connectionString: url,
     schema: BOSS_SCHEMA,
     max: 3,
-    // maintenance (expiring stuck jobs, archiving) runs where the worker runs
-    supervise: opts.supervise ?? false,
+    // maintenance: a job whose worker died is expired and retried, old jobs are archived; several
+    // instances may all supervise (pg-boss takes an advisory lock for it)
+    supervise: true,
     schedule: false,
   });
   instance.on("error", (error) => console.error("[jobs] pg-boss:", error));

@@ -15,14 +15,19 @@ async function runOne(name: JobName, data: unknown): Promise<void> {
 export async function startJobWorker(): Promise<void> {
   const g = globalThis as unknown as { shuntbookWorker?: Promise<void> };
   g.shuntbookWorker ??= (async () => {
-    const queue = await boss({ supervise: true });
+    const queue = await boss();
     for (const name of Object.keys(JOBS) as JobName[]) {
       // a throw fails the job; pg-boss then retries it per the queue's policy
       await queue.work(name, { pollingIntervalSeconds: 2, batchSize: 1 }, async ([job]) => runOne(name, job.data));
     }
     console.log(`[jobs] worker polling ${Object.keys(JOBS).join(", ")}`);
   })();
-  await g.shuntbookWorker;
+  try {
+    await g.shuntbookWorker;
+  } catch (error) {
+    g.shuntbookWorker = undefined; // so that a later call tries again
+    throw error;
+  }
 }
 
 export type DrainResult = { completed: number; failed: number; errors: string[] };

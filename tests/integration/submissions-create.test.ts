@@ -1,6 +1,7 @@
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { stopBoss } from "@/lib/jobs";
+import { queueStatusMail } from "@/lib/submissions";
 import { db } from "@/models";
 import { sessionCookieFor, testAccount } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";
@@ -83,6 +84,20 @@ describe("a valid submission", () => {
     expect(b.evidence.summary.bench.impliedScale).toBeCloseTo(250, 9);
     expect(b.evidence.summary.bench.impliedOffset).toBeCloseTo(12, 9);
     expect(b.evidence.mismatch).toBe(false);
+  });
+});
+
+describe("the status mail belongs to its transaction", () => {
+  it("rolled back with the change, it is never sent", async () => {
+    const { submission } = await (await post(validBody(target), cookie)).json();
+    const before = await rowCounts();
+    await expect(
+      db().transaction(async (transaction) => {
+        await queueStatusMail(submission.id, transaction, "decided");
+        throw new Error("the status change failed after the mail was queued");
+      }),
+    ).rejects.toThrow(/status change failed/);
+    expect(await rowCounts()).toEqual(before);
   });
 });
 

@@ -83,7 +83,6 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
     queryKey: valuesQueryKey(slug, selection),
     queryFn: ({ signal }) => fetchGroupValues(slug, selection, signal),
     initialData: isInitial ? initial.values : undefined,
-    // keep the last view on screen (dimmed, and labelled with what it is) while the next loads
     placeholderData: keepPreviousData,
   });
 
@@ -162,9 +161,9 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
             data &&
             units &&
             shownRevision && (
-              <div aria-busy={loading} className={loading ? "opacity-45 transition-opacity" : "transition-opacity"} data-testid="values-view" data-shown={`${shownRevision.label}|${units.slug}`}>
+              <div aria-busy={loading} data-testid="values-view" data-shown={`${shownRevision.label}|${units.slug}`}>
                 <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
-                  <h3 className="font-display text-xl font-bold tracking-wide uppercase">
+                  <h3 className={`font-display text-xl font-bold tracking-wide uppercase ${loading ? "opacity-45" : ""}`}>
                     <span className="font-mono normal-case">{shownRevision.label}</span> with {units.name}
                   </h3>
                   {loading && (
@@ -173,23 +172,26 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
                     </span>
                   )}
                 </div>
-                {units.description && <p className="mt-1 max-w-prose text-small text-muted">{units.description}</p>}
-                {group ? (
-                  <div className="mt-3 grid gap-3 sm:grid-cols-3">
-                    {QUANTITY_KEYS.map((k) => (
-                      <RecommendedValue key={k} quantity={k} values={group[k]} units={units} parts={parts} />
-                    ))}
-                  </div>
-                ) : (
-                  <div className="mt-3">
-                    <NoValues>No published values yet for this revision and firmware family &mdash; be the first to contribute.</NoValues>
-                    {otherFamilies.length > 0 && (
-                      <p className="mt-2">
-                        <span className="font-mono">{selection.revision}</span> has values under {otherFamilies.join(" and ")}.
-                      </p>
-                    )}
-                  </div>
-                )}
+                {/* the previous view stays while the next loads, dimmed and labelled with what it is */}
+                <div className={`transition-opacity ${loading ? "opacity-45" : ""}`}>
+                  {units.description && <p className="mt-1 max-w-prose text-small text-muted">{units.description}</p>}
+                  {group ? (
+                    <div className="mt-3 grid gap-3 sm:grid-cols-3">
+                      {QUANTITY_KEYS.map((k) => (
+                        <RecommendedValue key={k} quantity={k} values={group[k]} units={units} parts={parts} />
+                      ))}
+                    </div>
+                  ) : (
+                    <div className="mt-3">
+                      <NoValues>No published values yet for this revision and firmware family &mdash; be the first to contribute.</NoValues>
+                      {otherFamilies.length > 0 && (
+                        <p className="mt-2">
+                          <span className="font-mono">{selection.revision}</span> has values under {new Intl.ListFormat("en", { type: "conjunction" }).format(otherFamilies)}.
+                        </p>
+                      )}
+                    </div>
+                  )}
+                </div>
               </div>
             )
           )}

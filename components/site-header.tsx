@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { AccountLinks } from "./auth/account-links";
 import { NavLink } from "./nav-link";
 import { ThemeSwitch } from "./theme-switch";
 
@@ -18,12 +19,13 @@ export function SiteHeader() {
           <span className="font-display text-[1.9rem] leading-none font-extrabold tracking-wide uppercase">Shuntbook</span>
         </Link>
         <nav aria-label="Main" className="flex items-center gap-5">
-          <ul className="flex items-center gap-5">
+          <ul className="flex flex-wrap items-center gap-x-5 gap-y-1">
             {NAV_ITEMS.map((item) => (
               <li key={item.href}>
                 <NavLink href={item.href}>{item.label}</NavLink>
               </li>
             ))}
+            <AccountLinks />
           </ul>
           <ThemeSwitch />
         </nav>

@@ -89,7 +89,7 @@ export function inRequest<T>(request: Request, fn: () => T): T {
 }
 
 /** Calls a route handler with `request`, next/headers pointing at the same request. */
-export function callRoute<C>(handler: (request: Request, context: C) => Promise<Response>, request: Request, context?: C): Promise<Response> {
+export function callRoute<R extends Request, C>(handler: (request: R, context: C) => Promise<Response>, request: R, context?: C): Promise<Response> {
   return runWithRequest(request, () => handler(request, (context ?? { params: Promise.resolve({}) }) as C));
 }
 

@@ -1,0 +1,76 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import Link from "next/link";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { ResetConfirmSchema, ResetRequestSchema, type ResetConfirmInput, type ResetRequestInput } from "@/lib/auth/schemas";
+import { accountRequest } from "./auth-client";
+import { applyFieldErrors, FormMessage, TextField } from "./fields";
+
+/** Step 1: an address; the answer never says whether an account has it. */
+export function ResetRequestForm() {
+  const { register, handleSubmit, setError, formState } = useForm<ResetRequestInput>({ resolver: zodResolver(ResetRequestSchema), mode: "onTouched" });
+  const [problem, setProblem] = useState<string | null>(null);
+  const [sent, setSent] = useState<string | null>(null);
+  const onSubmit = handleSubmit(async (values) => {
+    setProblem(null);
+    const result = await accountRequest("/api/auth/password-reset", "POST", values);
+    if (result.ok) return setSent((result.body as { message: string }).message);
+    const rest = applyFieldErrors(setError, result.fieldErrors, ["email"]);
+    if (rest.length || !Object.keys(result.fieldErrors).length) setProblem(result.message);
+  });
+  if (sent) return <FormMessage tone="done">{sent} Check the spam folder too.</FormMessage>;
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      {problem && <FormMessage tone="fault">{problem}</FormMessage>}
+      <TextField form={{ register, errors: formState.errors }} idPrefix="rr" name="email" label="E-mail address of the account" type="email" autoComplete="email" />
+      <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
+        {formState.isSubmitting ? "Sending…" : "Mail me a reset link"}
+      </button>
+    </form>
+  );
+}
+
+/** Step 2: from the mailed link, a new password. */
+export function ResetCompleteForm({ token }: { token: string }) {
+  const { register, handleSubmit, setError, formState } = useForm<ResetConfirmInput>({
+    resolver: zodResolver(ResetConfirmSchema),
+    mode: "onTouched",
+    defaultValues: { token, password: "", confirm: "" },
+  });
+  const [problem, setProblem] = useState<string | null>(null);
+  const [done, setDone] = useState(false);
+  const onSubmit = handleSubmit(async (values) => {
+    setProblem(null);
+    const result = await accountRequest("/api/auth/password-reset/complete", "POST", values);
+    if (result.ok) return setDone(true);
+    const rest = applyFieldErrors(setError, result.fieldErrors, ["password", "confirm"]);
+    if (result.fieldErrors.token) rest.push(...result.fieldErrors.token);
+    if (rest.length || !Object.keys(result.fieldErrors).length) setProblem(rest[0] ?? result.message);
+  });
+  if (done) {
+    return (
+      <FormMessage tone="done">
+        Your new password is set, and any other device signed in to this account is now signed out.{" "}
+        <Link href="/signin">Sign in with the new password</Link>.
+      </FormMessage>
+    );
+  }
+  const tokenError = formState.errors.token?.message;
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      {(problem || tokenError) && (
+        <FormMessage tone="fault">
+          {problem ?? tokenError} <Link href="/reset-password">Ask for a new link</Link>.
+        </FormMessage>
+      )}
+      <input type="hidden" {...register("token")} />
+      <TextField form={{ register, errors: formState.errors }} idPrefix="rc" name="password" label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." />
+      <TextField form={{ register, errors: formState.errors }} idPrefix="rc" name="confirm" label="New password again" type="password" autoComplete="new-password" />
+      <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
+        {formState.isSubmitting ? "Saving…" : "Set the new password"}
+      </button>
+    </form>
+  );
+}

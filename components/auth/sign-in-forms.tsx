@@ -1,0 +1,65 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { MagicLinkSchema, SignInSchema, type MagicLinkInput, type SignInInput } from "@/lib/auth/schemas";
+import { nextAuthPost } from "./auth-client";
+import { applyFieldErrors, FormMessage, TextField } from "./fields";
+
+/** E-mail and password. On success the whole page reloads at `next`, so the header shows the account. */
+export function PasswordSignInForm({ next }: { next: string }) {
+  const { register, handleSubmit, setError, formState } = useForm<SignInInput>({ resolver: zodResolver(SignInSchema), mode: "onTouched" });
+  const [problem, setProblem] = useState<string | null>(null);
+  const onSubmit = handleSubmit(async (values) => {
+    setProblem(null);
+    const result = await nextAuthPost("callback/credentials", values, new URL(next, window.location.origin).toString());
+    if (result.ok) return window.location.assign(next);
+    applyFieldErrors(setError, result.fieldErrors, ["email", "password"]);
+    setProblem(result.message);
+  });
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-describedby={problem ? "password-signin-problem" : undefined}>
+      {problem && (
+        <div id="password-signin-problem">
+          <FormMessage tone="fault">{problem}</FormMessage>
+        </div>
+      )}
+      <TextField form={{ register, errors: formState.errors }} idPrefix="pw" name="email" label="E-mail address" type="email" autoComplete="email" />
+      <TextField form={{ register, errors: formState.errors }} idPrefix="pw" name="password" label="Password" type="password" autoComplete="current-password" />
+      <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
+        {formState.isSubmitting ? "Checking…" : "Sign in"}
+      </button>
+    </form>
+  );
+}
+
+/** A one-time link by e-mail; no password needed, and a new address gets an account. */
+export function MagicLinkForm({ next }: { next: string }) {
+  const { register, handleSubmit, setError, formState } = useForm<MagicLinkInput>({ resolver: zodResolver(MagicLinkSchema), mode: "onTouched" });
+  const [problem, setProblem] = useState<string | null>(null);
+  const onSubmit = handleSubmit(async (values) => {
+    setProblem(null);
+    const result = await nextAuthPost("signin/email", { email: values.email }, new URL(next, window.location.origin).toString());
+    if (result.ok) return window.location.assign(`/signin/check-email?email=${encodeURIComponent(values.email)}`);
+    const rest = applyFieldErrors(setError, result.fieldErrors, ["email"]);
+    if (rest.length || !Object.keys(result.fieldErrors).length) setProblem(result.message);
+  });
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      {problem && <FormMessage tone="fault">{problem}</FormMessage>}
+      <TextField
+        form={{ register, errors: formState.errors }}
+        idPrefix="link"
+        name="email"
+        label="E-mail address"
+        type="email"
+        autoComplete="email"
+        hint="We mail you a link that signs you in once, within 15 minutes."
+      />
+      <button type="submit" className="sb-button sb-button-quiet w-full sm:w-auto" disabled={formState.isSubmitting}>
+        {formState.isSubmitting ? "Sending…" : "Mail me a sign-in link"}
+      </button>
+    </form>
+  );
+}

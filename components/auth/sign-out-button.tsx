@@ -1,0 +1,33 @@
+"use client";
+
+import { useState } from "react";
+import { nextAuthPost } from "./auth-client";
+
+/** Ends the session (next-auth's sign-out POST, with its CSRF token) and reloads at the front page. */
+export function SignOutButton({ className = "sb-button" }: { className?: string }) {
+  const [busy, setBusy] = useState(false);
+  const [problem, setProblem] = useState<string | null>(null);
+  return (
+    <div className="space-y-3">
+      <button
+        type="button"
+        className={className}
+        disabled={busy}
+        onClick={async () => {
+          setBusy(true);
+          const result = await nextAuthPost("signout", {}, new URL("/", window.location.origin).toString());
+          if (result.ok) return window.location.assign("/");
+          setBusy(false);
+          setProblem(result.message);
+        }}
+      >
+        {busy ? "Signing out…" : "Sign out"}
+      </button>
+      {problem && (
+        <p role="alert" className="font-semibold text-fault">
+          {problem}
+        </p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,45 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import Link from "next/link";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { SignUpSchema, type SignUpInput } from "@/lib/auth/schemas";
+import { accountRequest, nextAuthPost } from "./auth-client";
+import { applyFieldErrors, FormMessage, TextField } from "./fields";
+
+const FIELDS = ["name", "email", "password", "confirm"] as const;
+
+/** Creates the account, then signs in with the same password and goes on to `next`. */
+export function SignUpForm({ next }: { next: string }) {
+  const { register, handleSubmit, setError, formState } = useForm<SignUpInput>({ resolver: zodResolver(SignUpSchema), mode: "onTouched" });
+  const [problem, setProblem] = useState<string | null>(null);
+  const form = { register, errors: formState.errors };
+  const onSubmit = handleSubmit(async (values) => {
+    setProblem(null);
+    const made = await accountRequest("/api/auth/sign-up", "POST", values);
+    if (!made.ok) {
+      const rest = applyFieldErrors(setError, made.fieldErrors, FIELDS);
+      if (rest.length || !Object.keys(made.fieldErrors).length || made.status === 429) setProblem(made.message);
+      return;
+    }
+    const signedIn = await nextAuthPost("callback/credentials", { email: values.email, password: values.password }, new URL(next, window.location.origin).toString());
+    window.location.assign(signedIn.ok ? next : "/signin");
+  });
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      {problem && <FormMessage tone="fault">{problem}</FormMessage>}
+      <TextField form={form} idPrefix="su" name="name" label="Name" autoComplete="nickname" hint="Shown beside your contributions. A handle is fine." />
+      <TextField form={form} idPrefix="su" name="email" label="E-mail address" type="email" autoComplete="email" hint="For sign-in links and password resets only; never shown." />
+      <TextField form={form} idPrefix="su" name="password" label="Password" type="password" autoComplete="new-password" hint="At least 10 characters. A few unrelated words work well." />
+      <TextField form={form} idPrefix="su" name="confirm" label="Password again" type="password" autoComplete="new-password" />
+      <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
+        {formState.isSubmitting ? "Creating the account…" : "Create my account"}
+      </button>
+      <p className="text-small text-muted">
+        Rather not keep a password? <Link href={`/signin?next=${encodeURIComponent(next)}`}>Sign in with an e-mailed link</Link> instead; a new address gets an
+        account the same way.
+      </p>
+    </form>
+  );
+}

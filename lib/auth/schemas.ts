@@ -48,7 +48,8 @@ const confirmField = z.string({ error: "Type the password again." }).min(1, "Typ
 
 /** The "type it again" check, reported on the confirm field. */
 function sameAs<K extends string>(field: K): [(v: Record<K | "confirm", string>) => boolean, { path: string[]; message: string }] {
-  return [(v) => v[field] === v.confirm, { path: ["confirm"], message: "The two passwords differ." }];
+  // an empty confirm already has its own message ("Type the password again.")
+  return [(v) => !v.confirm || v[field] === v.confirm, { path: ["confirm"], message: "The two passwords differ." }];
 }
 
 export const SignInSchema = z.object({ email: emailField, password: existingPasswordField });

@@ -1,6 +1,7 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import Link from "next/link";
 import { useMemo, useState, type ReactNode } from "react";
 import { plural } from "@/lib/catalogue/format";
 import type { BoardValues, QuantityKey } from "@/lib/published/board-values-types";
@@ -49,11 +50,15 @@ function Heading({ children }: { children?: ReactNode }) {
   );
 }
 
-function NoValues({ children }: { children: ReactNode }) {
+/** The empty state; the contribution form (/submit) opens on this board. */
+function NoValues({ slug, what }: { slug: string; what: string }) {
   return (
     <div className="rounded-md border-3 border-dashed border-rule bg-surface px-4 py-5" data-testid="no-values">
-      <p className="text-lead font-semibold">{children}</p>
-      <p className="mt-1 text-muted">Calibrate your own board with a multimeter and a charger, and share the result once contributions open.</p>
+      <p className="text-lead font-semibold">
+        No published values yet for {what} &mdash;{" "}
+        <Link href={`/submit?board=${encodeURIComponent(slug)}`}>be the first to contribute</Link>.
+      </p>
+      <p className="mt-1 text-muted">Calibrate your own board with a multimeter and a charger, and share what you measured.</p>
     </div>
   );
 }
@@ -67,7 +72,7 @@ export function BoardValuesSection(props: Props) {
         <>
           <Heading />
           <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem] lg:items-start">
-            <NoValues>No published values yet for this board &mdash; be the first to contribute.</NoValues>
+            <NoValues slug={props.slug} what="this board" />
             {props.safety}
           </div>
         </>
@@ -183,7 +188,7 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
                     </div>
                   ) : (
                     <div className="mt-3">
-                      <NoValues>No published values yet for this revision and firmware family &mdash; be the first to contribute.</NoValues>
+                      <NoValues slug={slug} what="this revision and firmware family" />
                       {otherFamilies.length > 0 && (
                         <p className="mt-2">
                           <span className="font-mono">{selection.revision}</span> has values under {new Intl.ListFormat("en", { type: "conjunction" }).format(otherFamilies)}.

@@ -165,6 +165,8 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
     const none = DEMO_LANDMARKS.sparseRevisions.none[0];
     await page.goto(`/boards/${none.boardSlug}?revision=${encodeURIComponent(none.label)}`);
     await page.getByText("No published values yet for this revision and firmware family").waitFor();
+    // the empty state invites a contribution on the contribution form, opened on this board
+    expect(await page.getByRole("link", { name: "be the first to contribute" }).getAttribute("href")).toBe(`/submit?board=${none.boardSlug}`);
     expect(await page.locator("#values").innerText()).not.toMatch(/NaN|undefined/);
     await shot(page, "board-values-empty-phone-light");
 

@@ -161,7 +161,7 @@ export function SubmissionForm({
       <form noValidate onSubmit={handleSubmit(send, showSummary)} className="space-y-10" aria-describedby="form-intro">
         <div ref={summaryRef} tabIndex={-1} className="focus:outline-none" aria-live="assertive">
           {(outcome || (formState.isSubmitted && problems.length > 0)) && (
-            <div role="alert" className="rounded-md border-3 border-fault bg-fault-wash p-4">
+            <div id="form-problems" role="alert" className="rounded-md border-3 border-fault bg-fault-wash p-4">
               <h2 className="font-display text-heading text-fault uppercase">{outcome ? "Not sent yet" : "Some values need another look"}</h2>
               {outcome && <p className="mt-2">{outcome.message}</p>}
               {outcome?.others.map((m) => (

@@ -89,6 +89,15 @@ describe("the guard (lib/auth/guard.ts)", () => {
     expect((await callRoute(whoAmI, page(expired))).status).toBe(401);
   });
 
+  it("a guarded write from another site's page is refused (403) even with a valid cookie; same-site and Origin-less calls pass", async () => {
+    const cookie = await sessionCookieFor("contributor");
+    const write = (origin?: string) =>
+      withCookie(new Request("http://127.0.0.1:3999/x", { method: "POST", headers: { host: "127.0.0.1:3999", ...(origin ? { origin } : {}) } }), cookie);
+    expect((await callRoute(whoAmI, write("https://elsewhere.test"))).status).toBe(403);
+    expect((await callRoute(whoAmI, write("http://127.0.0.1:3999"))).status).toBe(200);
+    expect((await callRoute(whoAmI, write())).status).toBe(200);
+  });
+
   it("a token split into chunks, as next-auth does for long ones, is joined back", async () => {
     const cookie = await sessionCookieFor("moderator");
     const [name, token] = [cookie.slice(0, cookie.indexOf("=")), cookie.slice(cookie.indexOf("=") + 1)];

@@ -28,6 +28,11 @@ import { runWithRequest } from "./next-headers";
 //   expect(await redirectTarget(inRequest(new Request("http://test/moderation"), () => Page()))).toBe("/signin?next=%2Fmoderation");
 //
 // The roles: "contributor" | "moderator" | "admin"; anonymous is simply no cookie (ANONYMOUS).
+// Over HTTP (SHUNTBOOK_TEST_APP_URL) just send the value as the Cookie header. The stand-in for
+// next/headers also covers packages that require() it (next-auth's route handler), so next-auth's
+// own endpoints can be called in-process too (see tests/integration/auth-nextauth.test.ts).
+// Mail: mailsTo / waitForMails / linkIn read the mail catcher's inbox (MAIL_INBOX_URL); jobs
+// queued with lib/jobs are sent when the test calls drainJobsOnce() (call stopBoss() in afterAll).
 
 export const ANONYMOUS = "";
 

@@ -3,27 +3,22 @@
 import { useQuery } from "@tanstack/react-query";
 import { useWatch } from "react-hook-form";
 import { formatFigure, plural } from "@/lib/catalogue/format";
-import type { BoardValues, QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
+import type { QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
 import { placeValue } from "@/lib/submissions/placement";
+import { fetchGroupValues, valuesQueryKey } from "@/components/values/fetch-values";
+import { findGroup } from "@/components/values/selection";
 import type { ChosenBoard, FamilyOption, SubmissionDraft } from "./draft";
 
 // Before sending: where the contributor's values fall among the approved ones for the same board
 // revision and firmware family (GET /api/v1/boards/{slug}/values), as the median, its 95 % range
-// and the value's modified z-score (lib/submissions/placement.ts).
+// and the value's modified z-score (lib/submissions/placement.ts). The read is the board page's
+// own (components/values), so both share react-query's cache for the same view.
 
 const QUANTITIES: { key: QuantityKey; title: string }[] = [
   { key: "voltageScale", title: "Voltage scale" },
   { key: "currentScale", title: "Current scale" },
   { key: "currentOffset", title: "Current offset" },
 ];
-
-async function fetchValues(slug: string, revision: string, family: string, signal?: AbortSignal): Promise<BoardValues> {
-  const query = new URLSearchParams({ revision, family, points: "1" });
-  const res = await fetch(`/api/v1/boards/${encodeURIComponent(slug)}/values?${query}`, { signal, headers: { accept: "application/json" } });
-  const body = await res.json().catch(() => null);
-  if (!res.ok) throw new Error(body?.error?.message ?? `The published values could not be loaded (HTTP ${res.status}).`);
-  return body as BoardValues;
-}
 
 function Row({ title, value, q }: { title: string; value: number; q: QuantityValues | null }) {
   if (!q) {
@@ -57,15 +52,16 @@ export function DistributionPreview({ board, families }: { board: ChosenBoard | 
   const revision = board?.revisions.find((r) => r.id === revisionId) ?? null;
   const family = families.find((f) => f.id === familyId) ?? null;
   const ready = Boolean(board && revision && family);
+  const selection = { revision: revision?.label ?? "", family: family?.slug ?? "" };
   const values = useQuery({
-    queryKey: ["submit-values", board?.slug, revision?.label, family?.slug],
-    queryFn: ({ signal }) => fetchValues(board!.slug, revision!.label, family!.slug, signal),
+    queryKey: valuesQueryKey(board?.slug ?? "", selection),
+    queryFn: ({ signal }) => fetchGroupValues(board!.slug, selection, signal),
     enabled: ready,
   });
   if (!ready) return null;
   const mine: Record<QuantityKey, number | null> = { voltageScale, currentScale, currentOffset };
   const entered = QUANTITIES.filter((q) => typeof mine[q.key] === "number" && Number.isFinite(mine[q.key]!));
-  const group = values.data?.revisions.find((r) => r.label === revision!.label)?.families.find((g) => g.family === family!.slug) ?? null;
+  const group = values.data ? findGroup(values.data, revision!.label, family!.slug) : null;
 
   return (
     <section aria-labelledby="placement-title" aria-live="polite" className="rounded-md border-2 border-rule bg-surface p-4">

@@ -6,7 +6,10 @@ import { BoardRevision } from "./BoardRevision";
 import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { Manufacturer } from "./Manufacturer";
+import { Pack } from "./Pack";
+import { PackCharge } from "./PackCharge";
 import { PasswordResetToken } from "./PasswordResetToken";
+import { Quad } from "./Quad";
 import { IdempotencyKey } from "./IdempotencyKey";
 import { Submission } from "./Submission";
 import { SubmissionBenchPoint } from "./SubmissionBenchPoint";
@@ -59,4 +62,14 @@ export function associate(): void {
   AuthSession.belongsTo(User, { foreignKey: "userId", as: "user" });
   User.hasMany(PasswordResetToken, { foreignKey: "userId", as: "passwordResetTokens" });
   PasswordResetToken.belongsTo(User, { foreignKey: "userId", as: "user" });
+
+  // the garage: private to its owner
+  User.hasMany(Quad, { foreignKey: "ownerId", as: "quads" });
+  Quad.belongsTo(User, { foreignKey: "ownerId", as: "owner" });
+  Quad.belongsTo(BoardRevision, { foreignKey: "boardRevisionId", as: "boardRevision" });
+  Quad.belongsTo(FirmwareFamily, { foreignKey: "firmwareFamilyId", as: "firmwareFamily" });
+  User.hasMany(Pack, { foreignKey: "ownerId", as: "packs" });
+  Pack.belongsTo(User, { foreignKey: "ownerId", as: "owner" });
+  Pack.hasMany(PackCharge, { foreignKey: "packId", as: "charges" });
+  PackCharge.belongsTo(Pack, { foreignKey: "packId", as: "pack" });
 }

@@ -10,7 +10,10 @@ import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { IdempotencyKey } from "./IdempotencyKey";
 import { Manufacturer } from "./Manufacturer";
+import { Pack } from "./Pack";
+import { PackCharge } from "./PackCharge";
 import { PasswordResetToken } from "./PasswordResetToken";
+import { Quad } from "./Quad";
 import { RateLimit } from "./RateLimit";
 import { Submission } from "./Submission";
 import { SubmissionBenchPoint } from "./SubmissionBenchPoint";
@@ -25,6 +28,7 @@ export { MEASURED_AT, type MeasuredAt } from "./SubmissionVoltageReading";
 export { BOARD_KINDS, type BoardKind } from "./BoardModel";
 export { Account, AuthSession, PasswordResetToken, RateLimit, VerificationToken };
 export { ROLES, type Role } from "./User";
+export { Pack, PackCharge, Quad };
 export { METHODS, SENSING_SOURCES, STATUSES, type Method, type SensingSource, type SubmissionStatus } from "./Submission";
 
 let initialisedWith: Sequelize | undefined;
@@ -35,7 +39,7 @@ export function db(): Sequelize {
   if (initialisedWith !== sequelize) {
     for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission, EvidencePhoto,
       SubmissionVoltageReading, SubmissionCycle, SubmissionBenchPoint, IdempotencyKey,
-      Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit]) {
+      Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit, Quad, Pack, PackCharge]) {
       model.initModel(sequelize);
     }
     associate();

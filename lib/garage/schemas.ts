@@ -1,0 +1,54 @@
+import { z } from "zod";
+import { CHEMISTRIES, CHEMISTRY_LIMITS } from "@/lib/calibration/worksheets/chemistry";
+import { cellsField, mahField, numberField } from "@/lib/calibration/worksheets/fields";
+
+// The garage's input rules, shared by the route handlers and the forms (zod on both sides). Bounds
+// match the CHECKs of migrations/20261209000100…300; messages name the field in plain words.
+
+const text = (label: string, max: number) =>
+  z.string({ error: `Enter ${label}` }).trim().min(1, `Enter ${label}`).max(max, `Keep ${label} to ${max} characters`);
+const optionalText = (label: string, max: number) =>
+  z
+    .string({ error: `${label} must be text` })
+    .trim()
+    .max(max, `Keep ${label} to ${max} characters`)
+    .nullish()
+    .transform((v) => (v ? v : null));
+const optionalId = (label: string) =>
+  z.number({ error: `${label} must be chosen from the list` }).int().positive(`${label} must be chosen from the list`).nullish().transform((v) => v ?? null);
+const isoDate = (label: string) =>
+  z.iso.date({ error: `${label} must be a date like 2026-11-30` }).refine((d) => d <= new Date().toISOString().slice(0, 10), `${label} cannot be in the future`);
+
+export const quadInput = z.object({
+  name: text("the quad's name", 80),
+  boardRevisionId: optionalId("The board revision"),
+  firmwareFamilyId: optionalId("The firmware family"),
+  firmwareVersion: optionalText("the firmware version", 40),
+  esc: optionalText("the ESC", 120),
+  notes: optionalText("the notes", 4000),
+});
+export type QuadInput = z.input<typeof quadInput>;
+
+export const packInput = z.object({
+  label: text("the pack's label", 80),
+  chemistry: z.enum(CHEMISTRIES, { error: `Choose the pack chemistry: ${CHEMISTRIES.map((c) => CHEMISTRY_LIMITS[c].label).join(", ")}` }),
+  cells: cellsField(),
+  ratedMah: mahField("The pack's rated mAh").int("The rated mAh is a whole number, as printed on the label"),
+  purchasedOn: isoDate("The purchase date").nullish().transform((v) => v ?? null),
+});
+export type PackInput = z.input<typeof packInput>;
+
+/** Resting volts outside 2.5–4.45 V a cell are no lithium cell at rest (our own plausibility rule). */
+export const RESTING_VOLTS = { min: 2.5, max: 4.45 } as const;
+
+export const chargeInput = z.object({
+  chargedOn: isoDate("The charge date"),
+  chargedMah: mahField("The charged mAh"),
+  restingVoltsPerCell: numberField("The resting voltage per cell")
+    .min(RESTING_VOLTS.min, `A resting cell reads ${RESTING_VOLTS.min}–${RESTING_VOLTS.max} V; below that the reading or the pack is bad — check the probe and stop using a pack that reads this low`)
+    .max(RESTING_VOLTS.max, `A resting cell reads ${RESTING_VOLTS.min}–${RESTING_VOLTS.max} V; did you enter the whole pack's voltage? Divide it by the cell count`)
+    .nullish()
+    .transform((v) => v ?? null),
+  afterFullFlight: z.boolean({ error: "Say whether the flight before this charge went to the landing voltage" }).default(true),
+});
+export type ChargeInput = z.input<typeof chargeInput>;

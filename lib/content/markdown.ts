@@ -2,6 +2,7 @@ import { remark } from "remark";
 import rehypeSanitize, { defaultSchema, type Options as SanitizeSchema } from "rehype-sanitize";
 import rehypeStringify from "rehype-stringify";
 import remarkRehype, { type Options as RemarkRehypeOptions } from "remark-rehype";
+import { normalizeUri } from "micromark-util-sanitize-uri";
 
 // Contributors' notes are Markdown written by strangers and shown to everyone, so the renderer is
 // the XSS boundary. Three layers, all from the unified ecosystem rather than code of our own:
@@ -25,17 +26,21 @@ const NOTES_SCHEMA: SanitizeSchema = {
   ...defaultSchema,
   tagNames: (defaultSchema.tagNames ?? []).filter((tag) => !DROPPED_TAGS.has(tag)),
   protocols: { ...defaultSchema.protocols, href: ["http", "https", "mailto"] },
+  // a fenced block's language becomes a class; keep it to a plain word so no URL-like text
+  // ("```data:text/html,…") reaches an attribute
+  attributes: { ...defaultSchema.attributes, code: [["className", /^language-[\w+#-]+$/]] },
   // `required` adds rel to every <a> after the attribute allow-list ran (which does not allow rel,
   // so a smuggled one is removed first).
   required: { a: { rel: LINK_REL } },
 };
 
 // ![alt](url) becomes a link labelled with its alt text, so the reader keeps the information
-// without the page fetching anything from a stranger's server.
+// without the page fetching anything from a stranger's server. The URL is normalised (percent-
+// encoded) as remark's own link and image handlers do, so no raw "<" or quote reaches the href.
 const imageAsLink: NonNullable<NonNullable<RemarkRehypeOptions["handlers"]>["image"]> = (_state, node: { url: string; alt?: string | null }) => ({
   type: "element",
   tagName: "a",
-  properties: { href: node.url },
+  properties: { href: normalizeUri(node.url) },
   children: [{ type: "text", value: node.alt || node.url }],
 });
 

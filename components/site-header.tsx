@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { AccountLinks } from "./auth/account-links";
+import { GarageLink } from "./garage/garage-link";
 import { NavLink } from "./nav-link";
 import { ThemeSwitch } from "./theme-switch";
 
@@ -25,6 +26,7 @@ export function SiteHeader() {
                 <NavLink href={item.href}>{item.label}</NavLink>
               </li>
             ))}
+            <GarageLink />
             <AccountLinks />
           </ul>
           <ThemeSwitch />

@@ -1,7 +1,7 @@
-import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { describe, expect, it } from "vitest";
+import { afterAll, describe, expect, it } from "vitest";
 import { END_MARKER, START_MARKER, writeReport, type BenchReport } from "@/lib/bench/report";
 
 // docs/benchmarks.md is half prose, half figures: a run must replace the figures and keep the prose.
@@ -19,9 +19,18 @@ const report: BenchReport = {
   ],
 };
 
+const folders: string[] = [];
+function scratchFile(): string {
+  const folder = mkdtempSync(path.join(os.tmpdir(), "bench-report-"));
+  folders.push(folder);
+  return path.join(folder, "benchmarks.md");
+}
+
 describe("docs/benchmarks.md writer", () => {
+  afterAll(() => folders.forEach((f) => rmSync(f, { recursive: true, force: true })));
+
   it("rewrites only the part between its markers", () => {
-    const file = path.join(mkdtempSync(path.join(os.tmpdir(), "bench-report-")), "benchmarks.md");
+    const file = scratchFile();
     writeFileSync(file, `# Benchmarks\n\nprose before\n\n${START_MARKER}\nold figures\n${END_MARKER}\n\nprose after\n`);
     writeReport(file, report);
     const text = readFileSync(file, "utf8");
@@ -34,7 +43,7 @@ describe("docs/benchmarks.md writer", () => {
   });
 
   it("appends the section to a file without markers", () => {
-    const file = path.join(mkdtempSync(path.join(os.tmpdir(), "bench-report-")), "benchmarks.md");
+    const file = scratchFile();
     writeFileSync(file, "# Benchmarks\n\nnotes\n");
     writeReport(file, report);
     const text = readFileSync(file, "utf8");

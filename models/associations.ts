@@ -16,6 +16,8 @@ import { SubmissionBenchPoint } from "./SubmissionBenchPoint";
 import { SubmissionCycle } from "./SubmissionCycle";
 import { SubmissionVoltageReading } from "./SubmissionVoltageReading";
 import { User } from "./User";
+import { Worksheet } from "./Worksheet";
+import { WorksheetStep } from "./WorksheetStep";
 
 // Every association lives here, so the graph can be read in one place.
 export function associate(): void {
@@ -72,4 +74,11 @@ export function associate(): void {
   Pack.belongsTo(User, { foreignKey: "ownerId", as: "owner" });
   Pack.hasMany(PackCharge, { foreignKey: "packId", as: "charges" });
   PackCharge.belongsTo(Pack, { foreignKey: "packId", as: "pack" });
+  User.hasMany(Worksheet, { foreignKey: "ownerId", as: "worksheets" });
+  Worksheet.belongsTo(User, { foreignKey: "ownerId", as: "owner" });
+  Quad.hasMany(Worksheet, { foreignKey: "quadId", as: "worksheets" });
+  Worksheet.belongsTo(Quad, { foreignKey: "quadId", as: "quad" });
+  Worksheet.belongsTo(FirmwareFamily, { foreignKey: "firmwareFamilyId", as: "firmwareFamily" });
+  Worksheet.hasMany(WorksheetStep, { foreignKey: "worksheetId", as: "steps" });
+  WorksheetStep.belongsTo(Worksheet, { foreignKey: "worksheetId", as: "worksheet" });
 }

@@ -21,6 +21,8 @@ import { SubmissionCycle } from "./SubmissionCycle";
 import { SubmissionVoltageReading } from "./SubmissionVoltageReading";
 import { User } from "./User";
 import { VerificationToken } from "./VerificationToken";
+import { Worksheet } from "./Worksheet";
+import { WorksheetStep } from "./WorksheetStep";
 
 export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, Manufacturer, Submission, User };
 export { IdempotencyKey, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
@@ -28,7 +30,7 @@ export { MEASURED_AT, type MeasuredAt } from "./SubmissionVoltageReading";
 export { BOARD_KINDS, type BoardKind } from "./BoardModel";
 export { Account, AuthSession, PasswordResetToken, RateLimit, VerificationToken };
 export { ROLES, type Role } from "./User";
-export { Pack, PackCharge, Quad };
+export { Pack, PackCharge, Quad, Worksheet, WorksheetStep };
 export { METHODS, SENSING_SOURCES, STATUSES, type Method, type SensingSource, type SubmissionStatus } from "./Submission";
 
 let initialisedWith: Sequelize | undefined;
@@ -39,7 +41,7 @@ export function db(): Sequelize {
   if (initialisedWith !== sequelize) {
     for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission, EvidencePhoto,
       SubmissionVoltageReading, SubmissionCycle, SubmissionBenchPoint, IdempotencyKey,
-      Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit, Quad, Pack, PackCharge]) {
+      Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit, Quad, Pack, PackCharge, Worksheet, WorksheetStep]) {
       model.initModel(sequelize);
     }
     associate();

@@ -28,6 +28,8 @@ const EXPECTED_TABLES = [
   "submissions",
   "users",
   "verification_tokens",
+  "worksheet_steps",
+  "worksheets",
 ];
 
 describe("migrations", () => {

@@ -1,0 +1,160 @@
+import { z } from "zod";
+import { ApiError, badRequest } from "@/lib/api/errors";
+import { rechargeWorksheet, type RechargeWorksheet, type FieldIssue } from "@/lib/calibration/worksheets";
+import { cellsField, mahField, numberField } from "@/lib/calibration/worksheets/fields";
+import { notYours, parseOrThrow } from "@/lib/garage/owned";
+import { getBoardValues } from "@/lib/published/board-values";
+import { createSubmission, type SubmissionView } from "@/lib/submissions";
+import { BoardModel, BoardRevision, db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
+
+// Server side of the fly-and-recharge worksheet: start it on a quad, add one iteration per request
+// (checked with every earlier one by lib/calibration/worksheets/recharge.ts and stored whole in a
+// transaction, or refused with field-level errors and nothing stored), read it back computed, and
+// publish it as an ordinary pending submission through lib/submissions' own create function.
+
+export const startInput = z.object({
+  quadId: z.number({ error: "Choose the quad" }).int().positive("Choose the quad"),
+  ratedMah: mahField("The pack's rated mAh").int("The rated mAh is a whole number, as printed on the label"),
+  cells: cellsField(),
+  startingScale: numberField("The starting current scale").int("A setting is a whole number").positive("The starting current scale must be more than 0").nullish(),
+});
+
+export const stepInput = z.object({
+  scaleUsed: numberField("The current scale flown with").int("A setting is a whole number"),
+  reportedMah: mahField("The reported mAh"),
+  chargedMah: mahField("The charged mAh"),
+  fullyRecharged: z.boolean({ error: "Say whether the charger finished: yes or no" }).default(true),
+});
+
+export type WorksheetView = {
+  id: number;
+  quadId: number;
+  quadName: string;
+  familyName: string;
+  ratedMah: number;
+  cells: number;
+  startingScale: number;
+  startingSource: "published" | "own";
+  steps: Array<{ position: number; scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean }>;
+  result: RechargeWorksheet | null;
+  warnings: FieldIssue[];
+  submissionId: number | null;
+};
+
+async function quadContext(ownerId: string, quadId: number) {
+  db();
+  const quad = await Quad.findOne({ where: { id: quadId, ownerId } });
+  if (!quad) throw notYours("quad");
+  if (!quad.firmwareFamilyId) throw badRequest({ quadId: ["Give this quad its firmware family first: the worksheet follows that family's current-scale rules"] });
+  if (!quad.boardRevisionId) throw badRequest({ quadId: ["Give this quad its board revision first: its published value is the worksheet's starting point and the result is filed under it"] });
+  const family = (await FirmwareFamily.findByPk(quad.firmwareFamilyId))!;
+  const revision = (await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as BoardRevision & { boardModel: BoardModel };
+  return { quad, family, revision };
+}
+
+/** The board's published recommended current scale for this revision and family, or null. */
+export async function publishedCurrentScale(boardSlug: string, revisionLabel: string, familySlug: string): Promise<number | null> {
+  const selected = await getBoardValues(boardSlug, { revision: revisionLabel, family: familySlug });
+  if (!selected?.ok) return null;
+  return selected.values.revisions[0]?.families[0]?.currentScale?.recommended.setting ?? null;
+}
+
+export async function startRechargeWorksheet(ownerId: string, input: unknown): Promise<WorksheetView> {
+  const data = parseOrThrow(startInput, input);
+  const { quad, family, revision } = await quadContext(ownerId, data.quadId);
+  const published = await publishedCurrentScale(revision.boardModel.slug, revision.label, family.slug);
+  const startingScale = published ?? data.startingScale;
+  if (startingScale == null) {
+    throw badRequest({ startingScale: ["Nothing is published for this board and family yet: enter the current scale the quad flies with now"] });
+  }
+  const sheet = await Worksheet.create({
+    ownerId, quadId: quad.id, kind: "fly_recharge", firmwareFamilyId: family.id, ratedMah: data.ratedMah, cells: data.cells,
+    startingScale, startingSource: published != null ? "published" : "own",
+  });
+  return getRechargeWorksheet(ownerId, sheet.id);
+}
+
+async function ownSheet(ownerId: string, id: number, transaction?: import("sequelize").Transaction) {
+  db();
+  const sheet = await Worksheet.findOne({ where: { id, ownerId }, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+  if (!sheet) throw notYours("worksheet");
+  return sheet;
+}
+
+const stepsOf = (worksheetId: number, transaction?: import("sequelize").Transaction) =>
+  WorksheetStep.findAll({ where: { worksheetId }, order: [["position", "ASC"]], transaction });
+
+const compute = (sheet: Worksheet, steps: Array<{ scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean }>, family: FirmwareFamily) =>
+  rechargeWorksheet({ ratedMah: sheet.ratedMah, cycles: steps.map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged })) }, family);
+
+export async function getRechargeWorksheet(ownerId: string, id: number): Promise<WorksheetView> {
+  const sheet = await ownSheet(ownerId, id);
+  const [steps, family, quad] = await Promise.all([stepsOf(sheet.id), FirmwareFamily.findByPk(sheet.firmwareFamilyId), Quad.findByPk(sheet.quadId)]);
+  const result = steps.length ? compute(sheet, steps, family!) : null;
+  return {
+    id: sheet.id, quadId: sheet.quadId, quadName: quad!.name, familyName: family!.name, ratedMah: sheet.ratedMah, cells: sheet.cells,
+    startingScale: sheet.startingScale, startingSource: sheet.startingSource,
+    steps: steps.map((s) => ({ position: s.position, scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged })),
+    result: result?.ok ? result.value : null,
+    warnings: result ? (result.ok ? result.warnings : result.errors) : [],
+    submissionId: sheet.submissionId,
+  };
+}
+
+export async function listRechargeWorksheets(ownerId: string, quadId: number): Promise<Array<{ id: number; steps: number; submissionId: number | null; createdAt: string }>> {
+  db();
+  const sheets = await Worksheet.findAll({ where: { ownerId, quadId }, order: [["createdAt", "DESC"]] });
+  return Promise.all(sheets.map(async (s) => ({ id: s.id, steps: await WorksheetStep.count({ where: { worksheetId: s.id } }), submissionId: s.submissionId, createdAt: s.createdAt.toISOString() })));
+}
+
+/** Adds one iteration: judged with every earlier one, stored whole or not at all. */
+export async function addRechargeStep(ownerId: string, id: number, input: unknown): Promise<WorksheetView> {
+  const step = parseOrThrow(stepInput, input);
+  const sequelize = db();
+  await sequelize.transaction(async (transaction) => {
+    const sheet = await ownSheet(ownerId, id, transaction);
+    if (sheet.submissionId != null) throw new ApiError(409, "This worksheet is published; start a new one to fly more cycles.");
+    const steps = await stepsOf(sheet.id, transaction);
+    const family = (await FirmwareFamily.findByPk(sheet.firmwareFamilyId, { transaction }))!;
+    const result = compute(sheet, [...steps, step], family);
+    if (!result.ok) {
+      // the new step's own problems under its field names; earlier steps were valid when stored
+      const prefix = `cycles.${steps.length}.`;
+      const fields: Record<string, string[]> = {};
+      for (const e of result.errors) {
+        const key = e.field.startsWith(prefix) ? e.field.slice(prefix.length) : e.field;
+        (fields[key] ??= []).push(e.message);
+      }
+      throw badRequest(fields);
+    }
+    await WorksheetStep.create({ worksheetId: sheet.id, position: steps.length, ...step }, { transaction });
+    await sheet.update({ updatedAt: new Date() }, { transaction });
+  });
+  return getRechargeWorksheet(ownerId, id);
+}
+
+/** Turns the worksheet into a pending submission with its cycles as evidence, once. */
+export async function publishRechargeWorksheet(ownerId: string, id: number, opts: { firmwareVersion?: string | null; notes?: string | null } = {}): Promise<SubmissionView> {
+  const view = await getRechargeWorksheet(ownerId, id);
+  if (view.submissionId != null) throw new ApiError(409, "This worksheet is already published.");
+  if (!view.result) throw badRequest({ steps: ["Fly and recharge at least one cycle before publishing"] });
+  const quad = (await Quad.findByPk(view.quadId))!;
+  const version = opts.firmwareVersion ?? quad.firmwareVersion;
+  if (!version) throw badRequest({ firmwareVersion: ["Enter the firmware version the quad runs (or add it to the quad)"] });
+  const body = {
+    boardRevisionId: quad.boardRevisionId,
+    firmwareFamilyId: (await Worksheet.findByPk(id))!.firmwareFamilyId,
+    firmwareVersion: version,
+    sensingSource: "board_adc",
+    method: "fly_recharge",
+    voltageScale: null,
+    currentScale: view.result.recommendedSetting,
+    currentOffset: null,
+    notes: opts.notes ?? `From a fly-and-recharge worksheet in the garage: ${view.steps.length} cycles.`,
+    // a cycle the builder marked as not fully recharged is not evidence
+    cycles: view.steps.filter((s) => s.fullyRecharged).map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, ratedMah: view.ratedMah, cells: view.cells })),
+  };
+  const created = await createSubmission({ id: ownerId }, body);
+  await Worksheet.update({ submissionId: created.body.submission.id }, { where: { id, ownerId, submissionId: null } });
+  return created.body.submission;
+}

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { ChargeForm, PackForm, QuadForm, type Choice } from "@/components/garage/garage-forms";
 import { PackCard } from "@/components/garage/pack-card";
 import { requirePageUser } from "@/lib/auth";
@@ -37,7 +38,7 @@ export default async function GaragePage() {
           <ul className="grid gap-3 sm:grid-cols-2" data-testid="quad-list">
             {quads.map((q) => (
               <li key={q.id} className="rounded-md border-3 border-rule bg-surface p-4">
-                <h3 className="font-display text-lg font-bold uppercase">{q.name}</h3>
+                <h3 className="font-display text-lg font-bold uppercase"><Link href={`/garage/quads/${q.id}`} className="text-ink">{q.name}</Link></h3>
                 <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-small">
                   <dt className="text-muted">Board</dt><dd>{q.boardRevisionId ? lists.revisionName.get(q.boardRevisionId) : <span className="sb-unknown">not chosen</span>}</dd>
                   <dt className="text-muted">Firmware</dt><dd>{[q.firmwareFamilyId ? lists.familyName.get(q.firmwareFamilyId) : null, q.firmwareVersion].filter(Boolean).join(" ") || <span className="sb-unknown">not given</span>}</dd>

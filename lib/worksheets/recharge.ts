@@ -1,10 +1,9 @@
-import { z } from "zod";
 import { ApiError, badRequest } from "@/lib/api/errors";
-import { rechargeWorksheet, type RechargeWorksheet, type FieldIssue } from "@/lib/calibration/worksheets";
-import { cellsField, mahField, numberField } from "@/lib/calibration/worksheets/fields";
+import { rechargeWorksheet } from "@/lib/calibration/worksheets";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { getBoardValues } from "@/lib/published/board-values";
 import { createSubmission, type SubmissionView } from "@/lib/submissions";
+import { startInput, stepInput, type WorksheetView } from "./recharge-input";
 import { BoardModel, BoardRevision, db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
 
 // Server side of the fly-and-recharge worksheet: start it on a quad, add one iteration per request
@@ -12,34 +11,7 @@ import { BoardModel, BoardRevision, db, FirmwareFamily, Quad, Worksheet, Workshe
 // transaction, or refused with field-level errors and nothing stored), read it back computed, and
 // publish it as an ordinary pending submission through lib/submissions' own create function.
 
-export const startInput = z.object({
-  quadId: z.number({ error: "Choose the quad" }).int().positive("Choose the quad"),
-  ratedMah: mahField("The pack's rated mAh").int("The rated mAh is a whole number, as printed on the label"),
-  cells: cellsField(),
-  startingScale: numberField("The starting current scale").int("A setting is a whole number").positive("The starting current scale must be more than 0").nullish(),
-});
-
-export const stepInput = z.object({
-  scaleUsed: numberField("The current scale flown with").int("A setting is a whole number"),
-  reportedMah: mahField("The reported mAh"),
-  chargedMah: mahField("The charged mAh"),
-  fullyRecharged: z.boolean({ error: "Say whether the charger finished: yes or no" }).default(true),
-});
-
-export type WorksheetView = {
-  id: number;
-  quadId: number;
-  quadName: string;
-  familyName: string;
-  ratedMah: number;
-  cells: number;
-  startingScale: number;
-  startingSource: "published" | "own";
-  steps: Array<{ position: number; scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean }>;
-  result: RechargeWorksheet | null;
-  warnings: FieldIssue[];
-  submissionId: number | null;
-};
+export { startInput, stepInput, type WorksheetView };
 
 async function quadContext(ownerId: string, quadId: number) {
   db();

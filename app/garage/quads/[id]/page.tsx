@@ -1,0 +1,46 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { StartWorksheet } from "@/components/worksheets/start-worksheet";
+import { ApiError } from "@/lib/api/errors";
+import { requirePageUser } from "@/lib/auth";
+import { getQuad } from "@/lib/garage/quads";
+import { listRechargeWorksheets } from "@/lib/worksheets/recharge";
+
+export const dynamic = "force-dynamic";
+export const metadata: Metadata = { title: "Quad" };
+
+type Props = { params: Promise<{ id: string }> };
+
+// One quad of the signed-in builder, with its worksheets. Another person's quad is simply not found.
+export default async function QuadPage({ params }: Props) {
+  const { id } = await params;
+  const user = await requirePageUser(`/garage/quads/${id}`);
+  const quadId = Number(id);
+  if (!Number.isSafeInteger(quadId) || quadId <= 0) notFound();
+  const quad = await getQuad(user.id, quadId).catch((e) => {
+    if (e instanceof ApiError && e.status === 404) notFound();
+    throw e;
+  });
+  const sheets = await listRechargeWorksheets(user.id, quad.id);
+  return (
+    <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
+      <p><Link href="/garage">← My garage</Link></p>
+      <h1 className="font-display text-display uppercase">{quad.name}</h1>
+      <section aria-labelledby="sheets-title" className="space-y-3">
+        <h2 id="sheets-title" className="font-display text-heading uppercase">Worksheets</h2>
+        {sheets.length === 0 ? <p className="text-muted">No worksheets yet.</p> : (
+          <ul className="space-y-2">
+            {sheets.map((s) => (
+              <li key={s.id}>
+                <Link href={`/garage/worksheets/${s.id}`} className="font-semibold">Fly-and-recharge, {s.createdAt.slice(0, 10)}</Link>{" "}
+                <span className="text-small text-muted">{s.steps} iterations{s.submissionId ? ", published" : ""}</span>
+              </li>
+            ))}
+          </ul>
+        )}
+        <StartWorksheet quadId={quad.id} />
+      </section>
+    </div>
+  );
+}

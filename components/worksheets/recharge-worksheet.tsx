@@ -1,0 +1,165 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState, type FormEvent } from "react";
+import { formatFigure } from "@/lib/catalogue/format";
+import type { RoundedSetting } from "@/lib/calibration/worksheets";
+import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
+import { ConvergencePlot } from "./convergence-plot";
+
+// The fly-and-recharge worksheet: each iteration is sent on its own and stored whole, then the page
+// shows what the recharge maths makes of all of them (lib/calibration/worksheets/recharge.ts).
+
+type Errors = Record<string, string[]>;
+const pct = (e: number | null) => (e == null ? "—" : `${e >= 0 ? "+" : ""}${formatFigure(e * 100, 2)} %`);
+
+function Rounding({ name, r, recommended }: { name: string; r: RoundedSetting; recommended: boolean }) {
+  return (
+    <div className={`rounded-md border-2 p-3 ${recommended ? "border-signal" : "border-rule"}`} data-testid={`rounding-${name}`}>
+      <p className="text-small text-muted">Rounded {name}{recommended ? " — recommended" : ""}</p>
+      <p className="font-mono text-lg">{r.setting}</p>
+      <p className="text-small">Display reads {r.reads === "true" ? "true" : `${r.reads} by ${pct(r.readingError)}`}</p>
+    </div>
+  );
+}
+
+async function postJson(url: string, body: unknown): Promise<{ ok: true; json: Record<string, unknown> } | { ok: false; errors: Errors }> {
+  const res = await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+  const json = await res.json().catch(() => null);
+  if (res.ok) return { ok: true, json };
+  const error = json?.error ?? { message: "The server did not answer; try again.", fieldErrors: {} };
+  return { ok: false, errors: Object.keys(error.fieldErrors ?? {}).length ? error.fieldErrors : { input: [error.message] } };
+}
+
+export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
+  const router = useRouter();
+  const [sheet, setSheet] = useState(initial);
+  const [errors, setErrors] = useState<Errors>({});
+  const [busy, setBusy] = useState(false);
+  const [formKey, setFormKey] = useState(0);
+  const r = sheet.result;
+  const nextScale = r ? r.recommendedSetting : sheet.startingScale;
+
+  async function addStep(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const f = new FormData(event.currentTarget);
+    const num = (k: string) => (String(f.get(k) ?? "").trim() === "" ? null : Number(f.get(k)));
+    const body = { scaleUsed: num("scaleUsed"), reportedMah: num("reportedMah"), chargedMah: num("chargedMah"), fullyRecharged: f.get("fullyRecharged") === "on" };
+    const parsed = stepInput.safeParse(body);
+    if (!parsed.success) {
+      const next: Errors = {};
+      for (const i of parsed.error.issues) (next[i.path.join(".") || "input"] ??= []).push(i.message);
+      return setErrors(next);
+    }
+    setBusy(true);
+    const out = await postJson(`/api/v1/garage/worksheets/${sheet.id}/steps`, body).finally(() => setBusy(false));
+    if (!out.ok) return setErrors(out.errors);
+    setErrors({});
+    setSheet(out.json.worksheet as WorksheetView);
+    setFormKey((k) => k + 1);
+  }
+
+  async function publish() {
+    setBusy(true);
+    const out = await postJson(`/api/v1/garage/worksheets/${sheet.id}/publish`, {}).finally(() => setBusy(false));
+    if (!out.ok) return setErrors(out.errors);
+    router.push(`/my/submissions?sent=${(out.json.submission as { id: number }).id}`);
+  }
+
+  const field = (name: string, label: string, hint?: string, defaultValue?: number) => (
+    <div>
+      <label htmlFor={`w-${name}`} className="mb-1 block font-semibold">{label}</label>
+      <input id={`w-${name}`} name={name} type="number" inputMode="decimal" className="sb-field" defaultValue={defaultValue}
+        aria-invalid={errors[name] ? true : undefined} aria-describedby={errors[name] ? `w-${name}-error` : undefined} />
+      {hint && <p className="mt-1 text-small text-muted">{hint}</p>}
+      {errors[name] && <p id={`w-${name}-error`} className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{errors[name].join(" ")}</p>}
+    </div>
+  );
+
+  return (
+    <div className="space-y-6">
+      <p>
+        Started from <span className="font-mono">{sheet.startingScale}</span>{" "}
+        {sheet.startingSource === "published" ? "— the board's published recommended current scale" : "— the scale the quad flew with (nothing published yet)"}.
+        Pack: {sheet.cells}S, {sheet.ratedMah} mAh rated. Firmware family: {sheet.familyName}.
+      </p>
+
+      {sheet.steps.length > 0 && (
+        <div className="overflow-x-auto">
+          <table className="w-full text-small" data-testid="iterations">
+            <caption className="text-left font-semibold">Iterations</caption>
+            <thead><tr className="text-left text-muted"><th className="py-1 pr-3">#</th><th className="pr-3">Scale used</th><th className="pr-3">Reported mAh</th><th className="pr-3">Charged mAh</th><th className="pr-3">Display error</th><th>Implied scale</th></tr></thead>
+            <tbody>
+              {(r?.iterations ?? []).map((it) => (
+                <tr key={it.index} className="border-t border-rule">
+                  <td className="py-1 pr-3">{it.index + 1}</td>
+                  <td className="pr-3 font-mono">{it.scaleUsed}</td>
+                  <td className="pr-3 font-mono">{formatFigure(it.reportedMah, 0)}</td>
+                  <td className="pr-3 font-mono">{formatFigure(it.chargedMah, 0)}</td>
+                  <td className="pr-3 font-mono">{pct(it.ratio - 1)}</td>
+                  <td className="font-mono">{formatFigure(it.impliedScale, 1)}{it.excludedBecause ? <span className="ml-2 font-body text-fault">left out: {it.excludedBecause}</span> : null}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+
+      {r && (
+        <section aria-labelledby="next-title" className="space-y-3 rounded-md border-3 border-rule bg-surface p-4">
+          <h2 id="next-title" className="font-display text-heading uppercase">Next scale</h2>
+          <p>Exact: <span className="font-mono">{formatFigure(r.next.exact, 2)}</span> (from cycle {r.basedOn + 1}). Enter <strong className="font-mono" data-testid="recommended">{r.recommendedSetting}</strong>.</p>
+          <div className="grid gap-3 sm:grid-cols-2">
+            <Rounding name="down" r={r.next.down} recommended={r.next.safeSide === "down"} />
+            <Rounding name="up" r={r.next.up} recommended={r.next.safeSide === "up"} />
+          </div>
+          <p className="text-small">{r.next.why}</p>
+          <p className={`font-semibold ${r.stop.met ? "text-ink" : "text-muted"}`} data-testid="stop">{r.stop.met ? "✓ " : ""}{r.stop.message}</p>
+          <p className="text-small text-muted">{r.stop.rule}</p>
+        </section>
+      )}
+
+      {sheet.warnings.length > 0 && (
+        <ul className="space-y-1 rounded-md border-2 border-caution-edge bg-caution p-3 text-small" data-testid="worksheet-warnings">
+          {sheet.warnings.map((w) => <li key={w.field + w.message}>⚠ {w.message}</li>)}
+        </ul>
+      )}
+
+      {r && r.convergence.length > 0 && <ConvergencePlot worksheet={r} />}
+
+      {sheet.submissionId == null ? (
+        <>
+          <form key={formKey} onSubmit={addStep} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="step-form">
+            <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add iteration {sheet.steps.length + 1}</h2>
+            <p className="text-small">Fly a pack down to your usual landing voltage with this scale, note the mAh the OSD shows, then recharge fully and note what the charger put back.</p>
+            {errors.input && <p role="alert" className="font-semibold text-fault">⚠ {errors.input.join(" ")}</p>}
+            <div className="grid gap-3 sm:grid-cols-3">
+              {field("scaleUsed", "Scale used", undefined, nextScale)}
+              {field("reportedMah", "Reported mAh", "What the OSD showed at landing")}
+              {field("chargedMah", "Charged mAh", "What the charger put back")}
+            </div>
+            <label className="flex items-center gap-2 font-semibold"><input type="checkbox" name="fullyRecharged" defaultChecked className="size-5" /> The charger finished (pack fully recharged)</label>
+            <button type="submit" className="sb-button" disabled={busy}>{busy ? "Saving…" : "Save iteration"}</button>
+          </form>
+          {r && (
+            <div className="space-y-2">
+              {errors.steps && <p className="font-semibold text-fault">⚠ {errors.steps.join(" ")}</p>}
+              {errors.firmwareVersion && <p className="font-semibold text-fault">⚠ {errors.firmwareVersion.join(" ")}</p>}
+              <button type="button" className="sb-button" onClick={publish} disabled={busy} data-testid="publish">Publish to Shuntbook</button>
+              <p className="text-small text-muted">Sends the recommended scale and every fully recharged cycle as a contribution. A moderator reviews it like any other.</p>
+            </div>
+          )}
+        </>
+      ) : (
+        <p className="font-semibold" data-testid="published">Published as submission #{sheet.submissionId}: pending review.</p>
+      )}
+
+      {r && (
+        <details className="rounded-md border-2 border-caution-edge bg-caution p-3 text-small">
+          <summary className="font-semibold">Charging cautions</summary>
+          <ul className="mt-2 list-disc space-y-1 pl-5">{r.cautions.map((c) => <li key={c.text}>{c.text} <span className="text-muted">({c.source})</span></li>)}</ul>
+        </details>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,36 @@
+import { z } from "zod";
+import type { FieldIssue, RechargeWorksheet } from "@/lib/calibration/worksheets";
+import { cellsField, mahField, numberField } from "@/lib/calibration/worksheets/fields";
+
+// The fly-and-recharge worksheet's inputs and its computed view, free of server imports so the
+// page's form checks with the very schema the route handler uses.
+
+export const startInput = z.object({
+  quadId: z.number({ error: "Choose the quad" }).int().positive("Choose the quad"),
+  ratedMah: mahField("The pack's rated mAh").int("The rated mAh is a whole number, as printed on the label"),
+  cells: cellsField(),
+  startingScale: numberField("The starting current scale").int("A setting is a whole number").positive("The starting current scale must be more than 0").nullish(),
+});
+
+export const stepInput = z.object({
+  scaleUsed: numberField("The current scale flown with").int("A setting is a whole number"),
+  reportedMah: mahField("The reported mAh"),
+  chargedMah: mahField("The charged mAh"),
+  fullyRecharged: z.boolean({ error: "Say whether the charger finished: yes or no" }).default(true),
+});
+
+export type WorksheetView = {
+  id: number;
+  quadId: number;
+  quadName: string;
+  familyName: string;
+  ratedMah: number;
+  cells: number;
+  startingScale: number;
+  startingSource: "published" | "own";
+  steps: Array<{ position: number; scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean }>;
+  result: RechargeWorksheet | null;
+  warnings: FieldIssue[];
+  submissionId: number | null;
+};
+

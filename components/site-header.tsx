@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { AccountLinks } from "./auth/account-links";
 import { GarageLink } from "./garage/garage-link";
+import { StaffLinks } from "./moderation/staff-links";
 import { NavLink } from "./nav-link";
 import { ThemeSwitch } from "./theme-switch";
 
@@ -27,6 +28,7 @@ export function SiteHeader() {
               </li>
             ))}
             <GarageLink />
+            <StaffLinks />
             <AccountLinks />
           </ul>
           <ThemeSwitch />

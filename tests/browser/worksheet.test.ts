@@ -1,0 +1,105 @@
+import { mkdirSync } from "node:fs";
+import path from "node:path";
+import { chromium, type Browser, type Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
+
+// The garage and the fly-and-recharge worksheet in a real browser against the build `npm test`
+// serves: sign in as the demo contributor, add a quad on a board with a published current scale,
+// fly three iterations, see the plot, publish. Screenshots go to tests/artifacts/.
+const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
+const ARTIFACTS = path.resolve(__dirname, "../artifacts");
+const LAUNCH = {
+  executablePath: "/usr/bin/chromium",
+  headless: true,
+  args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
+};
+
+type Values = {
+  board: { name: string };
+  families: { slug: string; name: string }[];
+  revisions: { label: string; families: { family: string; currentScale: { recommended: { setting: number } } | null }[] }[];
+};
+
+/** A board revision and family with a published current scale, read from the public API. */
+async function publishedGroup(): Promise<{ revisionOption: string; familyName: string; setting: number }> {
+  const { boards } = (await (await fetch(new URL("/api/v1/boards?pageSize=50", appUrl))).json()) as { boards: { slug: string }[] };
+  for (const b of boards) {
+    const v = (await (await fetch(new URL(`/api/v1/boards/${b.slug}/values`, appUrl))).json()) as Values;
+    for (const r of v.revisions ?? []) {
+      const g = r.families.find((f) => f.currentScale);
+      if (g) return { revisionOption: `${v.board.name} ${r.label}`, familyName: v.families.find((f) => f.slug === g.family)!.name, setting: g.currentScale!.recommended.setting };
+    }
+  }
+  throw new Error("the seeded scenario has no published current scale");
+}
+
+describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", () => {
+  let browser: Browser;
+  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
+
+  beforeAll(async () => {
+    mkdirSync(ARTIFACTS, { recursive: true });
+    browser = await chromium.launch(LAUNCH);
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it("creates a quad, runs three iterations, shows the plot and publishes", async () => {
+    const group = await publishedGroup();
+    const context = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    const page = await context.newPage();
+    await page.goto("/signin?next=/garage");
+    const passwordForm = page.getByRole("region", { name: "With your password" });
+    await passwordForm.getByLabel("E-mail address").fill(DEMO_ACCOUNTS.contributor.email);
+    await passwordForm.getByLabel("Password").fill(DEMO_ACCOUNTS.contributor.password);
+    await Promise.all([page.waitForURL(/\/garage$/), passwordForm.getByRole("button", { name: "Sign in" }).click()]);
+
+    const quadForm = page.getByTestId("quad-form");
+    await quadForm.getByRole("button", { name: "Save quad" }).click();
+    expect(await quadForm.getByText("Enter the quad's name").isVisible()).toBe(true);
+    const name = `Test quad ${Date.now()}`;
+    await quadForm.getByLabel("Name").fill(name);
+    await quadForm.getByLabel("Board revision").selectOption({ label: group.revisionOption });
+    await quadForm.getByLabel("Firmware family").selectOption({ label: group.familyName });
+    await quadForm.getByLabel("Firmware version").fill("1.0.0");
+    await quadForm.getByRole("button", { name: "Save quad" }).click();
+    await page.getByRole("link", { name }).waitFor();
+    await shot(page, "garage-phone");
+
+    await Promise.all([page.waitForURL(/\/garage\/quads\/\d+$/), page.getByRole("link", { name }).click()]);
+    const start = page.getByTestId("start-worksheet");
+    await start.getByLabel("Pack cells (S)").fill("4");
+    await start.getByLabel("Pack rated mAh").fill("1500");
+    await Promise.all([page.waitForURL(/\/garage\/worksheets\/\d+$/), start.getByRole("button", { name: "Start worksheet" }).click()]);
+    // the starting point is the board's published recommended value
+    expect(await page.getByText(String(group.setting), { exact: true }).first().isVisible()).toBe(true);
+
+    const step = page.getByTestId("step-form");
+    // an implausible reading is explained under its field and nothing is saved
+    await step.getByLabel("Reported mAh").fill("100");
+    await step.getByLabel("Charged mAh").fill("1300");
+    await step.getByRole("button", { name: "Save iteration" }).click();
+    await page.getByText(/cannot be the same flight/).waitFor();
+    await shot(page, "worksheet-bad-reading-phone");
+
+    for (const [reported, charged] of [[1200, 1300], [1290, 1300], [1299, 1300]]) {
+      const form = page.getByTestId("step-form");
+      const n = await page.locator("[data-testid=iterations] tbody tr").count();
+      await form.getByLabel("Reported mAh").fill(String(reported));
+      await form.getByLabel("Charged mAh").fill(String(charged));
+      await form.getByRole("button", { name: "Save iteration" }).click();
+      await page.locator("[data-testid=iterations] tbody tr").nth(n).waitFor();
+    }
+    expect(await page.locator("[data-testid=iterations] tbody tr").count()).toBe(3);
+    await page.getByTestId("convergence-plot").locator("svg").first().waitFor();
+    await shot(page, "worksheet-three-iterations-phone");
+    await page.setViewportSize({ width: 1280, height: 800 });
+    await shot(page, "worksheet-three-iterations-desktop");
+
+    await Promise.all([page.waitForURL(/\/my\/submissions/), page.getByTestId("publish").click()]);
+    await shot(page, "worksheet-published");
+    await context.close();
+  });
+});

@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
 import { formatFigure } from "@/lib/catalogue/format";
+import { CHARGING_CAUTIONS } from "@/lib/calibration/worksheets/cautions";
 import type { RoundedSetting } from "@/lib/calibration/worksheets";
 import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
 import { ConvergencePlot } from "./convergence-plot";
@@ -18,7 +19,7 @@ function Rounding({ name, r, recommended }: { name: string; r: RoundedSetting; r
     <div className={`rounded-md border-2 p-3 ${recommended ? "border-signal" : "border-rule"}`} data-testid={`rounding-${name}`}>
       <p className="text-small text-muted">Rounded {name}{recommended ? " — recommended" : ""}</p>
       <p className="font-mono text-lg">{r.setting}</p>
-      <p className="text-small">Display reads {r.reads === "true" ? "true" : `${r.reads} by ${pct(r.readingError)}`}</p>
+      <p className="text-small">Display reads {r.reads === "true" || r.readingError == null ? "true" : `${r.reads} by ${formatFigure(Math.abs(r.readingError) * 100, 2)} %`}</p>
     </div>
   );
 }
@@ -154,10 +155,11 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
         <p className="font-semibold" data-testid="published">Published as submission #{sheet.submissionId}: pending review.</p>
       )}
 
-      {r && (
-        <details className="rounded-md border-2 border-caution-edge bg-caution p-3 text-small">
+      {/* shown before the first cycle too: every iteration means charging a pack again */}
+      {(
+        <details open={sheet.steps.length === 0} className="rounded-md border-2 border-caution-edge bg-caution p-3 text-small">
           <summary className="font-semibold">Charging cautions</summary>
-          <ul className="mt-2 list-disc space-y-1 pl-5">{r.cautions.map((c) => <li key={c.text}>{c.text} <span className="text-muted">({c.source})</span></li>)}</ul>
+          <ul className="mt-2 list-disc space-y-1 pl-5">{(r?.cautions ?? CHARGING_CAUTIONS).map((c) => <li key={c.text}>{c.text} <span className="text-muted">({c.source})</span></li>)}</ul>
         </details>
       )}
     </div>

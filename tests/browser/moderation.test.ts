@@ -1,0 +1,87 @@
+import { mkdirSync } from "node:fs";
+import path from "node:path";
+import { chromium, type Browser, type Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
+
+// A moderator's pass through the queue in Chromium against the build `npm test` serves
+// (SHUNTBOOK_TEST_APP_URL) on the seeded database: sign in by the demo moderator's password, find a
+// far-off value at the top of the queue (ordered by |modified z|, NIST/SEMATECH e-Handbook
+// §1.3.5.17's 3.5 cut-off), open it, be refused without a reason, reject it with one, and find the
+// "not accepted" mail with the reason in the mail catcher (MAIL_INBOX_URL, maildev's GET
+// /api/email). The job worker that sends it runs inside the app, so the inbox is polled.
+const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
+const inboxUrl = process.env.MAIL_INBOX_URL;
+const ARTIFACTS = path.resolve(__dirname, "../artifacts");
+const LAUNCH = {
+  executablePath: "/usr/bin/chromium",
+  headless: true,
+  args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
+};
+const moderator = DEMO_ACCOUNTS.moderator;
+
+type Mail = { subject: string; text: string; to: { address: string }[] };
+async function waitForSubject(subject: string, timeoutMs = 30_000): Promise<Mail> {
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const res = await fetch(new URL("/api/email", inboxUrl)).catch(() => null);
+    const mails = ((await res?.json().catch(() => [])) ?? []) as Mail[];
+    const found = mails.find((m) => m.subject === subject);
+    if (found) return found;
+    if (Date.now() > until) throw new Error(`no mail "${subject}" after ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 500));
+  }
+}
+
+describe.skipIf(!appUrl || !inboxUrl)("moderation in Chromium: an outlier first, reviewed and rejected, the contributor told", () => {
+  let browser: Browser;
+  let page: Page;
+  const shot = (name: string) => page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
+
+  beforeAll(async () => {
+    mkdirSync(ARTIFACTS, { recursive: true });
+    browser = await chromium.launch(LAUNCH);
+    const phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    page = await phone.newPage();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it("signs in as the demo moderator and sees the queue with the far-off value first", async () => {
+    await page.goto("/moderation");
+    await page.waitForURL(/\/signin/);
+    const form = page.getByRole("region", { name: "With your password" });
+    await form.getByLabel("E-mail address").fill(moderator.email);
+    await form.getByLabel("Password").fill(moderator.password);
+    await Promise.all([page.waitForURL(/\/moderation$/, { timeout: 30_000 }), form.getByRole("button", { name: "Sign in" }).click()]);
+    expect(await page.getByRole("heading", { name: "Review queue" }).isVisible()).toBe(true);
+    const first = page.getByTestId("queue-row").first();
+    expect(await first.getByText(/^Far off/).isVisible()).toBe(true);
+    await shot("moderation-queue-phone");
+  }, 60_000);
+
+  it("opens the first row, is refused without a reason, rejects with one and the contributor gets the mail", async () => {
+    const link = page.getByTestId("queue-row").first().getByRole("link", { name: /^Review submission #\d+$/ });
+    const id = Number((await link.getAttribute("aria-label"))!.match(/#(\d+)/)![1]);
+    await Promise.all([page.waitForURL(new RegExp(`/moderation/${id}$`)), link.click()]);
+    expect(await page.getByRole("heading", { name: "Where the values fall" }).isVisible()).toBe(true);
+    expect(await page.getByText(/beyond ±3\.5/).first().isVisible()).toBe(true);
+    await shot("moderation-review-phone");
+
+    await page.getByRole("radio", { name: "Reject" }).check();
+    await page.getByRole("button", { name: "Reject" }).click();
+    expect(await page.getByText("Say why the submission is rejected: the contributor reads it").isVisible()).toBe(true);
+    expect(await page.getByLabel("Reason").getAttribute("aria-invalid")).toBe("true");
+
+    const reason = "The current scale is about ten times the others: a misplaced decimal?";
+    await page.getByLabel("Reason").fill(reason);
+    await page.getByRole("button", { name: "Reject" }).click();
+    await page.getByRole("status").getByText(`Submission #${id} rejected`).waitFor({ timeout: 15_000 });
+    await shot("moderation-rejected-phone");
+
+    const mail = await waitForSubject(`Shuntbook: Submission #${id} not accepted`);
+    expect(mail.to[0]?.address).not.toBe(moderator.email);
+    expect(mail.text).toContain("a misplaced decimal");
+  }, 90_000);
+});

@@ -24,17 +24,17 @@ async function quadContext(ownerId: string, quadId: number) {
   return { quad, family, revision };
 }
 
-/** The board's published recommended current scale for this revision and family, or null. */
-export async function publishedCurrentScale(boardSlug: string, revisionLabel: string, familySlug: string): Promise<number | null> {
+/** The board's published recommended setting for this revision and family, or null. */
+export async function publishedSetting(boardSlug: string, revisionLabel: string, familySlug: string, key: "currentScale" | "voltageScale"): Promise<number | null> {
   const selected = await getBoardValues(boardSlug, { revision: revisionLabel, family: familySlug });
   if (!selected?.ok) return null;
-  return selected.values.revisions[0]?.families[0]?.currentScale?.recommended.setting ?? null;
+  return selected.values.revisions[0]?.families[0]?.[key]?.recommended.setting ?? null;
 }
 
 export async function startRechargeWorksheet(ownerId: string, input: unknown): Promise<WorksheetView> {
   const data = parseOrThrow(startInput, input);
   const { quad, family, revision } = await quadContext(ownerId, data.quadId);
-  const published = await publishedCurrentScale(revision.boardModel.slug, revision.label, family.slug);
+  const published = await publishedSetting(revision.boardModel.slug, revision.label, family.slug, "currentScale");
   const startingScale = published ?? data.startingScale;
   if (startingScale == null) {
     throw badRequest({ startingScale: ["Nothing is published for this board and family yet: enter the current scale the quad flies with now"] });

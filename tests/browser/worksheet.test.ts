@@ -69,6 +69,7 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
     await shot(page, "garage-phone");
 
     await Promise.all([page.waitForURL(/\/garage\/quads\/\d+$/), page.getByRole("link", { name }).click()]);
+    const quadUrl = page.url();
     const start = page.getByTestId("start-worksheet");
     await start.getByLabel("Pack cells (S)").fill("4");
     await start.getByLabel("Pack rated mAh").fill("1500");
@@ -100,6 +101,17 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
 
     await Promise.all([page.waitForURL(/\/my\/submissions/), page.getByTestId("publish").click()]);
     await shot(page, "worksheet-published");
+
+    // the voltage check on the same quad: worked out as the builder types, with the probe cautions
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.goto(`${quadUrl}/voltage`);
+    const form = page.getByTestId("voltage-form");
+    await form.getByLabel("Cells (S)").fill("4");
+    await form.getByLabel("OSD voltage (V)").fill("16.40");
+    await form.getByLabel("Multimeter (V)").fill("16.80");
+    await page.getByTestId("voltage-result").waitFor();
+    expect(await page.getByText("Never short the probes.").isVisible()).toBe(true);
+    await shot(page, "worksheet-voltage-phone");
     await context.close();
   });
 });

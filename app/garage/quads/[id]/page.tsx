@@ -40,6 +40,7 @@ export default async function QuadPage({ params }: Props) {
           </ul>
         )}
         <StartWorksheet quadId={quad.id} />
+        <p><Link href={`/garage/quads/${quad.id}/voltage`} className="font-semibold">Check the voltage scale with a multimeter →</Link></p>
       </section>
     </div>
   );

@@ -8,6 +8,8 @@ import type { Decision } from "@/lib/moderation/vocabulary";
 type Props = {
   id: number;
   version: number;
+  /** False once decided: only the confirmation (if this form made it) or a note shows. */
+  open: boolean;
   act: (id: number, decision: Decision, body: Record<string, unknown>) => Promise<DecisionState>;
 };
 
@@ -20,7 +22,7 @@ const BUTTON: Record<Decision, string> = { approve: "Approve", reject: "Reject",
 
 // Approve, reject (a reason) or ask for changes (a message). Empty required text is refused here
 // with the same words as the server; the server's own refusals land beside the field.
-export function DecisionForm({ id, version, act }: Props) {
+export function DecisionForm({ id, version, act, open }: Props) {
   const [decision, setDecision] = useState<Decision>("approve");
   const [text, setText] = useState("");
   const [state, setState] = useState<DecisionState>(null);
@@ -45,6 +47,7 @@ export function DecisionForm({ id, version, act }: Props) {
       </div>
     );
   }
+  if (!open) return <p className="rounded-md border-3 border-rule bg-surface p-4">This submission has been decided.</p>;
   return (
     <form onSubmit={submit} noValidate className="space-y-4 rounded-md border-3 border-rule bg-surface p-4" aria-label="Decision">
       <fieldset>

@@ -5,6 +5,7 @@ import { cache, type ReactNode } from "react";
 import { RevisionHardware } from "@/components/revision-hardware";
 import { SafetyNote } from "@/components/safety-note";
 import { BoardValuesSection, type RevisionEntry } from "@/components/values/board-values-section";
+import { ValueHistoryTimeline } from "@/components/values/value-history-timeline";
 import { resolveSelection } from "@/components/values/selection";
 import { formatCells, formatMounting } from "@/lib/catalogue/format";
 import { getBoardBySlug } from "@/lib/catalogue/get-board";
@@ -136,6 +137,8 @@ export default async function BoardPage({ params, searchParams }: Props) {
         notices={values?.notices ?? []}
         safety={<SafetyNote />}
       />
+
+      <ValueHistoryTimeline slug={board.slug} />
 
       <div className="space-y-6">
         <div>

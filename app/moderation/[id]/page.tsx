@@ -140,7 +140,8 @@ export default async function ReviewPage({ params }: Props) {
               ))}
             </ul>
           </section>
-          {open ? <DecisionForm id={s.id} version={s.version} act={decideAction} /> : <p className={box}>This submission has been decided.</p>}
+          {/* always mounted: after a decision the page refreshes as decided, and the form keeps its confirmation */}
+          <DecisionForm id={s.id} version={s.version} act={decideAction} open={open} />
         </div>
       </div>
     </div>

@@ -48,6 +48,11 @@ const EnvSchema = z.object({
    * once and keeps it in <SHUNTBOOK_DATA_DIR>/nextauth-secret; `npm test` makes a random one per run.
    */
   NEXTAUTH_SECRET: z.string().min(32, "must be at least 32 characters (e.g. openssl rand -base64 32)").optional(),
+  /**
+   * Approved submissions (with no rejection) after which a contributor's new submissions are
+   * approved without waiting for a moderator, unless they raise a flag (lib/moderation/trust.ts).
+   */
+  MODERATION_TRUST_THRESHOLD: z.coerce.number().int().min(1).max(1000).default(5),
   /** `0` keeps the job worker (lib/jobs) out of the app process, e.g. on web-only instances. */
   SHUNTBOOK_JOB_WORKER: z.enum(["0", "1"]).default("1"),
   /** Set by `npm test` for the test files: the throwaway cluster and the app under test. */

@@ -1,4 +1,5 @@
 import { Account } from "./Account";
+import { AuditEvent } from "./AuditEvent";
 import { AuthSession } from "./AuthSession";
 import { BoardAlias } from "./BoardAlias";
 import { BoardModel } from "./BoardModel";
@@ -9,6 +10,7 @@ import { Manufacturer } from "./Manufacturer";
 import { Pack } from "./Pack";
 import { PackCharge } from "./PackCharge";
 import { PasswordResetToken } from "./PasswordResetToken";
+import { PublishedValueHistory } from "./PublishedValueHistory";
 import { Quad } from "./Quad";
 import { IdempotencyKey } from "./IdempotencyKey";
 import { Submission } from "./Submission";
@@ -74,6 +76,16 @@ export function associate(): void {
   Pack.belongsTo(User, { foreignKey: "ownerId", as: "owner" });
   Pack.hasMany(PackCharge, { foreignKey: "packId", as: "charges" });
   PackCharge.belongsTo(Pack, { foreignKey: "packId", as: "pack" });
+
+  // moderation (lib/moderation): the append-only log and the history of published values
+  AuditEvent.belongsTo(User, { foreignKey: "actorId", as: "actor" });
+  AuditEvent.belongsTo(User, { foreignKey: "targetUserId", as: "targetUser" });
+  AuditEvent.belongsTo(Submission, { foreignKey: "submissionId", as: "submission" });
+  Submission.hasMany(AuditEvent, { foreignKey: "submissionId", as: "auditEvents" });
+  AuditEvent.belongsTo(AuditEvent, { foreignKey: "revertsEventId", as: "revertsEvent" });
+  PublishedValueHistory.belongsTo(AuditEvent, { foreignKey: "causedByEventId", as: "causedBy" });
+  PublishedValueHistory.belongsTo(BoardRevision, { foreignKey: "boardRevisionId", as: "boardRevision" });
+  PublishedValueHistory.belongsTo(FirmwareFamily, { foreignKey: "firmwareFamilyId", as: "firmwareFamily" });
   User.hasMany(Worksheet, { foreignKey: "ownerId", as: "worksheets" });
   Worksheet.belongsTo(User, { foreignKey: "ownerId", as: "owner" });
   Quad.hasMany(Worksheet, { foreignKey: "quadId", as: "worksheets" });

@@ -2,6 +2,7 @@ import type { Sequelize } from "sequelize";
 import { getSequelize } from "@/lib/db/sequelize";
 import { Account } from "./Account";
 import { associate } from "./associations";
+import { AuditEvent } from "./AuditEvent";
 import { AuthSession } from "./AuthSession";
 import { BoardAlias } from "./BoardAlias";
 import { BoardModel } from "./BoardModel";
@@ -13,6 +14,7 @@ import { Manufacturer } from "./Manufacturer";
 import { Pack } from "./Pack";
 import { PackCharge } from "./PackCharge";
 import { PasswordResetToken } from "./PasswordResetToken";
+import { PublishedValueHistory } from "./PublishedValueHistory";
 import { Quad } from "./Quad";
 import { RateLimit } from "./RateLimit";
 import { Submission } from "./Submission";
@@ -31,6 +33,8 @@ export { BOARD_KINDS, type BoardKind } from "./BoardModel";
 export { Account, AuthSession, PasswordResetToken, RateLimit, VerificationToken };
 export { ROLES, type Role } from "./User";
 export { Pack, PackCharge, Quad, Worksheet, WorksheetStep };
+export { AuditEvent, PublishedValueHistory };
+export { AUDIT_ACTIONS, AUDIT_ENTITY_TYPES, type AuditAction, type AuditEntityType } from "./AuditEvent";
 export { METHODS, SENSING_SOURCES, STATUSES, type Method, type SensingSource, type SubmissionStatus } from "./Submission";
 
 let initialisedWith: Sequelize | undefined;
@@ -41,7 +45,8 @@ export function db(): Sequelize {
   if (initialisedWith !== sequelize) {
     for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission, EvidencePhoto,
       SubmissionVoltageReading, SubmissionCycle, SubmissionBenchPoint, IdempotencyKey,
-      Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit, Quad, Pack, PackCharge, Worksheet, WorksheetStep]) {
+      Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit, Quad, Pack, PackCharge,
+      AuditEvent, PublishedValueHistory, Worksheet, WorksheetStep]) {
       model.initModel(sequelize);
     }
     associate();

@@ -8,6 +8,7 @@ const database = useTestDatabase("migrated");
 
 const EXPECTED_TABLES = [
   "accounts",
+  "audit_events",
   "board_aliases",
   "board_models",
   "board_revisions",
@@ -19,6 +20,7 @@ const EXPECTED_TABLES = [
   "pack_charges",
   "packs",
   "password_reset_tokens",
+  "published_value_history",
   "quads",
   "rate_limits",
   "sessions",

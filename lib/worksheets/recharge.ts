@@ -25,7 +25,7 @@ async function quadContext(ownerId: string, quadId: number) {
 }
 
 /** The board's published recommended setting for this revision and family, or null. */
-export async function publishedSetting(boardSlug: string, revisionLabel: string, familySlug: string, key: "currentScale" | "voltageScale"): Promise<number | null> {
+export async function publishedSetting(boardSlug: string, revisionLabel: string, familySlug: string, key: "currentScale" | "voltageScale" | "currentOffset"): Promise<number | null> {
   const selected = await getBoardValues(boardSlug, { revision: revisionLabel, family: familySlug });
   if (!selected?.ok) return null;
   return selected.values.revisions[0]?.families[0]?.[key]?.recommended.setting ?? null;

@@ -112,6 +112,18 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
     await page.getByTestId("voltage-result").waitFor();
     expect(await page.getByText("Never short the probes.").isVisible()).toBe(true);
     await shot(page, "worksheet-voltage-phone");
+
+    // the bench check: the props-on caution and the advice to prefer fly-and-recharge come first
+    await page.goto(`${quadUrl}/bench`);
+    expect(await page.getByText("Bench tests are dangerous with props on").isVisible()).toBe(true);
+    const bench = page.getByTestId("bench-form");
+    for (const [i, [measured, reported]] of [[5, 5.2], [20, 20.9], [40, 41.5]].entries()) {
+      if (i === 2) await bench.getByRole("button", { name: "Add another point" }).click();
+      await bench.locator(`#b-${i}-m`).fill(String(measured));
+      await bench.locator(`#b-${i}-r`).fill(String(reported));
+    }
+    await page.getByTestId("bench-result").waitFor();
+    await shot(page, "worksheet-bench-phone");
     await context.close();
   });
 });

@@ -2,6 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import type { BulkState } from "@/app/moderation/actions";
 import type { QueueRow } from "@/app/moderation/_data/queue";
 import { QueueTable } from "./queue-table";
 
@@ -9,9 +10,7 @@ import { QueueTable } from "./queue-table";
 // evidence or from a first-time contributor is reviewed one by one.
 const unflagged = (r: QueueRow) => !r.outlier && !r.mismatch && !r.newContributor;
 
-export const BULK_APPROVE_PATH = "/api/v1/moderation/bulk-approve";
-
-export function QueueView({ rows }: { rows: QueueRow[] }) {
+export function QueueView({ rows, approve }: { rows: QueueRow[]; approve: (items: { id: number; version: number }[]) => Promise<BulkState> }) {
   const router = useRouter();
   const [selected, setSelected] = useState<Set<number>>(new Set());
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
@@ -29,15 +28,10 @@ export function QueueView({ rows }: { rows: QueueRow[] }) {
     setBusy(true);
     setMessage(null);
     const items = rows.filter((r) => selected.has(r.id)).map((r) => ({ id: r.id, version: r.version }));
-    const res = await fetch(BULK_APPROVE_PATH, { method: "POST", headers: { "content-type": "application/json", accept: "application/json" }, body: JSON.stringify({ items }) }).catch(() => null);
-    const body = await res?.json().catch(() => null);
+    const result = await approve(items).catch(() => ({ ok: false, message: "The approvals could not be sent. Try again in a moment." }));
     setBusy(false);
-    if (!res || !res.ok) {
-      setMessage({ ok: false, text: body?.error?.message ?? "The approvals could not be sent. Try again in a moment." });
-      return;
-    }
     setSelected(new Set());
-    setMessage({ ok: true, text: `Approved ${items.length} submission${items.length === 1 ? "" : "s"}.` });
+    setMessage({ ok: result.ok, text: result.message });
     router.refresh();
   }
 

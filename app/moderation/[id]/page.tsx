@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { DecisionForm } from "@/components/moderation/decision-form";
+import { EvidenceTables } from "@/components/moderation/evidence-tables";
 import { StatusBadge } from "@/components/submission/status-badge";
 import { requirePageRole } from "@/lib/auth";
 import { formatFigure, plural } from "@/lib/catalogue/format";
@@ -28,7 +29,7 @@ const ci = (lo: number | null, hi: number | null) => (lo === null || hi === null
 
 // Where the value falls among the approved ones, and what approving it would do to the median
 // and its interval: the same summarise() the published figures come from, with this value added.
-function Placement({ title, value, q }: { title: string; value: number | null; q: QuantityValues | null }) {
+function Placement({ title, value, q, counted }: { title: string; value: number | null; q: QuantityValues | null; counted: boolean }) {
   if (value === null) return null;
   if (!q) return <li><strong>{title} <span className="font-mono">{value}</span>:</strong> the first approved value for this revision and family.</li>;
   const points = (q.points ?? []).map((p) => p.value);
@@ -54,7 +55,7 @@ function Placement({ title, value, q }: { title: string; value: number | null; q
       </div>
       <p className="text-small">
         Now: median <span className="font-mono">{formatFigure(q.median)}</span> of {plural(q.n, "value")}, interval {ci(q.ciLow, q.ciHigh)}.{" "}
-        If approved: median <span className="font-mono">{after.median === null ? "—" : formatFigure(after.median)}</span> of {plural(after.n, "value")}, interval {ci(after.ciLow, after.ciHigh)}.
+        {counted ? "This value is already approved and counted in these figures." : <>If approved: median <span className="font-mono">{after.median === null ? "—" : formatFigure(after.median)}</span> of {plural(after.n, "value")}, interval {ci(after.ciLow, after.ciHigh)}.</>}
       </p>
     </li>
   );
@@ -63,10 +64,7 @@ function Placement({ title, value, q }: { title: string; value: number | null; q
 function Evidence({ s }: { s: SubmissionView }) {
   return (
     <div className="space-y-3 text-small">
-      {s.voltageCheck && <pre className="overflow-x-auto rounded-sm bg-sunken p-2 font-mono">{JSON.stringify(s.voltageCheck, null, 1)}</pre>}
-      {s.cycles && s.cycles.length > 0 && <p>{plural(s.cycles.length, "fly-and-recharge cycle")}</p>}
-      {s.cycles && s.cycles.length > 0 && <pre className="overflow-x-auto rounded-sm bg-sunken p-2 font-mono">{JSON.stringify(s.cycles, null, 1)}</pre>}
-      {s.bench && <pre className="overflow-x-auto rounded-sm bg-sunken p-2 font-mono">{JSON.stringify(s.bench, null, 1)}</pre>}
+      <EvidenceTables s={s} />
       {(s.evidence.summary?.checks ?? []).map((c) => (
         <p key={c.quantity} className={c.mismatch ? "font-semibold text-fault" : ""}>
           {c.quantity.replace("_", " ")}: the evidence implies {formatFigure(c.implied, 1)}{c.mismatch ? " — more than the tolerance away from the value sent" : ""}.
@@ -113,7 +111,7 @@ export default async function ReviewPage({ params }: Props) {
           <section className={box} aria-labelledby="where">
             <h2 id="where" className={h2}>Where the values fall</h2>
             <ul className="space-y-4">
-              {QUANTITIES.map((q) => <Placement key={q.key} title={q.title} value={s[q.key]} q={group?.[q.key] ?? null} />)}
+              {QUANTITIES.map((q) => <Placement key={q.key} title={q.title} value={s[q.key]} q={group?.[q.key] ?? null} counted={s.status === "approved"} />)}
             </ul>
           </section>
           <section className={box} aria-labelledby="evidence">

@@ -1,0 +1,167 @@
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import * as revertRoute from "@/app/api/v1/admin/events/[id]/revert/route";
+import * as userRoute from "@/app/api/v1/admin/users/[id]/route";
+import * as usersRoute from "@/app/api/v1/admin/users/route";
+import * as bulkRoute from "@/app/api/v1/moderation/bulk-approve/route";
+import * as eventsRoute from "@/app/api/v1/moderation/events/route";
+import * as queueRoute from "@/app/api/v1/moderation/queue/route";
+import * as approveRoute from "@/app/api/v1/moderation/submissions/[id]/approve/route";
+import * as rejectRoute from "@/app/api/v1/moderation/submissions/[id]/reject/route";
+import * as requestChangesRoute from "@/app/api/v1/moderation/submissions/[id]/request-changes/route";
+import * as reviewRoute from "@/app/api/v1/moderation/submissions/[id]/route";
+import { stopBoss } from "@/lib/jobs";
+import { approveSubmission } from "@/lib/moderation";
+import type { Role } from "@/models";
+import { ANONYMOUS, callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";
+import { useTestDatabase } from "@/tests/support/database";
+import { expectError, insertPerson, insertSubmission, setupGroup, writtenState, type Setup } from "./moderation-helpers";
+
+vi.mock("next/headers", () => import("@/tests/support/next-headers"));
+
+// Every moderation and admin route × every kind of caller: anonymous 401, contributor 403,
+// moderator allowed on moderation routes and 403 on admin ones, admin allowed everywhere (an admin
+// passes every moderator check). A refused call writes nothing. Each allowed call gets fresh data,
+// so every one of them really does its work.
+useTestDatabase("migrated");
+afterAll(() => stopBoss());
+
+type Caller = Role | "anonymous";
+const CALLERS: Caller[] = ["anonymous", "contributor", "moderator", "admin"];
+type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
+
+type Case = {
+  name: string;
+  handler: Handler;
+  minimum: "moderator" | "admin";
+  /** Prepares fresh data and returns the request's method, path, params and body. */
+  prepare: () => Promise<{ method: string; path: string; params?: Record<string, string>; body?: unknown }>;
+  okStatus: number;
+};
+
+let setup: Setup;
+let cookies: Record<Caller, string>;
+beforeAll(async () => {
+  setup = await setupGroup([397, 398, 399, 400, 401, 402, 403]);
+  cookies = {
+    anonymous: ANONYMOUS,
+    contributor: await sessionCookieFor("contributor"),
+    moderator: await sessionCookieFor("moderator"),
+    admin: await sessionCookieFor("admin"),
+  };
+});
+
+const pending = () => insertSubmission(setup.fx, { currentScale: 401 });
+let people = 0;
+
+const CASES: Case[] = [
+  { name: "GET /moderation/queue", handler: queueRoute.GET as Handler, minimum: "moderator", okStatus: 200, prepare: async () => ({ method: "GET", path: "/api/v1/moderation/queue" }) },
+  { name: "GET /moderation/events", handler: eventsRoute.GET as Handler, minimum: "moderator", okStatus: 200, prepare: async () => ({ method: "GET", path: "/api/v1/moderation/events" }) },
+  {
+    name: "GET /moderation/submissions/{id}",
+    handler: reviewRoute.GET as Handler,
+    minimum: "moderator",
+    okStatus: 200,
+    prepare: async () => {
+      const id = String(await pending());
+      return { method: "GET", path: `/api/v1/moderation/submissions/${id}`, params: { id } };
+    },
+  },
+  ...(
+    [
+      ["approve", approveRoute.POST, { version: 0 }],
+      ["reject", rejectRoute.POST, { version: 0, reason: "Too far off." }],
+      ["request-changes", requestChangesRoute.POST, { version: 0, message: "Add a photo." }],
+    ] as const
+  ).map(
+    ([segment, handler, body]): Case => ({
+      name: `POST /moderation/submissions/{id}/${segment}`,
+      handler: handler as Handler,
+      minimum: "moderator",
+      okStatus: 200,
+      prepare: async () => {
+        const id = String(await pending());
+        return { method: "POST", path: `/api/v1/moderation/submissions/${id}/${segment}`, params: { id }, body };
+      },
+    }),
+  ),
+  {
+    name: "POST /moderation/bulk-approve",
+    handler: bulkRoute.POST as Handler,
+    minimum: "moderator",
+    okStatus: 200,
+    prepare: async () => ({ method: "POST", path: "/api/v1/moderation/bulk-approve", body: { items: [{ id: await pending(), version: 0 }] } }),
+  },
+  {
+    name: "POST /admin/events/{id}/revert",
+    handler: revertRoute.POST as Handler,
+    minimum: "admin",
+    okStatus: 200,
+    prepare: async () => {
+      const moderator = await testAccount("moderator");
+      const { event } = await approveSubmission(moderator, await pending(), { version: 0 });
+      return { method: "POST", path: `/api/v1/admin/events/${event.id}/revert`, params: { id: String(event.id) }, body: { reason: "Checking the matrix." } };
+    },
+  },
+  { name: "GET /admin/users", handler: usersRoute.GET as Handler, minimum: "admin", okStatus: 200, prepare: async () => ({ method: "GET", path: "/api/v1/admin/users" }) },
+  {
+    name: "GET /admin/users/{id}",
+    handler: userRoute.GET as Handler,
+    minimum: "admin",
+    okStatus: 200,
+    prepare: async () => ({ method: "GET", path: `/api/v1/admin/users/${setup.fx.userId}`, params: { id: setup.fx.userId } }),
+  },
+  {
+    name: "PATCH /admin/users/{id}",
+    handler: userRoute.PATCH as Handler,
+    minimum: "admin",
+    okStatus: 200,
+    prepare: async () => {
+      const id = await insertPerson(`matrix-${++people}@example.test`);
+      return { method: "PATCH", path: `/api/v1/admin/users/${id}`, params: { id }, body: { trusted: true } };
+    },
+  },
+];
+
+function allowed(caller: Caller, minimum: Case["minimum"]): boolean {
+  if (caller === "admin") return true;
+  return caller === "moderator" && minimum === "moderator";
+}
+
+const expected = (caller: Caller, c: Case) => (caller === "anonymous" ? 401 : allowed(caller, c.minimum) ? c.okStatus : 403);
+
+describe.each(CASES)("$name", (c) => {
+  it.each(CALLERS)("%s", async (caller) => {
+    const { method, path, params = {}, body } = await c.prepare();
+    const init: RequestInit = { method, headers: body === undefined ? {} : { "content-type": "application/json" } };
+    if (body !== undefined) init.body = JSON.stringify(body);
+    const request = withCookie(new Request(`http://test.local${path}`, init), cookies[caller]);
+    const before = await writtenState();
+    const res = await callRoute(c.handler, request, { params: Promise.resolve(params) });
+    const status = expected(caller, c);
+    if (status === c.okStatus) {
+      expect(res.status, await res.clone().text()).toBe(status);
+      expect(res.headers.get("cache-control")).toBe("no-store");
+    } else {
+      const error = await expectError(res, status);
+      expect(error.code).toBe(status === 401 ? "unauthorized" : "forbidden");
+      expect(await writtenState()).toEqual(before);
+    }
+  });
+});
+
+describe("writes from another site's page", () => {
+  it("a moderator's approve with a foreign Origin is a 403 and writes nothing", async () => {
+    const id = String(await pending());
+    const request = withCookie(
+      new Request(`http://test.local/api/v1/moderation/submissions/${id}/approve`, {
+        method: "POST",
+        headers: { "content-type": "application/json", origin: "https://elsewhere.example", host: "test.local" },
+        body: JSON.stringify({ version: 0 }),
+      }),
+      cookies.moderator,
+    );
+    const before = await writtenState();
+    await expectError(await callRoute(approveRoute.POST as Handler, request, { params: Promise.resolve({ id }) }), 403);
+    expect(await writtenState()).toEqual(before);
+  });
+});

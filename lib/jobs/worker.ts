@@ -1,4 +1,5 @@
 import type PgBoss from "pg-boss";
+import { registerModerationJobs } from "@/lib/moderation/jobs";
 import { boss } from "./boss";
 import { JOBS, type JobName } from "./handlers";
 
@@ -20,7 +21,9 @@ export async function startJobWorker(): Promise<void> {
       // a throw fails the job; pg-boss then retries it per the queue's policy
       await queue.work(name, { pollingIntervalSeconds: 2, batchSize: 1 }, async ([job]) => runOne(name, job.data));
     }
-    console.log(`[jobs] worker polling ${Object.keys(JOBS).join(", ")}`);
+    // the moderators' daily digest is a scheduled job with its own queue policy
+    await registerModerationJobs(queue);
+    console.log(`[jobs] worker polling ${Object.keys(JOBS).join(", ")} and the moderation digest`);
   })();
   try {
     await g.shuntbookWorker;

@@ -1,3 +1,4 @@
+import { applyTrustOnCreate } from "@/lib/moderation/trust";
 import type { SessionUser } from "@/lib/auth";
 import { attachPhotosToSubmission } from "@/lib/storage/evidence-photos";
 import { Submission, db } from "@/models";
@@ -55,6 +56,8 @@ export async function createSubmission(user: Pick<SessionUser, "id">, body: unkn
       await writeEvidence(submission.id, payload, transaction);
       await attachPhotosToSubmission(payload.photoIds, submission.id, user.id, transaction);
       await queueStatusMail(submission.id, transaction, "created");
+      // a trusted contributor's unflagged submission is approved at once, in this same transaction
+      await applyTrustOnCreate(submission.id, transaction);
       const created = (await loadSubmissionView(submission.id, transaction))!;
       if (key && !(await claimKey(user.id, key, hash, { status: 201, body: { submission: created }, submissionId: submission.id }, transaction))) {
         throw new KeyTakenError();

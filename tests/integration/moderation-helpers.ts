@@ -1,4 +1,4 @@
-import { QueryTypes } from "sequelize";
+import { QueryTypes, type Transaction } from "sequelize";
 import { POST as approveRoute } from "@/app/api/v1/moderation/submissions/[id]/approve/route";
 import { POST as rejectRoute } from "@/app/api/v1/moderation/submissions/[id]/reject/route";
 import { POST as requestChangesRoute } from "@/app/api/v1/moderation/submissions/[id]/request-changes/route";
@@ -37,7 +37,7 @@ export type NewSubmission = {
 };
 
 /** One submission in the fixture group; returns its id. */
-export async function insertSubmission(fx: Fixture, s: NewSubmission = {}): Promise<number> {
+export async function insertSubmission(fx: Fixture, s: NewSubmission = {}, transaction?: Transaction): Promise<number> {
   const [row] = await db().query<{ id: number }>(
     `INSERT INTO submissions (board_revision_id, firmware_family_id, firmware_version, contributor_id, sensing_source, method,
         voltage_scale, current_scale, status, evidence_mismatch, evidence_summary, created_at, updated_at)
@@ -57,6 +57,7 @@ export async function insertSubmission(fx: Fixture, s: NewSubmission = {}): Prom
         age: s.ageHours ?? 1,
       },
       type: QueryTypes.SELECT,
+      transaction,
     },
   );
   return row.id;

@@ -15,7 +15,7 @@ export async function registerModerationJobs(boss: PgBoss): Promise<void> {
   // a digest that fails (database away) is tried again a few times, then waits for tomorrow's
   await boss.createQueue(DIGEST_JOB, { name: DIGEST_JOB, retryLimit: 3, retryDelay: 300, retryBackoff: true, expireInSeconds: 300 });
   await boss.schedule(DIGEST_JOB, DIGEST_CRON, {}, { tz: "UTC" });
-  await boss.work(DIGEST_JOB, { pollingIntervalSeconds: 30, batchSize: 1 }, async () => {
+  await boss.work(DIGEST_JOB, { pollingIntervalSeconds: 5, batchSize: 1 }, async () => {
     await sendModeratorDigest();
   });
 }

@@ -3,18 +3,13 @@ import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
+import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // Sign-in in a real browser against the build `npm test` serves (SHUNTBOOK_TEST_APP_URL): a magic
 // link read from the mail catcher's REST API (MAIL_INBOX_URL, maildev's GET /api/email), the demo
 // contributor's password, field-level errors, and sign-out. Screenshots go to tests/artifacts/.
 const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
 const inboxUrl = process.env.MAIL_INBOX_URL;
-const ARTIFACTS = path.resolve(__dirname, "../artifacts");
-const LAUNCH = {
-  executablePath: "/usr/bin/chromium",
-  headless: true,
-  args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-};
 
 type Mail = { subject: string; text: string; to: { address: string }[] };
 
@@ -30,11 +25,11 @@ async function magicLinkFor(address: string): Promise<string> {
 
 describe.skipIf(!appUrl || !inboxUrl)("auth in Chromium: magic link, password, sign-out", () => {
   let browser: Browser;
-  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
+  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
 
   beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await chromium.launch(LAUNCH);
+    mkdirSync(ARTIFACTS_DIR, { recursive: true });
+    browser = await chromium.launch(CHROMIUM_LAUNCH);
   });
   afterAll(async () => {
     await browser?.close();

@@ -5,18 +5,13 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_LANDMARKS } from "@/lib/demo/scenario";
 import type { BoardValues, QuantityKey } from "@/lib/published/board-values-types";
 import { METHOD_LABELS } from "@/lib/submissions/vocabulary";
+import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // The board page's published starting values in a real browser, against the app `npm test` serves
 // on the seeded demo (SHUNTBOOK_TEST_APP_URL). The figures on screen are checked against what the
 // public API returns for the same view, so the page and GET /api/v1/boards/{slug}/values agree.
 // Screenshots go to tests/artifacts/ for a human look at phone and desktop, light and dark.
 const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
-const ARTIFACTS = path.resolve(__dirname, "../artifacts");
-const LAUNCH = {
-  executablePath: "/usr/bin/chromium",
-  headless: true,
-  args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-};
 
 // Tinsel 25 AIO: v2 halved the shunt, so v1's current scale is wrong for v2
 const { boardSlug, before, after } = DEMO_LANDMARKS.hardwareChange;
@@ -46,11 +41,11 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
   let browser: Browser;
   let phone: BrowserContext;
   let desktop: BrowserContext;
-  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
+  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
 
   beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await chromium.launch(LAUNCH);
+    mkdirSync(ARTIFACTS_DIR, { recursive: true });
+    browser = await chromium.launch(CHROMIUM_LAUNCH);
     phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, colorScheme: "light", isMobile: true, hasTouch: true });
     desktop = await browser.newContext({ baseURL: appUrl, viewport: { width: 1280, height: 800 }, colorScheme: "dark" });
   });
@@ -117,7 +112,7 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
     await tooltip.waitFor();
     expect(await tooltip.innerText()).toMatch(METHOD_RE);
     expect(await tooltip.innerText()).toMatch(DATE_RE);
-    await page.getByTestId("chart-currentScale").screenshot({ path: path.join(ARTIFACTS, "board-values-tooltip-phone-light.png") });
+    await page.getByTestId("chart-currentScale").screenshot({ path: path.join(ARTIFACTS_DIR, "board-values-tooltip-phone-light.png") });
 
     // and the address is shareable: a fresh load opens the same view
     const shared = await phone.newPage();

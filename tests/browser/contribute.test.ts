@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_LANDMARKS, buildDemoScenario } from "@/lib/demo/scenario";
 import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
 import { linkIn, waitForMails } from "@/tests/support/auth";
+import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // The whole contributor journey in Chromium against the production build that `npm test` serves
 // (SHUNTBOOK_TEST_APP_URL) on a seeded database: sign in with the magic link read from the mail
@@ -12,12 +13,6 @@ import { linkIn, waitForMails } from "@/tests/support/auth";
 // check and a fly-and-recharge cycle, see the field messages first, send, and find it pending in
 // My submissions, with the "received" mail in the inbox. Screenshots in tests/artifacts/.
 const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
-const ARTIFACTS = path.resolve(__dirname, "../artifacts");
-const LAUNCH = {
-  executablePath: "/usr/bin/chromium",
-  headless: true,
-  args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-};
 
 const scenario = buildDemoScenario();
 const boardSlug = DEMO_LANDMARKS.popularBoards[0];
@@ -46,11 +41,11 @@ async function signInWithMagicLink(page: Page, next: string): Promise<void> {
 describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () => {
   let browser: Browser;
   let page: Page;
-  const shot = (name: string) => page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
+  const shot = (name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
 
   beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await chromium.launch(LAUNCH);
+    mkdirSync(ARTIFACTS_DIR, { recursive: true });
+    browser = await chromium.launch(CHROMIUM_LAUNCH);
     const phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, colorScheme: "light", isMobile: true, hasTouch: true });
     page = await phone.newPage();
   });
@@ -147,12 +142,12 @@ describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () =
     const wide = await desktop.newPage();
     await wide.goto("/my/submissions");
     expect(await wide.getByRole("heading", { level: 1 }).innerText()).toMatch(/my submissions/i);
-    await wide.screenshot({ path: path.join(ARTIFACTS, "contribute-my-submissions-desktop-dark.png"), fullPage: true });
+    await wide.screenshot({ path: path.join(ARTIFACTS_DIR, "contribute-my-submissions-desktop-dark.png"), fullPage: true });
     await wide.goto(`/submit?board=${boardSlug}`);
     expect(await wide.getByText(board.name, { exact: true }).isVisible()).toBe(true); // ?board= starts on that board
     await wide.getByLabel(/Bench test with a DC clamp meter/).check();
     expect(await wide.getByRole("heading", { name: "Bench tests are dangerous with props on" }).isVisible()).toBe(true);
-    await wide.screenshot({ path: path.join(ARTIFACTS, "contribute-form-desktop-dark.png"), fullPage: true });
+    await wide.screenshot({ path: path.join(ARTIFACTS_DIR, "contribute-form-desktop-dark.png"), fullPage: true });
     await desktop.close();
   });
 });

@@ -3,6 +3,7 @@ import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
+import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // A moderator's pass through the queue in Chromium against the build `npm test` serves
 // (SHUNTBOOK_TEST_APP_URL) on the seeded database: sign in by the demo moderator's password, find a
@@ -12,12 +13,6 @@ import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
 // /api/email). The job worker that sends it runs inside the app, so the inbox is polled.
 const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
 const inboxUrl = process.env.MAIL_INBOX_URL;
-const ARTIFACTS = path.resolve(__dirname, "../artifacts");
-const LAUNCH = {
-  executablePath: "/usr/bin/chromium",
-  headless: true,
-  args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-};
 const moderator = DEMO_ACCOUNTS.moderator;
 
 type Mail = { subject: string; text: string; to: { address: string }[] };
@@ -36,11 +31,11 @@ async function waitForSubject(subject: string, timeoutMs = 30_000): Promise<Mail
 describe.skipIf(!appUrl || !inboxUrl)("moderation in Chromium: an outlier first, reviewed and rejected, the contributor told", () => {
   let browser: Browser;
   let page: Page;
-  const shot = (name: string) => page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
+  const shot = (name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
 
   beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await chromium.launch(LAUNCH);
+    mkdirSync(ARTIFACTS_DIR, { recursive: true });
+    browser = await chromium.launch(CHROMIUM_LAUNCH);
     const phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
     page = await phone.newPage();
   });

@@ -3,18 +3,12 @@ import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_LANDMARKS, buildDemoScenario } from "@/lib/demo/scenario";
+import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // The first pages in a real browser against the production build that `npm test` serves on a
 // seeded database (SHUNTBOOK_TEST_APP_URL). Screenshots go to tests/artifacts/ (git-ignored) so a
 // person can look at the phone and desktop layouts after a run.
 const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
-const ARTIFACTS = path.resolve(__dirname, "../artifacts");
-// Debian's Chromium, launched as the stack notes say (no sandbox as root, no background traffic).
-const LAUNCH = {
-  executablePath: "/usr/bin/chromium",
-  headless: true,
-  args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-};
 
 const scenario = buildDemoScenario();
 const aliasLandmark = DEMO_LANDMARKS.distinctiveAliases[1]; // "Sluicebox": nothing like the board's own name
@@ -24,11 +18,11 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
   let browser: Browser;
   let phone: BrowserContext;
   let desktop: BrowserContext;
-  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
+  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
 
   beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await chromium.launch(LAUNCH);
+    mkdirSync(ARTIFACTS_DIR, { recursive: true });
+    browser = await chromium.launch(CHROMIUM_LAUNCH);
     phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, colorScheme: "light", isMobile: true, hasTouch: true });
     desktop = await browser.newContext({ baseURL: appUrl, viewport: { width: 1280, height: 800 }, colorScheme: "dark" });
   });

@@ -3,17 +3,12 @@ import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
+import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // The garage and the fly-and-recharge worksheet in a real browser against the build `npm test`
 // serves: sign in as the demo contributor, add a quad on a board with a published current scale,
 // fly three iterations, see the plot, publish. Screenshots go to tests/artifacts/.
 const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
-const ARTIFACTS = path.resolve(__dirname, "../artifacts");
-const LAUNCH = {
-  executablePath: "/usr/bin/chromium",
-  headless: true,
-  args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-};
 
 type Values = {
   board: { name: string };
@@ -36,11 +31,11 @@ async function publishedGroup(): Promise<{ revisionOption: string; familyName: s
 
 describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", () => {
   let browser: Browser;
-  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
+  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
 
   beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await chromium.launch(LAUNCH);
+    mkdirSync(ARTIFACTS_DIR, { recursive: true });
+    browser = await chromium.launch(CHROMIUM_LAUNCH);
   });
   afterAll(async () => {
     await browser?.close();

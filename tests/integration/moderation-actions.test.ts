@@ -2,6 +2,7 @@ import { QueryTypes } from "sequelize";
 import { median } from "simple-statistics";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { POST as bulkRoute } from "@/app/api/v1/moderation/bulk-approve/route";
+import { GET as eventsRoute } from "@/app/api/v1/moderation/events/route";
 import { stopBoss } from "@/lib/jobs";
 import { CONFLICT_MESSAGE, getValueHistory } from "@/lib/moderation";
 import { db } from "@/models";
@@ -223,5 +224,30 @@ describe("bulk approval", () => {
     await expectError(await bulk({ items: [{ id: 1, version: 0 }, { id: 1, version: 0 }] }, moderator), 400, "items.1.id");
     await expectError(await bulk({ items: Array.from({ length: 101 }, (_, i) => ({ id: i + 1, version: 0 })) }, moderator), 400, "items");
     expect(await writtenState()).toEqual(before);
+  });
+});
+
+describe("GET /api/v1/moderation/events", () => {
+  const get = (query: string) => callRoute(eventsRoute, withCookie(new Request(`http://test.local/api/v1/moderation/events${query}`), moderator));
+
+  it("lists the log newest first, by submission or action", async () => {
+    const id = await insertSubmission(setup.fx, { currentScale: 400 });
+    await decideAs("request_changes", id, { version: 0, message: "Add the second pack." }, moderator);
+    await decideAs("reject", id, { version: 1, reason: "No second pack came." }, moderator);
+    const body = await (await get(`?submission=${id}`)).json();
+    expect(body.events.map((e: { action: string }) => e.action)).toEqual(["reject", "request_changes"]);
+    expect(body.total).toBe(2);
+    const rejects = await (await get("?action=reject&pageSize=1")).json();
+    expect(rejects.events).toHaveLength(1);
+    expect(rejects.events[0].action).toBe("reject");
+  });
+
+  it.each([
+    ["?action=delete", "action"],
+    ["?submission=abc", "submission"],
+    ["?user=42", "user"],
+    ["?pageSize=500", "pageSize"],
+  ])("%s: 400 naming %s", async (query, field) => {
+    await expectError(await get(query), 400, field);
   });
 });

@@ -25,7 +25,9 @@ export function boss(): Promise<PgBoss> {
     // maintenance: a job whose worker died is expired and retried, old jobs are archived; several
     // instances may all supervise (pg-boss takes an advisory lock for it)
     supervise: true,
-    schedule: false,
+    // turns stored cron schedules (the moderators' daily digest) into jobs; pg-boss holds a lock so
+    // only one of several instances does it
+    schedule: true,
   });
   instance.on("error", (error) => console.error("[jobs] pg-boss:", error));
   const started = (async () => {

@@ -1,10 +1,6 @@
 import type { Metadata } from "next";
-import Link from "next/link";
-import { notFound } from "next/navigation";
 import { VoltageWorksheetForm } from "@/components/worksheets/voltage-worksheet";
-import { ApiError } from "@/lib/api/errors";
-import { requirePageUser } from "@/lib/auth";
-import { quadWorksheetContext } from "@/lib/worksheets/quad-rules";
+import { QuadWorksheetPage } from "../worksheet-page";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Voltage worksheet" };
@@ -14,19 +10,13 @@ type Props = { params: Promise<{ id: string }> };
 // The voltage worksheet for one of the builder's quads: its family's rules and, as the starting
 // value, the board's published recommended voltage scale.
 export default async function VoltagePage({ params }: Props) {
-  const { id } = await params;
-  const user = await requirePageUser(`/garage/quads/${id}/voltage`);
-  const quadId = Number(id);
-  if (!Number.isSafeInteger(quadId) || quadId <= 0) notFound();
-  const { quad, family, published } = await quadWorksheetContext(user.id, quadId).catch((e) => {
-    if (e instanceof ApiError && e.status === 404) notFound();
-    throw e;
-  });
   return (
-    <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
-      <p><Link href={`/garage/quads/${quad.id}`}>← {quad.name}</Link></p>
-      <h1 className="font-display text-display uppercase">Voltage check</h1>
-      {family ? <VoltageWorksheetForm family={family} startingScale={published.voltageScale} /> : <p>Give this quad its firmware family first: the worksheet follows that family&rsquo;s voltage-scale rules.</p>}
-    </div>
+    <QuadWorksheetPage
+      id={(await params).id}
+      section="voltage"
+      title="Voltage check"
+      setting="voltage-scale"
+      render={({ family, published }) => <VoltageWorksheetForm family={family} startingScale={published.voltageScale} />}
+    />
   );
 }

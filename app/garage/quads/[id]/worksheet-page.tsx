@@ -1,0 +1,37 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import type { ReactNode } from "react";
+import { ApiError } from "@/lib/api/errors";
+import { requirePageUser } from "@/lib/auth";
+import { quadWorksheetContext } from "@/lib/worksheets/quad-rules";
+
+type Context = Awaited<ReturnType<typeof quadWorksheetContext>>;
+
+/**
+ * What the voltage and bench worksheet pages share: sign-in, the owner's quad (404 for a bad id or
+ * someone else's), and the page frame. `render` gets the quad's family and published starting
+ * values; without a family the page says what to set first.
+ */
+export async function QuadWorksheetPage(props: {
+  id: string;
+  section: "voltage" | "bench";
+  title: string;
+  setting: string;
+  render: (ctx: Context & { family: NonNullable<Context["family"]> }) => ReactNode;
+}) {
+  const user = await requirePageUser(`/garage/quads/${props.id}/${props.section}`);
+  const quadId = Number(props.id);
+  if (!Number.isSafeInteger(quadId) || quadId <= 0) notFound();
+  const ctx = await quadWorksheetContext(user.id, quadId).catch((e) => {
+    if (e instanceof ApiError && e.status === 404) notFound();
+    throw e;
+  });
+  const { quad, family } = ctx;
+  return (
+    <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
+      <p><Link href={`/garage/quads/${quad.id}`}>← {quad.name}</Link></p>
+      <h1 className="font-display text-display uppercase">{props.title}</h1>
+      {family ? props.render({ ...ctx, family }) : <p>Give this quad its firmware family first: the worksheet follows that family&rsquo;s {props.setting} rules.</p>}
+    </div>
+  );
+}

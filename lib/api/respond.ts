@@ -59,3 +59,11 @@ export function errorResponse(error: ApiError, extraHeaders: Record<string, stri
     headers: { ...CORS_HEADERS, "Content-Type": JSON_TYPE, "Cache-Control": ERROR_CACHE_CONTROL, ...extraHeaders },
   });
 }
+
+/** A JSON answer for one signed-in person (an account, a submission, a decision): never cached. */
+export function privateJson(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
+  return new Response(JSON.stringify(body), {
+    status,
+    headers: { "Content-Type": "application/json; charset=utf-8", "Cache-Control": "no-store", ...headers },
+  });
+}

@@ -1,4 +1,5 @@
-import { ApiError, badRequest } from "@/lib/api/errors";
+import { ApiError } from "@/lib/api/errors";
+import { readJsonBody as readJson } from "@/lib/api/json-body";
 import { userFromRequest, type SessionUser } from "@/lib/auth";
 
 // HTTP for the submission endpoints, so the route handlers stay thin: reading the JSON body,
@@ -7,25 +8,9 @@ import { userFromRequest, type SessionUser } from "@/lib/auth";
 /** A submission with every section full is a few kB; this is far above it and bounds the parser. */
 export const MAX_BODY_BYTES = 256 * 1024;
 
-/**
- * The request's JSON body. It must say Content-Type: application/json: besides being honest, that
- * makes a cross-site request from a form or a plain fetch a preflighted one, which this API never
- * grants, so another site cannot post a submission with a visitor's cookie.
- */
-export async function readJsonBody(request: Request): Promise<unknown> {
-  const type = request.headers.get("content-type") ?? "";
-  if (!/^application\/json\s*(;|$)/i.test(type)) {
-    throw badRequest({ "Content-Type": ["Send the submission as JSON, with Content-Type: application/json"] });
-  }
-  const announced = Number(request.headers.get("content-length"));
-  if (Number.isFinite(announced) && announced > MAX_BODY_BYTES) throw badRequest({ body: [`The body is larger than ${MAX_BODY_BYTES / 1024} kB`] });
-  const text = await request.text();
-  if (text.length > MAX_BODY_BYTES) throw badRequest({ body: [`The body is larger than ${MAX_BODY_BYTES / 1024} kB`] });
-  try {
-    return JSON.parse(text);
-  } catch {
-    throw badRequest({ body: ["The body is not valid JSON"] });
-  }
+/** The request's JSON body (lib/api/json-body.ts), capped for a submission-sized document. */
+export function readJsonBody(request: Request): Promise<unknown> {
+  return readJson(request, MAX_BODY_BYTES);
 }
 
 /** The signed-in caller of a request (the route's signedIn guard has already checked there is one). */
@@ -35,9 +20,5 @@ export async function requestUser(request: Request): Promise<SessionUser> {
   return user;
 }
 
-const PRIVATE_HEADERS = { "Content-Type": "application/json; charset=utf-8", "Cache-Control": "no-store" } as const;
-
-/** A JSON answer for one signed-in person: never stored by any cache. */
-export function privateJson(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
-  return new Response(JSON.stringify(body), { status, headers: { ...PRIVATE_HEADERS, ...headers } });
-}
+// one implementation for every private answer; re-exported for the routes that import it from here
+export { privateJson } from "@/lib/api/respond";

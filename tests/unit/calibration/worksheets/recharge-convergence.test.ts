@@ -16,8 +16,15 @@ import { RECHARGE_RULE, ROUNDING_SIDE } from "./sources";
 // Claim (check-values.md: the rule "takes 3–5 cycles", common practice, no source): from a start
 // up to ±30 % off, the stop rule (≤ 1 % on two cycles in a row) is met within EXPECTED_MAX_CYCLES
 // (5; in this simulation it takes 3, or 2 when the start is already within 1 %).
-// Bounds of the claim: one setting step is at most 0.5 % of the true setting (≥ 200 steps), so
-// that a whole step can land inside 1 %; the charger's scatter stays within ±0.3 %.
+// Error budget of one cycle after the first (derived below, our own arithmetic): the ratio shown
+// differs from 1 by at most the product of
+//   - the charger's scatter between two runs, (1 + e) ÷ (1 − e);
+//   - one setting step, s ÷ (s − 1), because the next setting is a whole number;
+//   - four whole-mAh roundings (reported and charged, this cycle and the last), (1 + ½ ÷ m) ÷ (1 − ½ ÷ m) each.
+// So the 1 % claim can only hold where that budget fits inside 1 %: charger scatter ±0.15 %,
+// at least 400 setting steps, packs of 1,000 mAh and more. Over the wider range (±0.3 %,
+// 200 steps, 450 mAh) the ratio is checked against the budget itself, which fast-check found
+// to exceed 1 % by a hair (1.0100376), so no 1 % promise is made there.
 
 type Family = (typeof DEMO_FIRMWARE_FAMILIES)[number];
 type Flight = { capacity: number; depth: number; chargerScatter: number };
@@ -39,11 +46,22 @@ function fly(family: Family, sensitivity: number, efficiency: number, ratedMah: 
   return { cycles, result: result! };
 }
 
-const flight = fc.record({
-  capacity: fc.double({ min: 0.95, max: 1.05, noNaN: true }),
-  depth: fc.double({ min: 0.55, max: 0.8, noNaN: true }),
-  chargerScatter: fc.double({ min: -0.003, max: 0.003, noNaN: true }),
-});
+const flightWithScatter = (scatter: number) =>
+  fc.record({
+    capacity: fc.double({ min: 0.95, max: 1.05, noNaN: true }),
+    depth: fc.double({ min: 0.55, max: 0.8, noNaN: true }),
+    chargerScatter: fc.double({ min: -scatter, max: scatter, noNaN: true }),
+  });
+const flight = flightWithScatter(0.003);
+
+/** The budget above for one run: the widest factor a cycle after the first may be off by. */
+function cycleBudget(cycles: RechargeCycleInput[], scatter: number) {
+  const m = Math.min(...cycles.flatMap((c) => [c.reportedMah, c.chargedMah]));
+  const smallest = Math.min(...cycles.map((c) => c.scaleUsed));
+  const rounding = ((1 + 0.5 / m) / (1 - 0.5 / m)) ** 2;
+  const charger = (1 + scatter) / (1 - scatter);
+  return { charger, rounding, step: smallest / (smallest - 1) };
+}
 
 describe(`iterating the ${RECHARGE_RULE} on a simulated sensor, rounding: ${ROUNDING_SIDE}`, () => {
   it(`converges within ${EXPECTED_MAX_CYCLES} cycles to within ${STOP_TOLERANCE * 100} % from up to ±30 % off, in every unit`, () => {
@@ -53,11 +71,11 @@ describe(`iterating the ${RECHARGE_RULE} on a simulated sensor, rounding: ${ROUN
         fc.double({ min: 2, max: 200, noNaN: true }), // mV/A, the range hobby boards use (check-values)
         fc.double({ min: 0.7, max: 1.3, noNaN: true }),
         fc.double({ min: 0.95, max: 1, noNaN: true }),
-        fc.integer({ min: 450, max: 10_000 }),
-        fc.array(flight, { minLength: EXPECTED_MAX_CYCLES, maxLength: EXPECTED_MAX_CYCLES }),
+        fc.integer({ min: 1_000, max: 10_000 }),
+        fc.array(flightWithScatter(0.0015), { minLength: EXPECTED_MAX_CYCLES, maxLength: EXPECTED_MAX_CYCLES }),
         (family, sensitivity, off, efficiency, ratedMah, flights) => {
           const trueSetting = currentScaleSettingFromSensitivity(sensitivity, family);
-          fc.pre(trueSetting >= 200 && trueSetting * 1.3 <= family.currentScaleMax);
+          fc.pre(trueSetting >= 400 && trueSetting * 1.3 <= family.currentScaleMax);
           const start = Math.max(family.currentScaleMin, Math.round(trueSetting * off));
           const { cycles, result } = fly(family, sensitivity, efficiency, ratedMah, start, flights);
           const value = unwrapWorksheet(result);
@@ -74,14 +92,40 @@ describe(`iterating the ${RECHARGE_RULE} on a simulated sensor, rounding: ${ROUN
     );
   });
 
-  it("once converged it stays converged: further cycles keep within the stop rule", () => {
+  it("after the first cycle every ratio stays within the error budget, converged or not, over the wider range", () => {
     fc.assert(
-      fc.property(fc.double({ min: 20, max: 200, noNaN: true }), fc.double({ min: 0.7, max: 1.3, noNaN: true }), fc.array(flight, { minLength: 8, maxLength: 8 }), (sensitivity, off, flights) => {
+      fc.property(fc.double({ min: 20, max: 200, noNaN: true }), fc.double({ min: 0.7, max: 1.3, noNaN: true }), fc.integer({ min: 450, max: 10_000 }), fc.array(flight, { minLength: 8, maxLength: 8 }), (sensitivity, off, ratedMah, flights) => {
         const family = DEMO_FIRMWARE_FAMILIES[0]; // 0.1 mV/A steps: 200–2000 of them
         const start = Math.round(currentScaleSettingFromSensitivity(sensitivity, family) * off);
-        const { result } = fly(family, sensitivity, 0.98, 1500, start, flights, false);
+        const { cycles, result } = fly(family, sensitivity, 0.98, ratedMah, start, flights, false);
+        const { charger, rounding, step } = cycleBudget(cycles, 0.003);
+        // Once the stop rule is met on the safe side the worksheet keeps the setting, so the next
+        // ratio is the last one (≤ 1 % over) moved by the charger's scatter; otherwise one step.
+        const high = charger * rounding * Math.max(step, 1 + STOP_TOLERANCE);
+        const low = 1 / (charger * rounding);
+        for (const it of unwrapWorksheet(result).iterations.slice(1)) {
+          expect(it.ratio).toBeLessThanOrEqual(high);
+          expect(it.ratio).toBeGreaterThanOrEqual(low);
+        }
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it("where the budget fits inside 1 %, every cycle until the stop rule is met is within it, and later ones drift only by the charger and the roundings", () => {
+    fc.assert(
+      fc.property(fc.double({ min: 40, max: 200, noNaN: true }), fc.double({ min: 0.7, max: 1.3, noNaN: true }), fc.array(flightWithScatter(0.0015), { minLength: 8, maxLength: 8 }), (sensitivity, off, flights) => {
+        const family = DEMO_FIRMWARE_FAMILIES[0]; // 0.1 mV/A steps: 400–2000 of them
+        const start = Math.round(currentScaleSettingFromSensitivity(sensitivity, family) * off);
+        const { cycles, result } = fly(family, sensitivity, 0.98, 1500, start, flights, false);
         const its = unwrapWorksheet(result).iterations;
-        for (const it of its.slice(2)) expect(Math.abs(it.ratio - 1)).toBeLessThanOrEqual(STOP_TOLERANCE + 1e-12); // a decimal 1 % is 1 %
+        const { charger, rounding } = cycleBudget(cycles, 0.0015);
+        const firstMet = its.findIndex((it, i) => i > 0 && Math.abs(it.ratio - 1) <= STOP_TOLERANCE + 1e-12 && Math.abs(its[i - 1].ratio - 1) <= STOP_TOLERANCE + 1e-12);
+        expect(firstMet).toBeGreaterThan(0);
+        expect(firstMet).toBeLessThan(EXPECTED_MAX_CYCLES);
+        // after the first met pair a kept setting drifts only by the charger's scatter and the roundings
+        for (const it of its.slice(firstMet + 1)) expect(Math.abs(it.ratio - 1)).toBeLessThanOrEqual((1 + STOP_TOLERANCE) * charger * rounding - 1);
+        for (const it of its.slice(1, firstMet + 1)) expect(Math.abs(it.ratio - 1)).toBeLessThanOrEqual(STOP_TOLERANCE + 1e-12);
       }),
       { numRuns: 100 },
     );

@@ -1,5 +1,6 @@
 import type PgBoss from "pg-boss";
 import { registerModerationJobs } from "@/lib/moderation/jobs";
+import { registerSubmissionJobs } from "@/lib/submissions/jobs";
 import { boss } from "./boss";
 import { JOBS, type JobName } from "./handlers";
 
@@ -21,9 +22,10 @@ export async function startJobWorker(): Promise<void> {
       // a throw fails the job; pg-boss then retries it per the queue's policy
       await queue.work(name, { pollingIntervalSeconds: 2, batchSize: 1 }, async ([job]) => runOne(name, job.data));
     }
-    // the moderators' daily digest is a scheduled job with its own queue policy
+    // scheduled jobs with their own queue policies: the moderators' daily digest, the hourly key purge
     await registerModerationJobs(queue);
-    console.log(`[jobs] worker polling ${Object.keys(JOBS).join(", ")} and the moderation digest`);
+    await registerSubmissionJobs(queue);
+    console.log(`[jobs] worker polling ${Object.keys(JOBS).join(", ")}, the moderation digest and the idempotency-key purge`);
   })();
   try {
     await g.shuntbookWorker;

@@ -1,6 +1,8 @@
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { stopBoss } from "@/lib/jobs";
+import { boss } from "@/lib/jobs/boss";
+import { PURGE_KEYS_CRON, PURGE_KEYS_JOB, registerSubmissionJobs } from "@/lib/submissions/jobs";
 import { KEY_TTL_HOURS } from "@/lib/submissions";
 import { db } from "@/models";
 import { sessionCookieFor, testAccount } from "@/tests/support/auth";
@@ -26,6 +28,7 @@ beforeAll(async () => {
   bob = await sessionCookieFor("contributor", { email: "second-contributor@auth.test", name: "Second Contributor" });
 });
 
+const bobId = async () => (await db().query<{ id: string }>("SELECT id FROM users WHERE email = 'second-contributor@auth.test'", { type: QueryTypes.SELECT }))[0].id;
 const submissionsOf = async (userId: string) =>
   (await db().query<{ n: number }>("SELECT count(*)::int AS n FROM submissions WHERE contributor_id = $1", { bind: [userId], type: QueryTypes.SELECT }))[0].n;
 
@@ -112,5 +115,35 @@ describe("Idempotency-Key", () => {
     await post(validBody(target), alice);
     await post(validBody(target), alice);
     expect(await submissionsOf(aliceId)).toBe(count + 2);
+  });
+});
+
+describe("the hourly purge of expired keys", () => {
+  const keysOf = async (userId: string) =>
+    (await db().query<{ key: string }>("SELECT key FROM idempotency_keys WHERE user_id = $1 ORDER BY key", { bind: [userId], type: QueryTypes.SELECT })).map((r) => r.key);
+
+  it("is scheduled every hour and, when worked, deletes only the keys past their time", async () => {
+    expect((await post(validBody(target, { currentScale: 372 }), bob, "purge-live")).status).toBe(201);
+    expect((await post(validBody(target, { currentScale: 373 }), bob, "purge-dead")).status).toBe(201);
+    await db().query("UPDATE idempotency_keys SET created_at = now() - interval '25 hours', expires_at = now() - interval '1 hour' WHERE user_id = $1 AND key = 'purge-dead'", { bind: [await bobId()] });
+    const submissionsBefore = await submissionsOf(await bobId());
+
+    const queue = await boss();
+    await registerSubmissionJobs(queue);
+    const [schedule] = await db().query<{ cron: string; timezone: string }>("SELECT cron, timezone FROM pgboss.schedule WHERE name = :name", {
+      replacements: { name: PURGE_KEYS_JOB },
+      type: QueryTypes.SELECT,
+    });
+    expect(schedule).toEqual({ cron: PURGE_KEYS_CRON, timezone: "UTC" });
+
+    // a job as the schedule would create it is worked by the worker registered above
+    await queue.send(PURGE_KEYS_JOB, {});
+    const until = Date.now() + 20_000;
+    while ((await keysOf(await bobId())).includes("purge-dead") && Date.now() < until) await new Promise((r) => setTimeout(r, 250));
+    const left = await keysOf(await bobId());
+    expect(left).not.toContain("purge-dead");
+    expect(left).toContain("purge-live");
+    // the submission made under the purged key stays: the key was only a guard against a retry
+    expect(await submissionsOf(await bobId())).toBe(submissionsBefore);
   });
 });

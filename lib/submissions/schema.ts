@@ -223,9 +223,12 @@ export function submissionSchema(context: SchemaContext = {}) {
         .max(MAX_PHOTOS_PER_SUBMISSION, `A submission can have at most ${MAX_PHOTOS_PER_SUBMISSION} photos`)
         .nullish()
         .transform((v) => v ?? []),
-    })
-    // `when` makes these run even after a field failed, so every message shows on the first submit
-    .superRefine((value, ctx) => crossFieldChecks(value as unknown as Loose, (path, message) => ctx.addIssue({ code: "custom", path, message })), { when: () => true });
+    }, { error: "Send the submission as one JSON object of its fields" })
+    // `when` makes these run even after a field failed, so every message shows on the first submit;
+    // but only on an object: a body of null, a number or a list has nothing to cross-check
+    .superRefine((value, ctx) => crossFieldChecks(value as unknown as Loose, (path, message) => ctx.addIssue({ code: "custom", path, message })), {
+      when: ({ value }) => value !== null && typeof value === "object" && !Array.isArray(value),
+    });
 }
 
 export type SubmissionSchema = ReturnType<typeof submissionSchema>;

@@ -53,6 +53,11 @@ describe("a whole contribution", () => {
     expect(e.method).toEqual(["Choose how you checked the values"]);
     expect(e.firmwareVersion?.[0]).toMatch(/Enter the firmware version/);
   });
+  it("a body that is not an object is one clear refusal of the whole, never a crash", () => {
+    for (const body of [null, "text", 42, [base]]) {
+      expect(errorsOf(body), JSON.stringify(body)).toEqual({ body: ["Send the submission as one JSON object of its fields"] });
+    }
+  });
 });
 
 describe("settings: whole steps inside the family's range", () => {

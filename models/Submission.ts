@@ -4,9 +4,12 @@ import type { BoardRevision } from "./BoardRevision";
 import type { FirmwareFamily } from "./FirmwareFamily";
 import type { User } from "./User";
 
-export const SENSING_SOURCES = ["board_adc", "esc_telemetry", "power_module", "estimate"] as const;
+import { METHODS, SENSING_SOURCES } from "@/lib/submissions/vocabulary";
+
+// the lists live in lib/submissions/vocabulary.ts, which the browser may import (this file cannot:
+// it imports Sequelize); the migration's CHECK constraints spell the same words
+export { METHODS, SENSING_SOURCES };
 export type SensingSource = (typeof SENSING_SOURCES)[number];
-export const METHODS = ["multimeter", "bench_clamp", "fly_recharge", "unverified"] as const;
 export type Method = (typeof METHODS)[number];
 export const STATUSES = ["pending", "approved", "rejected", "changes_requested"] as const;
 export type SubmissionStatus = (typeof STATUSES)[number];

@@ -1,20 +1,13 @@
 import type { Method, SensingSource, SubmissionStatus } from "@/models/Submission";
 
 // The words of a contribution, safe to import in the browser: the models import Sequelize, so the
-// form cannot take these lists from there. The type checks below fail to compile if a list here and
-// the model's (and so the migration's CHECK) ever disagree.
+// form cannot take these lists from there; models/Submission.ts takes them from here instead.
 
 export const METHODS = ["multimeter", "bench_clamp", "fly_recharge", "unverified"] as const;
 export const SENSING_SOURCES = ["board_adc", "esc_telemetry", "power_module", "estimate"] as const;
 /** Where the multimeter touched the pack; both read the whole pack voltage. */
 export const MEASURED_AT = ["main_lead", "balance_outer_pins"] as const;
 export type MeasuredAt = (typeof MEASURED_AT)[number];
-
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const methodsAgree: Same<(typeof METHODS)[number], Method> = true;
-const sourcesAgree: Same<(typeof SENSING_SOURCES)[number], SensingSource> = true;
-void methodsAgree;
-void sourcesAgree;
 
 export const METHOD_LABELS: Record<Method, string> = {
   multimeter: "Multimeter voltage check",

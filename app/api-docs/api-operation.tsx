@@ -1,6 +1,7 @@
 import type { OperationView } from "@/lib/api/openapi-view";
+import { SchemaRows } from "./schema-table";
 
-// One endpoint of the API docs page: what it does, its parameters, its responses, and a curl line.
+// One endpoint of the API docs page: what it does, its parameters, its body, its responses, and a curl line.
 export function ApiOperation({ op, curl }: { op: OperationView; curl: string }) {
   return (
     <section id={`op-${op.id}`} aria-labelledby={`op-${op.id}-title`} className="scroll-mt-4 space-y-4 rounded-md border-3 border-rule bg-surface p-4 sm:p-6">
@@ -10,6 +11,9 @@ export function ApiOperation({ op, curl }: { op: OperationView; curl: string }) 
       </h2>
       {op.summary && <p className="text-lead">{op.summary}</p>}
       {op.description && <p className="max-w-prose">{op.description}</p>}
+      {op.security.length > 0 && (
+        <p className="max-w-prose font-semibold">Signed in only: send the session cookie the site sets when you sign in. Anyone else gets 401.</p>
+      )}
 
       {op.parameters.length > 0 && (
         <div>
@@ -53,6 +57,19 @@ export function ApiOperation({ op, curl }: { op: OperationView; curl: string }) 
               </tbody>
             </table>
           </div>
+        </div>
+      )}
+
+      {op.body && (
+        <div>
+          <h3 className="font-display text-lg font-bold tracking-wide uppercase">Body (JSON)</h3>
+          {op.body.rows.length > 0 && <SchemaRows rows={op.body.rows} />}
+          {op.body.refs.map((ref) => (
+            <p key={ref} className="mt-2">
+              {op.body!.rows.length > 0 ? "And every field of " : "The fields of "}
+              <a href={`#schema-${ref}`} className="font-mono">{ref}</a>.
+            </p>
+          ))}
         </div>
       )}
 

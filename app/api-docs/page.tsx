@@ -36,10 +36,19 @@ async function exampleSlug(): Promise<string> {
 }
 
 function exampleQuery(op: OperationView, slug: string): string {
-  const path = op.path.replace("{slug}", slug);
+  const path = op.path.replace("{slug}", slug).replace("{id}", "42");
   if (op.id === "listBoards") return `${path}?q=f7&kind=flight_controller&sort=values`;
   if (op.id === "getBoardValues") return `${path}?points=1`;
   return path;
+}
+
+/** A curl line that works when pasted (with the reader's own cookie and body file where needed). */
+function exampleCurl(op: OperationView, base: string, slug: string): string {
+  const url = `'${base}${exampleQuery(op, slug)}'`;
+  const cookie = op.security.length ? " --cookie 'next-auth.session-token=…'" : "";
+  if (op.method === "GET") return `curl -s${cookie} ${url}`;
+  const key = op.id === "createSubmission" ? " -H \"Idempotency-Key: $(uuidgen)\"" : "";
+  return `curl -s -X ${op.method}${cookie} -H 'content-type: application/json'${key} --data @submission.json ${url}`;
 }
 
 export default async function ApiDocsPage() {
@@ -66,7 +75,7 @@ export default async function ApiDocsPage() {
             {[
               { term: "Base address", value: <code className="font-mono break-all">{base}</code> },
               { term: "Version", value: <span className="font-mono">v1 · {document.info.version}</span> },
-              { term: "Sign-in", value: "None: every endpoint is a public read." },
+              { term: "Sign-in", value: "None to read. Sending and editing contributions needs the site's session cookie." },
               {
                 term: "Machine-readable",
                 value: (
@@ -121,12 +130,12 @@ export default async function ApiDocsPage() {
       </div>
 
       {ops.map((op) => (
-        <ApiOperation key={op.id} op={op} curl={`curl -s '${base}${exampleQuery(op, slug)}'`} />
+        <ApiOperation key={op.id} op={op} curl={exampleCurl(op, base, slug)} />
       ))}
 
       <section aria-labelledby="schemas-title" className="space-y-6">
         <h2 id="schemas-title" className="font-display text-heading uppercase">
-          Response fields
+          Fields
         </h2>
         {schemas.map((name) => {
           const schema = document.components!.schemas![name];

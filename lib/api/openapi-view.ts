@@ -30,13 +30,19 @@ export type ParameterRow = {
 
 export type ResponseRow = { status: string; description: string; ref?: string; headers: string[] };
 
+/** A JSON request body: its own fields (inline parts) and the components it takes whole. */
+export type RequestBodyView = { rows: FieldRow[]; refs: string[] };
+
 export type OperationView = {
   id: string;
   method: string;
   path: string;
   summary?: string;
   description?: string;
+  /** Names of the security schemes that apply (for us: the session cookie). */
+  security: string[];
   parameters: ParameterRow[];
+  body?: RequestBodyView;
   responses: ResponseRow[];
 };
 
@@ -121,6 +127,19 @@ function responseRow(status: string, r: ResponseObject | ReferenceObject): Respo
   };
 }
 
+function requestBodyView(op: OperationObject): RequestBodyView | undefined {
+  const body = op.requestBody;
+  if (!body || isRef(body)) return undefined;
+  const schema = body.content?.["application/json"]?.schema;
+  if (!schema) return undefined;
+  // an edit is allOf [its own fields, the component]: rows for the first, a link to the second
+  const parts = !isRef(schema) && schema.allOf ? schema.allOf : [schema];
+  return {
+    rows: parts.flatMap((part) => fieldRows(part)),
+    refs: parts.filter(isRef).map((part) => refName(part.$ref)),
+  };
+}
+
 export function operations(doc: OpenAPIObject): OperationView[] {
   const out: OperationView[] = [];
   for (const [path, item] of Object.entries(doc.paths ?? {})) {
@@ -133,7 +152,9 @@ export function operations(doc: OpenAPIObject): OperationView[] {
         path,
         summary: op.summary,
         description: op.description,
+        security: (op.security ?? []).flatMap((requirement) => Object.keys(requirement)),
         parameters: (op.parameters ?? []).filter((p): p is ParameterObject => !isRef(p)).map(parameterRow),
+        body: requestBodyView(op),
         responses: Object.entries(op.responses ?? {}).map(([status, r]) => responseRow(status, r as ResponseObject)),
       });
     }
@@ -150,6 +171,9 @@ export function componentNames(doc: OpenAPIObject): string[] {
     seen.push(name);
     for (const row of fieldRows(doc.components!.schemas![name])) if (row.ref) visit(row.ref);
   };
-  for (const op of operations(doc)) for (const r of op.responses) if (r.ref) visit(r.ref);
+  for (const op of operations(doc)) {
+    for (const ref of op.body?.refs ?? []) visit(ref);
+    for (const r of op.responses) if (r.ref) visit(r.ref);
+  }
   return [...seen, ...all.filter((n) => !seen.includes(n))];
 }

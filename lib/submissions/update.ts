@@ -14,7 +14,7 @@ import { EDITABLE_STATUSES, STATUS_LABELS } from "./vocabulary";
 // `version` column, bumped by every save; models/Submission.ts has version: true). An edit after
 // "changes requested" sends it back to pending review, which is a status change and is mailed.
 
-const VersionSchema = z.object({
+export const VersionSchema = z.object({
   version: z.number({ error: "Send the version you edited (from the submission you loaded)" }).int("version is a whole number").min(0, "version is 0 or more"),
 });
 

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { GET } from "@/app/api/v1/openapi.json/route";
 import { CatalogueParamsSchema } from "@/lib/catalogue/search-params";
 import { ValuesQuerySchema } from "@/lib/api/schemas/values";
+import { submissionSchema } from "@/lib/submissions/schema";
 
 // GET /api/v1/openapi.json. The structure checks follow the OpenAPI Specification 3.0.3
 // (spec.openapis.org/oas/v3.0.3): required top-level fields openapi, info (title, version) and
@@ -42,7 +43,7 @@ describe("GET /api/v1/openapi.json", () => {
     expect(typeof doc.info.title).toBe("string");
     expect(typeof doc.info.version).toBe("string");
     expect(doc.servers[0].url).toBe("/api/v1");
-    expect(Object.keys(doc.paths).sort()).toEqual(["/boards", "/boards/{slug}", "/boards/{slug}/values", "/openapi.json"]);
+    expect(Object.keys(doc.paths).sort()).toEqual(["/boards", "/boards/{slug}", "/boards/{slug}/values", "/openapi.json", "/submissions", "/submissions/{id}"]);
   });
 
   it("every operation has responses, and every templated path declares its path parameter", async () => {
@@ -94,5 +95,25 @@ describe("GET /api/v1/openapi.json", () => {
     expect(etag).toMatch(/^".+"$/);
     expect(res.headers.get("cache-control")).toMatch(/^public/);
     expect((await get({ "if-none-match": etag })).status).toBe(304);
+  });
+
+  it("documents the contribution endpoints: the body from the form's own schema, the key, the session", async () => {
+    const doc = await (await get()).json();
+    const create = doc.paths["/submissions"].post;
+    expect(create.requestBody.content["application/json"].schema.$ref).toBe("#/components/schemas/SubmissionInput");
+    // the same fields the form and the handler parse (lib/submissions/schema.ts); the schema's
+    // cross-field refinement keeps .shape out of reach, so the keys are read from a parse of {}
+    const fields = Object.keys(doc.components.schemas.SubmissionInput.properties).sort();
+    const parsedKeys = new Set(submissionSchema().safeParse({}).error!.issues.map((i) => String(i.path[0])));
+    for (const key of parsedKeys) expect(fields).toContain(key);
+    expect(fields).toEqual(expect.arrayContaining(["boardRevisionId", "firmwareFamilyId", "method", "voltageScale", "currentScale", "currentOffset", "cycles", "bench", "voltageCheck", "photoIds"]));
+    expect(create.parameters.find((p: { name: string }) => p.name === "Idempotency-Key")).toMatchObject({ in: "header", required: false });
+    expect(Object.keys(create.responses).sort()).toEqual(["201", "400", "401", "422", "500", "503"]);
+    expect(create.security).toEqual([{ session: [] }]);
+    expect(doc.components.securitySchemes.session).toMatchObject({ type: "apiKey", in: "cookie" });
+    const edit = doc.paths["/submissions/{id}"].patch;
+    expect(edit.requestBody.content["application/json"].schema.allOf[0].required).toEqual(["version"]);
+    expect(Object.keys(edit.responses)).toContain("409");
+    expect(doc.components.schemas.Submission.required).toEqual(expect.arrayContaining(["id", "status", "version", "evidence", "links"]));
   });
 });

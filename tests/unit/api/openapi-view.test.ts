@@ -8,11 +8,33 @@ describe("openapi-view", () => {
 
   it("lists each endpoint with its parameters and responses", () => {
     const ops = operations(document);
-    expect(ops.map((o) => `${o.method} ${o.path}`)).toEqual(["GET /boards", "GET /boards/{slug}", "GET /boards/{slug}/values", "GET /openapi.json"]);
+    expect(ops.map((o) => `${o.method} ${o.path}`)).toEqual([
+      "GET /boards",
+      "GET /boards/{slug}",
+      "GET /boards/{slug}/values",
+      "GET /submissions",
+      "POST /submissions",
+      "GET /submissions/{id}",
+      "PATCH /submissions/{id}",
+      "GET /openapi.json",
+    ]);
     const values = ops.find((o) => o.id === "getBoardValues")!;
     expect(values.parameters.map((p) => p.name)).toEqual(["slug", "revision", "family", "points", "If-None-Match"]);
     expect(values.parameters.find((p) => p.name === "points")!.values).toEqual(["0", "1", "true", "false"]);
     expect(values.responses.find((r) => r.status === "200")!.ref).toBe("BoardValues");
+  });
+
+  it("reads request bodies and who may call", () => {
+    const ops = operations(document);
+    const create = ops.find((o) => o.id === "createSubmission")!;
+    expect(create.body).toEqual({ rows: [], refs: ["SubmissionInput"] });
+    expect(create.security).toEqual(["session"]);
+    const edit = ops.find((o) => o.id === "editOwnSubmission")!;
+    expect(edit.body!.rows.map((r) => r.path)).toEqual(["version"]);
+    expect(edit.body!.refs).toEqual(["SubmissionInput"]);
+    expect(ops.find((o) => o.id === "getBoard")!.security).toEqual([]);
+    // the body's component is listed among the schemas the page describes
+    expect(componentNames(document)).toContain("SubmissionInput");
   });
 
   it("flattens nested fields with paths and links components by name", () => {

@@ -13,6 +13,8 @@ export const ERROR_CODES = {
   409: "conflict",
   // well-formed but refused, e.g. an Idempotency-Key reused with a different body (RFC 9110 §15.5.21)
   422: "unprocessable_content",
+  // a rate limit (sign-in, password reset); sent with Retry-After (RFC 6585 §4)
+  429: "too_many_requests",
   500: "internal_error",
   503: "service_unavailable",
 } as const;

@@ -1,8 +1,8 @@
 import type { z } from "zod";
-import { badRequest } from "@/lib/api/errors";
+import { ApiError, badRequest } from "@/lib/api/errors";
 import { fieldErrorsOf } from "@/lib/api/query";
 import { readJsonBody } from "@/lib/api/json-body";
-import { privateJson } from "@/lib/api/respond";
+import { errorResponse } from "@/lib/api/respond";
 
 // Request bodies of the account endpoints (/api/auth/sign-up, password-reset, profile). JSON
 // only: a cross-site page can send a form or a plain-text POST without asking, but not
@@ -21,6 +21,5 @@ export { privateJson as accountJson } from "@/lib/api/respond";
 
 /** 429 in the API's one error shape, with Retry-After (RFC 6585 §4). */
 export function tooManyRequests(message: string, retryAfterSeconds: number, field = "email"): Response {
-  const body = { error: { status: 429, code: "too_many_requests", message, fieldErrors: { [field]: [message] } } };
-  return privateJson(body, 429, { "Retry-After": String(retryAfterSeconds) });
+  return errorResponse(new ApiError(429, message, { [field]: [message] }), { "Retry-After": String(retryAfterSeconds) });
 }

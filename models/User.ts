@@ -13,6 +13,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare role: CreationOptional<Role>;
   /** Sessions from before this moment are refused by the guard (lib/auth/guard.ts). */
   declare passwordChangedAt: CreationOptional<Date | null>;
+  /** An admin's word on auto-approval: true trusted regardless, false never, null by the record (lib/moderation/trust.ts). */
+  declare trusted: CreationOptional<boolean | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -27,6 +29,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         passwordHash: { type: DataTypes.TEXT, allowNull: true },
         role: { type: DataTypes.TEXT, allowNull: false, defaultValue: "contributor" },
         passwordChangedAt: { type: DataTypes.DATE, allowNull: true },
+        trusted: { type: DataTypes.BOOLEAN, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

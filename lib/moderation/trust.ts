@@ -1,6 +1,6 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { env } from "@/lib/env";
-import { db, type SubmissionStatus } from "@/models";
+import { db, User, type SubmissionStatus } from "@/models";
 import { flagsOfRow, scoredSubmission, type SubmissionFlags } from "./flags";
 import { applyTransition } from "./transition";
 import type { TrustReason } from "./vocabulary";
@@ -51,10 +51,11 @@ export function decideTrust(record: Pick<ContributorRecord, "approved" | "reject
   return { ...base, trusted: false, reason: "building" };
 }
 
-/** users.trusted; the column is read by SQL because it belongs to moderation, not to sign-in's model. */
+/** users.trusted: the admin's override, null when there is none; undefined when there is no such user. */
 export async function trustOverride(userId: string, transaction?: Transaction): Promise<boolean | null | undefined> {
-  const [row] = await db().query<{ trusted: boolean | null }>("SELECT trusted FROM users WHERE id = :id", { replacements: { id: userId }, type: QueryTypes.SELECT, transaction });
-  return row ? row.trusted : undefined;
+  db();
+  const user = await User.findByPk(userId, { attributes: ["trusted"], transaction });
+  return user ? user.trusted : undefined;
 }
 
 /** A contributor's trust; null when there is no such user. */

@@ -1,7 +1,8 @@
 import SequelizeAdapter, { type SequelizeAdapterOptions } from "@next-auth/sequelize-adapter";
 import type { Adapter, AdapterUser } from "next-auth/adapters";
-import { col, fn, where, type Sequelize } from "sequelize";
+import type { Sequelize } from "sequelize";
 import { Account, AuthSession, db, User, VerificationToken } from "@/models";
+import { byEmail } from "./accounts";
 
 // next-auth's Sequelize adapter on our own tables and models (migrations own the schema, hence
 // synchronize: false). Two methods are replaced because our users table differs from the
@@ -32,7 +33,7 @@ export function shuntbookAdapter(): Adapter {
   const adapter: Adapter = {
     ...base,
     async getUserByEmail(email) {
-      return plain(await User.findOne({ where: where(fn("lower", col("email")), email.toLowerCase()) }));
+      return plain(await User.findOne({ where: byEmail(email) }));
     },
     async createUser(data: Omit<AdapterUser, "id">) {
       const email = data.email.trim().toLowerCase();

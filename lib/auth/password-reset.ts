@@ -1,9 +1,10 @@
 import { createHash, randomBytes } from "node:crypto";
-import { col, fn, Op, where } from "sequelize";
+import { Op } from "sequelize";
 import { ApiError } from "@/lib/api/errors";
 import { enqueue } from "@/lib/jobs";
 import { passwordChangedMail, passwordResetMail } from "@/lib/mail/templates";
 import { db, PasswordResetToken, User } from "@/models";
+import { byEmail } from "./accounts";
 import { hashPassword } from "./passwords";
 import { siteUrl } from "./site-url";
 
@@ -23,7 +24,7 @@ export const hashResetToken = (token: string) => createHash("sha256").update(tok
  */
 export async function requestPasswordReset(email: string): Promise<string | null> {
   const sequelize = db();
-  const user = await User.findOne({ where: where(fn("lower", col("email")), email.toLowerCase()) });
+  const user = await User.findOne({ where: byEmail(email) });
   if (!user) return null;
   const token = randomBytes(32).toString("base64url");
   await sequelize.transaction(async (transaction) => {

@@ -1,6 +1,8 @@
 import { randomBytes } from "node:crypto";
 import { env, resetEnvCache } from "@/lib/env";
 import { encodeSessionToken, sessionCookieName, SESSION_MAX_AGE_SECONDS } from "@/lib/auth/session-cookie";
+import { UniqueConstraintError } from "sequelize";
+import { byEmail } from "@/lib/auth/accounts";
 import { db, User, type Role } from "@/models";
 import { runWithRequest } from "./next-headers";
 
@@ -54,10 +56,17 @@ export type TestAccount = { id: string; email: string; name: string; role: Role 
 export async function testAccount(role: Role, opts: { email?: string; name?: string } = {}): Promise<TestAccount> {
   db();
   const email = (opts.email ?? `test-${role}@auth.test`).toLowerCase();
-  const [user] = await User.findOrCreate({
-    where: { email },
-    defaults: { email, name: opts.name ?? `Test ${role}`, role },
-  });
+  // looked up as the app does (lower(email), the unique index), not by a plain equality the index cannot serve
+  const find = () => User.findOne({ where: byEmail(email) });
+  const create = () => User.create({ email, name: opts.name ?? `Test ${role}`, role });
+  // two callers at once: the unique index lets one create, and the other finds that one
+  const user =
+    (await find()) ??
+    (await create().catch(async (e: unknown): Promise<User> => {
+      const winner = e instanceof UniqueConstraintError ? await find() : null;
+      if (!winner) throw e;
+      return winner;
+    }));
   if (user.role !== role) await user.update({ role });
   return { id: user.id, email: user.email, name: user.name, role };
 }

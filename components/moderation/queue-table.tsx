@@ -80,7 +80,8 @@ export function QueueTable({ rows, selectable, selected, onToggle }: { rows: Que
         <tbody>
           {table.getRowModel().rows.map((row) => (
             <tr key={row.id} data-testid="queue-row" className="block border-t-2 border-rule-soft p-3 sm:table-row sm:p-0">
-              <td className="inline-block align-top sm:table-cell sm:px-3 sm:py-2">
+              {/* on a phone a flagged row has no checkbox, and an empty cell would leave a blank line above it */}
+              <td className={`${selectable(row.original) ? "inline-block" : "hidden"} align-top sm:table-cell sm:px-3 sm:py-2`}>
                 {selectable(row.original) ? (
                   <input
                     type="checkbox"

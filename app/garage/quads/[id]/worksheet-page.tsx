@@ -8,13 +8,13 @@ import { quadWorksheetContext } from "@/lib/worksheets/quad-rules";
 type Context = Awaited<ReturnType<typeof quadWorksheetContext>>;
 
 /**
- * What the voltage and bench worksheet pages share: sign-in, the owner's quad (404 for a bad id or
+ * What the voltage, bench and hardware worksheet pages share: sign-in, the owner's quad (404 for a bad id or
  * someone else's), and the page frame. `render` gets the quad's family and published starting
  * values; without a family the page says what to set first.
  */
 export async function QuadWorksheetPage(props: {
   id: string;
-  section: "voltage" | "bench";
+  section: "voltage" | "bench" | "hardware";
   title: string;
   setting: string;
   render: (ctx: Context & { family: NonNullable<Context["family"]> }) => ReactNode;

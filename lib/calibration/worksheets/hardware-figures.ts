@@ -88,3 +88,38 @@ export function figureOrigin(fromBoard: number | null, inForce: number | null): 
   if (inForce == null) return "unknown";
   return fromBoard != null && fromBoard === inForce ? "board" : "typed";
 }
+
+/**
+ * How far apart the parts' figure and a published value may be before it means more than parts
+ * tolerance: two 1 % divider resistors, or a 1 % shunt through an amplifier whose gain is good to
+ * a per cent or two, stay within about 3 %; past 10 % it is a different part, not a spread
+ * (both thresholds common practice, no source).
+ */
+export const PARTS_TOLERANCE_PERCENT = 3;
+export const DIFFERENT_PART_PERCENT = 10;
+export const PARTS_TOLERANCE_SOURCE = "common practice, no source";
+
+export type ComparisonVerdict = "same-setting" | "within-tolerance" | "beyond-tolerance" | "different-part";
+
+/** What a difference between the parts' setting and the published one means, in plain words. */
+export function comparisonVerdict(
+  setting: "voltage" | "current",
+  nearestSetting: number,
+  comparison: { published: number; differencePercent: number },
+): { verdict: ComparisonVerdict; message: string } {
+  const d = Math.abs(comparison.differencePercent);
+  const parts = setting === "voltage" ? "the divider resistors" : "the shunt and amplifier (or the Hall sensor)";
+  if (Math.round(comparison.published) === nearestSetting) {
+    return { verdict: "same-setting", message: `The parts and the published value give the same setting: ${parts} are what the record says.` };
+  }
+  if (d <= PARTS_TOLERANCE_PERCENT) {
+    return { verdict: "within-tolerance", message: `Within the usual spread of parts tolerance (±${PARTS_TOLERANCE_PERCENT} %): boards built from the same ${parts} differ this much, and builders' calibrations absorb it.` };
+  }
+  if (d <= DIFFERENT_PART_PERCENT) {
+    return { verdict: "beyond-tolerance", message: `More than parts tolerance explains. Check the markings on ${parts}, that the quad's board revision is right, and that builders calibrated the same way (with the same stacked ESC, for current).` };
+  }
+  return {
+    verdict: "different-part",
+    message: `Far apart: most likely a different board revision, a different part fitted than the record says, or a wrong figure (in the record or typed here).${setting === "current" ? " A flight controller whose current comes from a stacked ESC takes the ESC's sensor." : ""}`,
+  };
+}

@@ -41,6 +41,7 @@ export default async function QuadPage({ params }: Props) {
         )}
         <StartWorksheet quadId={quad.id} />
         <p><Link href={`/garage/quads/${quad.id}/voltage`} className="font-semibold">Check the voltage scale with a multimeter →</Link></p>
+        <p><Link href={`/garage/quads/${quad.id}/hardware`} className="font-semibold">What the board&rsquo;s parts say the scales should be →</Link></p>
         <p><Link href={`/garage/quads/${quad.id}/bench`} className="font-semibold">Bench current check with a clamp meter (props on; most people should not need it) →</Link></p>
       </section>
     </div>

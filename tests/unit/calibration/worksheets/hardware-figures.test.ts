@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { hardwareWorksheet, unwrapWorksheet } from "@/lib/calibration/worksheets";
-import { figureOrigin, HARDWARE_FIELD_PATHS, hardwareFiguresFromRevision, hardwareWorksheetInput } from "@/lib/calibration/worksheets/hardware-figures";
+import { comparisonVerdict, figureOrigin, HARDWARE_FIELD_PATHS, hardwareFiguresFromRevision, hardwareWorksheetInput } from "@/lib/calibration/worksheets/hardware-figures";
 import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
 import { DIVIDER, OHM } from "./sources";
 
@@ -71,5 +71,22 @@ describe("from the hardware: where a figure came from", () => {
     [null, null, "unknown"],
   ] as const)("record %s, in force %s → %s", (board, inForce, origin) => {
     expect(figureOrigin(board, inForce)).toBe(origin);
+  });
+});
+
+describe("from the hardware: what a difference from the published value means (thresholds: common practice, no source)", () => {
+  it.each([
+    [110, 110, 0, "same-setting"],
+    [110, 112, 1.8, "within-tolerance"],
+    [110, 118, 7.3, "beyond-tolerance"],
+    [110, 160, 45, "different-part"],
+    [250, 235, -6, "beyond-tolerance"],
+  ] as const)("parts %s, published %s (%s %) → %s", (nearest, published, differencePercent, verdict) => {
+    expect(comparisonVerdict("voltage", nearest, { published, differencePercent }).verdict).toBe(verdict);
+  });
+
+  it("for current, a far difference mentions a stacked ESC's sensor", () => {
+    expect(comparisonVerdict("current", 250, { published: 400, differencePercent: 60 }).message).toMatch(/stacked ESC/);
+    expect(comparisonVerdict("voltage", 110, { published: 160, differencePercent: 45 }).message).not.toMatch(/stacked ESC/);
   });
 });

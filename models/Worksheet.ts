@@ -4,16 +4,23 @@ import type { Quad } from "./Quad";
 import type { Submission } from "./Submission";
 import type { User } from "./User";
 
-/** A calibration worksheet on a builder's quad (migrations/20261211000100-…). */
+export const WORKSHEET_KINDS = ["fly_recharge", "voltage", "bench"] as const;
+export type WorksheetKind = (typeof WORKSHEET_KINDS)[number];
+
+/**
+ * A calibration worksheet on a builder's quad (migrations/20261211000100-…, 20261212000100-…).
+ * ratedMah and cells are set for fly_recharge only; startingOffset for bench only.
+ */
 export class Worksheet extends Model<InferAttributes<Worksheet>, InferCreationAttributes<Worksheet>> {
   declare id: CreationOptional<number>;
   declare ownerId: ForeignKey<User["id"]>;
   declare quadId: ForeignKey<Quad["id"]>;
-  declare kind: "fly_recharge";
+  declare kind: WorksheetKind;
   declare firmwareFamilyId: ForeignKey<FirmwareFamily["id"]>;
-  declare ratedMah: number;
-  declare cells: number;
+  declare ratedMah: number | null;
+  declare cells: number | null;
   declare startingScale: number;
+  declare startingOffset: CreationOptional<number | null>;
   declare startingSource: "published" | "own";
   declare submissionId: ForeignKey<Submission["id"]> | null;
   declare createdAt: CreationOptional<Date>;
@@ -24,9 +31,10 @@ export class Worksheet extends Model<InferAttributes<Worksheet>, InferCreationAt
       {
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
         kind: { type: DataTypes.STRING(16), allowNull: false },
-        ratedMah: { type: DataTypes.INTEGER, allowNull: false },
-        cells: { type: DataTypes.SMALLINT, allowNull: false },
+        ratedMah: { type: DataTypes.INTEGER, allowNull: true },
+        cells: { type: DataTypes.SMALLINT, allowNull: true },
         startingScale: { type: DataTypes.INTEGER, allowNull: false },
+        startingOffset: { type: DataTypes.INTEGER, allowNull: true },
         startingSource: { type: DataTypes.STRING(16), allowNull: false },
         submissionId: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,

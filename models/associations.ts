@@ -19,7 +19,9 @@ import { SubmissionCycle } from "./SubmissionCycle";
 import { SubmissionVoltageReading } from "./SubmissionVoltageReading";
 import { User } from "./User";
 import { Worksheet } from "./Worksheet";
+import { WorksheetBenchPoint } from "./WorksheetBenchPoint";
 import { WorksheetStep } from "./WorksheetStep";
+import { WorksheetVoltageReading } from "./WorksheetVoltageReading";
 
 // Every association lives here, so the graph can be read in one place.
 export function associate(): void {
@@ -93,4 +95,8 @@ export function associate(): void {
   Worksheet.belongsTo(FirmwareFamily, { foreignKey: "firmwareFamilyId", as: "firmwareFamily" });
   Worksheet.hasMany(WorksheetStep, { foreignKey: "worksheetId", as: "steps" });
   WorksheetStep.belongsTo(Worksheet, { foreignKey: "worksheetId", as: "worksheet" });
+  Worksheet.hasMany(WorksheetVoltageReading, { foreignKey: "worksheetId", as: "voltageReadings" });
+  WorksheetVoltageReading.belongsTo(Worksheet, { foreignKey: "worksheetId", as: "worksheet" });
+  Worksheet.hasMany(WorksheetBenchPoint, { foreignKey: "worksheetId", as: "benchPoints" });
+  WorksheetBenchPoint.belongsTo(Worksheet, { foreignKey: "worksheetId", as: "worksheet" });
 }

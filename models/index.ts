@@ -24,7 +24,9 @@ import { SubmissionVoltageReading } from "./SubmissionVoltageReading";
 import { User } from "./User";
 import { VerificationToken } from "./VerificationToken";
 import { Worksheet } from "./Worksheet";
+import { WorksheetBenchPoint } from "./WorksheetBenchPoint";
 import { WorksheetStep } from "./WorksheetStep";
+import { WorksheetVoltageReading } from "./WorksheetVoltageReading";
 
 export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, Manufacturer, Submission, User };
 export { IdempotencyKey, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
@@ -32,7 +34,8 @@ export { MEASURED_AT, type MeasuredAt } from "./SubmissionVoltageReading";
 export { BOARD_KINDS, type BoardKind } from "./BoardModel";
 export { Account, AuthSession, PasswordResetToken, RateLimit, VerificationToken };
 export { ROLES, type Role } from "./User";
-export { Pack, PackCharge, Quad, Worksheet, WorksheetStep };
+export { Pack, PackCharge, Quad, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint };
+export { WORKSHEET_KINDS, type WorksheetKind } from "./Worksheet";
 export { AuditEvent, PublishedValueHistory };
 export { AUDIT_ACTIONS, AUDIT_ENTITY_TYPES, type AuditAction, type AuditEntityType } from "./AuditEvent";
 export { METHODS, SENSING_SOURCES, STATUSES, type Method, type SensingSource, type SubmissionStatus } from "./Submission";
@@ -46,7 +49,7 @@ export function db(): Sequelize {
     for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission, EvidencePhoto,
       SubmissionVoltageReading, SubmissionCycle, SubmissionBenchPoint, IdempotencyKey,
       Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit, Quad, Pack, PackCharge,
-      AuditEvent, PublishedValueHistory, Worksheet, WorksheetStep]) {
+      AuditEvent, PublishedValueHistory, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint]) {
       model.initModel(sequelize);
     }
     associate();

@@ -1,3 +1,4 @@
+import type { Transaction } from "sequelize";
 import { applyTrustOnCreate } from "@/lib/moderation/trust";
 import type { SessionUser } from "@/lib/auth";
 import { attachPhotosToSubmission } from "@/lib/storage/evidence-photos";
@@ -5,16 +6,30 @@ import { Submission, db } from "@/models";
 import { evidenceVerdict, writeEvidence } from "./evidence-rows";
 import { KeyTakenError, claimKey, lockKey, replayFor, requestHash } from "./idempotency";
 import { queueStatusMail } from "./status-mail";
-import { validateSubmission } from "./validate";
+import { validateSubmission, type ValidatedSubmission } from "./validate";
 import { loadSubmissionView, type SubmissionView } from "./view";
 
 // Creating a submission: validate (nothing is written for a refused request), then one transaction
 // writes the submission, its evidence rows, the evidence verdict, the attached photos, the
 // "received" mail job and the idempotency record. Any failure rolls all of it back.
+//
+// A caller that must write more in the same transaction (a worksheet linking the submission it
+// became, lib/worksheets/publish.ts) passes its own `transaction`: then everything here happens in
+// it, commits with the caller's work or rolls back with it, and after-commit hooks (the published
+// values' cache) wait for the caller's commit. Such a caller guards against twins itself (it holds
+// a row lock), so an idempotency key cannot come with it: the key's "roll back and replay" needs a
+// transaction of its own.
 
 export type CreateResult = { status: 201; body: { submission: SubmissionView }; replayed: boolean };
 
-export async function createSubmission(user: Pick<SessionUser, "id">, body: unknown, opts: { idempotencyKey?: string | null } = {}): Promise<CreateResult> {
+export type CreateOptions = { idempotencyKey?: string | null; transaction?: undefined } | { transaction: Transaction; idempotencyKey?: undefined };
+
+export async function createSubmission(user: Pick<SessionUser, "id">, body: unknown, opts: CreateOptions = {}): Promise<CreateResult> {
+  if (opts.transaction) {
+    if (opts.idempotencyKey) throw new Error("createSubmission: an idempotency key needs its own transaction");
+    const { payload, family, revision } = await validateSubmission(body, opts.transaction);
+    return writeSubmission(user, payload, family, revision, opts.transaction, null);
+  }
   const key = opts.idempotencyKey ?? null;
   const hash = requestHash(body);
   if (key) {
@@ -23,7 +38,6 @@ export async function createSubmission(user: Pick<SessionUser, "id">, body: unkn
   }
 
   const { payload, family, revision } = await validateSubmission(body);
-  const { summary, mismatch } = evidenceVerdict(payload, family);
   const sequelize = db();
   try {
     const outcome = await sequelize.transaction(async (transaction): Promise<CreateResult> => {
@@ -34,35 +48,7 @@ export async function createSubmission(user: Pick<SessionUser, "id">, body: unkn
         const stored = await replayFor(user.id, key, hash, transaction);
         if (stored) return { ...(stored as Omit<CreateResult, "replayed">), replayed: true };
       }
-      const submission = await Submission.create(
-        {
-          boardRevisionId: revision.id,
-          firmwareFamilyId: family.id,
-          contributorId: user.id,
-          firmwareVersion: payload.firmwareVersion,
-          sensingSource: payload.sensingSource,
-          method: payload.method,
-          voltageScale: payload.voltageScale,
-          currentScale: payload.currentScale,
-          currentOffset: payload.currentOffset,
-          notes: payload.notes,
-          status: "pending",
-          evidenceMismatch: mismatch,
-          evidenceSummary: summary,
-          moderatorNote: null,
-        },
-        { transaction },
-      );
-      await writeEvidence(submission.id, payload, transaction);
-      await attachPhotosToSubmission(payload.photoIds, submission.id, user.id, transaction);
-      await queueStatusMail(submission.id, transaction, "created");
-      // a trusted contributor's unflagged submission is approved at once, in this same transaction
-      await applyTrustOnCreate(submission.id, transaction);
-      const created = (await loadSubmissionView(submission.id, transaction))!;
-      if (key && !(await claimKey(user.id, key, hash, { status: 201, body: { submission: created }, submissionId: submission.id }, transaction))) {
-        throw new KeyTakenError();
-      }
-      return { status: 201, body: { submission: created }, replayed: false };
+      return writeSubmission(user, payload, family, revision, transaction, key ? { key, hash } : null);
     });
     return outcome;
   } catch (error) {
@@ -72,4 +58,46 @@ export async function createSubmission(user: Pick<SessionUser, "id">, body: unkn
     if (!stored) throw new Error("idempotency key was taken but holds no response");
     return { ...(stored as Omit<CreateResult, "replayed">), replayed: true };
   }
+}
+
+/** The writes, inside `transaction`; KeyTakenError when `idempotency`'s key was claimed meanwhile. */
+async function writeSubmission(
+  user: Pick<SessionUser, "id">,
+  payload: ValidatedSubmission["payload"],
+  family: ValidatedSubmission["family"],
+  revision: ValidatedSubmission["revision"],
+  transaction: Transaction,
+  idempotency: { key: string; hash: string } | null,
+): Promise<CreateResult> {
+  const { summary, mismatch } = evidenceVerdict(payload, family);
+  const submission = await Submission.create(
+    {
+      boardRevisionId: revision.id,
+      firmwareFamilyId: family.id,
+      contributorId: user.id,
+      firmwareVersion: payload.firmwareVersion,
+      sensingSource: payload.sensingSource,
+      method: payload.method,
+      voltageScale: payload.voltageScale,
+      currentScale: payload.currentScale,
+      currentOffset: payload.currentOffset,
+      notes: payload.notes,
+      status: "pending",
+      evidenceMismatch: mismatch,
+      evidenceSummary: summary,
+      moderatorNote: null,
+    },
+    { transaction },
+  );
+  await writeEvidence(submission.id, payload, transaction);
+  await attachPhotosToSubmission(payload.photoIds, submission.id, user.id, transaction);
+  await queueStatusMail(submission.id, transaction, "created");
+  // a trusted contributor's unflagged submission is approved at once, in this same transaction
+  await applyTrustOnCreate(submission.id, transaction);
+  const created = (await loadSubmissionView(submission.id, transaction))!;
+  const response = { status: 201 as const, body: { submission: created } };
+  if (idempotency && !(await claimKey(user.id, idempotency.key, idempotency.hash, { ...response, submissionId: submission.id }, transaction))) {
+    throw new KeyTakenError();
+  }
+  return { ...response, replayed: false };
 }

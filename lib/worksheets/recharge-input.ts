@@ -20,6 +20,7 @@ export const stepInput = z.object({
 });
 
 export type WorksheetView = {
+  kind: "fly_recharge";
   id: number;
   quadId: number;
   quadName: string;

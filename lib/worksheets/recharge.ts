@@ -2,22 +2,23 @@ import { ApiError, badRequest } from "@/lib/api/errors";
 import { rechargeWorksheet } from "@/lib/calibration/worksheets";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { getBoardValues } from "@/lib/published/board-values";
-import { createSubmission, type SubmissionView } from "@/lib/submissions";
 import { startInput, stepInput, type WorksheetView } from "./recharge-input";
+import { newEntryErrors } from "./saved-entries";
 import { BoardModel, BoardRevision, db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
 
 // Server side of the fly-and-recharge worksheet: start it on a quad, add one iteration per request
 // (checked with every earlier one by lib/calibration/worksheets/recharge.ts and stored whole in a
 // transaction, or refused with field-level errors and nothing stored), read it back computed, and
-// publish it as an ordinary pending submission through lib/submissions' own create function.
+// publish it as an ordinary pending submission (lib/worksheets/publish.ts, one transaction for every kind).
 
 export { startInput, stepInput, type WorksheetView };
 
-async function quadContext(ownerId: string, quadId: number) {
+// quadContext and ownSheet serve the voltage and bench worksheets too (lib/worksheets/voltage.ts, bench.ts)
+export async function quadContext(ownerId: string, quadId: number, setting = "current-scale") {
   db();
   const quad = await Quad.findOne({ where: { id: quadId, ownerId } });
   if (!quad) throw notYours("quad");
-  if (!quad.firmwareFamilyId) throw badRequest({ quadId: ["Give this quad its firmware family first: the worksheet follows that family's current-scale rules"] });
+  if (!quad.firmwareFamilyId) throw badRequest({ quadId: [`Give this quad its firmware family first: the worksheet follows that family's ${setting} rules`] });
   if (!quad.boardRevisionId) throw badRequest({ quadId: ["Give this quad its board revision first: its published value is the worksheet's starting point and the result is filed under it"] });
   const family = (await FirmwareFamily.findByPk(quad.firmwareFamilyId))!;
   const revision = (await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as BoardRevision & { boardModel: BoardModel };
@@ -46,25 +47,27 @@ export async function startRechargeWorksheet(ownerId: string, input: unknown): P
   return getRechargeWorksheet(ownerId, sheet.id);
 }
 
-async function ownSheet(ownerId: string, id: number, transaction?: import("sequelize").Transaction) {
+export async function ownSheet(ownerId: string, id: number, transaction?: import("sequelize").Transaction) {
   db();
   const sheet = await Worksheet.findOne({ where: { id, ownerId }, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
   if (!sheet) throw notYours("worksheet");
   return sheet;
 }
 
-const stepsOf = (worksheetId: number, transaction?: import("sequelize").Transaction) =>
+export const stepsOf = (worksheetId: number, transaction?: import("sequelize").Transaction) =>
   WorksheetStep.findAll({ where: { worksheetId }, order: [["position", "ASC"]], transaction });
 
 const compute = (sheet: Worksheet, steps: Array<{ scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean }>, family: FirmwareFamily) =>
-  rechargeWorksheet({ ratedMah: sheet.ratedMah, cycles: steps.map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged })) }, family);
+  rechargeWorksheet({ ratedMah: sheet.ratedMah!, cycles: steps.map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged })) }, family);
 
-export async function getRechargeWorksheet(ownerId: string, id: number): Promise<WorksheetView> {
-  const sheet = await ownSheet(ownerId, id);
-  const [steps, family, quad] = await Promise.all([stepsOf(sheet.id), FirmwareFamily.findByPk(sheet.firmwareFamilyId), Quad.findByPk(sheet.quadId)]);
+export async function getRechargeWorksheet(ownerId: string, id: number, transaction?: import("sequelize").Transaction): Promise<WorksheetView> {
+  const sheet = await ownSheet(ownerId, id, transaction);
+  if (sheet.kind !== "fly_recharge") throw notYours("fly-and-recharge worksheet");
+  const [steps, family, quad] = await Promise.all([stepsOf(sheet.id, transaction), FirmwareFamily.findByPk(sheet.firmwareFamilyId, { transaction }), Quad.findByPk(sheet.quadId, { transaction })]);
   const result = steps.length ? compute(sheet, steps, family!) : null;
   return {
-    id: sheet.id, quadId: sheet.quadId, quadName: quad!.name, familyName: family!.name, ratedMah: sheet.ratedMah, cells: sheet.cells,
+    kind: "fly_recharge",
+    id: sheet.id, quadId: sheet.quadId, quadName: quad!.name, familyName: family!.name, ratedMah: sheet.ratedMah!, cells: sheet.cells!,
     startingScale: sheet.startingScale, startingSource: sheet.startingSource,
     steps: steps.map((s) => ({ position: s.position, scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged })),
     result: result?.ok ? result.value : null,
@@ -73,31 +76,20 @@ export async function getRechargeWorksheet(ownerId: string, id: number): Promise
   };
 }
 
-export async function listRechargeWorksheets(ownerId: string, quadId: number): Promise<Array<{ id: number; steps: number; submissionId: number | null; createdAt: string }>> {
-  db();
-  const sheets = await Worksheet.findAll({ where: { ownerId, quadId }, order: [["createdAt", "DESC"]] });
-  return Promise.all(sheets.map(async (s) => ({ id: s.id, steps: await WorksheetStep.count({ where: { worksheetId: s.id } }), submissionId: s.submissionId, createdAt: s.createdAt.toISOString() })));
-}
-
 /** Adds one iteration: judged with every earlier one, stored whole or not at all. */
 export async function addRechargeStep(ownerId: string, id: number, input: unknown): Promise<WorksheetView> {
   const step = parseOrThrow(stepInput, input);
   const sequelize = db();
   await sequelize.transaction(async (transaction) => {
     const sheet = await ownSheet(ownerId, id, transaction);
+    if (sheet.kind !== "fly_recharge") throw notYours("fly-and-recharge worksheet");
     if (sheet.submissionId != null) throw new ApiError(409, "This worksheet is published; start a new one to fly more cycles.");
     const steps = await stepsOf(sheet.id, transaction);
     const family = (await FirmwareFamily.findByPk(sheet.firmwareFamilyId, { transaction }))!;
     const result = compute(sheet, [...steps, step], family);
     if (!result.ok) {
       // the new step's own problems under its field names; earlier steps were valid when stored
-      const prefix = `cycles.${steps.length}.`;
-      const fields: Record<string, string[]> = {};
-      for (const e of result.errors) {
-        const key = e.field.startsWith(prefix) ? e.field.slice(prefix.length) : e.field;
-        (fields[key] ??= []).push(e.message);
-      }
-      throw badRequest(fields);
+      throw badRequest(newEntryErrors(result.errors, `cycles.${steps.length}.`));
     }
     await WorksheetStep.create({ worksheetId: sheet.id, position: steps.length, ...step }, { transaction });
     await sheet.update({ updatedAt: new Date() }, { transaction });
@@ -105,28 +97,21 @@ export async function addRechargeStep(ownerId: string, id: number, input: unknow
   return getRechargeWorksheet(ownerId, id);
 }
 
-/** Turns the worksheet into a pending submission with its cycles as evidence, once. */
-export async function publishRechargeWorksheet(ownerId: string, id: number, opts: { firmwareVersion?: string | null; notes?: string | null } = {}): Promise<SubmissionView> {
-  const view = await getRechargeWorksheet(ownerId, id);
-  if (view.submissionId != null) throw new ApiError(409, "This worksheet is already published.");
-  if (!view.result) throw badRequest({ steps: ["Fly and recharge at least one cycle before publishing"] });
-  const quad = (await Quad.findByPk(view.quadId))!;
-  const version = opts.firmwareVersion ?? quad.firmwareVersion;
-  if (!version) throw badRequest({ firmwareVersion: ["Enter the firmware version the quad runs (or add it to the quad)"] });
-  const body = {
+/** The submission body (for a firmware version) a finished fly-and-recharge worksheet becomes (lib/worksheets/publish.ts sends it). */
+export function rechargeSubmissionBody(view: WorksheetView, quad: Quad, firmwareFamilyId: number) {
+  const r = view.result;
+  if (!r) throw badRequest({ steps: ["Fly and recharge at least one cycle before publishing"] });
+  return (opts: { firmwareVersion: string; notes?: string | null }) => ({
     boardRevisionId: quad.boardRevisionId,
-    firmwareFamilyId: (await Worksheet.findByPk(id))!.firmwareFamilyId,
-    firmwareVersion: version,
+    firmwareFamilyId,
+    firmwareVersion: opts.firmwareVersion,
     sensingSource: "board_adc",
     method: "fly_recharge",
     voltageScale: null,
-    currentScale: view.result.recommendedSetting,
+    currentScale: r.recommendedSetting,
     currentOffset: null,
     notes: opts.notes ?? `From a fly-and-recharge worksheet in the garage: ${view.steps.length} cycles.`,
     // a cycle the builder marked as not fully recharged is not evidence
     cycles: view.steps.filter((s) => s.fullyRecharged).map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, ratedMah: view.ratedMah, cells: view.cells })),
-  };
-  const created = await createSubmission({ id: ownerId }, body);
-  await Worksheet.update({ submissionId: created.body.submission.id }, { where: { id, ownerId, submissionId: null } });
-  return created.body.submission;
+  });
 }

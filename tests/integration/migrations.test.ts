@@ -30,7 +30,9 @@ const EXPECTED_TABLES = [
   "submissions",
   "users",
   "verification_tokens",
+  "worksheet_bench_points",
   "worksheet_steps",
+  "worksheet_voltage_readings",
   "worksheets",
 ];
 

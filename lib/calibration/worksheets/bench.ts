@@ -44,7 +44,8 @@ export type BenchWorksheet = {
   cautions: readonly Caution[];
 };
 
-const pointSchema = z.object({
+/** One clamp-meter point on its own; the saved bench worksheet checks each point with it as it is typed. */
+export const benchPointSchema = z.object({
   measuredAmps: numberField("The clamp-meter current")
     .min(0, "The clamp-meter current cannot be negative: clamp the battery lead with the arrow towards the board")
     .max(MAX_BENCH_AMPS, `The clamp-meter current must be at most ${MAX_BENCH_AMPS} A`),
@@ -58,7 +59,7 @@ export function benchWorksheet(input: BenchWorksheetInput, family: WorksheetFami
     scaleUsed: settingField("The current scale in force", family, "currentScale"),
     offsetUsed: settingField("The current offset in force", family, "currentOffset"),
     points: z
-      .array(pointSchema)
+      .array(benchPointSchema)
       .min(MIN_BENCH_POINTS, `Add at least ${MIN_BENCH_POINTS} points: a line needs two`)
       .max(MAX_BENCH_POINTS, `At most ${MAX_BENCH_POINTS} points`),
   });

@@ -1,7 +1,7 @@
 // Public face of the calibration worksheets: pure calculations a worksheet page runs as the builder
 // types. Each returns { ok, value, warnings } or { ok: false, errors } with field-level messages.
 export { voltageWorksheet, VOLTAGE_TOLERANCE, VOLTAGE_TOLERANCE_SOURCE, type VoltageWorksheet, type VoltageWorksheetInput, type VoltagePair } from "./voltage";
-export { benchWorksheet, BENCH_MIN_R_SQUARED, type BenchWorksheet, type BenchWorksheetInput, type BenchResidual } from "./bench";
+export { benchWorksheet, benchPointSchema, BENCH_MIN_R_SQUARED, type BenchWorksheet, type BenchWorksheetInput, type BenchResidual } from "./bench";
 export {
   rechargeWorksheet,
   STOP_TOLERANCE,

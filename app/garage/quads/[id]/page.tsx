@@ -5,7 +5,8 @@ import { StartWorksheet } from "@/components/worksheets/start-worksheet";
 import { ApiError } from "@/lib/api/errors";
 import { requirePageUser } from "@/lib/auth";
 import { getQuad } from "@/lib/garage/quads";
-import { listRechargeWorksheets } from "@/lib/worksheets/recharge";
+import { listQuadWorksheets } from "@/lib/worksheets";
+import { WORKSHEET_LABELS } from "@/lib/worksheets/reading-input";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Quad" };
@@ -22,7 +23,7 @@ export default async function QuadPage({ params }: Props) {
     if (e instanceof ApiError && e.status === 404) notFound();
     throw e;
   });
-  const sheets = await listRechargeWorksheets(user.id, quad.id);
+  const sheets = await listQuadWorksheets(user.id, quad.id);
   return (
     <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
       <p><Link href="/garage">← My garage</Link></p>
@@ -33,8 +34,8 @@ export default async function QuadPage({ params }: Props) {
           <ul className="space-y-2">
             {sheets.map((s) => (
               <li key={s.id}>
-                <Link href={`/garage/worksheets/${s.id}`} className="font-semibold">Fly-and-recharge, {s.createdAt.slice(0, 10)}</Link>{" "}
-                <span className="text-small text-muted">{s.steps} iterations{s.submissionId ? ", published" : ""}</span>
+                <Link href={`/garage/worksheets/${s.id}`} className="font-semibold">{WORKSHEET_LABELS[s.kind].title}, {s.createdAt.slice(0, 10)}</Link>{" "}
+                <span className="text-small text-muted">{s.entries} {WORKSHEET_LABELS[s.kind].entries}{s.submissionId ? ", published" : ""}</span>
               </li>
             ))}
           </ul>

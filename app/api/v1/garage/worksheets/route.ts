@@ -1,10 +1,10 @@
 import { apiRoute } from "@/lib/api/handler";
 import { signedIn } from "@/lib/auth";
 import { privateJson, readJsonBody, requestUser } from "@/lib/submissions/http";
-import { startRechargeWorksheet } from "@/lib/worksheets/recharge";
+import { startWorksheet } from "@/lib/worksheets";
 
-// Start a fly-and-recharge worksheet on one of the caller's quads.
+// Start a worksheet on one of the caller's quads: `kind` fly_recharge (the default), voltage or bench.
 export const POST = apiRoute(
-  async (request) => privateJson({ worksheet: await startRechargeWorksheet((await requestUser(request)).id, await readJsonBody(request)) }, 201),
+  async (request) => privateJson({ worksheet: await startWorksheet((await requestUser(request)).id, await readJsonBody(request)) }, 201),
   { guard: signedIn },
 );

@@ -2,11 +2,11 @@ import { apiRoute } from "@/lib/api/handler";
 import { signedIn } from "@/lib/auth";
 import { idFrom } from "@/lib/garage/owned";
 import { privateJson, requestUser } from "@/lib/submissions/http";
-import { getRechargeWorksheet } from "@/lib/worksheets/recharge";
+import { getWorksheet } from "@/lib/worksheets";
 
-// One of the caller's worksheets, computed: iterations, next scale, roundings, stop rule, warnings.
+// One of the caller's worksheets of any kind, computed: what was entered, the next values, warnings.
 type Ctx = { params: Promise<{ id: string }> };
 export const GET = apiRoute<Ctx>(
-  async (request, ctx) => privateJson({ worksheet: await getRechargeWorksheet((await requestUser(request)).id, idFrom((await ctx.params).id, "worksheet")) }),
+  async (request, ctx) => privateJson({ worksheet: await getWorksheet((await requestUser(request)).id, idFrom((await ctx.params).id, "worksheet")) }),
   { guard: signedIn },
 );

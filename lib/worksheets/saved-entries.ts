@@ -1,0 +1,62 @@
+import type { Transaction } from "sequelize";
+import { ApiError, badRequest } from "@/lib/api/errors";
+import { settingField, type SettingKind, type WorksheetFamily } from "@/lib/calibration/worksheets/fields";
+import type { FieldIssue } from "@/lib/calibration/worksheets";
+import { WorksheetBenchPoint, WorksheetVoltageReading, type Worksheet } from "@/models";
+
+// What the voltage and bench worksheets share about their saved readings and points: the rows in
+// order (live and taken back), taking back the last one, the field errors of a refused one, and
+// the check of a setting in force at the start.
+
+type EntryModel = typeof WorksheetVoltageReading | typeof WorksheetBenchPoint;
+type Entry = WorksheetVoltageReading | WorksheetBenchPoint;
+
+/** Every row of the worksheet in position order: the live ones, and the ones taken back. */
+export async function entriesOf<R extends Entry>(model: EntryModel, worksheetId: number, transaction?: Transaction): Promise<{ live: R[]; removed: R[] }> {
+  const rows = (await (model as typeof WorksheetVoltageReading).findAll({ where: { worksheetId }, order: [["position", "ASC"], ["id", "ASC"]], transaction })) as unknown as R[];
+  return { live: rows.filter((r) => r.removedAt == null), removed: rows.filter((r) => r.removedAt != null) };
+}
+
+/** Refuses a change to a published worksheet: its readings are a submission's evidence now. */
+export function assertOpen(sheet: Worksheet, what: string): void {
+  if (sheet.submissionId != null) throw new ApiError(409, `This worksheet is published; its ${what} are the submission's evidence. Start a new worksheet to measure again.`);
+}
+
+/**
+ * Takes back the last live row: it stays in the table with removed_at set (shown struck out, never
+ * counted or published), so a mistyped reading is never silently lost. The caller names the
+ * position it means, so a double tap cannot take back two.
+ */
+export async function removeLastEntry<R extends Entry>(model: EntryModel, sheet: Worksheet, position: number, noun: string, transaction: Transaction): Promise<R> {
+  const { live } = await entriesOf<R>(model, sheet.id, transaction);
+  const last = live.at(-1);
+  if (!last) throw new ApiError(409, `This worksheet has no ${noun} to take back.`);
+  if (last.position !== position) {
+    throw new ApiError(409, `Only the last ${noun} can be taken back: that is ${noun} ${last.position + 1}.`, { position: [`Take back ${noun} ${last.position + 1} first`] });
+  }
+  await (last as WorksheetVoltageReading).update({ removedAt: new Date() }, { transaction });
+  return last;
+}
+
+/** The pure worksheet's errors about the new row under its own field names ("readings.3.cells" → "cells"). */
+export function newEntryErrors(errors: FieldIssue[], prefix: string): Record<string, string[]> {
+  const fields: Record<string, string[]> = {};
+  for (const e of errors) {
+    const key = e.field.startsWith(prefix) ? e.field.slice(prefix.length) : e.field;
+    (fields[key] ??= []).push(e.message);
+  }
+  return fields;
+}
+
+/** The setting in force, checked against the family's range before the worksheet is started. */
+export function checkSetting(value: number, label: string, family: WorksheetFamily, kind: SettingKind, field: string): void {
+  const parsed = settingField(label, family, kind).safeParse(value);
+  if (!parsed.success) throw badRequest({ [field]: parsed.error.issues.map((i) => i.message) });
+}
+
+/** A position from the path: a whole number from 0, or 404 (it can name no row). */
+export function positionFrom(raw: string): number {
+  const n = Number(raw);
+  if (!Number.isSafeInteger(n) || n < 0) throw new ApiError(404, "No such reading in this worksheet.");
+  return n;
+}

@@ -1,7 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useState, type FormEvent } from "react";
+import { useState, type FormEvent, type ReactNode } from "react";
 import { formatFigure } from "@/lib/catalogue/format";
 import { CHARGING_CAUTIONS } from "@/lib/calibration/worksheets/cautions";
 import type { RoundedSetting } from "@/lib/calibration/worksheets";
@@ -21,6 +21,16 @@ function Rounding({ name, r, recommended }: { name: string; r: RoundedSetting; r
       <p className="font-mono text-lg">{r.setting}</p>
       <p className="text-small">Display reads {r.reads === "true" || r.readingError == null ? "true" : `${r.reads} by ${formatFigure(Math.abs(r.readingError) * 100, 2)} %`}</p>
     </div>
+  );
+}
+
+/** One figure of an iteration: its column name is shown in the cell itself on a phone, where the header row is hidden. */
+function Cell({ label, children }: { label: string; children: ReactNode }) {
+  return (
+    <td className="block sm:table-cell sm:pr-3">
+      <span className="block text-muted sm:hidden">{label}</span>
+      <span className="font-mono">{children}</span>
+    </td>
   );
 }
 
@@ -86,24 +96,30 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
       </p>
 
       {sheet.steps.length > 0 && (
-        <div className="overflow-x-auto">
-          <table className="w-full text-small" data-testid="iterations">
-            <caption className="text-left font-semibold">Iterations</caption>
-            <thead><tr className="text-left text-muted"><th className="py-1 pr-3">#</th><th className="pr-3">Scale used</th><th className="pr-3">Reported mAh</th><th className="pr-3">Charged mAh</th><th className="pr-3">Display error</th><th>Implied scale</th></tr></thead>
-            <tbody>
-              {(r?.iterations ?? []).map((it) => (
-                <tr key={it.index} className="border-t border-rule">
-                  <td className="py-1 pr-3">{it.index + 1}</td>
-                  <td className="pr-3 font-mono">{it.scaleUsed}</td>
-                  <td className="pr-3 font-mono">{formatFigure(it.reportedMah, 0)}</td>
-                  <td className="pr-3 font-mono">{formatFigure(it.chargedMah, 0)}</td>
-                  <td className="pr-3 font-mono">{pct(it.ratio - 1)}</td>
-                  <td className="font-mono">{formatFigure(it.impliedScale, 1)}{it.excludedBecause ? <span className="ml-2 font-body text-fault">left out: {it.excludedBecause}</span> : null}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        // Mobile first: below sm each iteration is a card (the column names shown in each cell,
+        // the header row hidden), from sm up the same markup is an ordinary table.
+        <table className="block w-full text-small sm:table" data-testid="iterations">
+          <caption className="mb-2 block text-left font-semibold sm:table-caption">Iterations</caption>
+          <thead className="hidden sm:table-header-group">
+            <tr className="text-left text-muted"><th className="py-1 pr-3">#</th><th className="pr-3">Scale used</th><th className="pr-3">Reported mAh</th><th className="pr-3">Charged mAh</th><th className="pr-3">Display error</th><th>Implied scale</th></tr>
+          </thead>
+          <tbody className="block space-y-2 sm:table-row-group sm:space-y-0">
+            {(r?.iterations ?? []).map((it) => (
+              <tr key={it.index} className="grid grid-cols-2 gap-x-3 gap-y-2 rounded-md border-2 border-rule bg-surface p-3 sm:table-row sm:rounded-none sm:border-0 sm:border-t sm:bg-transparent sm:p-0">
+                <td className="col-span-2 font-semibold sm:table-cell sm:py-1 sm:pr-3 sm:font-normal"><span className="sm:hidden">Iteration </span>{it.index + 1}</td>
+                <Cell label="Scale used">{it.scaleUsed}</Cell>
+                <Cell label="Reported mAh">{formatFigure(it.reportedMah, 0)}</Cell>
+                <Cell label="Charged mAh">{formatFigure(it.chargedMah, 0)}</Cell>
+                <Cell label="Display error">{pct(it.ratio - 1)}</Cell>
+                <td className="col-span-2 sm:table-cell">
+                  <span className="block text-muted sm:hidden">Implied scale</span>
+                  <span className="font-mono">{formatFigure(it.impliedScale, 1)}</span>
+                  {it.excludedBecause ? <span className="mt-1 block text-fault sm:ml-2 sm:mt-0 sm:inline">left out: {it.excludedBecause}</span> : null}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
       )}
 
       {r && (

@@ -1,62 +1,120 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { useState, type FormEvent } from "react";
 import { CartesianGrid, ReferenceLine, Scatter, ScatterChart, XAxis, YAxis } from "recharts";
 import { BenchCaution } from "@/components/submission/cautions";
-import { benchWorksheet, type WorksheetFamily } from "@/lib/calibration/worksheets";
 import { formatFigure } from "@/lib/catalogue/format";
+import { benchPointInput, benchStartInput, type BenchSheetView } from "@/lib/worksheets/reading-input";
+import { checked, FieldError, NumberInput, PublishPanel, RefusedError, numberIn, useSavedWorksheet, useStartWorksheet, Warnings, type Errors } from "./saved-worksheet";
 
-// The bench worksheet: clamp-meter current beside the OSD's at several throttle points, fitted by
-// lib/calibration/worksheets/bench.ts as the builder types. Nothing is stored. It means props on
-// and motors under load, so the caution comes first and fly-and-recharge is suggested instead.
+// The bench worksheet, saved on the server point by point (lib/worksheets/bench.ts): clamp-meter
+// current beside the display's at several steady throttles, fitted on the server by
+// lib/calibration/worksheets/bench.ts with every earlier point. It means props on and motors under
+// load, so the caution comes first and fly-and-recharge is suggested instead.
 
-type Row = { measuredAmps: string; reportedAmps: string };
-const num = (s: string) => (s.trim() === "" ? (undefined as unknown as number) : Number(s));
-
-export function BenchWorksheetForm({ family, startingScale, startingOffset }: { family: WorksheetFamily; startingScale: number | null; startingOffset: number | null }) {
-  const [scale, setScale] = useState(startingScale == null ? "" : String(startingScale));
-  const [offset, setOffset] = useState(String(startingOffset ?? 0));
-  const [rows, setRows] = useState<Row[]>([{ measuredAmps: "", reportedAmps: "" }, { measuredAmps: "", reportedAmps: "" }]);
-  const touched = rows.some((r) => r.measuredAmps || r.reportedAmps);
-  const result = useMemo(
-    () => benchWorksheet({ scaleUsed: num(scale), offsetUsed: num(offset), points: rows.map((r) => ({ measuredAmps: num(r.measuredAmps), reportedAmps: num(r.reportedAmps) })) }, family),
-    [scale, offset, rows, family],
-  );
-  const errors = new Map<string, string[]>();
-  if (!result.ok) for (const e of result.errors) errors.set(e.field, [...(errors.get(e.field) ?? []), e.message]);
-  const err = (field: string) => (touched ? errors.get(field) : undefined);
-  const set = (i: number, key: keyof Row, value: string) => setRows((rs) => rs.map((r, j) => (j === i ? { ...r, [key]: value } : r)));
-  const input = (id: string, label: string, value: string, onChange: (v: string) => void, field: string) => (
-    <div>
-      <label htmlFor={id} className="mb-1 block font-semibold">{label}</label>
-      <input id={id} type="number" inputMode="decimal" className="sb-field" value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={err(field) ? true : undefined} />
-      {err(field) && <p className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{err(field)!.join(" ")}</p>}
-    </div>
-  );
-  const v = result.ok ? result.value : null;
-
+function Advice() {
   return (
-    <div className="space-y-5">
+    <>
       <p className="rounded-md border-2 border-rule bg-surface p-3 font-semibold">
         Most builders should use the fly-and-recharge worksheet instead: it needs no props-on bench run and the charger is the reference.
       </p>
       <BenchCaution />
-      <div className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="bench-form">
+    </>
+  );
+}
+
+/** The quad's bench worksheet: the open one, or a start form with the scale and offset in force. */
+export function BenchWorksheet(props: { quadId: number; startingScale: number | null; startingOffset: number | null; initial: BenchSheetView | null }) {
+  const [sheet, setSheet] = useState(props.initial);
+  const start = useStartWorksheet<BenchSheetView>(setSheet);
+  const [errors, setErrors] = useState<Errors>({});
+  if (sheet) return <BenchSheet initial={sheet} />;
+
+  function submit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const f = new FormData(event.currentTarget);
+    try {
+      const body = checked(benchStartInput, { kind: "bench", quadId: props.quadId, scaleUsed: numberIn(f, "scaleUsed"), offsetUsed: numberIn(f, "offsetUsed") });
+      setErrors({});
+      start.mutate(body, { onError: (e) => setErrors(e instanceof RefusedError ? e.errors : { input: [String(e)] }) });
+    } catch (e) {
+      if (e instanceof RefusedError) setErrors(e.errors);
+    }
+  }
+  return (
+    <div className="space-y-5">
+      <Advice />
+      <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="bench-start">
+        <h2 className="font-display text-lg font-bold tracking-wide uppercase">Start a bench check</h2>
+        <FieldError messages={[...(errors.input ?? []), ...(errors.quadId ?? [])]} />
         <div className="grid gap-3 sm:grid-cols-2">
-          {input("b-scale", "Current scale in force", scale, setScale, "scaleUsed")}
-          {input("b-offset", "Current offset in force", offset, setOffset, "offsetUsed")}
+          <NumberInput idPrefix="bs" name="scaleUsed" label="Current scale in force" errors={errors} defaultValue={props.startingScale ?? undefined}
+            hint={props.startingScale != null ? "The board's published recommended value; change it if your quad runs another." : "Nothing is published for this board yet: enter your quad's value."} />
+          <NumberInput idPrefix="bs" name="offsetUsed" label="Current offset in force" errors={errors} defaultValue={props.startingOffset ?? 0} />
         </div>
-        {rows.map((r, i) => (
-          <fieldset key={i} className="grid gap-3 border-t border-rule pt-3 sm:grid-cols-2">
-            <legend className="font-semibold">Point {i + 1}</legend>
-            {input(`b-${i}-m`, "Clamp meter (A)", r.measuredAmps, (x) => set(i, "measuredAmps", x), `points.${i}.measuredAmps`)}
-            {input(`b-${i}-r`, "OSD current (A)", r.reportedAmps, (x) => set(i, "reportedAmps", x), `points.${i}.reportedAmps`)}
-          </fieldset>
-        ))}
-        {err("points") && <p className="font-semibold text-fault">⚠ {err("points")!.join(" ")}</p>}
-        <button type="button" className="sb-button sb-button-quiet" onClick={() => setRows((rs) => [...rs, { measuredAmps: "", reportedAmps: "" }])}>Add another point</button>
-      </div>
-      {v && touched && (
+        <button type="submit" className="sb-button w-full sm:w-auto" disabled={start.isPending}>{start.isPending ? "Starting…" : "Start"}</button>
+      </form>
+    </div>
+  );
+}
+
+export function BenchSheet({ initial }: { initial: BenchSheetView }) {
+  const { sheet, add, remove, publish, addErrors, removeErrors, publishErrors, busy } = useSavedWorksheet(initial);
+  const [formErrors, setFormErrors] = useState<Errors>({});
+  const [formKey, setFormKey] = useState(0);
+  const errors = { ...addErrors, ...formErrors };
+  const v = sheet.result;
+  const open = sheet.submissionId == null;
+  const last = sheet.points.at(-1);
+
+  function submit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const f = new FormData(event.currentTarget);
+    try {
+      const body = checked(benchPointInput, { measuredAmps: numberIn(f, "measuredAmps"), reportedAmps: numberIn(f, "reportedAmps") });
+      setFormErrors({});
+      add.mutate(body, { onSuccess: () => setFormKey((k) => k + 1) });
+    } catch (e) {
+      add.reset();
+      if (e instanceof RefusedError) setFormErrors(e.errors);
+    }
+  }
+
+  return (
+    <div className="space-y-5">
+      <Advice />
+      <p>
+        In force: current scale <span className="font-mono">{sheet.scaleUsed}</span>, offset <span className="font-mono">{sheet.offsetUsed}</span>{" "}
+        {sheet.startingSource === "published" ? "(the board's published recommended values)" : "(your own)"}. Firmware family: {sheet.familyName}.
+      </p>
+
+      {sheet.points.length > 0 && (
+        <section aria-labelledby="b-points" className="space-y-2">
+          <h2 id="b-points" className="font-display text-lg font-bold tracking-wide uppercase">Points</h2>
+          <ol className="space-y-2" data-testid="bench-points">
+            {sheet.points.map((p) => (
+              <li key={p.position} className="flex flex-wrap items-center justify-between gap-2 rounded-md border-2 border-rule bg-surface p-3">
+                <span>
+                  <span className="font-semibold">{p.position + 1}.</span> clamp meter <span className="font-mono">{formatFigure(p.measuredAmps, 2)} A</span>, display{" "}
+                  <span className="font-mono">{formatFigure(p.reportedAmps, 2)} A</span>
+                </span>
+                {open && p === last && <button type="button" className="sb-button sb-button-quiet" disabled={busy} onClick={() => remove.mutate(p.position)}>Take back</button>}
+              </li>
+            ))}
+          </ol>
+          <FieldError messages={Object.values(removeErrors).flat()} />
+        </section>
+      )}
+      {sheet.removed.length > 0 && (
+        <details className="text-small">
+          <summary className="text-muted">{sheet.removed.length} taken back (kept here, not counted)</summary>
+          <ul className="mt-1 space-y-1">
+            {sheet.removed.map((p) => <li key={p.removedAt}><del>clamp meter {formatFigure(p.measuredAmps, 2)} A, display {formatFigure(p.reportedAmps, 2)} A</del></li>)}
+          </ul>
+        </details>
+      )}
+
+      {v && (
         <section aria-labelledby="b-result" className="space-y-3 rounded-md border-3 border-rule bg-surface p-4" data-testid="bench-result">
           <h2 id="b-result" className="font-display text-heading uppercase">Fit</h2>
           <p className="text-small">
@@ -68,7 +126,7 @@ export function BenchWorksheetForm({ family, startingScale, startingOffset }: { 
             <span className="font-mono">{v.scaleRounding.up.setting}</span>; enter <strong className="font-mono">{v.scaleRounding.recommended.setting}</strong>. {v.scaleRounding.why}
           </p>
           <p>Current offset: enter <strong className="font-mono">{v.offset.setting}</strong> (leaves {formatFigure(v.offset.displayedErrorAmpsAtZero, 3)} A at zero current).</p>
-          <figure aria-label="Residuals: OSD minus fitted current at each point" className="h-48 w-full select-none">
+          <figure aria-label="Residuals: display minus fitted current at each point" className="h-48 w-full select-none">
             <ScatterChart responsive style={{ width: "100%", height: "100%" }} margin={{ top: 8, right: 12, bottom: 0, left: 0 }}>
               <CartesianGrid stroke="var(--sb-rule-soft)" vertical={false} />
               <ReferenceLine y={0} stroke="var(--sb-ink)" />
@@ -79,9 +137,23 @@ export function BenchWorksheetForm({ family, startingScale, startingOffset }: { 
           </figure>
         </section>
       )}
-      {result.warnings.length > 0 && touched && (
-        <ul className="space-y-1 rounded-md border-2 border-caution-edge bg-caution p-3 text-small">{result.warnings.map((w) => <li key={w.field + w.message}>⚠ {w.message}</li>)}</ul>
+      <Warnings items={sheet.warnings} />
+
+      {open && (
+        <form key={formKey} onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="bench-form">
+          <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add point {sheet.points.length + 1}</h2>
+          <p className="text-small">Hold the throttle steady until both readings settle; clamp the battery lead, arrow towards the board.</p>
+          <FieldError messages={[...(errors.input ?? []), ...(errors.points ?? [])]} />
+          <div className="grid gap-3 sm:grid-cols-2">
+            <NumberInput idPrefix="b" name="measuredAmps" label="Clamp meter (A)" errors={errors} />
+            <NumberInput idPrefix="b" name="reportedAmps" label="Display current (A)" errors={errors} />
+          </div>
+          <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>{add.isPending ? "Saving…" : "Save point"}</button>
+        </form>
       )}
+
+      <PublishPanel submissionId={sheet.submissionId} ready={v != null} busy={busy} errors={publishErrors} onPublish={() => publish.mutate()}
+        what="Sends the recommended current scale and offset with every point above as its bench evidence." />
     </div>
   );
 }

@@ -1,69 +1,148 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { useState, type FormEvent } from "react";
 import { ProbeCaution } from "@/components/submission/cautions";
-import { voltageWorksheet, type WorksheetFamily } from "@/lib/calibration/worksheets";
 import { formatFigure } from "@/lib/catalogue/format";
+import { voltageReadingInput, voltageStartInput, type VoltageSheetView } from "@/lib/worksheets/reading-input";
+import { MEASURED_AT, type MeasuredAt } from "@/lib/submissions/vocabulary";
+import { checked, FieldError, NumberInput, PublishPanel, RefusedError, numberIn, useSavedWorksheet, useStartWorksheet, Warnings, type Errors } from "./saved-worksheet";
 
-// The voltage worksheet: pairs of OSD and multimeter readings, worked out as the builder types by
-// lib/calibration/worksheets/voltage.ts. Nothing is stored; the figures are a moment's check.
+// The voltage worksheet, saved on the server pair by pair (lib/worksheets/voltage.ts), so a
+// builder can pick it up again on a phone at the field. The server judges each new pair with the
+// earlier ones (lib/calibration/worksheets/voltage.ts) and answers with the worksheet computed.
 
-type Row = { cells: string; reportedVolts: string; measuredVolts: string };
-const blank = (cells = ""): Row => ({ cells, reportedVolts: "", measuredVolts: "" });
-const num = (s: string) => (s.trim() === "" ? (undefined as unknown as number) : Number(s));
+const PLACE: Record<MeasuredAt, string> = { main_lead: "main lead", balance_outer_pins: "balance plug, outer pins" };
+const volts = (v: number) => `${formatFigure(v, 2)} V`;
 
-export function VoltageWorksheetForm({ family, startingScale }: { family: WorksheetFamily; startingScale: number | null }) {
-  const [scale, setScale] = useState(startingScale == null ? "" : String(startingScale));
-  const [rows, setRows] = useState<Row[]>([blank()]);
-  const touched = rows.some((r) => r.reportedVolts || r.measuredVolts);
-  const result = useMemo(
-    () => voltageWorksheet({ scaleUsed: num(scale), readings: rows.map((r) => ({ cells: num(r.cells), reportedVolts: num(r.reportedVolts), measuredVolts: num(r.measuredVolts) })) }, family),
-    [scale, rows, family],
-  );
-  const errors = new Map<string, string[]>();
-  if (!result.ok) for (const e of result.errors) errors.set(e.field, [...(errors.get(e.field) ?? []), e.message]);
-  const err = (field: string) => (touched ? errors.get(field) : undefined);
-  const set = (i: number, key: keyof Row, value: string) => setRows((rs) => rs.map((r, j) => (j === i ? { ...r, [key]: value } : r)));
+/** The quad's voltage worksheet: the open one, or a start form with the scale in force. */
+export function VoltageWorksheet({ quadId, startingScale, initial }: { quadId: number; startingScale: number | null; initial: VoltageSheetView | null }) {
+  const [sheet, setSheet] = useState(initial);
+  const start = useStartWorksheet<VoltageSheetView>(setSheet);
+  const [errors, setErrors] = useState<Errors>({});
+  if (sheet) return <VoltageSheet initial={sheet} />;
 
-  const input = (id: string, label: string, value: string, onChange: (v: string) => void, field: string, hint?: string) => (
-    <div>
-      <label htmlFor={id} className="mb-1 block font-semibold">{label}</label>
-      <input id={id} type="number" inputMode="decimal" className="sb-field" value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={err(field) ? true : undefined} />
-      {hint && <p className="mt-1 text-small text-muted">{hint}</p>}
-      {err(field) && <p className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{err(field)!.join(" ")}</p>}
+  function submit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    try {
+      const body = checked(voltageStartInput, { kind: "voltage", quadId, scaleUsed: numberIn(new FormData(event.currentTarget), "scaleUsed") });
+      setErrors({});
+      start.mutate(body, { onError: (e) => setErrors(e instanceof RefusedError ? e.errors : { input: [String(e)] }) });
+    } catch (e) {
+      if (e instanceof RefusedError) setErrors(e.errors);
+    }
+  }
+  return (
+    <div className="space-y-5">
+      <ProbeCaution />
+      <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="voltage-start">
+        <h2 className="font-display text-lg font-bold tracking-wide uppercase">Start a voltage check</h2>
+        <FieldError messages={[...(errors.input ?? []), ...(errors.quadId ?? [])]} />
+        <NumberInput idPrefix="vs" name="scaleUsed" label="Voltage scale in force" errors={errors} defaultValue={startingScale ?? undefined}
+          hint={startingScale != null ? "The board's published recommended value; change it if your quad runs another." : "Nothing is published for this board yet: enter the value your quad runs with."} />
+        <button type="submit" className="sb-button w-full sm:w-auto" disabled={start.isPending}>{start.isPending ? "Starting…" : "Start"}</button>
+      </form>
     </div>
   );
+}
+
+export function VoltageSheet({ initial }: { initial: VoltageSheetView }) {
+  const { sheet, add, remove, publish, addErrors, removeErrors, publishErrors, busy } = useSavedWorksheet(initial);
+  const [formErrors, setFormErrors] = useState<Errors>({});
+  const [formKey, setFormKey] = useState(0);
+  const errors = { ...addErrors, ...formErrors };
+  const r = sheet.result;
+  const open = sheet.submissionId == null;
+  const last = sheet.readings.at(-1);
+
+  function submit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const f = new FormData(event.currentTarget);
+    try {
+      const body = checked(voltageReadingInput, { cells: numberIn(f, "cells"), reportedVolts: numberIn(f, "reportedVolts"), measuredVolts: numberIn(f, "measuredVolts"), measuredAt: f.get("measuredAt") ?? undefined });
+      setFormErrors({});
+      add.mutate(body, { onSuccess: () => setFormKey((k) => k + 1) });
+    } catch (e) {
+      add.reset();
+      if (e instanceof RefusedError) setFormErrors(e.errors);
+    }
+  }
 
   return (
     <div className="space-y-5">
       <ProbeCaution />
-      <div className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="voltage-form">
-        {input("v-scale", "Voltage scale in force", scale, setScale, "scaleUsed", startingScale != null ? "The board's published recommended value, until you enter yours" : undefined)}
-        {rows.map((r, i) => (
-          <fieldset key={i} className="grid gap-3 border-t border-rule pt-3 sm:grid-cols-3">
-            <legend className="font-semibold">Reading {i + 1}</legend>
-            {input(`v-${i}-cells`, "Cells (S)", r.cells, (v) => set(i, "cells", v), `readings.${i}.cells`)}
-            {input(`v-${i}-rep`, "OSD voltage (V)", r.reportedVolts, (v) => set(i, "reportedVolts", v), `readings.${i}.reportedVolts`, "The whole pack, at rest")}
-            {input(`v-${i}-meas`, "Multimeter (V)", r.measuredVolts, (v) => set(i, "measuredVolts", v), `readings.${i}.measuredVolts`, "Taken at the same moment")}
-          </fieldset>
-        ))}
-        <button type="button" className="sb-button sb-button-quiet" onClick={() => setRows((rs) => [...rs, blank(rs.at(-1)?.cells ?? "")])}>Add another reading</button>
-      </div>
-      {result.ok && touched && (
-        <section aria-labelledby="v-result" className="space-y-2 rounded-md border-3 border-rule bg-surface p-4" data-testid="voltage-result">
-          <h2 id="v-result" className="font-display text-heading uppercase">{result.value.verdict === "keep" ? "Keep the scale" : "Change the scale"}</h2>
-          <p>{result.value.message}</p>
-          <p className="text-small">
-            Exact scale <span className="font-mono">{formatFigure(result.value.impliedScale, 2)}</span> ({result.value.combination}); down{" "}
-            <span className="font-mono">{result.value.rounding.down.setting}</span>, up <span className="font-mono">{result.value.rounding.up.setting}</span>; recommended{" "}
-            <strong className="font-mono">{result.value.rounding.recommended.setting}</strong>. {result.value.rounding.why}
-          </p>
-          <p className="text-small text-muted">Tolerance ±{result.value.tolerance.relative * 100} % ({result.value.tolerance.source}).</p>
+      <p>
+        Voltage scale in force: <span className="font-mono">{sheet.scaleUsed}</span>{" "}
+        {sheet.startingSource === "published" ? "(the board's published recommended value)" : "(your own)"}. Firmware family: {sheet.familyName}.
+      </p>
+
+      {sheet.readings.length > 0 && (
+        <section aria-labelledby="v-readings" className="space-y-2">
+          <h2 id="v-readings" className="font-display text-lg font-bold tracking-wide uppercase">Readings</h2>
+          <ol className="space-y-2" data-testid="voltage-readings">
+            {sheet.readings.map((x) => (
+              <li key={x.position} className="flex flex-wrap items-center justify-between gap-2 rounded-md border-2 border-rule bg-surface p-3">
+                <span>
+                  <span className="font-semibold">{x.position + 1}.</span> {x.cells}S — display <span className="font-mono">{volts(x.reportedVolts)}</span>, meter{" "}
+                  <span className="font-mono">{volts(x.measuredVolts)}</span> <span className="text-small text-muted">({PLACE[x.measuredAt]})</span>
+                </span>
+                {open && x === last && (
+                  <button type="button" className="sb-button sb-button-quiet" disabled={busy} onClick={() => remove.mutate(x.position)}>Take back</button>
+                )}
+              </li>
+            ))}
+          </ol>
+          <FieldError messages={Object.values(removeErrors).flat()} />
         </section>
       )}
-      {result.warnings.length > 0 && touched && (
-        <ul className="space-y-1 rounded-md border-2 border-caution-edge bg-caution p-3 text-small">{result.warnings.map((w) => <li key={w.field + w.message}>⚠ {w.message}</li>)}</ul>
+      {sheet.removed.length > 0 && (
+        <details className="text-small">
+          <summary className="text-muted">{sheet.removed.length} taken back (kept here, not counted)</summary>
+          <ul className="mt-1 space-y-1">
+            {sheet.removed.map((x) => <li key={x.removedAt}><del>{x.cells}S — display {volts(x.reportedVolts)}, meter {volts(x.measuredVolts)}</del></li>)}
+          </ul>
+        </details>
       )}
+
+      {r && (
+        <section aria-labelledby="v-result" className="space-y-2 rounded-md border-3 border-rule bg-surface p-4" data-testid="voltage-result">
+          <h2 id="v-result" className="font-display text-heading uppercase">{r.verdict === "keep" ? "Keep the scale" : "Change the scale"}</h2>
+          <p>{r.message}</p>
+          <p className="text-small">
+            Exact scale <span className="font-mono">{formatFigure(r.impliedScale, 2)}</span> ({r.combination}); down <span className="font-mono">{r.rounding.down.setting}</span>, up{" "}
+            <span className="font-mono">{r.rounding.up.setting}</span>; recommended <strong className="font-mono">{r.rounding.recommended.setting}</strong>. {r.rounding.why}
+          </p>
+          <p className="text-small text-muted">Tolerance ±{r.tolerance.relative * 100} % ({r.tolerance.source}).</p>
+        </section>
+      )}
+      <Warnings items={sheet.warnings} />
+
+      {open && (
+        <form key={formKey} onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="voltage-form">
+          <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add reading {sheet.readings.length + 1}</h2>
+          <p className="text-small">With the pack at rest, read the display and the multimeter at the same moment.</p>
+          <FieldError messages={[...(errors.input ?? []), ...(errors.readings ?? []), ...(errors.scaleUsed ?? [])]} />
+          <div className="grid gap-3 sm:grid-cols-3">
+            <NumberInput idPrefix="v" name="cells" label="Cells (S)" errors={errors} defaultValue={last?.cells} />
+            <NumberInput idPrefix="v" name="reportedVolts" label="Display voltage (V)" errors={errors} hint="The whole pack" />
+            <NumberInput idPrefix="v" name="measuredVolts" label="Multimeter (V)" errors={errors} />
+          </div>
+          <fieldset aria-describedby={errors.measuredAt ? "v-measuredAt-error" : undefined}>
+            <legend className="mb-1 font-semibold">Where the probes touched</legend>
+            <div className="flex flex-wrap gap-x-5 gap-y-2">
+              {MEASURED_AT.map((place) => (
+                <label key={place} className="flex items-center gap-2">
+                  <input type="radio" name="measuredAt" value={place} defaultChecked={(last?.measuredAt ?? "main_lead") === place} className="size-5" /> {PLACE[place]}
+                </label>
+              ))}
+            </div>
+            <FieldError id="v-measuredAt-error" messages={errors.measuredAt} />
+          </fieldset>
+          <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>{add.isPending ? "Saving…" : "Save reading"}</button>
+        </form>
+      )}
+
+      <PublishPanel submissionId={sheet.submissionId} ready={r != null} busy={busy} errors={publishErrors} onPublish={() => publish.mutate()}
+        what="Sends the recommended voltage scale with every reading above as its multimeter evidence." />
     </div>
   );
 }

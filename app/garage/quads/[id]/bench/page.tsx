@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
-import { BenchWorksheetForm } from "@/components/worksheets/bench-worksheet";
+import { BenchWorksheet } from "@/components/worksheets/bench-worksheet";
+import type { BenchSheetView } from "@/lib/worksheets/reading-input";
 import { QuadWorksheetPage } from "../worksheet-page";
 
 export const dynamic = "force-dynamic";
@@ -7,8 +8,8 @@ export const metadata: Metadata = { title: "Bench worksheet" };
 
 type Props = { params: Promise<{ id: string }> };
 
-// The bench (clamp-meter) worksheet for one of the builder's quads, starting from the board's
-// published current scale and offset.
+// The bench (clamp-meter) worksheet for one of the builder's quads: the open one, saved on the
+// server, or a start form offering the board's published current scale and offset.
 export default async function BenchPage({ params }: Props) {
   return (
     <QuadWorksheetPage
@@ -16,8 +17,8 @@ export default async function BenchPage({ params }: Props) {
       section="bench"
       title="Bench current check"
       setting="current-scale"
-      render={({ family, published }) => (
-        <BenchWorksheetForm family={family} startingScale={published.currentScale} startingOffset={published.currentOffset} />
+      render={({ quad, published, open }) => (
+        <BenchWorksheet quadId={quad.id} startingScale={published.currentScale} startingOffset={published.currentOffset} initial={open as BenchSheetView | null} />
       )}
     />
   );

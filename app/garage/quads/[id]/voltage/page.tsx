@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
-import { VoltageWorksheetForm } from "@/components/worksheets/voltage-worksheet";
+import { VoltageWorksheet } from "@/components/worksheets/voltage-worksheet";
+import type { VoltageSheetView } from "@/lib/worksheets/reading-input";
 import { QuadWorksheetPage } from "../worksheet-page";
 
 export const dynamic = "force-dynamic";
@@ -7,8 +8,8 @@ export const metadata: Metadata = { title: "Voltage worksheet" };
 
 type Props = { params: Promise<{ id: string }> };
 
-// The voltage worksheet for one of the builder's quads: its family's rules and, as the starting
-// value, the board's published recommended voltage scale.
+// The voltage worksheet for one of the builder's quads: the open one, saved on the server, or a
+// start form offering the board's published recommended voltage scale.
 export default async function VoltagePage({ params }: Props) {
   return (
     <QuadWorksheetPage
@@ -16,7 +17,7 @@ export default async function VoltagePage({ params }: Props) {
       section="voltage"
       title="Voltage check"
       setting="voltage-scale"
-      render={({ family, published }) => <VoltageWorksheetForm family={family} startingScale={published.voltageScale} />}
+      render={({ quad, published, open }) => <VoltageWorksheet quadId={quad.id} startingScale={published.voltageScale} initial={open as VoltageSheetView | null} />}
     />
   );
 }

@@ -2,7 +2,11 @@ import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { migrateDownAll, migrateUp, pendingMigrations } from "@/lib/db/migrate";
 import { createSequelize } from "@/lib/db/sequelize";
+import * as benchPoints from "@/migrations/20261212000300-create-worksheet-bench-points";
+import * as voltageReadings from "@/migrations/20261212000200-create-worksheet-voltage-readings";
+import * as worksheetKinds from "@/migrations/20261212000100-allow-voltage-and-bench-worksheets";
 import { useTestDatabase } from "@/tests/support/database";
+import { insertFixture } from "@/tests/support/fixtures";
 
 const database = useTestDatabase("migrated");
 
@@ -79,6 +83,36 @@ describe("migrations", () => {
     expect(ups).toEqual([...downs].reverse());
     expect(await tables()).toEqual(EXPECTED_TABLES);
     expect(await jobSchemaExists()).toBe(true);
+  });
+
+  it("worksheets: pack columns for fly_recharge only, the offset for bench only; the kinds' down keeps fly-and-recharge rows and restores the old schema", async () => {
+    const fx = await insertFixture(sequelize);
+    const [quad] = await sequelize.query<{ id: number }>("INSERT INTO quads (owner_id, name, board_revision_id, firmware_family_id) VALUES ($1, 'Q', $2, $3) RETURNING id", {
+      bind: [fx.userId, fx.revisionIds[0], fx.familyId],
+      type: QueryTypes.SELECT,
+    });
+    const sheet = (kind: string, ratedMah: number | null, cells: number | null, offset: number | null) =>
+      sequelize.query(
+        `INSERT INTO worksheets (owner_id, quad_id, kind, firmware_family_id, rated_mah, cells, starting_scale, starting_offset, starting_source)
+         VALUES ($1, $2, $3, $4, $5, $6, 400, $7, 'own')`,
+        { bind: [fx.userId, quad.id, kind, fx.familyId, ratedMah, cells, offset] },
+      );
+    await sheet("fly_recharge", 1500, 4, null);
+    await sheet("voltage", null, null, null);
+    await sheet("bench", null, null, 0);
+    for (const bad of [["fly_recharge", null, 4, null], ["voltage", 1500, 4, null], ["bench", null, null, null], ["voltage", null, null, 0], ["guess", null, null, null]] as const) {
+      await expect(sheet(...bad), JSON.stringify(bad)).rejects.toThrow(/check constraint/);
+    }
+
+    const qi = sequelize.getQueryInterface();
+    for (const m of [benchPoints, voltageReadings, worksheetKinds]) await m.down(qi);
+    const kinds = await sequelize.query<{ kind: string }>("SELECT kind FROM worksheets", { type: QueryTypes.SELECT });
+    expect(kinds.map((k) => k.kind)).toEqual(["fly_recharge"]);
+    await expect(sheet("voltage", 1500, 4, null)).rejects.toThrow(/starting_offset|check constraint/);
+    await expect(sequelize.query("INSERT INTO worksheets (owner_id, quad_id, kind, firmware_family_id, rated_mah, cells, starting_scale, starting_source) VALUES ($1, $2, 'fly_recharge', $3, NULL, 4, 400, 'own')", { bind: [fx.userId, quad.id, fx.familyId] })).rejects.toThrow(/not-null|null value/);
+    for (const m of [worksheetKinds, voltageReadings, benchPoints]) await m.up(qi);
+    expect(await tables()).toEqual(EXPECTED_TABLES);
+    await sheet("bench", null, null, -20);
   });
 
   it("check constraints refuse impossible values", async () => {

@@ -100,9 +100,8 @@ describe("migrations", () => {
     await sheet("fly_recharge", 1500, 4, null);
     await sheet("voltage", null, null, null);
     await sheet("bench", null, null, 0);
-    for (const bad of [["fly_recharge", null, 4, null], ["voltage", 1500, 4, null], ["bench", null, null, null], ["voltage", null, null, 0], ["guess", null, null, null]] as const) {
-      await expect(sheet(...bad), JSON.stringify(bad)).rejects.toThrow(/check constraint/);
-    }
+    const refused: Array<Parameters<typeof sheet>> = [["fly_recharge", null, 4, null], ["voltage", 1500, 4, null], ["bench", null, null, null], ["voltage", null, null, 0], ["guess", null, null, null]];
+    for (const bad of refused) await expect(sheet(...bad), JSON.stringify(bad)).rejects.toThrow(/check constraint/);
 
     const qi = sequelize.getQueryInterface();
     for (const m of [benchPoints, voltageReadings, worksheetKinds]) await m.down(qi);

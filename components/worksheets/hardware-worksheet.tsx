@@ -55,13 +55,21 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
     () => ({ ...(Object.fromEntries(HARDWARE_FIGURE_KEYS.map((k) => [k, asNumber(texts[k])])) as Record<HardwareFigureKey, number | null>), currentSensor: sensor === "unknown" ? null : sensor }),
     [texts, sensor],
   );
-  const result = useMemo(
-    () => hardwareWorksheet(hardwareWorksheetInput(figures, { published, atAmps: asNumber(atAmps) }), family),
-    [figures, published, atAmps, family],
-  );
+  // The whole input names every bad field; each part is also worked out on its own so that a
+  // half-typed resistor pair does not hide the current scale (and the other way round).
+  const { result, voltage, current } = useMemo(() => {
+    const input = hardwareWorksheetInput(figures, { published, atAmps: asNumber(atAmps) });
+    const part = (keep: boolean, only: Partial<typeof input>) => (keep ? hardwareWorksheet({ ...input, ...only }, family) : null);
+    return {
+      result: hardwareWorksheet(input, family),
+      voltage: part(input.divider != null, { currentSensor: null, atAmps: null }),
+      current: part(input.currentSensor != null, { divider: null, maxCells: null }),
+    };
+  }, [figures, published, atAmps, family]);
   const errors = new Map<string, string[]>();
   if (!result.ok) for (const e of result.errors) errors.set(e.field, [...(errors.get(e.field) ?? []), e.message]);
   const noParts = errors.get("input");
+  const warnings = [...new Map([...(voltage?.warnings ?? []), ...(current?.warnings ?? [])].map((w) => [w.field + w.message, w])).values()];
 
   const field = (key: HardwareFigureKey) => {
     const id = `hw-${key}`;
@@ -106,7 +114,8 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
           {field("dividerBottomOhms")}
         </fieldset>
 
-        <fieldset className="space-y-3 border-t border-rule pt-3">
+        {/* the rule sits on a wrapper: on a fieldset it would run through the legend */}
+        <div className="border-t border-rule pt-3"><fieldset className="space-y-3">
           <legend className="mb-2 font-display text-lg font-bold tracking-wide uppercase">Current sensor</legend>
           <div className="flex flex-wrap gap-x-5 gap-y-2" role="radiogroup" aria-label="Current sensor kind" aria-describedby="hw-sensor-origin">
             {([["shunt", "Shunt and amplifier"], ["hall", "Hall sensor"], ["unknown", "Not known / none on board"]] as const).map(([value, label]) => (
@@ -122,9 +131,9 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
           {sensor === "shunt" && <div className="grid gap-3 sm:grid-cols-2">{field("shuntMilliohms")}{field("amplifierGain")}</div>}
           {sensor === "hall" && <div className="grid gap-3 sm:grid-cols-2">{field("hallMvPerAmp")}</div>}
           {errors.get("currentSensor.kind") && <p className="font-semibold text-fault">⚠ {errors.get("currentSensor.kind")!.join(" ")}</p>}
-        </fieldset>
+        </fieldset></div>
 
-        <fieldset className="grid gap-3 border-t border-rule pt-3 sm:grid-cols-2">
+        <div className="border-t border-rule pt-3"><fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 font-display text-lg font-bold tracking-wide uppercase">ADC and pack</legend>
           {field("adcReferenceVolts")}
           {field("adcBits")}
@@ -135,20 +144,20 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
             <p className="mt-1 text-small text-muted">Optional: the sensor&rsquo;s output and the shunt&rsquo;s heat at, say, full throttle</p>
             {errors.get("atAmps") && <p className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{errors.get("atAmps")!.join(" ")}</p>}
           </div>
-        </fieldset>
+        </fieldset></div>
       </div>
 
       {noParts && <p className="font-semibold" data-testid="hardware-needs-parts">{noParts.join(" ")}: enter them above to see the expected settings.</p>}
 
-      {result.ok && (
+      {!noParts && (
         <div className="space-y-4" data-testid="hardware-result">
-          <VoltageResult v={result.value.voltage} family={family} published={published.voltageScale} />
-          <CurrentResult c={result.value.current} family={family} published={published.currentScale} />
+          {voltage && !voltage.ok ? <FixFirst what="voltage scale" /> : <VoltageResult v={voltage?.ok ? voltage.value.voltage : null} family={family} published={published.voltageScale} />}
+          {current && !current.ok ? <FixFirst what="current scale" /> : <CurrentResult c={current?.ok ? current.value.current : null} family={family} published={published.currentScale} />}
         </div>
       )}
 
-      {result.warnings.length > 0 && (
-        <ul className="space-y-1 rounded-md border-2 border-caution-edge bg-caution p-3 text-small" data-testid="hardware-warnings">{result.warnings.map((w) => <li key={w.field + w.message}>⚠ {w.message}</li>)}</ul>
+      {warnings.length > 0 && (
+        <ul className="space-y-1 rounded-md border-2 border-caution-edge bg-caution p-3 text-small" data-testid="hardware-warnings">{warnings.map((w) => <li key={w.field + w.message}>⚠ {w.message}</li>)}</ul>
       )}
 
       <section aria-labelledby="hw-counts" className="space-y-2 rounded-md border-2 border-rule p-4">
@@ -162,6 +171,8 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
     </div>
   );
 }
+
+const FixFirst = ({ what }: { what: string }) => <p className="font-semibold">The {what} shows once the figures marked ⚠ above are complete.</p>;
 
 const stepWords = (step: number, unit: string) => `in steps of ${step} ${unit}`;
 

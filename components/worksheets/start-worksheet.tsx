@@ -79,7 +79,7 @@ export function StartWorksheet({ quadId }: { quadId: number }) {
           <select id="s-pack" className="sb-field" value={packId} onChange={(e) => choosePack(e.target.value)} aria-describedby="s-pack-hint">
             <option value="">Not one of my packs: type the figures</option>
             {packs.data.map((p) => (
-              <option key={p.id} value={p.id}>{p.label} — {p.cells}S {CHEMISTRY_LIMITS[p.chemistry].label}, {p.ratedMah} mAh</option>
+              <option key={p.id} value={p.id}>{p.label} · {p.cells}S {p.ratedMah} mAh {CHEMISTRY_LIMITS[p.chemistry].label}</option>
             ))}
           </select>
           <p id="s-pack-hint" className="mt-1 text-small text-muted" data-testid="pack-hint">

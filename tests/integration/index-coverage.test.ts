@@ -7,6 +7,11 @@ import * as usersRoute from "@/app/api/v1/admin/users/route";
 import * as revertRoute from "@/app/api/v1/admin/events/[id]/revert/route";
 import * as packsRoute from "@/app/api/v1/garage/packs/route";
 import * as quadsRoute from "@/app/api/v1/garage/quads/route";
+import * as worksheetRoute from "@/app/api/v1/garage/worksheets/[id]/route";
+import * as publishWorksheetRoute from "@/app/api/v1/garage/worksheets/[id]/publish/route";
+import * as worksheetStepRoute from "@/app/api/v1/garage/worksheets/[id]/steps/[position]/route";
+import * as worksheetStepsRoute from "@/app/api/v1/garage/worksheets/[id]/steps/route";
+import * as worksheetsRoute from "@/app/api/v1/garage/worksheets/route";
 import * as eventsRoute from "@/app/api/v1/moderation/events/route";
 import * as queueRoute from "@/app/api/v1/moderation/queue/route";
 import * as approveRoute from "@/app/api/v1/moderation/submissions/[id]/approve/route";
@@ -22,6 +27,7 @@ import { stopBoss } from "@/lib/jobs";
 import { getValueHistory } from "@/lib/moderation/history";
 import { contributorRecord } from "@/lib/moderation/trust";
 import { chosenBoard } from "@/lib/submissions/form-data";
+import { listQuadWorksheets, openWorksheetId } from "@/lib/worksheets";
 import { callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";
 import { pickTarget, validBody } from "./submissions-helpers";
@@ -119,6 +125,19 @@ describe("every query an endpoint or page runs has an index behind it", () => {
     await ok(send(quadsRoute.POST, "POST", "/api/v1/garage/quads", contributor, { name: "Index check quad" }), 201);
     await ok(get(quadsRoute.GET, "/api/v1/garage/quads", contributor));
     await ok(get(packsRoute.GET, "/api/v1/garage/packs", contributor));
+    // a saved voltage worksheet: started, two readings, one taken back, read, listed, published
+    const { quad } = await ok(send(quadsRoute.POST, "POST", "/api/v1/garage/quads", contributor, { name: "Index check sheets", boardRevisionId: target.revisionId, firmwareFamilyId: target.familyId, firmwareVersion: "1.0.0" }), 201);
+    const { worksheet } = await ok(send(worksheetsRoute.POST, "POST", "/api/v1/garage/worksheets", contributor, { kind: "voltage", quadId: quad.id, scaleUsed: 110 }), 201);
+    const sheetId = String(worksheet.id);
+    for (const measuredVolts of [16.4, 16.5]) {
+      await ok(send(worksheetStepsRoute.POST, "POST", `/api/v1/garage/worksheets/${sheetId}/steps`, contributor, { cells: 4, reportedVolts: 16, measuredVolts, measuredAt: "main_lead" }, { id: sheetId }), 201);
+    }
+    await ok(send(worksheetStepRoute.DELETE, "DELETE", `/api/v1/garage/worksheets/${sheetId}/steps/1`, contributor, undefined, { id: sheetId, position: "1" }));
+    await ok(get(worksheetRoute.GET, `/api/v1/garage/worksheets/${sheetId}`, contributor, { id: sheetId }));
+    const builder = (await testAccount("contributor")).id;
+    expect(await listQuadWorksheets(builder, quad.id)).toHaveLength(1);
+    expect(await openWorksheetId(builder, quad.id, "voltage")).toBe(worksheet.id);
+    await ok(send(publishWorksheetRoute.POST, "POST", `/api/v1/garage/worksheets/${sheetId}/publish`, contributor, {}, { id: sheetId }), 201);
 
     // moderation: the queue every way it is filtered, a review, decisions, the log, a revert
     for (const q of ["", "?flag=outlier", "?flag=none&age=older", `?board=${slug}&sort=oldest`, "?sort=newest&page=2"]) {

@@ -1,4 +1,4 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import { DataTypes, fn, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
 import type { BoardAlias } from "./BoardAlias";
 import type { BoardRevision } from "./BoardRevision";
 import type { Manufacturer } from "./Manufacturer";
@@ -16,6 +16,12 @@ export class BoardModel extends Model<InferAttributes<BoardModel>, InferCreation
   declare minCells: CreationOptional<number>;
   declare maxCells: number;
   declare description: string | null;
+  /**
+   * The id of the transaction that last changed this board's published values (xid8, as text):
+   * written by the database (its default, triggers) and by lib/published refreshGroups, never by
+   * hand. The values cache's stamp; see migrations/20261212001000-add-values-version-to-board-models.ts.
+   */
+  declare valuesVersion: CreationOptional<string>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -34,6 +40,7 @@ export class BoardModel extends Model<InferAttributes<BoardModel>, InferCreation
         minCells: { type: DataTypes.SMALLINT, allowNull: false, defaultValue: 1 },
         maxCells: { type: DataTypes.SMALLINT, allowNull: false },
         description: { type: DataTypes.TEXT, allowNull: true },
+        valuesVersion: { type: "xid8", allowNull: false, defaultValue: fn("pg_current_xact_id") },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

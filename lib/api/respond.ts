@@ -40,6 +40,18 @@ export function jsonWithEtag(request: Request, etag: string, body: string | (() 
 }
 
 /**
+ * 200 with a body kept as bytes, possibly already compressed in `coding` (lib/api/content-coding.ts).
+ * Such a response depends on Accept-Encoding, and says so in Vary, as its 304s must too.
+ */
+export function encodedJson(etag: string, body: Uint8Array<ArrayBuffer>, coding: string | null, cacheControl = READ_CACHE_CONTROL): Response {
+  const headers = readHeaders(etag, cacheControl);
+  headers.set("Content-Type", JSON_TYPE);
+  headers.set("Vary", "Accept-Encoding");
+  if (coding) headers.set("Content-Encoding", coding);
+  return new Response(body, { status: 200, headers });
+}
+
+/**
  * 200 for a body that is cheap to rebuild: serialised once, tagged by its hash, answered 304 when
  * the client's tag matches. The type parameter is the response schema's type, so a handler cannot
  * return a shape the OpenAPI document does not describe.

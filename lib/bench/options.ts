@@ -25,6 +25,8 @@ export type BenchOptions = {
   docs: string | null;
   /** Rebuild board_stats exactly as npm run stats:rebuild does, without the planner workaround. */
   stockRebuild: boolean;
+  /** Accept-Encoding sent with (a), (b) and (c), as a browser would; null: none, as the issue's comparison wants. */
+  acceptEncoding: string | null;
   help: boolean;
 };
 
@@ -43,11 +45,13 @@ export const USAGE = `npm run bench:lookup -- [flags]
   --no-docs             print the report only
   --stock-rebuild       rebuild board_stats exactly as npm run stats:rebuild does (by default nested
                         loops are switched off for it: see docs/benchmarks.md; stock, it is quadratic)
+  --accept-encoding V   send Accept-Encoding: V with (a), (b) and (c), as a browser does, e.g.
+                        "gzip, deflate, br" (default: none; the bare server (d) never compresses)
   --help                this text
 
 The full run the issue asks for:  npm run bench:lookup -- --boards 5000 --sizes 10000,1000000`;
 
-const FLAGS_WITH_VALUE = ["boards", "sizes", "submissions", "connections", "duration", "rounds", "warmup", "docs"] as const;
+const FLAGS_WITH_VALUE = ["boards", "sizes", "submissions", "connections", "duration", "rounds", "warmup", "docs", "accept-encoding"] as const;
 const SWITCHES = ["no-docs", "stock-rebuild", "help"] as const;
 
 const whole = (flag: string, min: number, max: number) =>
@@ -76,6 +80,7 @@ const Schema = z
     docs: z.string().min(1, "--docs needs a file path").default("docs/benchmarks.md"),
     "no-docs": z.boolean().default(false),
     "stock-rebuild": z.boolean().default(false),
+    "accept-encoding": z.string().trim().min(1, "--accept-encoding needs a value, e.g. \"gzip, deflate, br\"").max(200, "--accept-encoding must be at most 200 characters").optional(),
     help: z.boolean().default(false),
   })
   .refine((o) => !(o.sizes && o.submissions), { message: "give either --sizes or --submissions, not both", path: ["submissions"] })
@@ -137,6 +142,7 @@ export function parseBenchArgs(args: string[]): BenchOptions {
     warmup: o.warmup,
     docs: o["no-docs"] ? null : o.docs,
     stockRebuild: o["stock-rebuild"],
+    acceptEncoding: o["accept-encoding"] ?? null,
     help: o.help,
   };
 }

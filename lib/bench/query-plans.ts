@@ -30,7 +30,8 @@ export async function explainLookup(sequelize: Sequelize, slug: string): Promise
   const recorder = recording(sequelize, captured);
   const header = await readBoardHeader(recorder, slug);
   if (!header) throw new Error(`no board has the slug ${slug}`);
-  await readBoardValues(recorder, header);
+  // the default view, as the benchmark asks for it: without points (points=1 adds POINTS_SQL)
+  await readBoardValues(recorder, header, { points: false });
   const plans: QueryPlan[] = [];
   // each statement once more, explained (the run above warmed the buffer cache, as traffic would)
   for (const { sql, options } of captured) {

@@ -101,12 +101,14 @@ async function measureSize(
 
   const drawPath = uniformPicker(paths);
   const drawRecorded = uniformPicker([...recorded]);
+  // what a browser adds; the bare server (d) answers the same bytes whatever is asked
+  const encoding: Record<string, string> | undefined = options.acceptEncoding ? { "accept-encoding": options.acceptEncoding } : undefined;
   const picks: Record<TargetId, Pick> = {
-    framework: () => ({ path: HEALTH_PATH }),
-    lookup: () => ({ path: drawPath() }),
+    framework: () => ({ path: HEALTH_PATH, headers: encoding }),
+    lookup: () => ({ path: drawPath(), headers: encoding }),
     revalidate: () => {
       const [path, r] = drawRecorded();
-      return { path, headers: { "if-none-match": r.etag } };
+      return { path, headers: { ...encoding, "if-none-match": r.etag } };
     },
     machine: () => ({ path: drawPath() }),
   };
@@ -154,6 +156,9 @@ function methodNotes(options: BenchOptions): string[] {
   return [
     "Each size is seeded into its own database on a throwaway PostgreSQL cluster (temporary folder, free port, fsync off), migrated from zero; the app runs `next start` on the production build against it, one process, restarted per size.",
     `Requests for (a), (b) and (d) each draw a board uniformly at random from all ${options.boards.toLocaleString("en")} boards (autocannon setupRequest); (b) sends back the ETag recorded for the board drawn. The default view is asked for (no filters, no points).`,
+    options.acceptEncoding
+      ? `(a), (b) and (c) send \`Accept-Encoding: ${options.acceptEncoding}\`, as a browser does; (d) answers uncompressed bytes.`
+      : "No request sends Accept-Encoding, so every body goes out uncompressed (the issue's comparison).",
     `Before a size is measured every board's values are fetched once (the cache as traffic would leave it, and the ETags and bytes for (b) and (d)). At each connection count every target first gets ${options.warmup} s of unrecorded load; then each is measured for ${options.duration} s in all, in ${options.rounds} round(s) that take the targets in turn (c, a, b, d), so that other work on the machine falls on all of them.`,
     "req/s is the median of the per-second response counts pooled over the rounds (q1–q3 beside it shows the wobble); p50 and p99 are over every response's latency; both are Hyndman–Fan type 7 quantiles (lib/stats). A run with any response of the wrong status (not 200, or not 304 for b) or any connection error is left out of the ratios.",
     "autocannon runs in the benchmark's process, the app and the bare server in their own, all on this machine: on few cores they share the CPU, so the ceilings are this machine's, not the framework's in general.",

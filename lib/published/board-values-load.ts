@@ -17,26 +17,23 @@ export type BoardHeader = {
   kind: BoardKind;
   manufacturerSlug: string;
   manufacturerName: string;
-  /** Changes whenever anything in this board's values response can change; see STAMP_SQL. */
+  /** Changes whenever anything in this board's values response can change; see BOARD_STAMP_SQL. */
   stamp: string;
 };
 
-const epoch = (expr: string) => `coalesce((extract(epoch FROM ${expr}) * 1000000)::bigint, 0)`;
+/** The stamp of board row `bm`, as BOARD_SQL and the change feed (board-values-feed.ts) read it. */
+export const BOARD_STAMP_SQL = `concat_ws('|', bm.id, bm.values_version, (extract(epoch FROM bm.created_at) * 1000000)::bigint)`;
 
-// One cheap round trip that fingerprints everything the values response is built from: the board
-// and maker rows, its revisions, its board_stats rows (rewritten with a new computed_at on every
-// refresh), its approved submissions (the points) and the firmware families (the units). Counts
-// catch deletions that leave the newest timestamp unchanged. Each part uses an index on the board's
-// revisions (board_stats' primary key and submissions_group_status_idx both start with the revision).
+// The stamp is the board row's values_version (migrations/20261212001000-…): the id of the last
+// transaction that changed anything the values response is built from. refreshGroups sets it for
+// every change to board_stats (and so to the approved submissions behind them, the points), and
+// triggers set it for edits to the board, its maker, its revisions and the firmware families.
+// created_at tells apart two databases that happen to share ids and transaction ids (a test
+// database re-made from a template, a benchmark database seeded again). One index lookup by slug,
+// whatever the size of the board: the stamp used to count the board's approved submissions here.
 const BOARD_SQL = `
   SELECT bm.id, bm.slug, bm.name, bm.kind, m.slug AS "manufacturerSlug", m.name AS "manufacturerName",
-         concat_ws('|', bm.id, ${epoch("bm.updated_at")}, ${epoch("m.updated_at")},
-           (SELECT count(*) || ':' || ${epoch("max(br.updated_at)")} FROM board_revisions br WHERE br.board_model_id = bm.id),
-           (SELECT count(*) || ':' || ${epoch("max(bs.computed_at)")} FROM board_stats bs
-              JOIN board_revisions br ON br.id = bs.board_revision_id WHERE br.board_model_id = bm.id),
-           (SELECT count(*) || ':' || ${epoch("max(s.updated_at)")} FROM submissions s
-              JOIN board_revisions br ON br.id = s.board_revision_id WHERE br.board_model_id = bm.id AND s.status = 'approved'),
-           (SELECT count(*) || ':' || ${epoch("max(ff.updated_at)")} FROM firmware_families ff)) AS stamp
+         ${BOARD_STAMP_SQL} AS stamp
     FROM board_models bm JOIN manufacturers m ON m.id = bm.manufacturer_id
    WHERE bm.slug = $slug`;
 
@@ -133,7 +130,7 @@ const UNIT_OF: Record<Quantity, (u: FamilyUnits) => { unit: string; step: number
   current_offset: (u) => u.currentOffset,
 };
 
-function quantityValues(row: StatsRow, units: FamilyUnits, points: ValuePoint[]): QuantityValues {
+function quantityValues(row: StatsRow, units: FamilyUnits, points: ValuePoint[] | null): QuantityValues {
   const { unit, step } = UNIT_OF[row.quantity](units);
   // board_stats keeps the recommendation as a whole setting; recommendValue turns it back into the
   // physical value with the same 12-digit cut the recommendation itself used (lib/stats/recommend.ts)
@@ -156,7 +153,8 @@ function quantityValues(row: StatsRow, units: FamilyUnits, points: ValuePoint[])
     confidence: { label: row.confidence, title: CONFIDENCE_TITLES[row.confidence], explanation: CONFIDENCE_EXPLANATIONS[row.confidence] },
     lastChangeAt: row.lastValueAt.toISOString(),
     computedAt: row.computedAt.toISOString(),
-    points,
+    // absent rather than undefined, so the point-free JSON has no trace of it
+    ...(points ? { points } : {}),
   };
 }
 
@@ -187,16 +185,23 @@ function groupBy<T>(rows: T[], key: (row: T) => string): Map<string, T[]> {
 }
 
 /**
- * Every revision's published values with points, and every firmware family's units (the filter
- * needs to know which family slugs exist). Four queries, run side by side.
+ * Every revision's published values, and every firmware family's units (the filter needs to know
+ * which family slugs exist). With `points`, each quantity also carries its approved values and
+ * their flags; without, those are neither read nor flagged: the point-free view is what nearly
+ * every reader asks for, and the points are most of the work on a busy board (finding 2 in
+ * docs/benchmarks.md: 8.4 of 11.3 ms of SQL for the busiest). Three or four queries, side by side.
  */
-export async function readBoardValues(sequelize: Sequelize, header: BoardHeader): Promise<{ values: BoardValues; allFamilies: FamilyUnits[] }> {
+export async function readBoardValues(
+  sequelize: Sequelize,
+  header: BoardHeader,
+  { points: withPoints }: { points: boolean },
+): Promise<{ values: BoardValues; allFamilies: FamilyUnits[] }> {
   const bind = { board: header.id };
-  const [revisions, stats, points, families] = await Promise.all([
+  const [revisions, stats, families, points] = await Promise.all([
     sequelize.query<{ id: number; label: string; position: number }>(REVISIONS_SQL, { bind, type: QueryTypes.SELECT }),
     sequelize.query<StatsRow>(STATS_SQL, { bind, type: QueryTypes.SELECT }),
-    sequelize.query<PointRow>(POINTS_SQL, { bind, type: QueryTypes.SELECT }),
     sequelize.query<FamilyRow>(FAMILIES_SQL, { type: QueryTypes.SELECT }),
+    withPoints ? sequelize.query<PointRow>(POINTS_SQL, { bind, type: QueryTypes.SELECT }) : Promise.resolve([]),
   ]);
 
   const unitsById = new Map(families.map((f) => [f.id, familyUnits(f)]));
@@ -216,7 +221,7 @@ export async function readBoardValues(sequelize: Sequelize, header: BoardHeader)
       for (const quantity of QUANTITIES) {
         const row = rows.find((r) => r.quantity === quantity);
         if (!row) continue;
-        const q = quantityValues(row, units, pointsOf(groupPoints, quantity));
+        const q = quantityValues(row, units, withPoints ? pointsOf(groupPoints, quantity) : null);
         group[QUANTITY_KEYS[quantity]] = q;
         if (q.lastChangeAt > group.lastChangeAt) group.lastChangeAt = q.lastChangeAt;
       }

@@ -98,10 +98,29 @@ async function writeRows(sequelize: Sequelize, rows: PublishedStats[], transacti
 }
 
 /**
+ * Marks the boards whose board_stats were just rewritten as changed: board_models.values_version
+ * becomes this transaction's id (migrations/20261212001000-…). It is the stamp every cache of the
+ * published values (lib/published/board-values.ts, in any process) revalidates by, and it commits
+ * or rolls back with the figures themselves.
+ */
+async function bumpValuesVersion(sequelize: Sequelize, groups: GroupKey[] | null, transaction: Transaction): Promise<void> {
+  if (groups) {
+    await sequelize.query(
+      `UPDATE board_models SET values_version = pg_current_xact_id()
+        WHERE id IN (SELECT board_model_id FROM board_revisions WHERE id IN (:revisions))`,
+      { replacements: { revisions: [...new Set(groups.map((g) => g.boardRevisionId))] }, transaction },
+    );
+  } else {
+    await sequelize.query("UPDATE board_models SET values_version = pg_current_xact_id()", { transaction });
+  }
+}
+
+/**
  * Recomputes board_stats for the given groups (null: every group) inside `transaction`, or in a
  * transaction of its own. Call it in the same transaction that changes an approved submission, so
  * the published figures never disagree with the data. An advisory lock per group serialises two
- * refreshes of one group; each then reads what the other committed.
+ * refreshes of one group; each then reads what the other committed. The boards' change stamp is
+ * bumped in the same transaction, so the values' caches and ETags move with the figures.
  */
 export async function refreshGroups(sequelize: Sequelize, groups: GroupKey[] | null, transaction?: Transaction): Promise<PublishedStats[]> {
   if (!transaction) return sequelize.transaction((t) => refreshGroups(sequelize, groups, t));
@@ -131,5 +150,6 @@ export async function refreshGroups(sequelize: Sequelize, groups: GroupKey[] | n
     await sequelize.query("DELETE FROM board_stats", { transaction });
   }
   await writeRows(sequelize, rows, transaction);
+  await bumpValuesVersion(sequelize, groups, transaction);
   return rows;
 }

@@ -25,8 +25,15 @@ describe("bench:lookup flags", () => {
       warmup: 2,
       docs: "docs/benchmarks.md",
       stockRebuild: false,
+      acceptEncoding: null,
       help: false,
     });
+  });
+
+  it("sends Accept-Encoding only when asked to, and refuses an empty one", () => {
+    expect(parseBenchArgs(["--accept-encoding", "gzip, deflate, br"]).acceptEncoding).toBe("gzip, deflate, br");
+    expect(parseBenchArgs(["--accept-encoding=br"]).acceptEncoding).toBe("br");
+    expect(errorsOf(["--accept-encoding", " "])["accept-encoding"]).toHaveLength(1);
   });
 
   it("reads the issue's full run, in either flag spelling", () => {

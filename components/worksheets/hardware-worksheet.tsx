@@ -35,15 +35,15 @@ const asNumber = (s: string): number | null => (s.trim() === "" ? null : Number(
 
 const ORIGIN_WORDS: Record<FigureOrigin, string> = { board: "from the board record", typed: "typed by you", unknown: "not known: read it off the part" };
 
-const LABELS: Record<HardwareFigureKey, { label: string; hint: string }> = {
-  dividerTopOhms: { label: "Top resistor R1 (Ω)", hint: "From the pack's + to the ADC pin" },
-  dividerBottomOhms: { label: "Bottom resistor R2 (Ω)", hint: "From the ADC pin to ground" },
-  shuntMilliohms: { label: "Shunt (mΩ)", hint: "Often marked R50 = 0.5 mΩ, R25 = 0.25 mΩ" },
-  amplifierGain: { label: "Amplifier gain (V/V)", hint: "From the amplifier's datasheet or part suffix" },
-  hallMvPerAmp: { label: "Hall sensitivity (mV/A)", hint: "From the sensor's datasheet" },
-  adcReferenceVolts: { label: "ADC reference (V)", hint: "Usually the processor's supply" },
-  adcBits: { label: "ADC resolution (bits)", hint: "Usually 12" },
-  maxCells: { label: "Largest pack (S)", hint: "For the divider's headroom at 4.35 V a cell" },
+const LABELS: Record<HardwareFigureKey, { name: string; label: string; hint: string }> = {
+  dividerTopOhms: { name: "the top resistor", label: "Top resistor R1 (Ω)", hint: "From the pack's + to the ADC pin" },
+  dividerBottomOhms: { name: "the bottom resistor", label: "Bottom resistor R2 (Ω)", hint: "From the ADC pin to ground" },
+  shuntMilliohms: { name: "the shunt", label: "Shunt (mΩ)", hint: "Often marked R50 = 0.5 mΩ, R25 = 0.25 mΩ" },
+  amplifierGain: { name: "the amplifier gain", label: "Amplifier gain (V/V)", hint: "From the amplifier's datasheet or part suffix" },
+  hallMvPerAmp: { name: "the Hall sensitivity", label: "Hall sensitivity (mV/A)", hint: "From the sensor's datasheet" },
+  adcReferenceVolts: { name: "the ADC reference", label: "ADC reference (V)", hint: "Usually the processor's supply" },
+  adcBits: { name: "the ADC resolution", label: "ADC resolution (bits)", hint: "Usually 12" },
+  maxCells: { name: "the largest pack", label: "Largest pack (S)", hint: "For the divider's headroom at 4.35 V a cell" },
 };
 
 export function HardwareWorksheetForm({ family, quadId, board, fromBoard, published }: Props) {
@@ -97,6 +97,9 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
     );
   };
 
+  // only the figures the recorded sensor kind uses: a shunt board is not missing a Hall figure
+  const relevant = HARDWARE_FIGURE_KEYS.filter((k) => (k === "hallMvPerAmp" ? fromBoard.currentSensor === "hall" : k === "shuntMilliohms" || k === "amplifierGain" ? fromBoard.currentSensor !== "hall" : true));
+  const missingFromRecord = [...(fromBoard.currentSensor == null ? ["the current sensor"] : []), ...relevant.filter((k) => fromBoard[k] == null).map((k) => LABELS[k].name)];
   const sensorOrigin: FigureOrigin = sensor === "unknown" ? "unknown" : fromBoard.currentSensor === sensor ? "board" : "typed";
 
   return (
@@ -106,6 +109,11 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
         {board ? <>Figures start from Shuntbook&rsquo;s record of <strong>{board.name} {board.revisionLabel}</strong>; </> : <>This quad has no board revision set, so there are no recorded figures; </>}
         type what you read off your own board to override them.
       </p>
+      {board && missingFromRecord.length > 0 && (
+        <p className="text-small" data-testid="hardware-missing">
+          <strong>Not in the record:</strong> {missingFromRecord.join(", ")}. Read {missingFromRecord.length === 1 ? "it" : "them"} off the board or its datasheet, or leave {missingFromRecord.length === 1 ? "it" : "them"} blank.
+        </p>
+      )}
 
       <div className="space-y-4 rounded-md border-2 border-rule bg-surface p-4" data-testid="hardware-form">
         <fieldset className="grid gap-3 sm:grid-cols-2">

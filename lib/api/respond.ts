@@ -40,14 +40,13 @@ export function jsonWithEtag(request: Request, etag: string, body: string | (() 
 }
 
 /**
- * 200 with a body kept as bytes, possibly already compressed in `coding` (lib/api/content-coding.ts).
- * Such a response depends on Accept-Encoding, and says so in Vary, as its 304s must too.
+ * 200 with a body kept as bytes. Next compresses it on the way out when the client accepts gzip,
+ * so the response depends on Accept-Encoding and says so in Vary (its 304s must say it too).
  */
-export function encodedJson(etag: string, body: Uint8Array<ArrayBuffer>, coding: string | null, cacheControl = READ_CACHE_CONTROL): Response {
+export function varyingJson(etag: string, body: Uint8Array<ArrayBuffer>, cacheControl = READ_CACHE_CONTROL): Response {
   const headers = readHeaders(etag, cacheControl);
   headers.set("Content-Type", JSON_TYPE);
   headers.set("Vary", "Accept-Encoding");
-  if (coding) headers.set("Content-Encoding", coding);
   return new Response(body, { status: 200, headers });
 }
 

@@ -12,7 +12,7 @@ export * from "./board-values-types";
 //    the whole catalogue) and the values with points (points=1, the board page's charts; big,
 //    so fewer are kept). A point-free miss never reads or flags the points (finding 2 in
 //    docs/benchmarks.md). Filtered views are derived from an entry in memory, and whatever the
-//    caller builds from a view (the API's JSON bytes, their compressed copies and their ETag) is
+//    caller builds from a view (the API's JSON bytes and their ETag) is
 //    kept beside it, so a cache hit does no database work, no serialising and no hashing.
 //  - invalidateBoardValues drops entries as soon as an approval changes a group in this process.
 //  - Changes made by another process (npm run stats:rebuild, a second app instance) are noticed

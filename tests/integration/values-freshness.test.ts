@@ -1,4 +1,3 @@
-import { brotliDecompressSync, gunzipSync } from "node:zlib";
 import { QueryTypes, type Transaction } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { POST as revertRoute } from "@/app/api/v1/admin/events/[id]/revert/route";
@@ -16,7 +15,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // The values' change stamp (board_models.values_version, migrations/20261212001000-…) and what
 // the cache and the endpoint do with it: bumped in the same transaction as the refresh, by every
 // moderation action that moves an approved value and by catalogue edits; a point-free view never
-// reads the points; a compressed body decodes to the very JSON the uncompressed one carries.
+// reads the points; the bytes kept per view are the JSON every request gets.
 useTestDatabase("migrated");
 afterAll(() => stopBoss());
 
@@ -180,40 +179,25 @@ describe("points are read only when asked for", () => {
   });
 });
 
-describe("compressed copies", () => {
-  it("br and gzip bodies decode to the same JSON, with Content-Encoding, Vary and the same ETag; 304s say Vary too", async () => {
+describe("the bytes kept per view", () => {
+  it("are the same JSON on every request and for every Accept-Encoding (Next compresses on the way out), with Vary on 200 and 304", async () => {
     for (const query of ["", "?points=1"]) {
-      const identity = await call(query);
-      expect(identity.headers.get("content-encoding")).toBeNull();
-      expect(identity.headers.get("vary")).toBe("Accept-Encoding");
-      const text = await identity.text();
-      const etag = identity.headers.get("etag")!;
-      for (const [header, coding, decode] of [
-        ["gzip, deflate, br", "br", brotliDecompressSync],
-        ["gzip, deflate", "gzip", gunzipSync],
-        ["br;q=0.5, gzip", "gzip", gunzipSync],
-      ] as const) {
-        // twice: the copy is made by the first request and kept for the second
-        for (let i = 0; i < 2; i++) {
-          const res = await call(query, { "accept-encoding": header });
-          expect(res.status).toBe(200);
-          expect(res.headers.get("content-encoding")).toBe(coding);
-          expect(res.headers.get("vary")).toBe("Accept-Encoding");
-          expect(res.headers.get("etag")).toBe(etag);
-          expect(res.headers.get("cache-control")).toMatch(/max-age=60/);
-          expect(decode(Buffer.from(await res.arrayBuffer())).toString("utf8")).toBe(text);
-        }
+      const first = await call(query);
+      const text = await first.text();
+      const etag = first.headers.get("etag")!;
+      for (const header of ["", "gzip, deflate, br", "gzip"]) {
+        const res = await call(query, header ? { "accept-encoding": header } : {});
+        expect(res.status).toBe(200);
+        // a handler's Content-Encoding would be dropped by Next 16 (see lib/api/values-response.ts)
+        expect(res.headers.get("content-encoding")).toBeNull();
+        expect(res.headers.get("vary")).toBe("Accept-Encoding");
+        expect(res.headers.get("etag")).toBe(etag);
+        expect(res.headers.get("cache-control")).toMatch(/max-age=60/);
+        expect(await res.text()).toBe(text);
       }
       const revalidated = await call(query, { "accept-encoding": "gzip, br", "if-none-match": etag });
       expect(revalidated.status).toBe(304);
       expect(revalidated.headers.get("vary")).toBe("Accept-Encoding");
     }
-  });
-
-  it("an error stays an uncompressed JSON error", async () => {
-    const res = await call("?family=no-such-family", { "accept-encoding": "br" });
-    expect(res.status).toBe(404);
-    expect(res.headers.get("content-encoding")).toBeNull();
-    expect((await res.json()).error.fieldErrors.family).toHaveLength(1);
   });
 });

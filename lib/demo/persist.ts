@@ -1,5 +1,6 @@
 import bcrypt from "bcryptjs";
 import { QueryTypes, type QueryInterface, type QueryOptions, type Transaction } from "sequelize";
+import type { SubmissionState } from "@/lib/moderation/audit";
 import { DEMO_BCRYPT_COST } from "./accounts";
 import type { DemoScenario } from "./scenario";
 
@@ -40,7 +41,14 @@ function idOf(map: Map<string, number>, key: string, what: string): number {
   return id;
 }
 
-export type InsertCounts = Record<"manufacturers" | "boardModels" | "boardRevisions" | "boardAliases" | "firmwareFamilies" | "users" | "submissions", number>;
+export type InsertCounts = Record<
+  "manufacturers" | "boardModels" | "boardRevisions" | "boardAliases" | "firmwareFamilies" | "users" | "submissions" | "evidenceRows" | "auditEvents" | "valueHistory",
+  number
+>;
+
+/** What a seeded approval records (lib/moderation/audit.ts SubmissionState): the revert path reads these back. */
+export const DEMO_APPROVAL_BEFORE: SubmissionState = { status: "pending", moderatorNote: null, version: 0 };
+export const DEMO_APPROVAL_AFTER: SubmissionState = { status: "approved", moderatorNote: null, version: 1 };
 
 export async function insertDemoScenario(qi: QueryInterface, s: DemoScenario, transaction: Transaction): Promise<InsertCounts> {
   const makerIds = await insertReturningIds(qi, "manufacturers", s.manufacturers, "slug", transaction);
@@ -87,16 +95,28 @@ export async function insertDemoScenario(qi: QueryInterface, s: DemoScenario, tr
   );
   await qi.bulkInsert("users", users.map(toColumns), { transaction });
 
-  const submissionRows = s.submissions.map(({ revisionKey, familySlug, anomaly: _anomaly, ...cols }) =>
+  const submissionRows = s.submissions.map(({ revisionKey, familySlug, anomaly: _anomaly, evidence: _evidence, evidenceSummary, ...cols }) =>
     toColumns({
       ...cols,
+      // bulkInsert does not know the column is jsonb: send the text PostgreSQL casts on insert
+      evidenceSummary: evidenceSummary ? JSON.stringify(evidenceSummary) : null,
       boardRevisionId: idOf(revisionIds, revisionKey, "board revision"),
       firmwareFamilyId: idOf(familyIds, familySlug, "firmware family"),
     }),
   );
+  const submissionIds: number[] = [];
   for (let i = 0; i < submissionRows.length; i += SUBMISSION_CHUNK) {
-    await qi.bulkInsert("submissions", submissionRows.slice(i, i + SUBMISSION_CHUNK), { transaction });
+    const chunk = submissionRows.slice(i, i + SUBMISSION_CHUNK);
+    const back = (await qi.bulkInsert("submissions", chunk, returning(transaction, ["id", "created_at"]))) as unknown as Array<{ id: number; created_at: Date }>;
+    // a multi-row INSERT … RETURNING gives its rows back in VALUES order; check rather than trust it
+    back.forEach((r, k) => {
+      if (new Date(r.created_at).getTime() !== (chunk[k].created_at as Date).getTime()) throw new Error("demo seed: submission ids came back out of order");
+    });
+    submissionIds.push(...back.map((r) => Number(r.id)));
   }
+
+  const evidence = await insertEvidence(qi, s, submissionIds, transaction);
+  const history = await insertModerationPast(qi, s, { submissionIds, revisionIds, familyIds }, transaction);
 
   return {
     manufacturers: makerIds.size,
@@ -106,7 +126,69 @@ export async function insertDemoScenario(qi: QueryInterface, s: DemoScenario, tr
     firmwareFamilies: familyIds.size,
     users: users.length,
     submissions: submissionRows.length,
+    evidenceRows: evidence,
+    auditEvents: s.approvals.length,
+    valueHistory: history,
   };
+}
+
+async function bulkInsertChunked(qi: QueryInterface, table: string, rows: Record<string, unknown>[], transaction: Transaction): Promise<number> {
+  for (let i = 0; i < rows.length; i += SUBMISSION_CHUNK) await qi.bulkInsert(table, rows.slice(i, i + SUBMISSION_CHUNK).map(toColumns), { transaction });
+  return rows.length;
+}
+
+/** The evidence tables, one row per reading, cycle or point, as lib/submissions/evidence-rows.ts writeEvidence lays them out. */
+async function insertEvidence(qi: QueryInterface, s: DemoScenario, submissionIds: number[], transaction: Transaction): Promise<number> {
+  const readings: Record<string, unknown>[] = [];
+  const cycles: Record<string, unknown>[] = [];
+  const points: Record<string, unknown>[] = [];
+  s.submissions.forEach(({ evidence, createdAt }, i) => {
+    const submissionId = submissionIds[i];
+    const check = evidence.voltageCheck;
+    check?.readings.forEach((r, position) => readings.push({ submissionId, position, scaleUsed: check.scaleUsed, ...r, createdAt }));
+    evidence.cycles.forEach((c, position) => cycles.push({ submissionId, position, ...c, createdAt }));
+    const bench = evidence.bench;
+    bench?.points.forEach((p, position) => points.push({ submissionId, position, scaleUsed: bench.scaleUsed, offsetUsed: bench.offsetUsed, ...p, createdAt }));
+  });
+  return (
+    (await bulkInsertChunked(qi, "submission_voltage_readings", readings, transaction)) +
+    (await bulkInsertChunked(qi, "submission_cycles", cycles, transaction)) +
+    (await bulkInsertChunked(qi, "submission_bench_points", points, transaction))
+  );
+}
+
+/** Approval events (lib/moderation/audit.ts shape: pending v0 → approved v1) and the value history they caused. */
+async function insertModerationPast(
+  qi: QueryInterface,
+  s: DemoScenario,
+  ids: { submissionIds: number[]; revisionIds: Map<string, number>; familyIds: Map<string, number> },
+  transaction: Transaction,
+): Promise<number> {
+  const eventIds: number[] = [];
+  for (let i = 0; i < s.approvals.length; i += SUBMISSION_CHUNK) {
+    const rows = s.approvals.slice(i, i + SUBMISSION_CHUNK).map((a) => ({
+      actor_id: a.actorId,
+      action: "approve",
+      entity_type: "submission",
+      submission_id: ids.submissionIds[a.submission],
+      before: JSON.stringify(DEMO_APPROVAL_BEFORE),
+      after: JSON.stringify(DEMO_APPROVAL_AFTER),
+      reason: null,
+      at: a.at,
+    }));
+    const back = (await qi.bulkInsert("audit_events", rows, returning(transaction, ["id", "submission_id"]))) as unknown as Array<{ id: number; submission_id: number }>;
+    back.forEach((r, k) => {
+      if (Number(r.submission_id) !== rows[k].submission_id) throw new Error("demo seed: audit event ids came back out of order");
+    });
+    eventIds.push(...back.map((r) => Number(r.id)));
+  }
+  const history = s.valueHistory.map(({ revisionKey, familySlug, approval, ...cols }) => ({
+    ...cols,
+    boardRevisionId: idOf(ids.revisionIds, revisionKey, "board revision"),
+    firmwareFamilyId: idOf(ids.familyIds, familySlug, "firmware family"),
+    causedByEventId: eventIds[approval],
+  }));
+  return bulkInsertChunked(qi, "published_value_history", history, transaction);
 }
 
 /**
@@ -131,10 +213,23 @@ export async function deleteDemoScenario(qi: QueryInterface, s: DemoScenario, tr
     type: QueryTypes.SELECT,
   });
   if (exists) statements.push(`DELETE FROM board_stats WHERE board_revision_id IN (${revisions}) OR firmware_family_id IN (${families})`);
+  const people = `SELECT id FROM users WHERE lower(email) IN (:emails)`;
+  const submissions = `SELECT id FROM submissions WHERE board_revision_id IN (${revisions}) OR firmware_family_id IN (${families}) OR contributor_id IN (${people})`;
+  // The moderation log and the value history are append-only for the app (triggers); removing the
+  // demo is the one place their demo rows go, so the triggers are off for this transaction only.
+  const events = `SELECT id FROM audit_events WHERE submission_id IN (${submissions}) OR actor_id IN (${people}) OR target_user_id IN (${people})`;
   statements.push(
-    `DELETE FROM submissions WHERE board_revision_id IN (${revisions})
-       OR firmware_family_id IN (${families})
-       OR contributor_id IN (SELECT id FROM users WHERE lower(email) IN (:emails))`,
+    "ALTER TABLE published_value_history DISABLE TRIGGER published_value_history_no_update_delete",
+    "ALTER TABLE audit_events DISABLE TRIGGER audit_events_no_update_delete",
+    `DELETE FROM published_value_history WHERE board_revision_id IN (${revisions}) OR firmware_family_id IN (${families}) OR caused_by_event_id IN (${events})`,
+    // reverts first: they point at the events they undid
+    `DELETE FROM audit_events WHERE reverts_event_id IS NOT NULL AND id IN (${events})`,
+    `DELETE FROM audit_events WHERE id IN (${events})`,
+    "ALTER TABLE audit_events ENABLE TRIGGER audit_events_no_update_delete",
+    "ALTER TABLE published_value_history ENABLE TRIGGER published_value_history_no_update_delete",
+  );
+  statements.push(
+    `DELETE FROM submissions WHERE id IN (${submissions})`,
     `DELETE FROM board_aliases WHERE board_model_id IN (${boards})`,
     `DELETE FROM board_revisions WHERE board_model_id IN (${boards})`,
     `DELETE FROM board_models WHERE id IN (${boards})`,

@@ -1,5 +1,7 @@
 import { buildDemoCatalogue, type DemoBoardAlias, type DemoBoardModel, type DemoBoardRevision, type DemoTruth } from "./catalogue";
+import { attachDemoEvidence } from "./evidence";
 import { DEMO_FIRMWARE_FAMILIES, type DemoFirmwareFamily } from "./firmware-families";
+import { buildDemoHistory, type DemoApproval, type DemoHistoryRow } from "./history";
 import { DEMO_MANUFACTURERS, type DemoManufacturer } from "./manufacturers";
 import { buildDemoPeople, type DemoUser } from "./people";
 import { buildDemoSubmissions, type DemoSubmission } from "./submissions";
@@ -20,6 +22,10 @@ export type DemoScenario = {
   boardAliases: DemoBoardAlias[];
   users: DemoUser[];
   submissions: DemoSubmission[];
+  /** one approval event per approved submission, oldest first */
+  approvals: DemoApproval[];
+  /** the published-value timeline those approvals made, oldest first */
+  valueHistory: DemoHistoryRow[];
   /** the values a perfect calibration would give: for tests of the statistics, never inserted */
   truths: DemoTruth[];
 };
@@ -35,6 +41,8 @@ export function buildDemoScenario({ now = new Date(), seed = DEMO_SEED }: BuildO
   const catalogue = buildDemoCatalogue(families, anchor, seed + 1);
   const users = buildDemoPeople(anchor, seed + 2);
   const submissions = buildDemoSubmissions({ catalogue, families, users, anchor, seed: seed + 3 });
+  attachDemoEvidence({ submissions, families, boardModels: catalogue.boardModels, truths: catalogue.truths, seed: seed + 4 });
+  const { approvals, history } = buildDemoHistory(submissions, users);
   return {
     anchor,
     seed,
@@ -45,6 +53,8 @@ export function buildDemoScenario({ now = new Date(), seed = DEMO_SEED }: BuildO
     boardAliases: catalogue.boardAliases,
     users,
     submissions,
+    approvals,
+    valueHistory: history,
     truths: catalogue.truths,
   };
 }

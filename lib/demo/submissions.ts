@@ -1,10 +1,13 @@
+import type { EvidenceSummary } from "@/lib/calibration/evidence";
 import { roundSetting } from "@/lib/calibration/units";
+import { METHOD_EVIDENCE } from "@/lib/submissions/schema";
 import type { BoardKind } from "@/models/BoardModel";
 import type { Method, SensingSource, SubmissionStatus } from "@/models/Submission";
 import { DEMO_ACCOUNTS } from "./accounts";
 import type { PopularityTier } from "./boards";
 import { offsetSetting, type DemoCatalogue, type DemoTruth, type TrueSettings } from "./catalogue";
 import type { DemoFirmwareFamily } from "./firmware-families";
+import type { DemoEvidence } from "./evidence";
 import type { DemoUser } from "./people";
 import { createRng, type Rng } from "./random";
 import { SUBMISSION_WINDOW_MONTHS, daysAfter, monthsBefore, monthsBetween } from "./timeline";
@@ -32,6 +35,12 @@ export type DemoSubmission = {
   createdAt: Date;
   updatedAt: Date;
   anomaly: Anomaly | null;
+  /** 1 for an approved one (its seeded approval event's "after", so an admin can revert it), else 0 */
+  version: number;
+  /** filled in by lib/demo/evidence.ts attachDemoEvidence */
+  evidence: DemoEvidence;
+  evidenceSummary: EvidenceSummary | null;
+  evidenceMismatch: boolean;
 };
 
 type ValueField = "voltageScale" | "currentScale";
@@ -225,7 +234,30 @@ function drawSubmission(ctx: Context, d: Draw): DemoSubmission {
     createdAt,
     updatedAt,
     anomaly,
+    version: 0,
+    evidence: { voltageCheck: null, cycles: [], bench: null },
+    evidenceSummary: null,
+    evidenceMismatch: false,
   };
+}
+
+/**
+ * The method a submission can really have been checked by, given the values it sends: a voltage
+ * check needs a voltage scale, recharge cycles and bench points a current scale (the schema's
+ * METHOD_EVIDENCE and cross-field rules). A voltage-only "fly and recharge" or "bench" submission
+ * was checked with a multimeter; a current-only "multimeter" one on the bench with a clamp meter.
+ * No random draw, so nothing else in the scenario moves; a note written for the old method is
+ * swapped for the same-numbered note of the new one.
+ */
+function fitMethodToValues(s: DemoSubmission): void {
+  const needs = METHOD_EVIDENCE[s.method];
+  let method = s.method;
+  if ((needs.cycles || needs.bench) && s.currentScale == null) method = "multimeter";
+  else if (needs.voltageCheck === "required" && s.voltageScale == null) method = "bench_clamp";
+  if (method === s.method) return;
+  const index = s.notes == null ? -1 : NOTES[s.method].indexOf(s.notes);
+  if (index >= 0) s.notes = NOTES[method][index % NOTES[method].length];
+  s.method = method;
 }
 
 function setStatus(s: DemoSubmission, status: SubmissionStatus, anchor: Date, rng: Rng): void {
@@ -352,6 +384,8 @@ export function buildDemoSubmissions({ catalogue, families, users, anchor, seed 
 
   plantOutliers(ctx, outlierCandidates, truths);
   assignDemoAccounts(ctx, accountCandidates.filter((s) => s.anomaly == null), users);
+  all.forEach(fitMethodToValues);
+  for (const s of all) if (s.status === "approved") s.version = 1;
   // ids follow time, as they would in a real database
   return all.sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime());
 }

@@ -38,6 +38,14 @@ describe("determinism", () => {
     expect(other.users.map((u) => u.email)).not.toEqual(scenario.users.map((u) => u.email));
     expect(other.submissions.map((s) => s.voltageScale)).not.toEqual(scenario.submissions.map((s) => s.voltageScale));
   });
+
+  it("the evidence, approvals and value history are part of what one seed and day fix", () => {
+    const again = buildDemoScenario({ now: new Date("2026-12-02T00:00:01Z") });
+    expect(again.submissions.map((s) => s.evidence)).toEqual(scenario.submissions.map((s) => s.evidence));
+    expect(again.approvals).toEqual(scenario.approvals);
+    expect(again.valueHistory).toEqual(scenario.valueHistory);
+    expect(scenario.valueHistory.length).toBeGreaterThan(scenario.approvals.length);
+  });
 });
 
 describe("sizes and uniqueness", () => {

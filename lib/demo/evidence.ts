@@ -1,3 +1,4 @@
+import { impliedCurrentScaleFromCycle } from "@/lib/calibration/evidence";
 import { roundSetting, sensitivityFromCurrentScaleSetting } from "@/lib/calibration/units";
 import { evidenceVerdict } from "@/lib/submissions/evidence-rows";
 import type { SubmissionPayload } from "@/lib/submissions/schema";
@@ -140,8 +141,9 @@ function closestFigures(response: Response, scale: number, final: number, rated:
   return best;
 }
 
-/** The setting a cycle leads to (lib/calibration/evidence.ts impliedCurrentScaleFromCycle, restated for the loop above). */
-const next = (response: Response, scale: number, reported: number, charged: number) => (response === "inverse" ? (scale * reported) / charged : (scale * charged) / reported);
+/** The setting a cycle leads to: new = old × reported ÷ charged for mV/A, the inverse for A/V. */
+const next = (response: Response, scaleUsed: number, reportedMah: number, chargedMah: number) =>
+  impliedCurrentScaleFromCycle({ scaleUsed, reportedMah, chargedMah }, response);
 
 /**
  * 3–6 clamp-meter points, props off, from a couple of amps up to what the board's bench check

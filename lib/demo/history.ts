@@ -47,7 +47,7 @@ const COLUMN: Record<Quantity, "voltageScale" | "currentScale" | "currentOffset"
 type Figures = Pick<DemoHistoryRow, "recommendedValue" | "n" | "median" | "ciLow" | "ciHigh" | "confidence">;
 
 /** One group's published figures over `values`, as refreshGroups would compute them. */
-function figuresOf(quantity: Quantity, values: number[], methods: Method[], lastValueAt: Date): Figures {
+function groupFigures(quantity: Quantity, values: number[], methods: Method[], lastValueAt: Date): Figures {
   const s = summarise(values);
   const flags = describeFlags(values);
   const methodCounts: Partial<Record<Method, number>> = {};
@@ -103,7 +103,7 @@ export function buildDemoHistory(submissions: readonly DemoSubmission[], users: 
       groups.set(key, group);
       group.values.push(value);
       group.methods.push(s.method);
-      const figures = figuresOf(quantity, group.values, group.methods, s.updatedAt);
+      const figures = groupFigures(quantity, group.values, group.methods, s.updatedAt);
       if (!moved(group.last, figures)) continue;
       group.last = figures;
       history.push({ revisionKey: s.revisionKey, familySlug: s.familySlug, quantity, ...figures, at: s.updatedAt, approval });

@@ -1,7 +1,6 @@
-import { derivePublished, type GroupAggregates } from "@/lib/published/refresh";
+import { publishedFromValues, type ApprovedPoint } from "@/lib/published/from-values";
 import { QUANTITIES, type Quantity } from "@/lib/published/quantities";
-import { describeFlags, meanAbsDeviationAroundMedian, summarise, type ConfidenceLabel } from "@/lib/stats";
-import type { Method } from "@/models/Submission";
+import type { ConfidenceLabel } from "@/lib/stats";
 import { DEMO_ACCOUNTS } from "./accounts";
 import type { DemoUser } from "./people";
 import type { DemoSubmission } from "./submissions";
@@ -47,35 +46,9 @@ const COLUMN: Record<Quantity, "voltageScale" | "currentScale" | "currentOffset"
 type Figures = Pick<DemoHistoryRow, "recommendedValue" | "n" | "median" | "ciLow" | "ciHigh" | "confidence">;
 
 /** One group's published figures over `values`, as refreshGroups would compute them. */
-function groupFigures(quantity: Quantity, values: number[], methods: Method[], lastValueAt: Date): Figures {
-  const s = summarise(values);
-  const flags = describeFlags(values);
-  const methodCounts: Partial<Record<Method, number>> = {};
-  for (const m of methods) methodCounts[m] = (methodCounts[m] ?? 0) + 1;
-  const aggregates: GroupAggregates = {
-    boardRevisionId: 0,
-    firmwareFamilyId: 0,
-    quantity,
-    n: s.n,
-    median: s.median!,
-    q1: s.q1!,
-    q3: s.q3!,
-    iqr: s.iqr!,
-    mad: s.mad!,
-    scaledMad: s.scaledMad!,
-    meanAbsDev: meanAbsDeviationAroundMedian(values, s.median!),
-    ciLow: s.ciLow,
-    ciHigh: s.ciHigh,
-    ciCoverage: s.ciCoverage,
-    ciLowerRank: s.ciRanks?.lower ?? null,
-    ciUpperRank: s.ciRanks?.upper ?? null,
-    zScaleRule: flags.zScaleRule,
-    outlierCount: flags.points.filter((p) => p.outlier).length,
-    tukeyCount: flags.points.filter((p) => p.tukey !== "none").length,
-    methodCounts,
-    lastValueAt,
-  };
-  const p = derivePublished(aggregates);
+function groupFigures(quantity: Quantity, points: ApprovedPoint[]): Figures {
+  // the group's ids do not matter to the figures; the rows are matched by key afterwards
+  const p = publishedFromValues({ boardRevisionId: 0, firmwareFamilyId: 0 }, quantity, points)!;
   return { recommendedValue: p.recommendedValue, n: p.n, median: p.median, ciLow: p.ciLow, ciHigh: p.ciHigh, confidence: p.confidence };
 }
 
@@ -92,18 +65,17 @@ export function buildDemoHistory(submissions: readonly DemoSubmission[], users: 
 
   const approvals: DemoApproval[] = [];
   const history: DemoHistoryRow[] = [];
-  const groups = new Map<string, { values: number[]; methods: Method[]; last?: Figures }>();
+  const groups = new Map<string, { points: ApprovedPoint[]; last?: Figures }>();
   for (const [s, i] of order) {
     const approval = approvals.push({ submission: i, actorId: s.contributorId === moderator.id ? standIn.id : moderator.id, at: s.updatedAt }) - 1;
     for (const quantity of QUANTITIES) {
       const value = s[COLUMN[quantity]];
       if (value == null) continue;
       const key = `${s.revisionKey}|${s.familySlug}|${quantity}`;
-      const group = groups.get(key) ?? { values: [], methods: [] };
+      const group = groups.get(key) ?? { points: [] };
       groups.set(key, group);
-      group.values.push(value);
-      group.methods.push(s.method);
-      const figures = groupFigures(quantity, group.values, group.methods, s.updatedAt);
+      group.points.push({ value, method: s.method, date: s.updatedAt });
+      const figures = groupFigures(quantity, group.points);
       if (!moved(group.last, figures)) continue;
       group.last = figures;
       history.push({ revisionKey: s.revisionKey, familySlug: s.familySlug, quantity, ...figures, at: s.updatedAt, approval });

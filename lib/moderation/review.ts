@@ -1,6 +1,6 @@
 import { QueryTypes } from "sequelize";
-import { describeFlags, meanAbsDeviationAroundMedian, summarise, type ConfidenceLabel } from "@/lib/stats";
-import { derivePublished, type GroupAggregates } from "@/lib/published/refresh";
+import { describeFlags, type ConfidenceLabel } from "@/lib/stats";
+import { publishedFromValues, type ApprovedPoint } from "@/lib/published/from-values";
 import { QUANTITIES, type GroupKey, type Quantity } from "@/lib/published/quantities";
 import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
 import { placeValue, type Placement } from "@/lib/submissions/placement";
@@ -76,36 +76,9 @@ export type Review = {
 type ApprovedRow = { id: number; method: Method; updatedAt: Date } & Record<Quantity, number | null>;
 
 /** board_stats' figures for a set of values, by lib/stats and lib/published's derivation. */
-export function figuresOf(group: GroupKey, quantity: Quantity, points: { value: number; method: Method; date: Date }[]): Figures | null {
-  if (points.length === 0) return null;
-  const values = points.map((p) => p.value);
-  const s = summarise(values);
-  const report = describeFlags(values);
-  const methodCounts: GroupAggregates["methodCounts"] = {};
-  for (const p of points) methodCounts[p.method] = (methodCounts[p.method] ?? 0) + 1;
-  const aggregates: GroupAggregates = {
-    ...group,
-    quantity,
-    n: s.n,
-    median: s.median!,
-    q1: s.q1!,
-    q3: s.q3!,
-    iqr: s.iqr!,
-    mad: s.mad!,
-    scaledMad: s.scaledMad!,
-    meanAbsDev: meanAbsDeviationAroundMedian(values, s.median!),
-    ciLow: s.ciLow,
-    ciHigh: s.ciHigh,
-    ciCoverage: s.ciCoverage,
-    ciLowerRank: s.ciRanks?.lower ?? null,
-    ciUpperRank: s.ciRanks?.upper ?? null,
-    zScaleRule: report.zScaleRule,
-    outlierCount: report.points.filter((p) => p.outlier).length,
-    tukeyCount: report.points.filter((p) => p.tukey !== "none").length,
-    methodCounts,
-    lastValueAt: new Date(Math.max(...points.map((p) => p.date.getTime()))),
-  };
-  const published = derivePublished(aggregates);
+export function figuresOf(group: GroupKey, quantity: Quantity, points: ApprovedPoint[]): Figures | null {
+  const published = publishedFromValues(group, quantity, points);
+  if (!published) return null;
   return {
     n: published.n,
     median: published.median,

@@ -1,11 +1,11 @@
 "use client";
 
-import { useState, type FormEvent } from "react";
+import { useState } from "react";
 import { CartesianGrid, ReferenceLine, Scatter, ScatterChart, XAxis, YAxis } from "recharts";
 import { BenchCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
 import { benchPointInput, benchStartInput, type BenchSheetView } from "@/lib/worksheets/reading-input";
-import { checked, FieldError, NumberInput, PublishPanel, RefusedError, numberIn, useSavedWorksheet, useStartWorksheet, Warnings, type Errors } from "./saved-worksheet";
+import { errorsOf, FieldError, NumberInput, PublishPanel, numberIn, SavedEntries, useCheckedSubmit, useSavedWorksheet, useStartWorksheet, Warnings } from "./saved-worksheet";
 
 // The bench worksheet, saved on the server point by point (lib/worksheets/bench.ts): clamp-meter
 // current beside the display's at several steady throttles, fitted on the server by
@@ -27,20 +27,14 @@ function Advice() {
 export function BenchWorksheet(props: { quadId: number; startingScale: number | null; startingOffset: number | null; initial: BenchSheetView | null }) {
   const [sheet, setSheet] = useState(props.initial);
   const start = useStartWorksheet<BenchSheetView>(setSheet);
-  const [errors, setErrors] = useState<Errors>({});
+  const form = useCheckedSubmit(
+    benchStartInput,
+    (f) => ({ kind: "bench", quadId: props.quadId, scaleUsed: numberIn(f, "scaleUsed"), offsetUsed: numberIn(f, "offsetUsed") }),
+    (body) => start.mutate(body, { onError: (e) => form.setErrors(errorsOf(e)) }),
+  );
+  const { errors, submit } = form;
   if (sheet) return <BenchSheet initial={sheet} />;
 
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const f = new FormData(event.currentTarget);
-    try {
-      const body = checked(benchStartInput, { kind: "bench", quadId: props.quadId, scaleUsed: numberIn(f, "scaleUsed"), offsetUsed: numberIn(f, "offsetUsed") });
-      setErrors({});
-      start.mutate(body, { onError: (e) => setErrors(e instanceof RefusedError ? e.errors : { input: [String(e)] }) });
-    } catch (e) {
-      if (e instanceof RefusedError) setErrors(e.errors);
-    }
-  }
   return (
     <div className="space-y-5">
       <Advice />
@@ -60,25 +54,16 @@ export function BenchWorksheet(props: { quadId: number; startingScale: number | 
 
 export function BenchSheet({ initial }: { initial: BenchSheetView }) {
   const { sheet, add, remove, publish, addErrors, removeErrors, publishErrors, busy } = useSavedWorksheet(initial);
-  const [formErrors, setFormErrors] = useState<Errors>({});
   const [formKey, setFormKey] = useState(0);
+  const { errors: formErrors, submit } = useCheckedSubmit(
+    benchPointInput,
+    (f) => ({ measuredAmps: numberIn(f, "measuredAmps"), reportedAmps: numberIn(f, "reportedAmps") }),
+    (body) => add.mutate(body, { onSuccess: () => setFormKey((k) => k + 1) }),
+    () => add.reset(),
+  );
   const errors = { ...addErrors, ...formErrors };
   const v = sheet.result;
   const open = sheet.submissionId == null;
-  const last = sheet.points.at(-1);
-
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const f = new FormData(event.currentTarget);
-    try {
-      const body = checked(benchPointInput, { measuredAmps: numberIn(f, "measuredAmps"), reportedAmps: numberIn(f, "reportedAmps") });
-      setFormErrors({});
-      add.mutate(body, { onSuccess: () => setFormKey((k) => k + 1) });
-    } catch (e) {
-      add.reset();
-      if (e instanceof RefusedError) setFormErrors(e.errors);
-    }
-  }
 
   return (
     <div className="space-y-5">
@@ -88,31 +73,9 @@ export function BenchSheet({ initial }: { initial: BenchSheetView }) {
         {sheet.startingSource === "published" ? "(the board's published recommended values)" : "(your own)"}. Firmware family: {sheet.familyName}.
       </p>
 
-      {sheet.points.length > 0 && (
-        <section aria-labelledby="b-points" className="space-y-2">
-          <h2 id="b-points" className="font-display text-lg font-bold tracking-wide uppercase">Points</h2>
-          <ol className="space-y-2" data-testid="bench-points">
-            {sheet.points.map((p) => (
-              <li key={p.position} className="flex flex-wrap items-center justify-between gap-2 rounded-md border-2 border-rule bg-surface p-3">
-                <span>
-                  <span className="font-semibold">{p.position + 1}.</span> clamp meter <span className="font-mono">{formatFigure(p.measuredAmps, 2)} A</span>, display{" "}
-                  <span className="font-mono">{formatFigure(p.reportedAmps, 2)} A</span>
-                </span>
-                {open && p === last && <button type="button" className="sb-button sb-button-quiet" disabled={busy} onClick={() => remove.mutate(p.position)}>Take back</button>}
-              </li>
-            ))}
-          </ol>
-          <FieldError messages={Object.values(removeErrors).flat()} />
-        </section>
-      )}
-      {sheet.removed.length > 0 && (
-        <details className="text-small">
-          <summary className="text-muted">{sheet.removed.length} taken back (kept here, not counted)</summary>
-          <ul className="mt-1 space-y-1">
-            {sheet.removed.map((p) => <li key={p.removedAt}><del>clamp meter {formatFigure(p.measuredAmps, 2)} A, display {formatFigure(p.reportedAmps, 2)} A</del></li>)}
-          </ul>
-        </details>
-      )}
+      <SavedEntries id="b-points" title="Points" testId="bench-points" entries={sheet.points} removed={sheet.removed} open={open} busy={busy}
+        onRemove={(position) => remove.mutate(position)} removeErrors={removeErrors}
+        describe={(p) => <>clamp meter <span className="font-mono">{formatFigure(p.measuredAmps, 2)} A</span>, display <span className="font-mono">{formatFigure(p.reportedAmps, 2)} A</span></>} />
 
       {v && (
         <section aria-labelledby="b-result" className="space-y-3 rounded-md border-3 border-rule bg-surface p-4" data-testid="bench-result">
@@ -131,7 +94,7 @@ export function BenchSheet({ initial }: { initial: BenchSheetView }) {
               <CartesianGrid stroke="var(--sb-rule-soft)" vertical={false} />
               <ReferenceLine y={0} stroke="var(--sb-ink)" />
               <XAxis type="number" dataKey="measuredAmps" name="clamp meter" unit=" A" stroke="var(--sb-rule)" tick={{ fill: "var(--sb-muted)" }} />
-              <YAxis type="number" dataKey="residualAmps" name="residual" unit=" A" width={52} stroke="var(--sb-rule)" tick={{ fill: "var(--sb-muted)" }} />
+              <YAxis type="number" dataKey="residualAmps" name="residual" unit=" A" width={68} stroke="var(--sb-rule)" tick={{ fill: "var(--sb-muted)" }} />
               <Scatter data={v.residuals} fill="var(--sb-copper)" isAnimationActive={false} />
             </ScatterChart>
           </figure>

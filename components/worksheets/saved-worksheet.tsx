@@ -2,7 +2,7 @@
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import type { ReactNode } from "react";
+import { useState, type FormEvent, type ReactNode } from "react";
 import type { z } from "zod";
 
 // What the saved voltage and bench worksheets share on the client: the API calls as react-query
@@ -47,7 +47,30 @@ export const numberIn = (form: FormData, name: string) => {
   return raw === "" ? undefined : Number(raw);
 };
 
-const errorsOf = (e: unknown): Errors => (e instanceof RefusedError ? e.errors : e ? { input: [String(e)] } : {});
+export const errorsOf = (e: unknown): Errors => (e instanceof RefusedError ? e.errors : e ? { input: [String(e)] } : {});
+
+/**
+ * A form's submit handler: read its fields, check them with the shared schema (refusals shown by
+ * field, nothing sent), then send. `onRefused` runs on a refusal, e.g. to clear an older server error.
+ */
+export function useCheckedSubmit<S extends z.ZodType>(schema: S, read: (form: FormData) => unknown, send: (body: z.output<S>) => void, onRefused?: () => void) {
+  const [errors, setErrors] = useState<Errors>({});
+  function submit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    let body: z.output<S>;
+    try {
+      body = checked(schema, read(new FormData(event.currentTarget)));
+    } catch (e) {
+      if (!(e instanceof RefusedError)) throw e;
+      onRefused?.();
+      setErrors(e.errors);
+      return;
+    }
+    setErrors({});
+    send(body);
+  }
+  return { errors, setErrors, submit };
+}
 
 export function useSavedWorksheet<V extends { id: number }>(initial: V) {
   const queryClient = useQueryClient();
@@ -131,5 +154,54 @@ export function PublishPanel(props: { submissionId: number | null; ready: boolea
       <button type="button" className="sb-button w-full sm:w-auto" onClick={props.onPublish} disabled={props.busy} data-testid="publish">Publish to Shuntbook</button>
       <p className="text-small text-muted">{props.what} A moderator reviews it like any other contribution.</p>
     </div>
+  );
+}
+
+/**
+ * The saved readings or points of a worksheet, numbered, with "take back" on the last while the
+ * worksheet is open, and the taken-back ones kept below, struck out and not counted.
+ */
+export function SavedEntries<E extends { position: number }, R extends { removedAt: string }>(props: {
+  id: string;
+  title: string;
+  testId: string;
+  entries: readonly E[];
+  removed: readonly R[];
+  describe: (entry: E | R) => ReactNode;
+  open: boolean;
+  busy: boolean;
+  onRemove: (position: number) => void;
+  removeErrors: Errors;
+}) {
+  const last = props.entries.at(-1);
+  return (
+    <>
+      {props.entries.length > 0 && (
+        <section aria-labelledby={props.id} className="space-y-2">
+          <h2 id={props.id} className="font-display text-lg font-bold tracking-wide uppercase">{props.title}</h2>
+          <ol className="space-y-2" data-testid={props.testId}>
+            {props.entries.map((entry) => (
+              <li key={entry.position} className="flex flex-wrap items-center justify-between gap-2 rounded-md border-2 border-rule bg-surface p-3">
+                <span>
+                  <span className="font-semibold">{entry.position + 1}.</span> {props.describe(entry)}
+                </span>
+                {props.open && entry === last && (
+                  <button type="button" className="sb-button sb-button-quiet" disabled={props.busy} onClick={() => props.onRemove(entry.position)}>Take back</button>
+                )}
+              </li>
+            ))}
+          </ol>
+          <FieldError messages={Object.values(props.removeErrors).flat()} />
+        </section>
+      )}
+      {props.removed.length > 0 && (
+        <details className="text-small">
+          <summary className="text-muted">{props.removed.length} taken back (kept here, not counted)</summary>
+          <ul className="mt-1 space-y-1">
+            {props.removed.map((entry) => <li key={entry.removedAt}><del>{props.describe(entry)}</del></li>)}
+          </ul>
+        </details>
+      )}
+    </>
   );
 }

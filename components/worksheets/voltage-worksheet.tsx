@@ -1,11 +1,11 @@
 "use client";
 
-import { useState, type FormEvent } from "react";
+import { useState } from "react";
 import { ProbeCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
 import { voltageReadingInput, voltageStartInput, type VoltageSheetView } from "@/lib/worksheets/reading-input";
 import { MEASURED_AT, type MeasuredAt } from "@/lib/submissions/vocabulary";
-import { checked, FieldError, NumberInput, PublishPanel, RefusedError, numberIn, useSavedWorksheet, useStartWorksheet, Warnings, type Errors } from "./saved-worksheet";
+import { errorsOf, FieldError, NumberInput, PublishPanel, numberIn, SavedEntries, useCheckedSubmit, useSavedWorksheet, useStartWorksheet, Warnings } from "./saved-worksheet";
 
 // The voltage worksheet, saved on the server pair by pair (lib/worksheets/voltage.ts), so a
 // builder can pick it up again on a phone at the field. The server judges each new pair with the
@@ -18,19 +18,14 @@ const volts = (v: number) => `${formatFigure(v, 2)} V`;
 export function VoltageWorksheet({ quadId, startingScale, initial }: { quadId: number; startingScale: number | null; initial: VoltageSheetView | null }) {
   const [sheet, setSheet] = useState(initial);
   const start = useStartWorksheet<VoltageSheetView>(setSheet);
-  const [errors, setErrors] = useState<Errors>({});
+  const form = useCheckedSubmit(
+    voltageStartInput,
+    (f) => ({ kind: "voltage", quadId, scaleUsed: numberIn(f, "scaleUsed") }),
+    (body) => start.mutate(body, { onError: (e) => form.setErrors(errorsOf(e)) }),
+  );
+  const { errors, submit } = form;
   if (sheet) return <VoltageSheet initial={sheet} />;
 
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    try {
-      const body = checked(voltageStartInput, { kind: "voltage", quadId, scaleUsed: numberIn(new FormData(event.currentTarget), "scaleUsed") });
-      setErrors({});
-      start.mutate(body, { onError: (e) => setErrors(e instanceof RefusedError ? e.errors : { input: [String(e)] }) });
-    } catch (e) {
-      if (e instanceof RefusedError) setErrors(e.errors);
-    }
-  }
   return (
     <div className="space-y-5">
       <ProbeCaution />
@@ -47,25 +42,17 @@ export function VoltageWorksheet({ quadId, startingScale, initial }: { quadId: n
 
 export function VoltageSheet({ initial }: { initial: VoltageSheetView }) {
   const { sheet, add, remove, publish, addErrors, removeErrors, publishErrors, busy } = useSavedWorksheet(initial);
-  const [formErrors, setFormErrors] = useState<Errors>({});
   const [formKey, setFormKey] = useState(0);
+  const { errors: formErrors, submit } = useCheckedSubmit(
+    voltageReadingInput,
+    (f) => ({ cells: numberIn(f, "cells"), reportedVolts: numberIn(f, "reportedVolts"), measuredVolts: numberIn(f, "measuredVolts"), measuredAt: f.get("measuredAt") ?? undefined }),
+    (body) => add.mutate(body, { onSuccess: () => setFormKey((k) => k + 1) }),
+    () => add.reset(),
+  );
   const errors = { ...addErrors, ...formErrors };
   const r = sheet.result;
   const open = sheet.submissionId == null;
   const last = sheet.readings.at(-1);
-
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const f = new FormData(event.currentTarget);
-    try {
-      const body = checked(voltageReadingInput, { cells: numberIn(f, "cells"), reportedVolts: numberIn(f, "reportedVolts"), measuredVolts: numberIn(f, "measuredVolts"), measuredAt: f.get("measuredAt") ?? undefined });
-      setFormErrors({});
-      add.mutate(body, { onSuccess: () => setFormKey((k) => k + 1) });
-    } catch (e) {
-      add.reset();
-      if (e instanceof RefusedError) setFormErrors(e.errors);
-    }
-  }
 
   return (
     <div className="space-y-5">
@@ -75,33 +62,14 @@ export function VoltageSheet({ initial }: { initial: VoltageSheetView }) {
         {sheet.startingSource === "published" ? "(the board's published recommended value)" : "(your own)"}. Firmware family: {sheet.familyName}.
       </p>
 
-      {sheet.readings.length > 0 && (
-        <section aria-labelledby="v-readings" className="space-y-2">
-          <h2 id="v-readings" className="font-display text-lg font-bold tracking-wide uppercase">Readings</h2>
-          <ol className="space-y-2" data-testid="voltage-readings">
-            {sheet.readings.map((x) => (
-              <li key={x.position} className="flex flex-wrap items-center justify-between gap-2 rounded-md border-2 border-rule bg-surface p-3">
-                <span>
-                  <span className="font-semibold">{x.position + 1}.</span> {x.cells}S — display <span className="font-mono">{volts(x.reportedVolts)}</span>, meter{" "}
-                  <span className="font-mono">{volts(x.measuredVolts)}</span> <span className="text-small text-muted">({PLACE[x.measuredAt]})</span>
-                </span>
-                {open && x === last && (
-                  <button type="button" className="sb-button sb-button-quiet" disabled={busy} onClick={() => remove.mutate(x.position)}>Take back</button>
-                )}
-              </li>
-            ))}
-          </ol>
-          <FieldError messages={Object.values(removeErrors).flat()} />
-        </section>
-      )}
-      {sheet.removed.length > 0 && (
-        <details className="text-small">
-          <summary className="text-muted">{sheet.removed.length} taken back (kept here, not counted)</summary>
-          <ul className="mt-1 space-y-1">
-            {sheet.removed.map((x) => <li key={x.removedAt}><del>{x.cells}S — display {volts(x.reportedVolts)}, meter {volts(x.measuredVolts)}</del></li>)}
-          </ul>
-        </details>
-      )}
+      <SavedEntries id="v-readings" title="Readings" testId="voltage-readings" entries={sheet.readings} removed={sheet.removed} open={open} busy={busy}
+        onRemove={(position) => remove.mutate(position)} removeErrors={removeErrors}
+        describe={(x) => (
+          <>
+            {x.cells}S — display <span className="font-mono">{volts(x.reportedVolts)}</span>, meter <span className="font-mono">{volts(x.measuredVolts)}</span>{" "}
+            <span className="text-small text-muted">({PLACE[x.measuredAt]})</span>
+          </>
+        )} />
 
       {r && (
         <section aria-labelledby="v-result" className="space-y-2 rounded-md border-3 border-rule bg-surface p-4" data-testid="voltage-result">

@@ -7,7 +7,8 @@ import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // The garage and the fly-and-recharge worksheet in a real browser against the build `npm test`
 // serves: sign in as the demo contributor, add a quad on a board with a published current scale,
-// fly three iterations, see the plot, publish. Screenshots go to tests/artifacts/.
+// fly three iterations, see the plot, publish; then save a voltage check (refused reading, reload,
+// still there) and a bench check on the same quad. Screenshots go to tests/artifacts/.
 const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
 
 type Values = {
@@ -41,7 +42,7 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
     await browser?.close();
   });
 
-  it("creates a quad, runs three iterations, shows the plot and publishes", async () => {
+  it("creates a quad, runs three iterations, shows the plot and publishes, then saves a voltage and a bench check", async () => {
     const group = await publishedGroup();
     const context = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
     const page = await context.newPage();
@@ -97,25 +98,40 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
     await Promise.all([page.waitForURL(/\/my\/submissions/), page.getByTestId("publish").click()]);
     await shot(page, "worksheet-published");
 
-    // the voltage check on the same quad: worked out as the builder types, with the probe cautions
+    // the voltage check on the same quad, saved as the builder goes, with the probe cautions
     await page.setViewportSize({ width: 390, height: 844 });
     await page.goto(`${quadUrl}/voltage`);
-    const form = page.getByTestId("voltage-form");
-    await form.getByLabel("Cells (S)").fill("4");
-    await form.getByLabel("OSD voltage (V)").fill("16.40");
-    await form.getByLabel("Multimeter (V)").fill("16.80");
-    await page.getByTestId("voltage-result").waitFor();
     expect(await page.getByText("Never short the probes.").isVisible()).toBe(true);
+    await page.getByTestId("voltage-start").getByRole("button", { name: "Start" }).click();
+    const form = page.getByTestId("voltage-form");
+    await form.waitFor();
+    // a reading impossible for the cell count is refused under its field, and nothing is saved
+    await form.getByLabel("Cells (S)").fill("4");
+    await form.getByLabel("Display voltage (V)").fill("16.40");
+    await form.getByLabel("Multimeter (V)").fill("30");
+    await form.getByRole("button", { name: "Save reading" }).click();
+    await page.getByText(/30 V cannot be right/).first().waitFor();
+    expect(await page.getByTestId("voltage-readings").count()).toBe(0);
+    await form.getByLabel("Multimeter (V)").fill("16.80");
+    await form.getByRole("button", { name: "Save reading" }).click();
+    await page.getByTestId("voltage-result").waitFor();
+    // picked up again later (a reload stands in for the phone at the field): the reading is still there
+    await page.reload();
+    await page.getByTestId("voltage-readings").getByText("16.8").waitFor();
+    await page.getByTestId("voltage-result").waitFor();
     await shot(page, "worksheet-voltage-phone");
 
     // the bench check: the props-on caution and the advice to prefer fly-and-recharge come first
     await page.goto(`${quadUrl}/bench`);
     expect(await page.getByText("Bench tests are dangerous with props on").isVisible()).toBe(true);
-    const bench = page.getByTestId("bench-form");
-    for (const [i, [measured, reported]] of [[5, 5.2], [20, 20.9], [40, 41.5]].entries()) {
-      if (i === 2) await bench.getByRole("button", { name: "Add another point" }).click();
-      await bench.locator(`#b-${i}-m`).fill(String(measured));
-      await bench.locator(`#b-${i}-r`).fill(String(reported));
+    await page.getByTestId("bench-start").getByRole("button", { name: "Start" }).click();
+    for (const [measured, reported] of [[5, 5.2], [20, 20.9], [40, 41.5]]) {
+      const bench = page.getByTestId("bench-form");
+      const saved = await page.getByTestId("bench-points").locator("li").count();
+      await bench.getByLabel("Clamp meter (A)").fill(String(measured));
+      await bench.getByLabel("Display current (A)").fill(String(reported));
+      await bench.getByRole("button", { name: "Save point" }).click();
+      await page.getByTestId("bench-points").locator("li").nth(saved).waitFor();
     }
     await page.getByTestId("bench-result").waitFor();
     await shot(page, "worksheet-bench-phone");

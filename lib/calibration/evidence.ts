@@ -29,9 +29,22 @@ type Response = FirmwareFamily["voltageScaleResponse"];
 export const EVIDENCE_TOLERANCE = 0.02;
 /**
  * An offset sits near zero, where 2 % of it means nothing, so it may also differ by up to 10 steps
- * (our own rule; the same floor lib/published/refresh.ts judges offset spreads against).
+ * (our own rule; the same floor lib/published/refresh.ts judges offset spreads against)...
  */
 export const OFFSET_TOLERANCE_FLOOR_STEPS = 10;
+/**
+ * ...or by as much offset as moves the displayed current by 0.1 A, whichever is more: an OSD
+ * usually shows current to 0.1 A (common practice, no source), so bench points read off it cannot
+ * place the zero-current error closer than that. Without it a family counting its offset in
+ * single mA would flag an honest bench fit for a 0.02 A wobble in the intercept.
+ */
+export const OFFSET_TOLERANCE_FLOOR_AMPS = 0.1;
+
+/** The offset floor in steps for bench evidence taken at this scale: the larger of the two rules above. */
+export function offsetFloorSteps(scaleUsed: number, units: EvidenceUnits): number {
+  const perAmp = units.currentOffsetUnit === "mV" ? sensitivityFromCurrentScaleSetting(scaleUsed, units) : 1000; // offset unit per displayed amp
+  return Math.max(OFFSET_TOLERANCE_FLOOR_STEPS, (OFFSET_TOLERANCE_FLOOR_AMPS * perAmp) / units.currentOffsetStep);
+}
 
 export type VoltageReadingEvidence = { cells: number; reportedVolts: number; measuredVolts: number; measuredAt: string };
 export type VoltageCheckEvidence = { scaleUsed: number; readings: readonly VoltageReadingEvidence[] };
@@ -131,6 +144,7 @@ export type EvidenceCheck = {
 
 export type EvidenceSummary = {
   tolerance: number;
+  /** The offset check's floor in steps (offsetFloorSteps), or the bare 10 steps without bench evidence. */
   offsetToleranceFloorSteps: number;
   voltage: { implied: number; perReading: number[] } | null;
   cycles: { implied: number; perCycle: number[] } | null;
@@ -148,10 +162,9 @@ export type EvidenceInput = {
   bench: BenchEvidence | null;
 };
 
-function check(quantity: EvidenceQuantity, source: EvidenceSource, claimed: number, implied: number): EvidenceCheck {
+function check(quantity: EvidenceQuantity, source: EvidenceSource, claimed: number, implied: number, floorSteps = 0): EvidenceCheck {
   const difference = claimed - implied;
-  const relative = EVIDENCE_TOLERANCE * Math.abs(implied);
-  const allowed = quantity === "current_offset" ? Math.max(relative, OFFSET_TOLERANCE_FLOOR_STEPS) : relative;
+  const allowed = Math.max(EVIDENCE_TOLERANCE * Math.abs(implied), floorSteps);
   return {
     quantity,
     source,
@@ -187,14 +200,16 @@ export function summariseEvidence(input: EvidenceInput, units: EvidenceUnits): E
     if (input.currentScale != null) checks.push(check("current_scale", "recharge_cycles", input.currentScale, cycles.implied));
   }
   let bench: BenchImplication | null = null;
+  let offsetFloor = OFFSET_TOLERANCE_FLOOR_STEPS;
   if (input.bench && input.bench.points.length >= 2) {
     bench = impliedFromBench(input.bench, units);
+    offsetFloor = offsetFloorSteps(input.bench.scaleUsed, units);
     if (input.currentScale != null) checks.push(check("current_scale", "bench_points", input.currentScale, bench.impliedScale));
-    if (input.currentOffset != null) checks.push(check("current_offset", "bench_points", input.currentOffset, bench.impliedOffset));
+    if (input.currentOffset != null) checks.push(check("current_offset", "bench_points", input.currentOffset, bench.impliedOffset, offsetFloor));
   }
   return {
     tolerance: EVIDENCE_TOLERANCE,
-    offsetToleranceFloorSteps: OFFSET_TOLERANCE_FLOOR_STEPS,
+    offsetToleranceFloorSteps: offsetFloor,
     voltage,
     cycles,
     bench,

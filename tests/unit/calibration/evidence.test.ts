@@ -6,7 +6,9 @@ import { linearRegression, sampleCorrelation } from "simple-statistics";
 import { describe, expect, it } from "vitest";
 import {
   EVIDENCE_TOLERANCE,
+  OFFSET_TOLERANCE_FLOOR_AMPS,
   OFFSET_TOLERANCE_FLOOR_STEPS,
+  offsetFloorSteps,
   impliedCurrentScaleFromCycle,
   impliedFromBench,
   impliedVoltageScale,
@@ -207,6 +209,29 @@ describe(`mismatch flag — a ${EVIDENCE_TOLERANCE * 100} % tolerance (our own r
     expect(near.checks.map((c) => c.mismatch)).toEqual([false, false]);
     const far = summariseEvidence({ ...base, currentScale: 250, currentOffset: 13, bench }, family);
     expect(far.checks.find((c) => c.quantity === "current_offset")!.mismatch).toBe(true);
+  });
+
+  it(`an offset counted in mA may differ by what moves the display ${OFFSET_TOLERANCE_FLOOR_AMPS} A (an OSD shows current to 0.1 A: common practice, no source)`, () => {
+    const ma = units(VV_AV_MA); // A/V scale, offset in mA steps of 1
+    expect(ma.currentOffsetUnit).toBe("mA");
+    expect(offsetFloorSteps(100, ma)).toBeCloseTo((OFFSET_TOLERANCE_FLOOR_AMPS * 1000) / ma.currentOffsetStep, 9);
+    // display reads 0.05 A high at every load, the scale right: the fit puts the offset 50 mA off,
+    // inside what a 0.1 A display can tell, so a claim of the offset in force is not flagged
+    const points = [0, 10, 20].map((measuredAmps) => ({ measuredAmps, reportedAmps: measuredAmps + 0.05 }));
+    const bench = { scaleUsed: 100, offsetUsed: 0, points };
+    const s = summariseEvidence({ ...base, currentScale: 100, currentOffset: 0, bench }, ma);
+    expect(Math.abs(s.bench!.impliedOffset)).toBeCloseTo(50 / ma.currentOffsetStep, 6);
+    expect(s.offsetToleranceFloorSteps).toBeCloseTo(100 / ma.currentOffsetStep, 9);
+    expect(s.checks.find((c) => c.quantity === "current_offset")!.mismatch).toBe(false);
+    // 0.3 A off is more than the display's resolution: flagged
+    const far = summariseEvidence({ ...base, currentScale: 100, currentOffset: 0, bench: { ...bench, points: [0, 10, 20].map((m) => ({ measuredAmps: m, reportedAmps: m + 0.3 })) } }, ma);
+    expect(far.checks.find((c) => c.quantity === "current_offset")!.mismatch).toBe(true);
+  });
+
+  it("the 0.1 A floor never makes an offset in mV stricter than the 10-step floor", () => {
+    const mv = units(VV_MVA_MV);
+    // 25 mV/A: 0.1 A is 2.5 mV, under 10 steps of 1 mV, so 10 steps stand
+    expect(offsetFloorSteps(250, mv)).toBe(Math.max(OFFSET_TOLERANCE_FLOOR_STEPS, (OFFSET_TOLERANCE_FLOOR_AMPS * 25) / mv.currentOffsetStep));
   });
 
   it("evidence with nothing claimed beside it is summarised but not checked", () => {

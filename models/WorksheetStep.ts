@@ -10,6 +10,8 @@ export class WorksheetStep extends Model<InferAttributes<WorksheetStep>, InferCr
   declare reportedMah: number;
   declare chargedMah: number;
   declare fullyRecharged: CreationOptional<boolean>;
+  /** Set when the builder took the iteration back: kept, shown struck out, never counted (migrations/20261212002000-…). */
+  declare removedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
@@ -21,6 +23,7 @@ export class WorksheetStep extends Model<InferAttributes<WorksheetStep>, InferCr
         reportedMah: { type: DataTypes.DOUBLE, allowNull: false },
         chargedMah: { type: DataTypes.DOUBLE, allowNull: false },
         fullyRecharged: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+        removedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
       },
       { sequelize, tableName: "worksheet_steps", underscored: true, updatedAt: false },

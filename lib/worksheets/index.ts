@@ -1,8 +1,8 @@
 import { QueryTypes } from "sequelize";
-import { ApiError, badRequest } from "@/lib/api/errors";
+import { badRequest } from "@/lib/api/errors";
 import { db, WORKSHEET_KINDS, type WorksheetKind } from "@/models";
 import { addBenchPoint, getBenchWorksheet, removeBenchPoint, startBenchWorksheet } from "./bench";
-import { addRechargeStep, getRechargeWorksheet, ownSheet, startRechargeWorksheet } from "./recharge";
+import { addRechargeStep, getRechargeWorksheet, ownSheet, removeRechargeStep, startRechargeWorksheet } from "./recharge";
 import { addVoltageReading, getVoltageWorksheet, removeVoltageReading, startVoltageWorksheet } from "./voltage";
 
 // Public face of lib/worksheets: the routes under /api/v1/garage/worksheets and the garage pages
@@ -45,7 +45,7 @@ export async function removeWorksheetEntry(ownerId: string, id: number, position
   const { kind } = await ownSheet(ownerId, id);
   if (kind === "voltage") return removeVoltageReading(ownerId, id, position);
   if (kind === "bench") return removeBenchPoint(ownerId, id, position);
-  throw new ApiError(409, "Fly-and-recharge iterations cannot be taken back: a mistyped one shows as a warning; start a new worksheet to begin again.");
+  return removeRechargeStep(ownerId, id, position);
 }
 
 export type WorksheetListItem = { id: number; kind: WorksheetKind; entries: number; submissionId: number | null; createdAt: string; updatedAt: string };
@@ -58,7 +58,7 @@ export async function listQuadWorksheets(ownerId: string, quadId: number): Promi
             CASE w.kind
               WHEN 'voltage' THEN (SELECT count(*) FROM worksheet_voltage_readings r WHERE r.worksheet_id = w.id AND r.removed_at IS NULL)
               WHEN 'bench' THEN (SELECT count(*) FROM worksheet_bench_points p WHERE p.worksheet_id = w.id AND p.removed_at IS NULL)
-              ELSE (SELECT count(*) FROM worksheet_steps s WHERE s.worksheet_id = w.id)
+              ELSE (SELECT count(*) FROM worksheet_steps s WHERE s.worksheet_id = w.id AND s.removed_at IS NULL)
             END::int AS entries
        FROM worksheets w
       WHERE w.quad_id = $1 AND w.owner_id = $2

@@ -30,6 +30,8 @@ export type WorksheetView = {
   startingScale: number;
   startingSource: "published" | "own";
   steps: Array<{ position: number; scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean }>;
+  /** Iterations the builder took back: kept and shown, never counted or published. */
+  removed: Array<{ scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean; removedAt: string }>;
   result: RechargeWorksheet | null;
   warnings: FieldIssue[];
   submissionId: number | null;

@@ -2,14 +2,14 @@ import type { Transaction } from "sequelize";
 import { ApiError, badRequest } from "@/lib/api/errors";
 import { settingField, type SettingKind, type WorksheetFamily } from "@/lib/calibration/worksheets/fields";
 import type { FieldIssue } from "@/lib/calibration/worksheets";
-import { WorksheetBenchPoint, WorksheetVoltageReading, type Worksheet } from "@/models";
+import { WorksheetBenchPoint, WorksheetStep, WorksheetVoltageReading, type Worksheet } from "@/models";
 
-// What the voltage and bench worksheets share about their saved readings and points: the rows in
+// What every kind of worksheet shares about its saved iterations, readings and points: the rows in
 // order (live and taken back), taking back the last one, the field errors of a refused one, and
 // the check of a setting in force at the start.
 
-type EntryModel = typeof WorksheetVoltageReading | typeof WorksheetBenchPoint;
-type Entry = WorksheetVoltageReading | WorksheetBenchPoint;
+type EntryModel = typeof WorksheetVoltageReading | typeof WorksheetBenchPoint | typeof WorksheetStep;
+type Entry = WorksheetVoltageReading | WorksheetBenchPoint | WorksheetStep;
 
 /** Every row of the worksheet in position order: the live ones, and the ones taken back. */
 export async function entriesOf<R extends Entry>(model: EntryModel, worksheetId: number, transaction?: Transaction): Promise<{ live: R[]; removed: R[] }> {

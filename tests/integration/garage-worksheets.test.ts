@@ -6,6 +6,7 @@ import { POST as startSheet } from "@/app/api/v1/garage/worksheets/route";
 import { GET as getSheet } from "@/app/api/v1/garage/worksheets/[id]/route";
 import { POST as postStep } from "@/app/api/v1/garage/worksheets/[id]/steps/route";
 import { POST as publish } from "@/app/api/v1/garage/worksheets/[id]/publish/route";
+import { DELETE as removeStep } from "@/app/api/v1/garage/worksheets/[id]/steps/[position]/route";
 import { stopBoss } from "@/lib/jobs";
 import { db, Submission, WorksheetStep } from "@/models";
 import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
@@ -84,5 +85,37 @@ describe("fly-and-recharge worksheet, saved step by step", () => {
     const sheet = await startOne(owner);
     expect((await callRoute(getSheet, req(`/x`, other), params(sheet.id))).status).toBe(404);
     expect((await callRoute(postStep, req(`/x`, other, { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }), params(sheet.id))).status).toBe(404);
+  });
+
+  it("a mistyped iteration is taken back: kept and shown, no longer counted or published, and only the last one", async () => {
+    const cookie = await sessionCookieFor("contributor", { email: "pilot@garage.test" });
+    const sheet = await startOne(cookie);
+    const step = (body: object) => callRoute(postStep, req(`/x`, cookie, body), params(sheet.id));
+    const takeBack = (position: number) =>
+      callRoute(removeStep, withCookie(new Request("http://test/x", { method: "DELETE" }), cookie), { params: Promise.resolve({ id: String(sheet.id), position: String(position) }) });
+    await step({ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 });
+    // 1380 typed for 1300: plausible, so stored, but wrong
+    await step({ scaleUsed: 369, reportedMah: 1296, chargedMah: 1380 });
+
+    const notLast = await takeBack(0);
+    expect(notLast.status).toBe(409);
+    expect((await notLast.json()).error.fieldErrors.position[0]).toMatch(/iteration 2 first/);
+    const res = await takeBack(1);
+    expect(res.status).toBe(200);
+    const { worksheet, removed } = await res.json();
+    expect(removed).toMatchObject({ position: 1, chargedMah: 1380 });
+    expect(worksheet.steps).toHaveLength(1);
+    expect(worksheet.removed).toEqual([expect.objectContaining({ chargedMah: 1380, removedAt: expect.any(String) })]);
+    // a double tap takes back nothing more
+    expect((await takeBack(1)).status).toBe(409);
+    // the corrected iteration takes position 1 again; the taken-back row is still in the table
+    const fixed = (await (await step({ scaleUsed: 369, reportedMah: 1296, chargedMah: 1300 })).json()).worksheet;
+    expect(fixed.steps.map((s: { position: number; chargedMah: number }) => [s.position, s.chargedMah])).toEqual([[0, 1300], [1, 1300]]);
+    db();
+    expect(await WorksheetStep.count({ where: { worksheetId: sheet.id } })).toBe(3);
+    // published: only the live iterations are evidence, and nothing can be taken back any more
+    const { submission } = await (await callRoute(publish, req(`/x`, cookie, {}), params(sheet.id))).json();
+    expect(submission.cycles.map((c: { chargedMah: number }) => c.chargedMah)).toEqual([1300, 1300]);
+    expect((await takeBack(1)).status).toBe(409);
   });
 });

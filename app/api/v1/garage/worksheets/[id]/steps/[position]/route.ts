@@ -5,7 +5,7 @@ import { privateJson, requestUser } from "@/lib/submissions/http";
 import { removeWorksheetEntry } from "@/lib/worksheets";
 import { positionFrom } from "@/lib/worksheets/saved-entries";
 
-// Take back the last voltage reading or bench point of an unpublished worksheet (position counts
+// Take back the last iteration, voltage reading or bench point of an unpublished worksheet (position counts
 // from 0 and must be the last one). The row is kept, marked as taken back; the answer carries it.
 type Ctx = { params: Promise<{ id: string; position: string }> };
 export const DELETE = apiRoute<Ctx>(async (request, ctx) => {

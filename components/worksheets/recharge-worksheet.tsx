@@ -7,6 +7,7 @@ import { CHARGING_CAUTIONS } from "@/lib/calibration/worksheets/cautions";
 import type { RoundedSetting } from "@/lib/calibration/worksheets";
 import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
 import { ConvergencePlot } from "./convergence-plot";
+import { errorsOf, FieldError, sendJson } from "./saved-worksheet";
 
 // The fly-and-recharge worksheet: each iteration is sent on its own and stored whole, then the page
 // shows what the recharge maths makes of all of them (lib/calibration/worksheets/recharge.ts).
@@ -70,6 +71,22 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
     setFormKey((k) => k + 1);
   }
 
+  // a mistyped iteration: the server keeps it, struck out and no longer counted
+  const last = sheet.steps.at(-1);
+  async function takeBack(position: number) {
+    setBusy(true);
+    try {
+      setSheet((await sendJson<{ worksheet: WorksheetView }>(`/api/v1/garage/worksheets/${sheet.id}/steps/${position}`, "DELETE")).worksheet);
+      setErrors({});
+      // the next iteration's scale was filled in from the taken-back one: fill it in afresh
+      setFormKey((k) => k + 1);
+    } catch (e) {
+      setErrors(errorsOf(e));
+    } finally {
+      setBusy(false);
+    }
+  }
+
   async function publish() {
     setBusy(true);
     const out = await postJson(`/api/v1/garage/worksheets/${sheet.id}/publish`, {}).finally(() => setBusy(false));
@@ -120,6 +137,24 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
             ))}
           </tbody>
         </table>
+      )}
+      {sheet.submissionId == null && last && (
+        <div>
+          <button type="button" className="sb-button sb-button-quiet" disabled={busy} onClick={() => takeBack(last.position)} data-testid="take-back">
+            Take back iteration {last.position + 1}
+          </button>
+          <FieldError messages={errors.position} />
+        </div>
+      )}
+      {sheet.removed.length > 0 && (
+        <details className="text-small">
+          <summary className="text-muted">{sheet.removed.length} taken back (kept here, not counted)</summary>
+          <ul className="mt-1 space-y-1">
+            {sheet.removed.map((x) => (
+              <li key={x.removedAt}><del>scale {x.scaleUsed}, reported {formatFigure(x.reportedMah, 0)} mAh, charged {formatFigure(x.chargedMah, 0)} mAh</del></li>
+            ))}
+          </ul>
+        </details>
       )}
 
       {r && (

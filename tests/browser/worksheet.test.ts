@@ -90,6 +90,17 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
       await page.locator("[data-testid=iterations] tbody tr").nth(n).waitFor();
     }
     expect(await page.locator("[data-testid=iterations] tbody tr").count()).toBe(3);
+    // a fourth, mistyped (1390 for 1300): taken back, it stays listed struck out and is not counted
+    const typo = page.getByTestId("step-form");
+    await typo.getByLabel("Reported mAh").fill("1300");
+    await typo.getByLabel("Charged mAh").fill("1390");
+    await typo.getByRole("button", { name: "Save iteration" }).click();
+    await page.locator("[data-testid=iterations] tbody tr").nth(3).waitFor();
+    await page.getByTestId("take-back").getByText("Take back iteration 4").click();
+    await page.getByText("1 taken back (kept here, not counted)").waitFor();
+    expect(await page.locator("[data-testid=iterations] tbody tr").count()).toBe(3);
+    // the next iteration's scale comes from the three that count, not from the one taken back
+    expect(await page.getByTestId("step-form").getByLabel("Scale used").inputValue()).toBe(await page.getByTestId("recommended").innerText());
     await page.getByTestId("convergence-plot").locator("svg").first().waitFor();
     await shot(page, "worksheet-three-iterations-phone");
     await page.setViewportSize({ width: 1280, height: 800 });

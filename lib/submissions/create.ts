@@ -3,7 +3,7 @@ import { applyTrustOnCreate } from "@/lib/moderation/trust";
 import type { SessionUser } from "@/lib/auth";
 import { attachPhotosToSubmission } from "@/lib/storage/evidence-photos";
 import { Submission, db } from "@/models";
-import { evidenceVerdict, writeEvidence } from "./evidence-rows";
+import { submissionColumns, writeEvidence } from "./evidence-rows";
 import { KeyTakenError, claimKey, lockKey, replayFor, requestHash } from "./idempotency";
 import { queueStatusMail } from "./status-mail";
 import { validateSubmission, type ValidatedSubmission } from "./validate";
@@ -69,24 +69,8 @@ async function writeSubmission(
   transaction: Transaction,
   idempotency: { key: string; hash: string } | null,
 ): Promise<CreateResult> {
-  const { summary, mismatch } = evidenceVerdict(payload, family);
   const submission = await Submission.create(
-    {
-      boardRevisionId: revision.id,
-      firmwareFamilyId: family.id,
-      contributorId: user.id,
-      firmwareVersion: payload.firmwareVersion,
-      sensingSource: payload.sensingSource,
-      method: payload.method,
-      voltageScale: payload.voltageScale,
-      currentScale: payload.currentScale,
-      currentOffset: payload.currentOffset,
-      notes: payload.notes,
-      status: "pending",
-      evidenceMismatch: mismatch,
-      evidenceSummary: summary,
-      moderatorNote: null,
-    },
+    { ...submissionColumns(payload, family, revision), contributorId: user.id, status: "pending", moderatorNote: null },
     { transaction },
   );
   await writeEvidence(submission.id, payload, transaction);

@@ -1,6 +1,6 @@
 import type { Transaction } from "sequelize";
 import { summariseEvidence, type EvidenceSummary } from "@/lib/calibration/evidence";
-import { SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading, type FirmwareFamily } from "@/models";
+import { SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading, type BoardRevision, type FirmwareFamily } from "@/models";
 import type { SubmissionPayload } from "./schema";
 
 // A submission's evidence between its three forms: the payload sections (what the form and the
@@ -13,6 +13,27 @@ export function evidenceVerdict(payload: SubmissionPayload, family: FirmwareFami
   if (!payload.voltageCheck && payload.cycles.length === 0 && !payload.bench) return { summary: null, mismatch: false };
   const summary = summariseEvidence(payload, family);
   return { summary, mismatch: summary.mismatch };
+}
+
+/**
+ * What a validated contribution sets on its submissions row, with the evidence verdict worked out:
+ * the same columns whether it is created or edited (status and contributor are the caller's).
+ */
+export function submissionColumns(payload: SubmissionPayload, family: FirmwareFamily, revision: Pick<BoardRevision, "id">) {
+  const { summary, mismatch } = evidenceVerdict(payload, family);
+  return {
+    boardRevisionId: revision.id,
+    firmwareFamilyId: family.id,
+    firmwareVersion: payload.firmwareVersion,
+    sensingSource: payload.sensingSource,
+    method: payload.method,
+    voltageScale: payload.voltageScale,
+    currentScale: payload.currentScale,
+    currentOffset: payload.currentOffset,
+    notes: payload.notes,
+    evidenceMismatch: mismatch,
+    evidenceSummary: summary,
+  };
 }
 
 /** Replaces the submission's evidence rows with the payload's (inside the caller's transaction). */

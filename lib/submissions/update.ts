@@ -3,7 +3,7 @@ import { ApiError, badRequest, notFound } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth";
 import { attachPhotosToSubmission } from "@/lib/storage/evidence-photos";
 import { Submission, db, type SubmissionStatus } from "@/models";
-import { evidenceVerdict, writeEvidence } from "./evidence-rows";
+import { submissionColumns, writeEvidence } from "./evidence-rows";
 import { queueStatusMail } from "./status-mail";
 import { validateSubmission } from "./validate";
 import { loadSubmissionView, type SubmissionView } from "./view";
@@ -51,7 +51,7 @@ export async function updateSubmission(user: Pick<SessionUser, "id">, id: number
   const { version } = versionParsed.data;
   checkEditable(existing, user, version);
   const { payload, family, revision } = await validateSubmission(body);
-  const { summary, mismatch } = evidenceVerdict(payload, family);
+  const columns = submissionColumns(payload, family, revision);
 
   return sequelize.transaction(async (transaction) => {
     // lock the row and check again: another edit (or a moderator) may have come in between
@@ -59,20 +59,7 @@ export async function updateSubmission(user: Pick<SessionUser, "id">, id: number
     if (!s) throw missing(id);
     checkEditable(s, user, version);
     const resubmitted = s.status === "changes_requested";
-    s.set({
-      boardRevisionId: revision.id,
-      firmwareFamilyId: family.id,
-      firmwareVersion: payload.firmwareVersion,
-      sensingSource: payload.sensingSource,
-      method: payload.method,
-      voltageScale: payload.voltageScale,
-      currentScale: payload.currentScale,
-      currentOffset: payload.currentOffset,
-      notes: payload.notes,
-      evidenceMismatch: mismatch,
-      evidenceSummary: summary,
-      status: "pending",
-    });
+    s.set({ ...columns, status: "pending" });
     await s.save({ transaction }); // WHERE version = version, then version + 1
     await writeEvidence(s.id, payload, transaction);
     await attachPhotosToSubmission(payload.photoIds, s.id, user.id, transaction);

@@ -1,4 +1,4 @@
-import { publishedFromValues, type ApprovedPoint } from "@/lib/published/from-values";
+import { publishedFiguresMoved, publishedFromValues, type ApprovedPoint } from "@/lib/published/from-values";
 import { QUANTITIES, type Quantity } from "@/lib/published/quantities";
 import type { ConfidenceLabel } from "@/lib/stats";
 import { DEMO_ACCOUNTS } from "./accounts";
@@ -52,9 +52,6 @@ function groupFigures(quantity: Quantity, points: ApprovedPoint[]): Figures {
   return { recommendedValue: p.recommendedValue, n: p.n, median: p.median, ciLow: p.ciLow, ciHigh: p.ciHigh, confidence: p.confidence };
 }
 
-const moved = (a: Figures | undefined, b: Figures) =>
-  a === undefined || a.recommendedValue !== b.recommendedValue || a.n !== b.n || a.ciLow !== b.ciLow || a.ciHigh !== b.ciHigh;
-
 export function buildDemoHistory(submissions: readonly DemoSubmission[], users: readonly DemoUser[]): { approvals: DemoApproval[]; history: DemoHistoryRow[] } {
   const moderator = users.find((u) => u.email === DEMO_ACCOUNTS.moderator.email)!;
   const standIn = users.find((u) => u.role === "moderator" && u.id !== moderator.id)!;
@@ -76,7 +73,7 @@ export function buildDemoHistory(submissions: readonly DemoSubmission[], users: 
       groups.set(key, group);
       group.points.push({ value, method: s.method, date: s.updatedAt });
       const figures = groupFigures(quantity, group.points);
-      if (!moved(group.last, figures)) continue;
+      if (group.last && !publishedFiguresMoved(group.last, figures)) continue;
       group.last = figures;
       history.push({ revisionKey: s.revisionKey, familySlug: s.familySlug, quantity, ...figures, at: s.updatedAt, approval });
     }

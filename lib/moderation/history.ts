@@ -1,5 +1,6 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import type { ConfidenceLabel } from "@/lib/stats";
+import { publishedFiguresMoved } from "@/lib/published/from-values";
 import { refreshGroups, type PublishedStats } from "@/lib/published/refresh";
 import { QUANTITIES, type GroupKey, type Quantity } from "@/lib/published/quantities";
 import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
@@ -32,12 +33,6 @@ export async function publishedFigures(group: GroupKey, transaction?: Transactio
   );
   return new Map(rows.map((row) => [row.quantity, row]));
 }
-
-const changed = (a: PublishedFigures | undefined, b: PublishedFigures | undefined): boolean =>
-  (a?.recommendedValue ?? null) !== (b?.recommendedValue ?? null) ||
-  (a?.n ?? 0) !== (b?.n ?? 0) ||
-  (a?.ciLow ?? null) !== (b?.ciLow ?? null) ||
-  (a?.ciHigh ?? null) !== (b?.ciHigh ?? null);
 
 const figuresOf = (row: PublishedStats): PublishedFigures => ({
   recommendedValue: row.recommendedValue,
@@ -77,7 +72,7 @@ export async function refreshWithHistory(group: GroupKey, eventId: number, trans
   await sequelize.query("SELECT pg_advisory_xact_lock(:r, :f)", { replacements: { r: group.boardRevisionId, f: group.firmwareFamilyId }, transaction });
   const before = await publishedFigures(group, transaction);
   const after = new Map((await refreshGroups(sequelize, [group], transaction)).map((row) => [row.quantity, figuresOf(row)]));
-  const moved = QUANTITIES.filter((q) => changed(before.get(q), after.get(q)));
+  const moved = QUANTITIES.filter((q) => publishedFiguresMoved(before.get(q), after.get(q)));
   if (moved.length === 0) return [];
 
   // quantities that have no history yet get their previous figures as a baseline first

@@ -11,6 +11,19 @@ import { derivePublished, type GroupAggregates, type PublishedStats } from "./re
 
 export type ApprovedPoint = { value: number; method: Method; date: Date };
 
+/** The figures a reader of the published value sees change: the history keeps a row when one moves. */
+export type ShownFigures = { recommendedValue: number | null; n: number; ciLow: number | null; ciHigh: number | null };
+
+/** Whether the published value moved from `a` to `b` (undefined: not published); the value-history rule. */
+export function publishedFiguresMoved(a: ShownFigures | undefined, b: ShownFigures | undefined): boolean {
+  return (
+    (a?.recommendedValue ?? null) !== (b?.recommendedValue ?? null) ||
+    (a?.n ?? 0) !== (b?.n ?? 0) ||
+    (a?.ciLow ?? null) !== (b?.ciLow ?? null) ||
+    (a?.ciHigh ?? null) !== (b?.ciHigh ?? null)
+  );
+}
+
 export function publishedFromValues(group: GroupKey, quantity: Quantity, points: readonly ApprovedPoint[]): PublishedStats | null {
   if (points.length === 0) return null;
   const values = points.map((p) => p.value);

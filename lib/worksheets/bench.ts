@@ -5,7 +5,7 @@ import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { db, FirmwareFamily, Quad, Worksheet, WorksheetBenchPoint } from "@/models";
 import { benchPointInput, benchStartInput, type BenchPointRow, type BenchSheetView } from "./reading-input";
 import { ownSheet, publishedSetting, quadContext } from "./recharge";
-import { assertOpen, checkSetting, entriesOf, newEntryErrors, removeLastEntry } from "./saved-entries";
+import { assertOpen, checkSetting, entriesOf, newEntryErrors, takeBackLast } from "./saved-entries";
 
 // Server side of the bench worksheet: start it on a quad with the current scale and offset in
 // force, add one clamp-meter point per request (fitted with every earlier point by
@@ -92,14 +92,8 @@ export async function addBenchPoint(ownerId: string, id: number, input: unknown)
 
 /** Takes back the last point (kept, struck out); `position` must name it. */
 export async function removeBenchPoint(ownerId: string, id: number, position: number): Promise<{ worksheet: BenchSheetView; removed: BenchPointRow }> {
-  const removed = await db().transaction(async (transaction) => {
-    const sheet = await ownBenchSheet(ownerId, id, transaction);
-    assertOpen(sheet, "points");
-    const row = await removeLastEntry<WorksheetBenchPoint>(WorksheetBenchPoint, sheet, position, "point", transaction);
-    await sheet.update({ updatedAt: new Date() }, { transaction });
-    return rowOf(row);
-  });
-  return { worksheet: await getBenchWorksheet(ownerId, id), removed };
+  const row = await takeBackLast<WorksheetBenchPoint>((t) => ownBenchSheet(ownerId, id, t), WorksheetBenchPoint, position, "point");
+  return { worksheet: await getBenchWorksheet(ownerId, id), removed: rowOf(row) };
 }
 
 /** The submission body (for a firmware version) a finished bench worksheet becomes: method "bench_clamp", the points as its evidence. */

@@ -19,6 +19,8 @@ export const stepInput = z.object({
   fullyRecharged: z.boolean({ error: "Say whether the charger finished: yes or no" }).default(true),
 });
 
+export type RechargeStepRow = { position: number; scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean };
+
 export type WorksheetView = {
   kind: "fly_recharge";
   id: number;
@@ -29,9 +31,9 @@ export type WorksheetView = {
   cells: number;
   startingScale: number;
   startingSource: "published" | "own";
-  steps: Array<{ position: number; scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean }>;
+  steps: RechargeStepRow[];
   /** Iterations the builder took back: kept and shown, never counted or published. */
-  removed: Array<{ scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean; removedAt: string }>;
+  removed: Array<RechargeStepRow & { removedAt: string }>;
   result: RechargeWorksheet | null;
   warnings: FieldIssue[];
   submissionId: number | null;

@@ -2,8 +2,8 @@ import { ApiError, badRequest } from "@/lib/api/errors";
 import { rechargeWorksheet } from "@/lib/calibration/worksheets";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { getBoardValues } from "@/lib/published/board-values";
-import { startInput, stepInput, type WorksheetView } from "./recharge-input";
-import { assertOpen, entriesOf, newEntryErrors, removeLastEntry } from "./saved-entries";
+import { startInput, stepInput, type RechargeStepRow, type WorksheetView } from "./recharge-input";
+import { entriesOf, newEntryErrors, takeBackLast } from "./saved-entries";
 import { BoardModel, BoardRevision, db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
 
 // Server side of the fly-and-recharge worksheet: start it on a quad, add one iteration per request
@@ -54,6 +54,14 @@ export async function ownSheet(ownerId: string, id: number, transaction?: import
   return sheet;
 }
 
+async function ownRechargeSheet(ownerId: string, id: number, transaction?: import("sequelize").Transaction) {
+  const sheet = await ownSheet(ownerId, id, transaction);
+  if (sheet.kind !== "fly_recharge") throw notYours("fly-and-recharge worksheet");
+  return sheet;
+}
+
+const stepRow = (s: WorksheetStep): RechargeStepRow => ({ position: s.position, scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged });
+
 /** The worksheet's iterations in order: the live ones it counts, and the ones taken back. */
 const stepsOf = (worksheetId: number, transaction?: import("sequelize").Transaction) => entriesOf<WorksheetStep>(WorksheetStep, worksheetId, transaction);
 
@@ -61,16 +69,15 @@ const compute = (sheet: Worksheet, steps: Array<{ scaleUsed: number; reportedMah
   rechargeWorksheet({ ratedMah: sheet.ratedMah!, cycles: steps.map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged })) }, family);
 
 export async function getRechargeWorksheet(ownerId: string, id: number, transaction?: import("sequelize").Transaction): Promise<WorksheetView> {
-  const sheet = await ownSheet(ownerId, id, transaction);
-  if (sheet.kind !== "fly_recharge") throw notYours("fly-and-recharge worksheet");
+  const sheet = await ownRechargeSheet(ownerId, id, transaction);
   const [{ live: steps, removed }, family, quad] = await Promise.all([stepsOf(sheet.id, transaction), FirmwareFamily.findByPk(sheet.firmwareFamilyId, { transaction }), Quad.findByPk(sheet.quadId, { transaction })]);
   const result = steps.length ? compute(sheet, steps, family!) : null;
   return {
     kind: "fly_recharge",
     id: sheet.id, quadId: sheet.quadId, quadName: quad!.name, familyName: family!.name, ratedMah: sheet.ratedMah!, cells: sheet.cells!,
     startingScale: sheet.startingScale, startingSource: sheet.startingSource,
-    steps: steps.map((s) => ({ position: s.position, scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged })),
-    removed: removed.map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged, removedAt: s.removedAt!.toISOString() })),
+    steps: steps.map(stepRow),
+    removed: removed.map((s) => ({ ...stepRow(s), removedAt: s.removedAt!.toISOString() })),
     result: result?.ok ? result.value : null,
     warnings: result ? (result.ok ? result.warnings : result.errors) : [],
     submissionId: sheet.submissionId,
@@ -82,8 +89,7 @@ export async function addRechargeStep(ownerId: string, id: number, input: unknow
   const step = parseOrThrow(stepInput, input);
   const sequelize = db();
   await sequelize.transaction(async (transaction) => {
-    const sheet = await ownSheet(ownerId, id, transaction);
-    if (sheet.kind !== "fly_recharge") throw notYours("fly-and-recharge worksheet");
+    const sheet = await ownRechargeSheet(ownerId, id, transaction);
     if (sheet.submissionId != null) throw new ApiError(409, "This worksheet is published; start a new one to fly more cycles.");
     const { live: steps } = await stepsOf(sheet.id, transaction);
     const family = (await FirmwareFamily.findByPk(sheet.firmwareFamilyId, { transaction }))!;
@@ -99,16 +105,9 @@ export async function addRechargeStep(ownerId: string, id: number, input: unknow
 }
 
 /** Takes back the last iteration (mistyped at the field): kept with removed_at set, no longer counted. */
-export async function removeRechargeStep(ownerId: string, id: number, position: number): Promise<{ worksheet: WorksheetView; removed: WorksheetView["steps"][number] }> {
-  const removed = await db().transaction(async (transaction) => {
-    const sheet = await ownSheet(ownerId, id, transaction);
-    if (sheet.kind !== "fly_recharge") throw notYours("fly-and-recharge worksheet");
-    assertOpen(sheet, "iterations");
-    const row = await removeLastEntry<WorksheetStep>(WorksheetStep, sheet, position, "iteration", transaction);
-    await sheet.update({ updatedAt: new Date() }, { transaction });
-    return { position: row.position, scaleUsed: row.scaleUsed, reportedMah: row.reportedMah, chargedMah: row.chargedMah, fullyRecharged: row.fullyRecharged };
-  });
-  return { worksheet: await getRechargeWorksheet(ownerId, id), removed };
+export async function removeRechargeStep(ownerId: string, id: number, position: number): Promise<{ worksheet: WorksheetView; removed: RechargeStepRow }> {
+  const row = await takeBackLast<WorksheetStep>((t) => ownRechargeSheet(ownerId, id, t), WorksheetStep, position, "iteration");
+  return { worksheet: await getRechargeWorksheet(ownerId, id), removed: stepRow(row) };
 }
 
 /** The submission body (for a firmware version) a finished fly-and-recharge worksheet becomes (lib/worksheets/publish.ts sends it). */

@@ -2,7 +2,7 @@ import type { Transaction } from "sequelize";
 import { ApiError, badRequest } from "@/lib/api/errors";
 import { settingField, type SettingKind, type WorksheetFamily } from "@/lib/calibration/worksheets/fields";
 import type { FieldIssue } from "@/lib/calibration/worksheets";
-import { WorksheetBenchPoint, WorksheetStep, WorksheetVoltageReading, type Worksheet } from "@/models";
+import { db, WorksheetBenchPoint, WorksheetStep, WorksheetVoltageReading, type Worksheet } from "@/models";
 
 // What every kind of worksheet shares about its saved iterations, readings and points: the rows in
 // order (live and taken back), taking back the last one, the field errors of a refused one, and
@@ -36,6 +36,21 @@ export async function removeLastEntry<R extends Entry>(model: EntryModel, sheet:
   }
   await (last as WorksheetVoltageReading).update({ removedAt: new Date() }, { transaction });
   return last;
+}
+
+/**
+ * The whole take-back of one worksheet kind, in one transaction: `own` finds (and locks) the
+ * caller's worksheet of that kind, which must still be open; its last live row is taken back and
+ * the worksheet marked as changed. Returns the row taken back.
+ */
+export function takeBackLast<R extends Entry>(own: (transaction: Transaction) => Promise<Worksheet>, model: EntryModel, position: number, noun: string): Promise<R> {
+  return db().transaction(async (transaction) => {
+    const sheet = await own(transaction);
+    assertOpen(sheet, `${noun}s`);
+    const row = await removeLastEntry<R>(model, sheet, position, noun, transaction);
+    await sheet.update({ updatedAt: new Date() }, { transaction });
+    return row;
+  });
 }
 
 /** The pure worksheet's errors about the new row under its own field names ("readings.3.cells" → "cells"). */

@@ -5,7 +5,7 @@ import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { db, FirmwareFamily, Quad, Worksheet, WorksheetVoltageReading } from "@/models";
 import { voltageReadingInput, voltageStartInput, type VoltageReadingRow, type VoltageSheetView } from "./reading-input";
 import { ownSheet, publishedSetting, quadContext } from "./recharge";
-import { assertOpen, checkSetting, entriesOf, newEntryErrors, removeLastEntry } from "./saved-entries";
+import { assertOpen, checkSetting, entriesOf, newEntryErrors, takeBackLast } from "./saved-entries";
 
 // Server side of the voltage worksheet: start it on a quad with the voltage scale in force, add
 // one display/multimeter pair per request (judged with every earlier pair by
@@ -76,14 +76,8 @@ export async function addVoltageReading(ownerId: string, id: number, input: unkn
 
 /** Takes back the last pair (kept, struck out); `position` must name it. */
 export async function removeVoltageReading(ownerId: string, id: number, position: number): Promise<{ worksheet: VoltageSheetView; removed: VoltageReadingRow }> {
-  const removed = await db().transaction(async (transaction) => {
-    const sheet = await ownVoltageSheet(ownerId, id, transaction);
-    assertOpen(sheet, "readings");
-    const row = await removeLastEntry<WorksheetVoltageReading>(WorksheetVoltageReading, sheet, position, "reading", transaction);
-    await sheet.update({ updatedAt: new Date() }, { transaction });
-    return rowOf(row);
-  });
-  return { worksheet: await getVoltageWorksheet(ownerId, id), removed };
+  const row = await takeBackLast<WorksheetVoltageReading>((t) => ownVoltageSheet(ownerId, id, t), WorksheetVoltageReading, position, "reading");
+  return { worksheet: await getVoltageWorksheet(ownerId, id), removed: rowOf(row) };
 }
 
 /** The submission body (for a firmware version) a finished voltage worksheet becomes: method "multimeter", the pairs as its voltage check. */

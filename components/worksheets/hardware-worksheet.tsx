@@ -16,6 +16,7 @@ import {
 } from "@/lib/calibration/worksheets/hardware-figures";
 import { formatFigure } from "@/lib/catalogue/format";
 import type { CurrentSensorKind } from "@/models/BoardRevision";
+import { FieldError } from "./saved-worksheet";
 
 // From the hardware: the board record's parts, overridable by what the builder reads off the
 // board, worked out as they type by lib/calibration/worksheets/hardware.ts. Nothing is stored.
@@ -92,7 +93,7 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
           )}
         </p>
         <p className="text-small text-muted">{LABELS[key].hint}</p>
-        {err && <p id={`${id}-error`} className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{err.join(" ")}</p>}
+        <FieldError id={`${id}-error`} messages={err} />
       </div>
     );
   };
@@ -138,7 +139,7 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
           </p>
           {sensor === "shunt" && <div className="grid gap-3 sm:grid-cols-2">{field("shuntMilliohms")}{field("amplifierGain")}</div>}
           {sensor === "hall" && <div className="grid gap-3 sm:grid-cols-2">{field("hallMvPerAmp")}</div>}
-          {errors.get("currentSensor.kind") && <p className="font-semibold text-fault">⚠ {errors.get("currentSensor.kind")!.join(" ")}</p>}
+          <FieldError messages={errors.get("currentSensor.kind")} />
         </fieldset></div>
 
         <div className="border-t border-rule pt-3"><fieldset className="grid gap-3 sm:grid-cols-2">
@@ -150,7 +151,7 @@ export function HardwareWorksheetForm({ family, quadId, board, fromBoard, publis
             <label htmlFor="hw-atAmps" className="mb-1 block font-semibold">Check at a current (A)</label>
             <input id="hw-atAmps" type="number" inputMode="decimal" className="sb-field" value={atAmps} onChange={(e) => setAtAmps(e.target.value)} aria-invalid={errors.get("atAmps") ? true : undefined} />
             <p className="mt-1 text-small text-muted">Optional: the sensor&rsquo;s output and the shunt&rsquo;s heat at, say, full throttle</p>
-            {errors.get("atAmps") && <p className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{errors.get("atAmps")!.join(" ")}</p>}
+            <FieldError messages={errors.get("atAmps")} />
           </div>
         </fieldset></div>
       </div>

@@ -7,12 +7,11 @@ import { CHARGING_CAUTIONS } from "@/lib/calibration/worksheets/cautions";
 import type { RoundedSetting } from "@/lib/calibration/worksheets";
 import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
 import { ConvergencePlot } from "./convergence-plot";
-import { errorsOf, FieldError, sendJson } from "./saved-worksheet";
+import { checked, errorsOf, FieldError, sendJson, TakenBack, type Errors } from "./saved-worksheet";
 
 // The fly-and-recharge worksheet: each iteration is sent on its own and stored whole, then the page
 // shows what the recharge maths makes of all of them (lib/calibration/worksheets/recharge.ts).
 
-type Errors = Record<string, string[]>;
 const pct = (e: number | null) => (e == null ? "—" : `${e >= 0 ? "+" : ""}${formatFigure(e * 100, 2)} %`);
 
 function Rounding({ name, r, recommended }: { name: string; r: RoundedSetting; recommended: boolean }) {
@@ -35,14 +34,6 @@ function Cell({ label, children }: { label: string; children: ReactNode }) {
   );
 }
 
-async function postJson(url: string, body: unknown): Promise<{ ok: true; json: Record<string, unknown> } | { ok: false; errors: Errors }> {
-  const res = await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-  const json = await res.json().catch(() => null);
-  if (res.ok) return { ok: true, json };
-  const error = json?.error ?? { message: "The server did not answer; try again.", fieldErrors: {} };
-  return { ok: false, errors: Object.keys(error.fieldErrors ?? {}).length ? error.fieldErrors : { input: [error.message] } };
-}
-
 export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
   const router = useRouter();
   const [sheet, setSheet] = useState(initial);
@@ -57,29 +48,20 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
     const f = new FormData(event.currentTarget);
     const num = (k: string) => (String(f.get(k) ?? "").trim() === "" ? null : Number(f.get(k)));
     const body = { scaleUsed: num("scaleUsed"), reportedMah: num("reportedMah"), chargedMah: num("chargedMah"), fullyRecharged: f.get("fullyRecharged") === "on" };
-    const parsed = stepInput.safeParse(body);
-    if (!parsed.success) {
-      const next: Errors = {};
-      for (const i of parsed.error.issues) (next[i.path.join(".") || "input"] ??= []).push(i.message);
-      return setErrors(next);
-    }
-    setBusy(true);
-    const out = await postJson(`/api/v1/garage/worksheets/${sheet.id}/steps`, body).finally(() => setBusy(false));
-    if (!out.ok) return setErrors(out.errors);
-    setErrors({});
-    setSheet(out.json.worksheet as WorksheetView);
-    setFormKey((k) => k + 1);
+    await send(async () => {
+      // the shared schema first, with the server's words, before any round trip
+      const step = checked(stepInput, body);
+      setSheet((await sendJson<{ worksheet: WorksheetView }>(`/api/v1/garage/worksheets/${sheet.id}/steps`, "POST", step)).worksheet);
+      setFormKey((k) => k + 1);
+    });
   }
 
-  // a mistyped iteration: the server keeps it, struck out and no longer counted
-  const last = sheet.steps.at(-1);
-  async function takeBack(position: number) {
+  /** Runs one request: busy meanwhile, its refusal shown by field. */
+  async function send(request: () => Promise<void>) {
     setBusy(true);
     try {
-      setSheet((await sendJson<{ worksheet: WorksheetView }>(`/api/v1/garage/worksheets/${sheet.id}/steps/${position}`, "DELETE")).worksheet);
+      await request();
       setErrors({});
-      // the next iteration's scale was filled in from the taken-back one: fill it in afresh
-      setFormKey((k) => k + 1);
     } catch (e) {
       setErrors(errorsOf(e));
     } finally {
@@ -87,12 +69,20 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
     }
   }
 
-  async function publish() {
-    setBusy(true);
-    const out = await postJson(`/api/v1/garage/worksheets/${sheet.id}/publish`, {}).finally(() => setBusy(false));
-    if (!out.ok) return setErrors(out.errors);
-    router.push(`/my/submissions?sent=${(out.json.submission as { id: number }).id}`);
-  }
+  // a mistyped iteration: the server keeps it, struck out and no longer counted
+  const last = sheet.steps.at(-1);
+  const takeBack = (position: number) =>
+    send(async () => {
+      setSheet((await sendJson<{ worksheet: WorksheetView }>(`/api/v1/garage/worksheets/${sheet.id}/steps/${position}`, "DELETE")).worksheet);
+      // the next iteration's scale was filled in from the taken-back one: fill it in afresh
+      setFormKey((k) => k + 1);
+    });
+
+  const publish = () =>
+    send(async () => {
+      const { submission } = await sendJson<{ submission: { id: number } }>(`/api/v1/garage/worksheets/${sheet.id}/publish`, "POST", {});
+      router.push(`/my/submissions?sent=${submission.id}`);
+    });
 
   const field = (name: string, label: string, hint?: string, defaultValue?: number) => (
     <div>
@@ -146,16 +136,7 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
           <FieldError messages={errors.position} />
         </div>
       )}
-      {sheet.removed.length > 0 && (
-        <details className="text-small">
-          <summary className="text-muted">{sheet.removed.length} taken back (kept here, not counted)</summary>
-          <ul className="mt-1 space-y-1">
-            {sheet.removed.map((x) => (
-              <li key={x.removedAt}><del>scale {x.scaleUsed}, reported {formatFigure(x.reportedMah, 0)} mAh, charged {formatFigure(x.chargedMah, 0)} mAh</del></li>
-            ))}
-          </ul>
-        </details>
-      )}
+      <TakenBack removed={sheet.removed} describe={(x) => <>scale {x.scaleUsed}, reported {formatFigure(x.reportedMah, 0)} mAh, charged {formatFigure(x.chargedMah, 0)} mAh</>} />
 
       {r && (
         <section aria-labelledby="next-title" className="space-y-3 rounded-md border-3 border-rule bg-surface p-4">

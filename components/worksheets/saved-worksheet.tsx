@@ -194,14 +194,20 @@ export function SavedEntries<E extends { position: number }, R extends { removed
           <FieldError messages={Object.values(props.removeErrors).flat()} />
         </section>
       )}
-      {props.removed.length > 0 && (
-        <details className="text-small">
-          <summary className="text-muted">{props.removed.length} taken back (kept here, not counted)</summary>
-          <ul className="mt-1 space-y-1">
-            {props.removed.map((entry) => <li key={entry.removedAt}><del>{props.describe(entry)}</del></li>)}
-          </ul>
-        </details>
-      )}
+      <TakenBack removed={props.removed} describe={props.describe} />
     </>
+  );
+}
+
+/** The entries a builder took back: kept, struck out, not counted. Nothing when there are none. */
+export function TakenBack<R extends { removedAt: string }>({ removed, describe }: { removed: readonly R[]; describe: (entry: R) => ReactNode }) {
+  if (removed.length === 0) return null;
+  return (
+    <details className="text-small">
+      <summary className="text-muted">{removed.length} taken back (kept here, not counted)</summary>
+      <ul className="mt-1 space-y-1">
+        {removed.map((entry) => <li key={entry.removedAt}><del>{describe(entry)}</del></li>)}
+      </ul>
+    </details>
   );
 }

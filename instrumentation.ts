@@ -3,6 +3,9 @@
 // the Edge runtime, during `next build`, and where SHUNTBOOK_JOB_WORKER=0 (web-only instances).
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
+  // the models' connection takes its settings from lib/env through lib/db; every route and the
+  // worker share it (the settings are read on the first query, not here)
+  await import("@/lib/db/sequelize");
   if (process.env.NEXT_PHASE === "phase-production-build") return;
   const { env } = await import("@/lib/env");
   if (env().SHUNTBOOK_JOB_WORKER === "0") return;

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { BoardSearch } from "@/components/board-search";
 import { getHomeCounts } from "@/lib/catalogue/home-counts";
-import { BOARD_KINDS, KIND_PLURALS } from "@/lib/catalogue/kinds";
+import { BOARD_KINDS, KIND_PLURALS } from "@/lib/vocabulary";
 import { catalogueQueryString } from "@/lib/catalogue/search-params";
 
 export const dynamic = "force-dynamic";

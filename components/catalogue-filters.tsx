@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { formatMounting } from "@/lib/catalogue/format";
-import { BOARD_KINDS, KIND_LABELS } from "@/lib/catalogue/kinds";
+import { BOARD_KINDS, KIND_LABELS } from "@/lib/vocabulary";
 import {
   CATALOGUE_SORTS,
   DEFAULT_PAGE_SIZE,

@@ -1,11 +1,8 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import type { AuditAction, AuditEntityType } from "@/lib/vocabulary";
 import type { Submission } from "./Submission";
 import type { User } from "./User";
 
-export const AUDIT_ACTIONS = ["approve", "reject", "request_changes", "auto_approve", "revert", "user_update"] as const;
-export type AuditAction = (typeof AUDIT_ACTIONS)[number];
-export const AUDIT_ENTITY_TYPES = ["submission", "user"] as const;
-export type AuditEntityType = (typeof AUDIT_ENTITY_TYPES)[number];
 
 /**
  * One entry of the append-only moderation log (migrations/20261210001100-…; lib/moderation/audit.ts).

@@ -1,10 +1,9 @@
 import { DataTypes, fn, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import type { BoardKind } from "@/lib/vocabulary";
 import type { BoardAlias } from "./BoardAlias";
 import type { BoardRevision } from "./BoardRevision";
 import type { Manufacturer } from "./Manufacturer";
 
-export const BOARD_KINDS = ["flight_controller", "aio", "esc_4in1", "pdb", "power_module"] as const;
-export type BoardKind = (typeof BOARD_KINDS)[number];
 
 export class BoardModel extends Model<InferAttributes<BoardModel>, InferCreationAttributes<BoardModel>> {
   declare id: CreationOptional<number>;

@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import type { CurrentSensorKind } from "@/lib/vocabulary";
 import type { BoardModel } from "./BoardModel";
 
-export type CurrentSensorKind = "shunt" | "hall";
 
 export class BoardRevision extends Model<InferAttributes<BoardRevision>, InferCreationAttributes<BoardRevision>> {
   declare id: CreationOptional<number>;

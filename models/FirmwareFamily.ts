@@ -1,9 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-export type VoltageScaleUnit = "V/V" | "mV/V";
-export type CurrentScaleUnit = "mV/A" | "A/V";
-export type CurrentOffsetUnit = "mV" | "mA";
-export type Response = "proportional" | "inverse";
+import type { CurrentOffsetUnit, CurrentScaleUnit, Response, VoltageScaleUnit } from "@/lib/vocabulary";
 
 /** The unit definition of one firmware family: see the migration for what each column means. */
 export class FirmwareFamily extends Model<InferAttributes<FirmwareFamily>, InferCreationAttributes<FirmwareFamily>> {

@@ -1,6 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
-import type { ConfidenceLabel } from "@/lib/stats";
-import type { Quantity } from "@/lib/published/quantities";
+import type { ConfidenceLabel, Quantity } from "@/lib/vocabulary";
 import type { AuditEvent } from "./AuditEvent";
 import type { BoardRevision } from "./BoardRevision";
 import type { FirmwareFamily } from "./FirmwareFamily";

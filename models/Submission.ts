@@ -1,18 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
 import type { EvidenceSummary } from "@/lib/calibration/evidence";
+import type { Method, SensingSource, SubmissionStatus } from "@/lib/vocabulary";
 import type { BoardRevision } from "./BoardRevision";
 import type { FirmwareFamily } from "./FirmwareFamily";
 import type { User } from "./User";
-
-import { METHODS, SENSING_SOURCES } from "@/lib/submissions/vocabulary";
-
-// the lists live in lib/submissions/vocabulary.ts, which the browser may import (this file cannot:
-// it imports Sequelize); the migration's CHECK constraints spell the same words
-export { METHODS, SENSING_SOURCES };
-export type SensingSource = (typeof SENSING_SOURCES)[number];
-export type Method = (typeof METHODS)[number];
-export const STATUSES = ["pending", "approved", "rejected", "changes_requested"] as const;
-export type SubmissionStatus = (typeof STATUSES)[number];
 
 export class Submission extends Model<InferAttributes<Submission>, InferCreationAttributes<Submission>> {
   declare id: CreationOptional<number>;

@@ -1,9 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-import type { MeasuredAt } from "@/lib/submissions/vocabulary";
+import type { MeasuredAt } from "@/lib/vocabulary";
 import type { Submission } from "./Submission";
-
-// the list lives with the form's other words, which the browser can import
-export { MEASURED_AT, type MeasuredAt } from "@/lib/submissions/vocabulary";
 
 /** One multimeter reading behind a submission (migrations/20261205000200-…). */
 export class SubmissionVoltageReading extends Model<InferAttributes<SubmissionVoltageReading>, InferCreationAttributes<SubmissionVoltageReading>> {

@@ -1,7 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-export const ROLES = ["contributor", "moderator", "admin"] as const;
-export type Role = (typeof ROLES)[number];
+import type { Role } from "@/lib/vocabulary";
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<string>;

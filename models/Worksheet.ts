@@ -1,11 +1,10 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import type { WorksheetKind } from "@/lib/vocabulary";
 import type { FirmwareFamily } from "./FirmwareFamily";
 import type { Quad } from "./Quad";
 import type { Submission } from "./Submission";
 import type { User } from "./User";
 
-export const WORKSHEET_KINDS = ["fly_recharge", "voltage", "bench"] as const;
-export type WorksheetKind = (typeof WORKSHEET_KINDS)[number];
 
 /**
  * A calibration worksheet on a builder's quad (migrations/20261211000100-…, 20261212000100-…).

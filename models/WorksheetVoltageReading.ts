@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-import type { MeasuredAt } from "@/lib/submissions/vocabulary";
+import type { MeasuredAt } from "@/lib/vocabulary";
 import type { Worksheet } from "./Worksheet";
 
 /** One display/multimeter pair of a voltage worksheet (migrations/20261212000200-…); removedAt set = withdrawn, kept. */

@@ -1,5 +1,4 @@
 import type { Sequelize } from "sequelize";
-import { getSequelize } from "@/lib/db/sequelize";
 import { Account } from "./Account";
 import { associate } from "./associations";
 import { AuditEvent } from "./AuditEvent";
@@ -7,6 +6,7 @@ import { AuthSession } from "./AuthSession";
 import { BoardAlias } from "./BoardAlias";
 import { BoardModel } from "./BoardModel";
 import { BoardRevision } from "./BoardRevision";
+import { getSequelize } from "./connection";
 import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { IdempotencyKey } from "./IdempotencyKey";
@@ -30,15 +30,9 @@ import { WorksheetVoltageReading } from "./WorksheetVoltageReading";
 
 export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, Manufacturer, Submission, User };
 export { IdempotencyKey, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
-export { MEASURED_AT, type MeasuredAt } from "./SubmissionVoltageReading";
-export { BOARD_KINDS, type BoardKind } from "./BoardModel";
 export { Account, AuthSession, PasswordResetToken, RateLimit, VerificationToken };
-export { ROLES, type Role } from "./User";
 export { Pack, PackCharge, Quad, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint };
-export { WORKSHEET_KINDS, type WorksheetKind } from "./Worksheet";
 export { AuditEvent, PublishedValueHistory };
-export { AUDIT_ACTIONS, AUDIT_ENTITY_TYPES, type AuditAction, type AuditEntityType } from "./AuditEvent";
-export { METHODS, SENSING_SOURCES, STATUSES, type Method, type SensingSource, type SubmissionStatus } from "./Submission";
 
 let initialisedWith: Sequelize | undefined;
 

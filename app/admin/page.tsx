@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { RevertForm, UserForm } from "@/components/admin/admin-forms";
 import { requirePageRole } from "@/lib/auth";
 import { listAuditEvents } from "@/lib/moderation/audit";
-import { TRUST_LABELS } from "@/lib/moderation/vocabulary";
+import { TRUST_LABELS } from "@/lib/vocabulary";
 import { listUsers } from "@/lib/moderation/users";
 import { revertAction, updateUserAction } from "./actions";
 

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { AccountPage } from "@/components/auth/page-frame";
 import { currentUser } from "@/lib/auth/guard";
-import { ROLES, type Role } from "@/models/User";
+import { type Role, ROLES } from "@/lib/vocabulary";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Not for this account", robots: { index: false } };

@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { useState, useTransition } from "react";
 import type { DecisionState } from "@/app/moderation/[id]/actions";
-import type { Decision } from "@/lib/moderation/vocabulary";
+import type { Decision } from "@/lib/vocabulary";
 
 type Props = {
   id: number;

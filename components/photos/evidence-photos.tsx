@@ -1,7 +1,8 @@
 "use client";
 
 import { useEffect, useId, useRef, useState } from "react";
-import { ACCEPTED_INPUT_TYPES, ACCEPTED_LABEL, MAX_PHOTO_BYTES, MAX_PHOTOS_PER_SUBMISSION, formatFileSize, formatMegabytes } from "@/lib/storage/limits";
+import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_SUBMISSION, formatFileSize, formatMegabytes } from "@/lib/storage/limits";
+import { ACCEPTED_INPUT_TYPES, ACCEPTED_LABEL } from "@/lib/vocabulary";
 import { photoUrl, type PhotoSummary } from "@/lib/storage/photo-api";
 import { removePhoto, sendPhoto } from "./send-photo";
 

@@ -1,7 +1,7 @@
 import type { ChosenBoard, FamilyOption } from "@/lib/submissions/form-data";
 import { METHOD_EVIDENCE, type SubmissionInput } from "@/lib/submissions/schema";
 import type { SubmissionView } from "@/lib/submissions/view";
-import type { Method } from "@/lib/submissions/vocabulary";
+import type { Method } from "@/lib/vocabulary";
 
 // What the form holds while it is being filled in (the "draft"), and the request body made from it.
 // Every evidence section stays in the draft whatever the method, so switching method back and forth

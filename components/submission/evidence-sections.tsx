@@ -4,7 +4,7 @@ import type { ReactNode } from "react";
 import { useFieldArray, useFormContext } from "react-hook-form";
 import { formatFigure } from "@/lib/catalogue/format";
 import { MAX_BENCH_POINTS, MAX_CYCLES, MAX_READINGS } from "@/lib/submissions/limits";
-import { MEASURED_AT, MEASURED_AT_LABELS } from "@/lib/submissions/vocabulary";
+import { MEASURED_AT, MEASURED_AT_LABELS } from "@/lib/vocabulary";
 import { BenchCaution, ChargingCaution, ProbeCaution } from "./cautions";
 import { emptyCycle, emptyPoint, emptyReading, type FamilyOption, type SubmissionDraft } from "./draft";
 import { ErrorText, NumberField, SelectField, fieldId, useFieldError } from "./field";

@@ -1,5 +1,4 @@
-import type { SubmissionStatus } from "@/lib/submissions/vocabulary";
-import { STATUS_LABELS } from "@/lib/submissions/vocabulary";
+import { STATUS_LABELS, type SubmissionStatus } from "@/lib/vocabulary";
 
 // A submission's status as a label that reads without colour (the word is the signal; the colour
 // and the mark only repeat it).

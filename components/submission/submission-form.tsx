@@ -8,7 +8,7 @@ import { FormProvider, useForm, useWatch, type FieldErrors, type Resolver } from
 import { EvidencePhotos } from "@/components/photos/evidence-photos";
 import { NOTES_MAX_LENGTH } from "@/lib/submissions/limits";
 import { submissionSchema } from "@/lib/submissions/schema";
-import { METHODS, METHOD_HINTS, METHOD_LABELS, SENSING_SOURCES, SENSING_SOURCE_LABELS } from "@/lib/submissions/vocabulary";
+import { METHOD_HINTS, METHOD_LABELS, METHODS, SENSING_SOURCE_LABELS, SENSING_SOURCES } from "@/lib/vocabulary";
 import { BoardPicker } from "./board-picker";
 import { DistributionPreview } from "./distribution-preview";
 import { emptyDraft, sectionsFor, toPayload, type ChosenBoard, type FamilyOption, type SubmissionDraft } from "./draft";

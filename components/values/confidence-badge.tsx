@@ -1,4 +1,4 @@
-import type { ConfidenceLabel } from "@/lib/stats/confidence";
+import type { ConfidenceLabel } from "@/lib/vocabulary";
 import { plural } from "@/lib/catalogue/format";
 
 // The confidence label as a word, a count and a three-pip gauge. The word carries the meaning;

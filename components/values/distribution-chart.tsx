@@ -3,7 +3,7 @@
 import { useSyncExternalStore, type ReactNode } from "react";
 import { CartesianGrid, ReferenceArea, ReferenceLine, Scatter, ScatterChart, Tooltip, XAxis, YAxis, type TooltipContentProps } from "recharts";
 import type { FamilyUnits, QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
-import type { Method } from "@/models/Submission";
+import type { Method } from "@/lib/vocabulary";
 import { niceAxis } from "./axis";
 import { QUANTITY_TITLES, settingMeaning, settingText } from "./quantity-meaning";
 import { chartSummary, dayOf, methodLabel, monthOf } from "./summary";

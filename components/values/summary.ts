@@ -2,8 +2,7 @@ import { formatDate, plural } from "@/lib/catalogue/format";
 import type { FamilyUnits, QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
 import { MIN_VALUES_TO_JUDGE } from "@/lib/stats/spread";
 import { minimumCountForCi } from "@/lib/stats/median-ci";
-import { METHOD_LABELS } from "@/lib/submissions/vocabulary";
-import type { Method } from "@/models/Submission";
+import { type Method, METHOD_LABELS } from "@/lib/vocabulary";
 import { figureText, settingMeaning } from "./quantity-meaning";
 
 // The words that stand in for a distribution chart (its accessible description and caption):

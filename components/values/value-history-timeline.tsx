@@ -1,7 +1,6 @@
 import { formatFigure, plural } from "@/lib/catalogue/format";
 import { getValueHistory, type HistoryPoint } from "@/lib/moderation/history";
-import { ACTION_LABELS } from "@/lib/moderation/vocabulary";
-import { QUANTITY_LABELS, type Quantity } from "@/lib/published/quantities";
+import { ACTION_LABELS, type Quantity, QUANTITY_LABELS } from "@/lib/vocabulary";
 
 // How each published value got where it is: one timeline per revision, firmware family and
 // quantity, newest change first, with the value, n, interval, when and which kind of event moved

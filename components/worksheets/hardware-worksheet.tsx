@@ -15,7 +15,7 @@ import {
   type HardwareFigures,
 } from "@/lib/calibration/worksheets/hardware-figures";
 import { formatFigure } from "@/lib/catalogue/format";
-import type { CurrentSensorKind } from "@/models/BoardRevision";
+import type { CurrentSensorKind } from "@/lib/vocabulary";
 import { FieldError } from "./saved-worksheet";
 
 // From the hardware: the board record's parts, overridable by what the builder reads off the

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { ProbeCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
 import { voltageReadingInput, voltageStartInput, type VoltageSheetView } from "@/lib/worksheets/reading-input";
-import { MEASURED_AT, type MeasuredAt } from "@/lib/submissions/vocabulary";
+import { MEASURED_AT, type MeasuredAt } from "@/lib/vocabulary";
 import { errorsOf, FieldError, NumberInput, PublishPanel, numberIn, SavedEntries, useCheckedSubmit, useSavedWorksheet, useStartWorksheet, Warnings } from "./saved-worksheet";
 
 // The voltage worksheet, saved on the server pair by pair (lib/worksheets/voltage.ts), so a

@@ -1,4 +1,4 @@
-import type { Role } from "@/models/User";
+import type { Role } from "@/lib/vocabulary";
 
 // What Shuntbook adds to next-auth's types: the role and the user id on the session, the role
 // on the user the adapter and the credentials provider return, and our claims in the JWT.

@@ -1,4 +1,4 @@
-import { ROLES, type Role } from "@/models/User";
+import { type Role, ROLES } from "@/lib/vocabulary";
 
 // Roles are ranked: contributor < moderator < admin. A check for a role lets in that role and
 // every higher one, so an admin passes every check a moderator passes, and a moderator can still

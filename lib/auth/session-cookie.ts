@@ -1,6 +1,6 @@
 import { decode, encode, type JWT } from "next-auth/jwt";
 import { env } from "@/lib/env";
-import type { Role } from "@/models/User";
+import type { Role } from "@/lib/vocabulary";
 
 // The session cookie next-auth issues (strategy "jwt"): an encrypted JWT (JWE, A256GCM) whose key
 // is derived from NEXTAUTH_SECRET. The guard reads it itself instead of going through

@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from "sequelize";
 import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
-import { BOARD_KINDS, type BoardKind } from "@/models/BoardModel";
+import { BOARD_KINDS, type BoardKind } from "@/lib/vocabulary";
 
 // The benchmark's synthetic data set: invented makers and boards named by number (nothing here is
 // meant to look like a product), the demo's three invented firmware families, and as many

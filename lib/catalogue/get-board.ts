@@ -1,8 +1,7 @@
 import { fn, col } from "sequelize";
 import { revisionDividerRatio, revisionSensitivityMvPerAmp } from "@/lib/calibration/units";
 import { BoardAlias, BoardModel, BoardRevision, Manufacturer, Submission, db } from "@/models";
-import type { BoardKind } from "@/models/BoardModel";
-import type { CurrentSensorKind } from "@/models/BoardRevision";
+import type { BoardKind, CurrentSensorKind } from "@/lib/vocabulary";
 
 export type BoardRevisionDetail = {
   id: number;

@@ -1,6 +1,6 @@
 import { QueryTypes } from "sequelize";
 import { db } from "@/models";
-import type { BoardKind } from "@/models/BoardModel";
+import type { BoardKind } from "@/lib/vocabulary";
 
 export type HomeCounts = {
   boards: number;

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { BOARD_KINDS } from "@/models/BoardModel";
+import { BOARD_KINDS } from "@/lib/vocabulary";
 
 // The one definition of the catalogue's query parameters. The /boards page and the JSON API
 // (GET /api/v1/boards) both parse through parseCatalogueParams, so a link that works in one

@@ -1,4 +1,4 @@
-import type { Role } from "@/models/User";
+import type { Role } from "@/lib/vocabulary";
 
 // Demo sign-in accounts, one per role, with known passwords so that the README, the browser tests
 // and a reviewer can sign in to a freshly seeded database. The seeder stores them hashed (bcrypt,

@@ -1,4 +1,4 @@
-import type { BoardKind } from "@/models/BoardModel";
+import type { BoardKind } from "@/lib/vocabulary";
 
 // The invented board catalogue of the demo scenario: every maker, board and alias here is made up.
 // Hardware that a maker "published" is filled in; null means unknown and stays NULL in the

@@ -1,5 +1,5 @@
 import { currentScaleSettingFromSensitivity, voltageScaleSettingFromRatio } from "@/lib/calibration/units";
-import type { BoardKind } from "@/models/BoardModel";
+import type { BoardKind } from "@/lib/vocabulary";
 import { DEMO_BOARDS, type BoardSpec, type PopularityTier } from "./boards";
 import type { DemoFirmwareFamily } from "./firmware-families";
 import { physicalTruth, publishedHardware, type PhysicalTruth, type PublishedHardware } from "./hardware";

@@ -2,7 +2,7 @@ import { impliedCurrentScaleFromCycle } from "@/lib/calibration/evidence";
 import { roundSetting, sensitivityFromCurrentScaleSetting } from "@/lib/calibration/units";
 import { evidenceVerdict } from "@/lib/submissions/evidence-rows";
 import type { SubmissionPayload } from "@/lib/submissions/schema";
-import type { BoardKind } from "@/models/BoardModel";
+import type { BoardKind } from "@/lib/vocabulary";
 import type { FirmwareFamily } from "@/models/FirmwareFamily";
 import type { DemoBoardModel, DemoTruth } from "./catalogue";
 import type { DemoFirmwareFamily } from "./firmware-families";

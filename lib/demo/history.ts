@@ -1,6 +1,5 @@
 import { publishedFiguresMoved, publishedFromValues, type ApprovedPoint } from "@/lib/published/from-values";
-import { QUANTITIES, type Quantity } from "@/lib/published/quantities";
-import type { ConfidenceLabel } from "@/lib/stats";
+import { type ConfidenceLabel, QUANTITIES, type Quantity } from "@/lib/vocabulary";
 import { DEMO_ACCOUNTS } from "./accounts";
 import type { DemoUser } from "./people";
 import type { DemoSubmission } from "./submissions";

@@ -1,4 +1,4 @@
-import type { Role } from "@/models/User";
+import type { Role } from "@/lib/vocabulary";
 import { DEMO_ACCOUNT_LIST } from "./accounts";
 import { createRng } from "./random";
 import { monthsBefore } from "./timeline";

@@ -1,8 +1,7 @@
 import type { EvidenceSummary } from "@/lib/calibration/evidence";
 import { roundSetting } from "@/lib/calibration/units";
 import { METHOD_EVIDENCE } from "@/lib/submissions/schema";
-import type { BoardKind } from "@/models/BoardModel";
-import type { Method, SensingSource, SubmissionStatus } from "@/models/Submission";
+import type { BoardKind, Method, SensingSource, SubmissionStatus } from "@/lib/vocabulary";
 import { DEMO_ACCOUNTS } from "./accounts";
 import type { PopularityTier } from "./boards";
 import { offsetSetting, type DemoCatalogue, type DemoTruth, type TrueSettings } from "./catalogue";

@@ -1,12 +1,12 @@
 import type { z } from "zod";
 import { ApiError, badRequest } from "@/lib/api/errors";
 import type { QuantityKey } from "@/lib/published/board-values-types";
-import { db, type SubmissionStatus } from "@/models";
+import { db } from "@/models";
+import { type Decision, QUEUE_FLAG_LABELS, type SubmissionStatus } from "@/lib/vocabulary";
 import { getAuditEvent, type AuditEventView } from "./audit";
 import { flagsOfRow, scoredSubmission } from "./flags";
 import { ApproveBodySchema, BulkApproveBodySchema, fieldErrorsByPath, RejectBodySchema, RequestChangesBodySchema } from "./schemas";
 import { applyTransition, ModerationRefusal, type TransitionInput } from "./transition";
-import { QUEUE_FLAG_LABELS, type Decision } from "./vocabulary";
 
 // A moderator's decisions on a pending submission: approve, reject (with a reason), request
 // changes (with a message). Each is one transaction (transition.ts); bodies are checked before it

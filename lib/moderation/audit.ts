@@ -2,8 +2,8 @@ import { QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
 import { badRequest } from "@/lib/api/errors";
 import { parseQuery } from "@/lib/api/query";
-import { AUDIT_ACTIONS, AuditEvent, db, type AuditAction, type AuditEntityType, type Role, type SubmissionStatus } from "@/models";
-import { ACTION_LABELS } from "./vocabulary";
+import { AuditEvent, db } from "@/models";
+import { ACTION_LABELS, AUDIT_ACTIONS, type AuditAction, type AuditEntityType, type Role, type SubmissionStatus } from "@/lib/vocabulary";
 
 // The append-only log (migrations/20261210001100-create-audit-events.ts). Every moderation
 // action writes exactly one event inside the transaction that makes the change, so the log and

@@ -1,9 +1,8 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { MEAN_AD_FACTOR, MIN_VALUES_TO_JUDGE, MODIFIED_Z_CUTOFF, MODIFIED_Z_FACTOR } from "@/lib/stats";
-import { QUANTITIES, type Quantity } from "@/lib/published/quantities";
+import { QUANTITIES, type Quantity, type QueueFlag } from "@/lib/vocabulary";
 import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
 import { db } from "@/models";
-import type { QueueFlag } from "./vocabulary";
 
 // The flags of a submission that waits for review, computed in PostgreSQL so that the queue can
 // be ordered by them across pages. The modified z-score of each value is taken against the

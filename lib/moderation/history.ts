@@ -1,10 +1,10 @@
 import { QueryTypes, type Transaction } from "sequelize";
-import type { ConfidenceLabel } from "@/lib/stats";
+import { type AuditAction, type ConfidenceLabel, QUANTITIES, type Quantity } from "@/lib/vocabulary";
 import { publishedFiguresMoved } from "@/lib/published/from-values";
 import { refreshGroups, type PublishedStats } from "@/lib/published/refresh";
-import { QUANTITIES, type GroupKey, type Quantity } from "@/lib/published/quantities";
+import { type GroupKey } from "@/lib/published/group-key";
 import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
-import { db, PublishedValueHistory, type AuditAction } from "@/models";
+import { db, PublishedValueHistory } from "@/models";
 
 // The history of published values (migrations/20261210001200-…). A moderation action that can
 // move a group's figures refreshes the group through refreshWithHistory, which compares what

@@ -4,7 +4,7 @@ import { role } from "@/lib/auth";
 import { parseSubmissionId } from "@/lib/submissions";
 import { privateJson, readJsonBody, requestUser } from "@/lib/submissions/http";
 import { decide } from "./actions";
-import type { Decision } from "./vocabulary";
+import type { Decision } from "@/lib/vocabulary";
 
 // HTTP for the moderation and admin routes, so each route file is a line or two. Every answer is
 // private (no-store): it is about people and unpublished values.

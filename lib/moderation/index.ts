@@ -14,5 +14,4 @@ export { digestCounts, sendModeratorDigest, type DigestCounts, type DigestResult
 export { registerModerationJobs, DIGEST_CRON, DIGEST_JOB } from "./jobs";
 export { flagsOfRow, scoredSubmission, type SubmissionFlags } from "./flags";
 export { ModerationRefusal } from "./transition";
-export * from "./vocabulary";
 export * from "./schemas";

@@ -1,7 +1,6 @@
 import { siteUrl } from "@/lib/auth/site-url";
 import type { MailMessage } from "@/lib/mail/send";
-import { STATUS_LABELS } from "@/lib/submissions/vocabulary";
-import type { SubmissionStatus } from "@/models";
+import { STATUS_LABELS, type SubmissionStatus } from "@/lib/vocabulary";
 import type { QueueCounts } from "./queue";
 
 // The two mails moderation writes itself. A decision's mail to the contributor is lib/submissions'

@@ -3,9 +3,9 @@ import { z } from "zod";
 import { badRequest } from "@/lib/api/errors";
 import { parseQuery } from "@/lib/api/query";
 import type { QuantityKey } from "@/lib/published/board-values-types";
-import { db, type Method } from "@/models";
+import { db } from "@/models";
+import { type Method, QUEUE_AGES, QUEUE_DEFAULT_PAGE_SIZE, QUEUE_FLAGS, QUEUE_MAX_PAGE_SIZE, QUEUE_SORTS, type QueueAge, type QueueFlag, type QueueSort } from "@/lib/vocabulary";
 import { FLAG_CONDITIONS, flaggedSql, flagsOfRow, type ScoredRow, type SubmissionFlags } from "./flags";
-import { QUEUE_AGES, QUEUE_DEFAULT_PAGE_SIZE, QUEUE_FLAGS, QUEUE_MAX_PAGE_SIZE, QUEUE_SORTS, type QueueAge, type QueueFlag, type QueueSort } from "./vocabulary";
 
 // The review queue: pending submissions, filtered, ordered and paged in PostgreSQL (flags.ts
 // scores them there), with a badge count per flag. Plans: the pending rows come from

@@ -1,6 +1,7 @@
 import { UniqueConstraintError } from "sequelize";
 import { badRequest } from "@/lib/api/errors";
-import { db, STATUSES } from "@/models";
+import { db } from "@/models";
+import { STATUSES } from "@/lib/vocabulary";
 import { getAuditEvent, type SubmissionState } from "./audit";
 import { fieldErrorsByPath, RevertBodySchema } from "./schemas";
 import { applyTransition, ModerationRefusal } from "./transition";

@@ -1,11 +1,12 @@
 import { QueryTypes } from "sequelize";
-import { describeFlags, type ConfidenceLabel } from "@/lib/stats";
+import { describeFlags } from "@/lib/stats";
+import { type ConfidenceLabel, type Method, QUANTITIES, type Quantity, type SubmissionStatus } from "@/lib/vocabulary";
 import { publishedFromValues, type ApprovedPoint } from "@/lib/published/from-values";
-import { QUANTITIES, type GroupKey, type Quantity } from "@/lib/published/quantities";
+import { type GroupKey } from "@/lib/published/group-key";
 import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
 import { placeValue, type Placement } from "@/lib/submissions/placement";
 import { loadSubmissionView, type SubmissionView } from "@/lib/submissions/view";
-import { db, EvidencePhoto, type Method, type SubmissionStatus } from "@/models";
+import { db, EvidencePhoto } from "@/models";
 import { listAuditEvents, type AuditEventView } from "./audit";
 import { flagsOfRow, scoredSubmission, type SubmissionFlags } from "./flags";
 import { contributorRecord, trustOf, type ContributorRecord, type TrustState } from "./trust";

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { fieldErrorsByPath } from "@/lib/submissions/schema";
-import { BULK_MAX_ITEMS, NOTE_MAX_LENGTH, ROLE_CHOICES } from "./vocabulary";
+import { BULK_MAX_ITEMS, NOTE_MAX_LENGTH, ROLE_CHOICES } from "@/lib/vocabulary";
 
 export { fieldErrorsByPath };
 

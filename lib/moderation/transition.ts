@@ -3,14 +3,13 @@ import { ApiError } from "@/lib/api/errors";
 import { enqueue } from "@/lib/jobs";
 import { invalidateBoardValues } from "@/lib/published/board-values";
 import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
-import type { GroupKey } from "@/lib/published/quantities";
+import type { GroupKey } from "@/lib/published/group-key";
 import { queueStatusMail } from "@/lib/submissions/status-mail";
-import { STATUS_LABELS } from "@/lib/submissions/vocabulary";
-import { db, type AuditAction, type SubmissionStatus } from "@/models";
+import { type AuditAction, CONFLICT_MESSAGE, STATUS_LABELS, type SubmissionStatus } from "@/lib/vocabulary";
+import { db } from "@/models";
 import { writeAuditEvent, type SubmissionState } from "./audit";
 import { refreshWithHistory } from "./history";
 import { revertMail } from "./mails";
-import { CONFLICT_MESSAGE } from "./vocabulary";
 
 // One change of a submission's status, as every moderation action makes it (a decision, an
 // auto-approval, a revert), inside the caller's transaction:

@@ -1,9 +1,9 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { env } from "@/lib/env";
-import { db, User, type SubmissionStatus } from "@/models";
+import { db, User } from "@/models";
+import type { SubmissionStatus, TrustReason } from "@/lib/vocabulary";
 import { flagsOfRow, scoredSubmission, type SubmissionFlags } from "./flags";
 import { applyTransition } from "./transition";
-import type { TrustReason } from "./vocabulary";
 
 // Trusted contributors: someone whose submissions have been approved MODERATION_TRUST_THRESHOLD
 // times (default 5) without a single rejection no longer waits in the queue, unless the new

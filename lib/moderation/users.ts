@@ -2,12 +2,12 @@ import { QueryTypes } from "sequelize";
 import { z } from "zod";
 import { ApiError, badRequest } from "@/lib/api/errors";
 import { parseQuery } from "@/lib/api/query";
-import { db, type Role } from "@/models";
+import { db } from "@/models";
+import { type Role, ROLE_CHOICES } from "@/lib/vocabulary";
 import { writeAuditEvent, type AuditEventView, type UserState, getAuditEvent } from "./audit";
 import { fieldErrorsByPath, UserPatchBodySchema } from "./schemas";
 import { decideTrust, trustThreshold, type TrustState } from "./trust";
 import type { Actor } from "./actions";
-import { ROLE_CHOICES } from "./vocabulary";
 
 // Admins change people's roles and trust here, each change one audited transaction. A role change
 // applies on the person's very next request (the guard re-reads the role, lib/auth/guard.ts). The

@@ -1,9 +1,7 @@
 import { QueryTypes, type Sequelize } from "sequelize";
-import { CONFIDENCE_EXPLANATIONS, CONFIDENCE_TITLES, flagPoints, recommendValue, type ConfidenceLabel } from "@/lib/stats";
-import type { BoardKind } from "@/models/BoardModel";
+import { CONFIDENCE_EXPLANATIONS, flagPoints, recommendValue } from "@/lib/stats";
+import { type BoardKind, CONFIDENCE_TITLES, type ConfidenceLabel, type Method, QUANTITIES, type Quantity } from "@/lib/vocabulary";
 import type { FirmwareFamily } from "@/models/FirmwareFamily";
-import type { Method } from "@/models/Submission";
-import { QUANTITIES, type Quantity } from "./quantities";
 import { QUANTITY_KEYS, type BoardValues, type FamilyUnits, type GroupValues, type QuantityValues, type ValuePoint } from "./board-values-types";
 
 // Reads one board's published values from PostgreSQL, uncached (board-values.ts caches them).

@@ -1,8 +1,4 @@
-import type { ConfidenceLabel } from "@/lib/stats";
-import type { BoardKind } from "@/models/BoardModel";
-import type { CurrentOffsetUnit, CurrentScaleUnit, Response, VoltageScaleUnit } from "@/models/FirmwareFamily";
-import type { Method } from "@/models/Submission";
-import type { Quantity } from "./quantities";
+import type { BoardKind, ConfidenceLabel, CurrentOffsetUnit, CurrentScaleUnit, Method, Quantity, Response, VoltageScaleUnit } from "@/lib/vocabulary";
 
 // The published values of one board, as the board page and GET /api/v1/boards/{slug}/values read
 // them. Plain JSON data (dates as ISO strings) so that one object can be cached, filtered and

@@ -1,5 +1,5 @@
 import { db } from "@/models";
-import type { GroupKey } from "./quantities";
+import type { GroupKey } from "./group-key";
 import { lookAtFeed } from "./board-values-feed";
 import { readBoardHeader, readBoardValues } from "./board-values-load";
 import type { BoardValues, BoardValuesFilter, FamilyUnits, RevisionValues } from "./board-values-types";

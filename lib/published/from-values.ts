@@ -1,6 +1,6 @@
 import { describeFlags, meanAbsDeviationAroundMedian, summarise } from "@/lib/stats";
-import type { Method } from "@/models/Submission";
-import type { GroupKey, Quantity } from "./quantities";
+import type { Method, Quantity } from "@/lib/vocabulary";
+import type { GroupKey } from "./group-key";
 import { derivePublished, type GroupAggregates, type PublishedStats } from "./refresh";
 
 // What board_stats would publish for a set of approved values, worked out in TypeScript: lib/stats

@@ -1,8 +1,8 @@
 import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
-import { confidenceLabel, evidenceScore, medianCiRanks, recommendValue, relativeCiWidth, type ConfidenceLabel, type ZScaleRule } from "@/lib/stats";
-import type { Method } from "@/models/Submission";
+import { confidenceLabel, evidenceScore, medianCiRanks, recommendValue, relativeCiWidth, type ZScaleRule } from "@/lib/stats";
+import type { ConfidenceLabel, Method, Quantity } from "@/lib/vocabulary";
 import { AGGREGATES_SQL, GROUP_COUNTS_SQL } from "./aggregate-sql";
-import type { GroupKey, Quantity } from "./quantities";
+import type { GroupKey } from "./group-key";
 
 /** One row of board_stats as PostgreSQL computed it, before the derived fields. */
 export type GroupAggregates = {

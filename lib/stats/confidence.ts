@@ -1,10 +1,8 @@
 // A plain-words confidence label for a published value, for the UI to show beside the median.
-import type { Method } from "@/models/Submission";
+import { CONFIDENCE_TITLES, type ConfidenceLabel, type Method } from "@/lib/vocabulary";
 import { MIN_VALUES_TO_JUDGE } from "./spread";
 import { minimumCountForCi } from "./median-ci";
 import { checkFiniteNumber, StatsInputError } from "./validate";
-
-export type ConfidenceLabel = "strong" | "fair" | "weak" | "too_few";
 
 /**
  * How much each calibration method counts as evidence, from 0 to 1. Our own judgement (no source):
@@ -31,13 +29,6 @@ export const CONFIDENCE_THRESHOLDS = {
   strong: { minCount: 10, maxRelativeWidth: 0.02, minEvidence: 0.75 },
   fair: { minCount: minimumCountForCi(), maxRelativeWidth: 0.05, minEvidence: 0.5 },
 } as const;
-
-export const CONFIDENCE_TITLES: Record<ConfidenceLabel, string> = {
-  strong: "Strong",
-  fair: "Fair",
-  weak: "Weak",
-  too_few: "Too few to judge",
-};
 
 /** One sentence per label for the UI; the thresholds above, in words. */
 export const CONFIDENCE_EXPLANATIONS: Record<ConfidenceLabel, string> = {

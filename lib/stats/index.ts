@@ -29,10 +29,8 @@ export {
   relativeCiWidth,
   CONFIDENCE_EXPLANATIONS,
   CONFIDENCE_THRESHOLDS,
-  CONFIDENCE_TITLES,
   METHOD_EVIDENCE_WEIGHT,
   type Confidence,
   type ConfidenceInput,
-  type ConfidenceLabel,
 } from "./confidence";
 export { StatsInputError, MAX_ABS_VALUE, sortedCopy } from "./validate";

@@ -1,5 +1,5 @@
-// What an evidence photo may be. One file so the route, the lib, the migration's CHECKs (which
-// repeat these numbers in SQL) and the upload component agree.
+// How large an evidence photo may be. One file so the route, the lib, the migration's CHECKs (which
+// repeat these numbers in SQL) and the upload component agree; the formats are in lib/vocabulary.
 
 /** 8 MiB: a phone's full-resolution JPEG fits; a video or a RAW file does not. */
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
@@ -9,16 +9,6 @@ export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
  * (about 160 MB as RGBA), so a small file that decompresses to a huge raster is refused.
  */
 export const MAX_PHOTO_PIXELS = 40_000_000;
-
-/** Formats recognised by their magic bytes; the declared Content-Type and the file name are ignored. */
-export const ACCEPTED_INPUT_TYPES = ["image/jpeg", "image/png", "image/webp"] as const;
-export type AcceptedInputType = (typeof ACCEPTED_INPUT_TYPES)[number];
-/** The accepted formats in words, for messages and hints. */
-export const ACCEPTED_LABEL = "JPEG, PNG or WebP";
-
-/** What we store after re-encoding: JPEG stays JPEG, PNG and WebP become WebP (keeps transparency). */
-export const STORED_TYPES = ["image/jpeg", "image/webp"] as const;
-export type StoredType = (typeof STORED_TYPES)[number];
 
 /** Photos on one submission; enough for a meter, the board, the OSD and a charger screen or two. */
 export const MAX_PHOTOS_PER_SUBMISSION = 8;

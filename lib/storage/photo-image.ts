@@ -2,7 +2,8 @@ import { createHash } from "node:crypto";
 import sharp, { type Metadata, type OutputInfo } from "sharp";
 import { badRequest } from "@/lib/api/errors";
 import { PHOTO_FIELD } from "./photo-api";
-import { ACCEPTED_INPUT_TYPES, ACCEPTED_LABEL, MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, formatMegabytes, type AcceptedInputType, type StoredType } from "./limits";
+import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, formatMegabytes } from "./limits";
+import { ACCEPTED_INPUT_TYPES, ACCEPTED_LABEL, type AcceptedInputType, type StoredType } from "@/lib/vocabulary";
 
 // Turns an uploaded file into the bytes we store. Phone photos carry EXIF with GPS position, the
 // camera's serial number and the time; evidence is public once approved, so none of it may leave

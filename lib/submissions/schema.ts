@@ -3,7 +3,7 @@ import { LineFitError, fitLine } from "@/lib/calibration/least-squares";
 import { formatCells, formatFigure } from "@/lib/catalogue/format";
 import { MAX_PHOTOS_PER_SUBMISSION } from "@/lib/storage/limits";
 import type { FirmwareFamily } from "@/models/FirmwareFamily";
-import type { Method } from "@/models/Submission";
+import { MEASURED_AT, type Method, METHODS, SENSING_SOURCES } from "@/lib/vocabulary";
 import {
   FIRMWARE_VERSION_RE,
   MAX_BENCH_AMPS,
@@ -22,7 +22,6 @@ import {
   REPORTED_VOLTS_SLACK,
   packVoltsRange,
 } from "./limits";
-import { MEASURED_AT, METHODS, SENSING_SOURCES } from "./vocabulary";
 
 // THE schema of a contribution: the form validates with it (react-hook-form + zodResolver) and
 // POST/PATCH /api/v1/submissions parse with it, so both sides refuse the same input with the same

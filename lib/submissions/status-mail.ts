@@ -2,7 +2,8 @@ import type { Transaction } from "sequelize";
 import { env } from "@/lib/env";
 import { enqueue } from "@/lib/jobs";
 import type { MailMessage } from "@/lib/mail/send";
-import { BoardModel, BoardRevision, FirmwareFamily, Submission, User, db, type SubmissionStatus } from "@/models";
+import { BoardModel, BoardRevision, FirmwareFamily, Submission, User, db } from "@/models";
+import type { SubmissionStatus } from "@/lib/vocabulary";
 import { MY_SUBMISSIONS_PATH, submissionEditPath } from "./view";
 
 // Every status change of a submission mails its contributor, through the job queue and inside the

@@ -2,12 +2,12 @@ import { z } from "zod";
 import { ApiError, badRequest, notFound } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth";
 import { attachPhotosToSubmission } from "@/lib/storage/evidence-photos";
-import { Submission, db, type SubmissionStatus } from "@/models";
+import { Submission, db } from "@/models";
+import { EDITABLE_STATUSES, STATUS_LABELS, type SubmissionStatus } from "@/lib/vocabulary";
 import { submissionColumns, writeEvidence } from "./evidence-rows";
 import { queueStatusMail } from "./status-mail";
 import { validateSubmission } from "./validate";
 import { loadSubmissionView, type SubmissionView } from "./view";
-import { EDITABLE_STATUSES, STATUS_LABELS } from "./vocabulary";
 
 // Editing a submission: only its contributor, only while no moderator has decided it (pending or
 // changes requested), and only from the version the editor last saw (optimistic concurrency: the

@@ -1,21 +1,9 @@
 import type { Transaction } from "sequelize";
 import type { EvidenceSummary } from "@/lib/calibration/evidence";
-import {
-  BoardModel,
-  BoardRevision,
-  FirmwareFamily,
-  Submission,
-  SubmissionBenchPoint,
-  SubmissionCycle,
-  SubmissionVoltageReading,
-  db,
-  type Method,
-  type SensingSource,
-  type SubmissionStatus,
-} from "@/models";
+import { BoardModel, BoardRevision, FirmwareFamily, Submission, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading, db } from "@/models";
+import { EDITABLE_STATUSES, type Method, type SensingSource, type SubmissionStatus } from "@/lib/vocabulary";
 import { evidenceFromRows } from "./evidence-rows";
 import type { SubmissionPayload } from "./schema";
-import { EDITABLE_STATUSES } from "./vocabulary";
 
 // One submission as its owner sees it: the API's response body, the "My submissions" rows and the
 // edit form's starting values all come from here. Mapped field by field, so a column added to the

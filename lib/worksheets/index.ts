@@ -1,6 +1,7 @@
 import { QueryTypes } from "sequelize";
 import { badRequest } from "@/lib/api/errors";
-import { db, WORKSHEET_KINDS, type WorksheetKind } from "@/models";
+import { db } from "@/models";
+import { WORKSHEET_KINDS, type WorksheetKind } from "@/lib/vocabulary";
 import { addBenchPoint, getBenchWorksheet, removeBenchPoint, startBenchWorksheet } from "./bench";
 import { addRechargeStep, getRechargeWorksheet, ownSheet, removeRechargeStep, startRechargeWorksheet } from "./recharge";
 import { addVoltageReading, getVoltageWorksheet, removeVoltageReading, startVoltageWorksheet } from "./voltage";

@@ -2,7 +2,7 @@ import { z } from "zod";
 import type { BenchWorksheet, FieldIssue, VoltageWorksheet } from "@/lib/calibration/worksheets";
 import { benchPointSchema } from "@/lib/calibration/worksheets/bench";
 import { cellsField, numberField, positiveNumber } from "@/lib/calibration/worksheets/fields";
-import { MEASURED_AT, type MeasuredAt } from "@/lib/submissions/vocabulary";
+import { MEASURED_AT, type MeasuredAt } from "@/lib/vocabulary";
 
 // The voltage and bench worksheets' inputs and computed views, free of server imports so the
 // pages' forms check with the very schemas the route handlers parse with. Each reading or point is

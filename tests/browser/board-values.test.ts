@@ -4,7 +4,7 @@ import { chromium, type Browser, type BrowserContext, type Page } from "playwrig
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_LANDMARKS } from "@/lib/demo/scenario";
 import type { BoardValues, QuantityKey } from "@/lib/published/board-values-types";
-import { METHOD_LABELS } from "@/lib/submissions/vocabulary";
+import { METHOD_LABELS } from "@/lib/vocabulary";
 import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // The board page's published starting values in a real browser, against the app `npm test` serves

@@ -7,7 +7,7 @@ import { listMountingPatterns } from "@/lib/catalogue/mounting-patterns";
 import { DEFAULT_PAGE_SIZE, parseCatalogueParams, type CatalogueParams } from "@/lib/catalogue/search-params";
 import { DEMO_LANDMARKS, buildDemoScenario } from "@/lib/demo/scenario";
 import { db } from "@/models";
-import { BOARD_KINDS } from "@/models/BoardModel";
+import { BOARD_KINDS } from "@/lib/vocabulary";
 import { useTestDatabase } from "@/tests/support/database";
 
 useTestDatabase("seeded");

@@ -11,7 +11,7 @@ import * as requestChangesRoute from "@/app/api/v1/moderation/submissions/[id]/r
 import * as reviewRoute from "@/app/api/v1/moderation/submissions/[id]/route";
 import { stopBoss } from "@/lib/jobs";
 import { approveSubmission } from "@/lib/moderation";
-import type { Role } from "@/models";
+import type { Role } from "@/lib/vocabulary";
 import { ANONYMOUS, callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";
 import { expectError, insertPerson, insertSubmission, setupGroup, writtenState, type Setup } from "./moderation-helpers";

@@ -1,7 +1,7 @@
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { stopBoss } from "@/lib/jobs";
-import { CONFLICT_MESSAGE, type Decision } from "@/lib/moderation";
+import { CONFLICT_MESSAGE, type Decision } from "@/lib/vocabulary";
 import { db } from "@/models";
 import { sessionCookieFor } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";

@@ -3,8 +3,8 @@ import { POST as approveRoute } from "@/app/api/v1/moderation/submissions/[id]/a
 import { POST as rejectRoute } from "@/app/api/v1/moderation/submissions/[id]/reject/route";
 import { POST as requestChangesRoute } from "@/app/api/v1/moderation/submissions/[id]/request-changes/route";
 import { computeAggregates, derivePublished } from "@/lib/published/refresh";
-import type { GroupKey } from "@/lib/published/quantities";
-import type { Decision } from "@/lib/moderation";
+import type { GroupKey } from "@/lib/published/group-key";
+import type { Decision } from "@/lib/vocabulary";
 import { db } from "@/models";
 import { callRoute, withCookie } from "@/tests/support/auth";
 import { insertFixture, type Fixture } from "@/tests/support/fixtures";

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { PATCH as patchRoute } from "@/app/api/v1/submissions/[id]/route";
 import { GET as listRoute, POST as postRoute } from "@/app/api/v1/submissions/route";
 import { stopBoss } from "@/lib/jobs";
-import type { Role } from "@/models";
+import type { Role } from "@/lib/vocabulary";
 import { ANONYMOUS, callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";
 import { expectError, pickTarget, postRequest, rowCounts, validBody, type Target } from "./submissions-helpers";

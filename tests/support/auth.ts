@@ -3,7 +3,8 @@ import { env, resetEnvCache } from "@/lib/env";
 import { encodeSessionToken, sessionCookieName, SESSION_MAX_AGE_SECONDS } from "@/lib/auth/session-cookie";
 import { UniqueConstraintError } from "sequelize";
 import { byEmail } from "@/lib/auth/accounts";
-import { db, User, type Role } from "@/models";
+import { db, User } from "@/models";
+import type { Role } from "@/lib/vocabulary";
 import { runWithRequest } from "./next-headers";
 
 // Sign-in for tests: a session cookie exactly like the one next-auth sets after a real sign-in

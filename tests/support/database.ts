@@ -1,6 +1,7 @@
 import { randomBytes } from "node:crypto";
 import pg from "pg";
 import { afterAll, beforeAll } from "vitest";
+import "@/lib/db/sequelize"; // hands lib/env's database settings to the models' connection
 import { env, resetEnvCache } from "@/lib/env";
 import { TEMPLATE_DATABASES, type Template } from "@/lib/platform/test-templates";
 

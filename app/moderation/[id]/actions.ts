@@ -4,7 +4,7 @@ import { revalidatePath } from "next/cache";
 import { ApiError } from "@/lib/api/errors";
 import { requireRole } from "@/lib/auth";
 import { decide } from "@/lib/moderation/actions";
-import type { Decision } from "@/lib/moderation/vocabulary";
+import type { Decision } from "@/lib/vocabulary";
 
 // The review form's decision, through lib/moderation's one decide(): the version makes it
 // optimistic (a stale one comes back as 409 "Someone else acted on this first"), and a missing

@@ -1,5 +1,5 @@
 import { listQueue } from "@/lib/moderation/queue";
-import { QUEUE_AGES, QUEUE_FLAGS, QUEUE_SORTS, type QueueAge, type QueueFlag, type QueueSort } from "@/lib/moderation/vocabulary";
+import { QUEUE_AGES, QUEUE_FLAGS, QUEUE_SORTS, type QueueAge, type QueueFlag, type QueueSort } from "@/lib/vocabulary";
 
 // The page's side of the queue: the URL's params (lenient: anything unknown falls back to the
 // default, where the API answers 400) and links that keep them, over lib/moderation's listQueue,

@@ -5,7 +5,7 @@ import { requirePageUser } from "@/lib/auth";
 import { formatFigure } from "@/lib/catalogue/format";
 import { renderMarkdown } from "@/lib/content/markdown";
 import { listOwnSubmissions, type SubmissionView } from "@/lib/submissions";
-import { METHOD_LABELS, SENSING_SOURCE_LABELS } from "@/lib/submissions/vocabulary";
+import { METHOD_LABELS, SENSING_SOURCE_LABELS } from "@/lib/vocabulary";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "My submissions" };

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { CATALOGUE_SORTS } from "@/lib/catalogue/search-params";
-import { BOARD_KINDS } from "@/models/BoardModel";
+import { BOARD_KINDS } from "@/lib/vocabulary";
 
 // Response bodies of GET /api/v1/boards and GET /api/v1/boards/{slug}. The handlers' output is
 // typed by these schemas (lib/api/boards-response.ts) and the OpenAPI document is generated from

@@ -1,7 +1,6 @@
 import { z } from "zod";
 import type { SubmissionView } from "@/lib/submissions/view";
-import { MEASURED_AT, METHODS, SENSING_SOURCES } from "@/lib/submissions/vocabulary";
-import { STATUSES } from "@/models/Submission";
+import { MEASURED_AT, METHODS, SENSING_SOURCES, STATUSES } from "@/lib/vocabulary";
 
 // The body of /api/v1/submissions answers, for the OpenAPI document. The request body is the
 // contribution schema itself (lib/submissions/schema.ts); this describes what comes back. The

@@ -1,6 +1,5 @@
 import { z } from "zod";
-import { BOARD_KINDS } from "@/models/BoardModel";
-import { METHODS } from "@/models/Submission";
+import { BOARD_KINDS, METHODS } from "@/lib/vocabulary";
 
 // GET /api/v1/boards/{slug}/values: its query parameters and its response body. The body's type
 // must accept lib/published's BoardValues (checked at compile time in lib/api/values-response.ts).

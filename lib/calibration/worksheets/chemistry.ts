@@ -1,11 +1,11 @@
+import type { Chemistry } from "@/lib/vocabulary";
 import { SOURCES } from "./sources";
 
 // Per-cell voltage limits by pack chemistry, each with where it comes from
 // (/work/shared/reference/check-values.md, "Lithium-polymer packs"). Li-ion figures are recalled,
 // not looked up: cells differ, and their maker's datasheet decides.
 
-export const CHEMISTRIES = ["lipo", "lihv", "liion"] as const;
-export type Chemistry = (typeof CHEMISTRIES)[number];
+export { CHEMISTRIES, type Chemistry } from "@/lib/vocabulary";
 
 export type CellFigure = { volts: number; source: string };
 export type CellRange = { low: number; high: number; source: string };

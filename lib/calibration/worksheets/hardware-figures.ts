@@ -1,4 +1,5 @@
-import type { BoardRevision, CurrentSensorKind } from "@/models/BoardRevision";
+import type { BoardRevision } from "@/models/BoardRevision";
+import type { CurrentSensorKind } from "@/lib/vocabulary";
 import type { HardwareWorksheetInput } from "./hardware";
 
 // The hardware worksheet's figures as a form holds them: one number (or null = unknown) per part,

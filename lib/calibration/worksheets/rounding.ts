@@ -1,5 +1,5 @@
 import { recommendValue } from "@/lib/stats";
-import type { Response } from "@/models/FirmwareFamily";
+import type { Response } from "@/lib/vocabulary";
 
 // A worksheet's exact next setting is rarely a whole number, and the firmware stores whole steps.
 // Both neighbours are offered with the reading error each leaves, and the one on the safe side is

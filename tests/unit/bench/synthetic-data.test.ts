@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { buildSyntheticCatalogue, familyDraws, revisionsOfBoard, syntheticUserCount } from "@/lib/bench/synthetic-data";
 import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
-import { BOARD_KINDS } from "@/models/BoardModel";
+import { BOARD_KINDS } from "@/lib/vocabulary";
 
 // The benchmark's synthetic catalogue, at a tiny size. The patterns and lengths are the CHECK
 // constraints of migrations/…-create-manufacturers.ts and …-create-board-models.ts, so a row that

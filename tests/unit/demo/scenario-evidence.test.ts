@@ -3,7 +3,7 @@ import { impliedCurrentScaleFromCycle } from "@/lib/calibration/evidence";
 import { roundSetting } from "@/lib/calibration/units";
 import { demoPayload } from "@/lib/demo/evidence";
 import { buildDemoScenario } from "@/lib/demo/scenario";
-import { QUANTITIES } from "@/lib/published/quantities";
+import { QUANTITIES } from "@/lib/vocabulary";
 import { recommendValue, summarise } from "@/lib/stats";
 import { evidenceVerdict } from "@/lib/submissions/evidence-rows";
 import { packVoltsRange } from "@/lib/submissions/limits";

@@ -3,9 +3,7 @@ import { dividerRatio, revisionDividerRatio, revisionSensitivityMvPerAmp } from 
 import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
 import { minimumRatioFor } from "@/lib/demo/hardware";
 import { DEMO_LANDMARKS, buildDemoScenario } from "@/lib/demo/scenario";
-import { BOARD_KINDS } from "@/models/BoardModel";
-import { METHODS, SENSING_SOURCES, STATUSES } from "@/models/Submission";
-import { ROLES } from "@/models/User";
+import { BOARD_KINDS, METHODS, ROLES, SENSING_SOURCES, STATUSES } from "@/lib/vocabulary";
 
 // Pure checks of the demo scenario (no database). The patterns below restate the CHECK
 // constraints of migrations/ so that a bad row fails here, with a readable message, before a seed.

@@ -1,13 +1,6 @@
 import { describe, expect, it } from "vitest";
-import {
-  CONFIDENCE_EXPLANATIONS,
-  CONFIDENCE_TITLES,
-  confidenceLabel,
-  evidenceScore,
-  recommendValue,
-  relativeCiWidth,
-  StatsInputError,
-} from "@/lib/stats";
+import { CONFIDENCE_EXPLANATIONS, confidenceLabel, evidenceScore, recommendValue, relativeCiWidth, StatsInputError } from "@/lib/stats";
+import { CONFIDENCE_TITLES } from "@/lib/vocabulary";
 
 // Rounding to a whole setting: nearest, ties away from zero — the roundTiesToAway rule of IEEE Std
 // 754-2008 §4.3.1 (from memory). The step comes from firmware_families.*_step.

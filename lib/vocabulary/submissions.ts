@@ -1,13 +1,19 @@
-import type { Method, SensingSource, SubmissionStatus } from "@/models/Submission";
-
-// The words of a contribution, safe to import in the browser: the models import Sequelize, so the
-// form cannot take these lists from there; models/Submission.ts takes them from here instead.
+// The words of a contribution: how it was measured, what sensed the current, where the meter
+// touched the pack, and where it stands in review. The migrations' CHECK constraints spell the
+// same words; the browser imports these lists, so this file imports nothing.
 
 export const METHODS = ["multimeter", "bench_clamp", "fly_recharge", "unverified"] as const;
+export type Method = (typeof METHODS)[number];
+
 export const SENSING_SOURCES = ["board_adc", "esc_telemetry", "power_module", "estimate"] as const;
+export type SensingSource = (typeof SENSING_SOURCES)[number];
+
 /** Where the multimeter touched the pack; both read the whole pack voltage. */
 export const MEASURED_AT = ["main_lead", "balance_outer_pins"] as const;
 export type MeasuredAt = (typeof MEASURED_AT)[number];
+
+export const STATUSES = ["pending", "approved", "rejected", "changes_requested"] as const;
+export type SubmissionStatus = (typeof STATUSES)[number];
 
 export const METHOD_LABELS: Record<Method, string> = {
   multimeter: "Multimeter voltage check",
@@ -44,5 +50,3 @@ export const STATUS_LABELS: Record<SubmissionStatus, string> = {
 
 /** A contributor may edit a submission only while a moderator has not decided it. */
 export const EDITABLE_STATUSES: readonly SubmissionStatus[] = ["pending", "changes_requested"];
-
-export type { Method, SensingSource, SubmissionStatus } from "@/models/Submission";

@@ -1,8 +1,11 @@
-import type { AuditAction } from "@/models/AuditEvent";
-import type { Role } from "@/models/User";
+// The words of moderation: the queue's filters and sort orders, the logged actions and what they
+// are called, and the limits of the texts moderators write. The migrations' CHECKs spell the same
+// action words.
 
-// The words of moderation, safe to import in the browser (no Sequelize): the queue's filters and
-// sort orders, the actions and what they are called, and the limits of the texts moderators write.
+export const AUDIT_ACTIONS = ["approve", "reject", "request_changes", "auto_approve", "revert", "user_update"] as const;
+export type AuditAction = (typeof AUDIT_ACTIONS)[number];
+export const AUDIT_ENTITY_TYPES = ["submission", "user"] as const;
+export type AuditEntityType = (typeof AUDIT_ENTITY_TYPES)[number];
 
 /**
  * Why a pending submission needs a closer look:
@@ -84,11 +87,3 @@ export const TRUST_LABELS: Record<TrustReason, string> = {
   rejected: "Not trusted: a submission was rejected",
   building: "Not trusted yet",
 };
-
-/** The roles an admin can give, lowest first; the check below fails to compile if it and models/User.ts disagree. */
-export const ROLE_CHOICES = ["contributor", "moderator", "admin"] as const;
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const rolesAgree: Same<(typeof ROLE_CHOICES)[number], Role> = true;
-void rolesAgree;
-
-export const ROLE_LABELS: Record<Role, string> = { contributor: "Contributor", moderator: "Moderator", admin: "Admin" };

@@ -7,6 +7,3 @@ export const QUANTITY_LABELS: Record<Quantity, string> = {
   current_scale: "Current scale",
   current_offset: "Current offset",
 };
-
-/** One (board revision, firmware family) pair: values from different families are never mixed. */
-export type GroupKey = { boardRevisionId: number; firmwareFamilyId: number };

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-import type { BoardRevision } from "./BoardRevision";
+import type { BoardRevision } from "./Board";
 import type { FirmwareFamily } from "./FirmwareFamily";
 import type { User } from "./User";
 

@@ -1,9 +1,7 @@
 import { Account } from "./Account";
 import { AuditEvent } from "./AuditEvent";
 import { AuthSession } from "./AuthSession";
-import { BoardAlias } from "./BoardAlias";
-import { BoardModel } from "./BoardModel";
-import { BoardRevision } from "./BoardRevision";
+import { BoardAlias, BoardModel, BoardRevision } from "./Board";
 import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { Manufacturer } from "./Manufacturer";

@@ -1,4 +1,4 @@
-import type { BoardRevision } from "@/models/BoardRevision";
+import type { BoardRevision } from "@/models/Board";
 import type { FirmwareFamily } from "@/models/FirmwareFamily";
 
 // Conversions between a board's physical sensor hardware and a firmware family's setting units.

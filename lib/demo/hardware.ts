@@ -1,5 +1,5 @@
 import { dividerRatio, revisionDividerRatio, revisionSensitivityMvPerAmp, shuntSensitivityMvPerAmp } from "@/lib/calibration/units";
-import type { BoardRevision } from "@/models/BoardRevision";
+import type { BoardRevision } from "@/models/Board";
 import type { RevisionSpec } from "./boards";
 import type { Rng } from "./random";
 

@@ -1,7 +1,8 @@
 import { QueryTypes } from "sequelize";
 import { afterAll, describe, expect, it } from "vitest";
 import { env, resetEnvCache } from "@/lib/env";
-import { drainJobsOnce, enqueue, stopBoss } from "@/lib/jobs";
+import { enqueue, stopBoss } from "@/lib/jobs";
+import { drainJobsOnce } from "@/lib/jobs/worker";
 import { db } from "@/models";
 import { waitForMails } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";

@@ -1,7 +1,8 @@
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { boss } from "@/lib/jobs/boss";
-import { drainJobsOnce, stopBoss } from "@/lib/jobs";
+import { stopBoss } from "@/lib/jobs";
+import { drainJobsOnce } from "@/lib/jobs/worker";
 import { DIGEST_CRON, DIGEST_JOB, registerModerationJobs, sendModeratorDigest } from "@/lib/moderation";
 import { db } from "@/models";
 import { testAccount, waitForMails } from "@/tests/support/auth";

@@ -1,4 +1,4 @@
-import type { BoardRevision } from "@/models/BoardRevision";
+import type { BoardRevision } from "@/models/Board";
 import type { CurrentSensorKind } from "@/lib/vocabulary";
 import type { HardwareWorksheetInput } from "./hardware";
 

@@ -2,6 +2,7 @@ import { Account } from "./Account";
 import { AuditEvent } from "./AuditEvent";
 import { AuthSession } from "./AuthSession";
 import { BoardAlias, BoardModel, BoardRevision } from "./Board";
+import { BoardStat } from "./BoardStat";
 import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { Manufacturer } from "./Manufacturer";
@@ -83,6 +84,8 @@ export function associate(): void {
   AuditEvent.belongsTo(Submission, { foreignKey: "submissionId", as: "submission" });
   Submission.hasMany(AuditEvent, { foreignKey: "submissionId", as: "auditEvents" });
   AuditEvent.belongsTo(AuditEvent, { foreignKey: "revertsEventId", as: "revertsEvent" });
+  BoardStat.belongsTo(BoardRevision, { foreignKey: "boardRevisionId", as: "boardRevision" });
+  BoardStat.belongsTo(FirmwareFamily, { foreignKey: "firmwareFamilyId", as: "firmwareFamily" });
   PublishedValueHistory.belongsTo(AuditEvent, { foreignKey: "causedByEventId", as: "causedBy" });
   PublishedValueHistory.belongsTo(BoardRevision, { foreignKey: "boardRevisionId", as: "boardRevision" });
   PublishedValueHistory.belongsTo(FirmwareFamily, { foreignKey: "firmwareFamilyId", as: "firmwareFamily" });

@@ -4,6 +4,7 @@ import { associate } from "./associations";
 import { AuditEvent } from "./AuditEvent";
 import { AuthSession } from "./AuthSession";
 import { BoardAlias, BoardModel, BoardRevision } from "./Board";
+import { BoardStat, type BoardStatRow } from "./BoardStat";
 import { getSequelize } from "./connection";
 import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
@@ -30,7 +31,7 @@ export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, M
 export { IdempotencyKey, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
 export { Account, AuthSession, PasswordResetToken, RateLimit, VerificationToken };
 export { Pack, PackCharge, Quad, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint };
-export { AuditEvent, PublishedValueHistory };
+export { AuditEvent, BoardStat, PublishedValueHistory, type BoardStatRow };
 
 let initialisedWith: Sequelize | undefined;
 
@@ -41,7 +42,7 @@ export function db(): Sequelize {
     for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission, EvidencePhoto,
       SubmissionVoltageReading, SubmissionCycle, SubmissionBenchPoint, IdempotencyKey,
       Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit, Quad, Pack, PackCharge,
-      AuditEvent, PublishedValueHistory, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint]) {
+      AuditEvent, PublishedValueHistory, BoardStat, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint]) {
       model.initModel(sequelize);
     }
     associate();

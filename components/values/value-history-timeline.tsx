@@ -1,5 +1,5 @@
 import { formatFigure, plural } from "@/lib/catalogue/format";
-import { getValueHistory, type HistoryPoint } from "@/lib/moderation/history";
+import { getValueHistory, type HistoryPoint } from "@/lib/published/history";
 import { ACTION_LABELS, type Quantity, QUANTITY_LABELS } from "@/lib/vocabulary";
 
 // How each published value got where it is: one timeline per revision, firmware family and

@@ -1,25 +1,20 @@
 import { QueryTypes, type Transaction } from "sequelize";
-import { MEAN_AD_FACTOR, MIN_VALUES_TO_JUDGE, MODIFIED_Z_CUTOFF, MODIFIED_Z_FACTOR } from "@/lib/stats";
 import { QUANTITIES, type Quantity, type QueueFlag } from "@/lib/vocabulary";
 import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
+import { isOutlierSql, modifiedZSql } from "@/lib/published/modified-z-sql";
 import { db } from "@/models";
 
 // The flags of a submission that waits for review, computed in PostgreSQL so that the queue can
 // be ordered by them across pages. The modified z-score of each value is taken against the
-// PUBLISHED figures of its group, board_stats' median and MAD over the approved values only (the
-// pending value is not part of what it is judged against), with lib/stats' constants and its rule
-// for MAD = 0 (mean absolute deviation × 1.253314; with no spread at all, any value off the median
-// is an outlier). That is the rule of lib/submissions/placement.ts, which shows a contributor the
-// same verdict before they send. Fewer than MIN_VALUES_TO_JUDGE approved values: no score, no flag.
+// PUBLISHED figures of its group, board_stats' median, MAD and z_scale_rule over the approved
+// values only (the pending value is not part of what it is judged against), by the aggregate's
+// own SQL formula (lib/published/modified-z-sql.ts; with no spread at all, any value off the
+// median is an outlier). lib/submissions/placement.ts shows a contributor the same verdict before
+// they send, by the TypeScript copy. Fewer than 3 approved values ('too_few'): no score, no flag.
 
 const zOf = (q: Quantity) => {
   const st = `st_${q}`;
-  return `CASE
-    WHEN s.${q} IS NULL OR ${st}.n IS NULL OR ${st}.n < ${MIN_VALUES_TO_JUDGE} THEN NULL
-    WHEN ${st}.mad > 0 THEN ${MODIFIED_Z_FACTOR} * (s.${q} - ${st}.median) / ${st}.mad
-    WHEN ${st}.mean_abs_dev > 0 THEN (s.${q} - ${st}.median) / (${MEAN_AD_FACTOR} * ${st}.mean_abs_dev)
-    WHEN s.${q} <> ${st}.median THEN sign(s.${q} - ${st}.median) * 'Infinity'::float8
-    ELSE 0 END`;
+  return modifiedZSql({ value: `s.${q}`, rule: `${st}.z_scale_rule`, median: `${st}.median`, mad: `${st}.mad`, meanAbsDev: `${st}.mean_abs_dev` });
 };
 
 // board_stats' primary key (revision, family, quantity) answers each join
@@ -55,7 +50,7 @@ export function scoredSql(where: string): string {
 /** Wraps scoredSql with the derived flag columns: max_abs_z (Infinity when there is no spread to divide by), outlier. */
 export function flaggedSql(where: string): string {
   const abs = QUANTITIES.map((q) => `abs("z_${q}")`).join(", ");
-  return `SELECT x.*, GREATEST(${abs}) AS "maxAbsZ", coalesce(GREATEST(${abs}) > ${MODIFIED_Z_CUTOFF}, false) AS outlier
+  return `SELECT x.*, GREATEST(${abs}) AS "maxAbsZ", ${isOutlierSql(`GREATEST(${abs})`)} AS outlier
             FROM (${scoredSql(where)}) x`;
 }
 

@@ -2,7 +2,7 @@ import { QueryTypes } from "sequelize";
 import { describeFlags } from "@/lib/stats";
 import { type ConfidenceLabel, type Method, QUANTITIES, type Quantity, type SubmissionStatus } from "@/lib/vocabulary";
 import { publishedFromValues, type ApprovedPoint } from "@/lib/published/from-values";
-import { type GroupKey } from "@/lib/published/group-key";
+import type { GroupKey } from "@/lib/published/group-key";
 import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
 import { placeValue, type Placement } from "@/lib/submissions/placement";
 import { loadSubmissionView, type SubmissionView } from "@/lib/submissions/view";

@@ -8,7 +8,7 @@ import { queueStatusMail } from "@/lib/submissions/status-mail";
 import { type AuditAction, CONFLICT_MESSAGE, STATUS_LABELS, type SubmissionStatus } from "@/lib/vocabulary";
 import { db } from "@/models";
 import { writeAuditEvent, type SubmissionState } from "./audit";
-import { refreshWithHistory } from "./history";
+import { refreshWithHistory } from "@/lib/published/history";
 import { revertMail } from "./mails";
 
 // One change of a submission's status, as every moderation action makes it (a decision, an

@@ -1,4 +1,5 @@
-import { MEAN_AD_FACTOR, MIN_VALUES_TO_JUDGE, MODIFIED_Z_CUTOFF, MODIFIED_Z_FACTOR, SCALED_MAD_CONSTANT, TUKEY_INNER } from "@/lib/stats";
+import { SCALED_MAD_CONSTANT, TUKEY_INNER } from "@/lib/stats";
+import { isOutlierSql, modifiedZSql, zScaleRuleSql } from "./modified-z-sql";
 
 // The published aggregates, computed by PostgreSQL over approved submissions. The definitions are
 // the ones lib/stats implements in TypeScript (tests hold the two to 1e-9 on the same data):
@@ -6,7 +7,8 @@ import { MEAN_AD_FACTOR, MIN_VALUES_TO_JUDGE, MODIFIED_Z_CUTOFF, MODIFIED_Z_FACT
 //   MAD: percentile_cont(0.5) of |x − median|; mean absolute deviation for the MAD = 0 rule;
 //   CI: order statistics x(l), x(u) at the ranks lib/stats/median-ci.ts derives from n
 //       (passed in as :ranks, so the binomial rule lives in one place);
-//   outliers: the modified z-score with lib/stats/outliers.ts' substitute rules, and Tukey's inner fences.
+//   outliers: the modified z-score with lib/stats/outliers.ts' substitute rules (modified-z-sql.ts,
+//             the one SQL copy), and Tukey's inner fences.
 // :groups is a JSON array of {r, f} pairs, or null for every group.
 const VALUES = `
   SELECT s.board_revision_id AS r, s.firmware_family_id AS f, q.quantity, q.value, s.method, s.updated_at
@@ -38,8 +40,7 @@ spread AS (
   FROM vals v JOIN centre c USING (r, f, quantity) GROUP BY v.r, v.f, v.quantity),
 judged AS (
   SELECT c.*, s.mad, s.mean_abs_dev,
-         CASE WHEN c.n < ${MIN_VALUES_TO_JUDGE} THEN 'too_few'
-              WHEN s.mad > 0 THEN 'mad' WHEN s.mean_abs_dev > 0 THEN 'mean_abs_dev' ELSE 'no_spread' END AS z_scale_rule
+         ${zScaleRuleSql({ n: "c.n", mad: "s.mad", meanAbsDev: "s.mean_abs_dev" })} AS z_scale_rule
   FROM centre c JOIN spread s USING (r, f, quantity)),
 methods AS (
   SELECT r, f, quantity, jsonb_object_agg(method, k) AS method_counts
@@ -47,11 +48,7 @@ methods AS (
   GROUP BY r, f, quantity),
 flags AS (
   SELECT v.r, v.f, v.quantity,
-         count(*) FILTER (WHERE CASE j.z_scale_rule
-             WHEN 'mad' THEN abs((${MODIFIED_Z_FACTOR} * (v.value - j.median)) / j.mad) > ${MODIFIED_Z_CUTOFF}
-             WHEN 'mean_abs_dev' THEN abs((v.value - j.median) / (${MEAN_AD_FACTOR} * j.mean_abs_dev)) > ${MODIFIED_Z_CUTOFF}
-             WHEN 'no_spread' THEN v.value <> j.median
-             ELSE false END)::int AS outlier_count,
+         count(*) FILTER (WHERE ${isOutlierSql(modifiedZSql({ value: "v.value", rule: "j.z_scale_rule", median: "j.median", mad: "j.mad", meanAbsDev: "j.mean_abs_dev" }))})::int AS outlier_count,
          count(*) FILTER (WHERE j.z_scale_rule <> 'too_few' AND (
              v.value < j.q1 - ${TUKEY_INNER} * (j.q3 - j.q1) OR v.value > j.q3 + ${TUKEY_INNER} * (j.q3 - j.q1)))::int AS tukey_count
   FROM vals v JOIN judged j USING (r, f, quantity) GROUP BY v.r, v.f, v.quantity)

@@ -1,6 +1,7 @@
 import { QueryTypes, type Sequelize } from "sequelize";
 import { CONFIDENCE_EXPLANATIONS, flagPoints, recommendValue } from "@/lib/stats";
 import { type BoardKind, CONFIDENCE_TITLES, type ConfidenceLabel, type Method, QUANTITIES, type Quantity } from "@/lib/vocabulary";
+import type { BoardStatRow } from "@/models/BoardStat";
 import type { FirmwareFamily } from "@/models/FirmwareFamily";
 import { QUANTITY_KEYS, type BoardValues, type FamilyUnits, type GroupValues, type QuantityValues, type ValuePoint } from "./board-values-types";
 
@@ -43,27 +44,10 @@ export async function readBoardHeader(sequelize: Sequelize, slug: string): Promi
   return row ?? null;
 }
 
-type StatsRow = {
+/** The board_stats columns a reader is shown, keyed by the short group names STATS_SQL selects. */
+type StatsRow = Omit<BoardStatRow, "boardRevisionId" | "firmwareFamilyId" | "meanAbsDev" | "ciLowerRank" | "ciUpperRank" | "zScaleRule"> & {
   revisionId: number;
   familyId: number;
-  quantity: Quantity;
-  n: number;
-  median: number;
-  q1: number;
-  q3: number;
-  iqr: number;
-  mad: number;
-  scaledMad: number;
-  ciLow: number | null;
-  ciHigh: number | null;
-  ciCoverage: number | null;
-  outlierCount: number;
-  tukeyCount: number;
-  methodCounts: Partial<Record<Method, number>>;
-  recommendedValue: number;
-  confidence: ConfidenceLabel;
-  lastValueAt: Date;
-  computedAt: Date;
 };
 
 type PointRow = {

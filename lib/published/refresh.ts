@@ -1,35 +1,15 @@
 import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
-import { confidenceLabel, evidenceScore, medianCiRanks, recommendValue, relativeCiWidth, type ZScaleRule } from "@/lib/stats";
-import type { ConfidenceLabel, Method, Quantity } from "@/lib/vocabulary";
+import { confidenceLabel, evidenceScore, medianCiRanks, recommendValue, relativeCiWidth } from "@/lib/stats";
+import type { Method } from "@/lib/vocabulary";
+import type { BoardStatRow } from "@/models";
 import { AGGREGATES_SQL, GROUP_COUNTS_SQL } from "./aggregate-sql";
 import type { GroupKey } from "./group-key";
 
-/** One row of board_stats as PostgreSQL computed it, before the derived fields. */
-export type GroupAggregates = {
-  boardRevisionId: number;
-  firmwareFamilyId: number;
-  quantity: Quantity;
-  n: number;
-  median: number;
-  q1: number;
-  q3: number;
-  iqr: number;
-  mad: number;
-  scaledMad: number;
-  meanAbsDev: number;
-  ciLow: number | null;
-  ciHigh: number | null;
-  ciCoverage: number | null;
-  ciLowerRank: number | null;
-  ciUpperRank: number | null;
-  zScaleRule: ZScaleRule;
-  outlierCount: number;
-  tukeyCount: number;
-  methodCounts: Partial<Record<Method, number>>;
-  lastValueAt: Date;
-};
+/** A board_stats row as written, before the database stamps computed_at. */
+export type PublishedStats = Omit<BoardStatRow, "computedAt">;
 
-export type PublishedStats = GroupAggregates & { recommendedValue: number; confidence: ConfidenceLabel };
+/** The part of a row PostgreSQL's aggregate computes, before the derived recommendation and confidence. */
+export type GroupAggregates = Omit<PublishedStats, "recommendedValue" | "confidence">;
 
 /**
  * A current offset sits near zero, so a CI width relative to its median means little; it is

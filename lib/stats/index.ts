@@ -3,6 +3,9 @@
 export { summarise, type Summary, type SummaryState } from "./summarise";
 export {
   flagPoints,
+  modifiedZScore,
+  zScaleRuleOf,
+  type ZScaleSpread,
   describeFlags,
   tukeyFences,
   tukeyFlag,
@@ -15,7 +18,6 @@ export {
   type FlagReport,
   type TukeyFences,
   type TukeyFlag,
-  type ZScaleRule,
 } from "./outliers";
 export { quantileType7, medianOfSorted } from "./quantile";
 export { madOfSorted, meanAbsDeviationAroundMedian, SCALED_MAD_CONSTANT, SCALED_MAD_CONSTANT_EXACT } from "./mad";

@@ -1,4 +1,5 @@
 // Two independent outlier flags per value: the modified z-score (primary) and Tukey's fences.
+import type { ZScaleRule } from "@/lib/vocabulary";
 import { MIN_VALUES_TO_JUDGE, spreadOfSorted, type Spread } from "./spread";
 import { sortedCopy } from "./validate";
 
@@ -37,7 +38,7 @@ export interface TukeyFences {
 }
 
 /**
- * Which spread the modified z-score divided by:
+ * The flags of a set of values. zScaleRule names which spread the modified z-score divided by:
  *  - "mad":           MAD > 0, the NIST formula as written.
  *  - "mean_abs_dev":  MAD = 0 (more than half the values tie at the median) but meanAD > 0:
  *                     M = (x − median) / (1.253314 · meanAD).
@@ -46,8 +47,6 @@ export interface TukeyFences {
  *                     as an outlier with modifiedZ null. Nothing is ever divided by zero.
  *  - "too_few":       n < 3, nothing is scored or flagged.
  */
-export type ZScaleRule = "mad" | "mean_abs_dev" | "no_spread" | "too_few";
-
 export interface FlagReport {
   zScaleRule: ZScaleRule;
   /** Null when n < 3. With IQR = 0 the fences sit on the quartiles and any value off them is "extreme": that is Tukey's rule as written. */
@@ -73,21 +72,35 @@ export function tukeyFlag(value: number, fences: TukeyFences): TukeyFlag {
   return "none";
 }
 
-function zScaleRuleOf(spread: Spread): Exclude<ZScaleRule, "too_few"> {
+/** A group's centre and spreads, as the modified z-score needs them (board_stats keeps the same columns). */
+export type ZScaleSpread = Pick<Spread, "median" | "mad" | "meanAbsDev">;
+
+/**
+ * Which spread a group of n values divides its modified z-scores by. The one TypeScript copy of
+ * the rule; the aggregate SQL's is lib/published/modified-z-sql.ts, held to this one by
+ * tests/integration/published-stats.test.ts.
+ */
+export function zScaleRuleOf(n: number, spread: Pick<Spread, "mad" | "meanAbsDev">): ZScaleRule {
+  if (n < MIN_VALUES_TO_JUDGE) return "too_few";
   if (spread.mad > 0) return "mad";
   if (spread.meanAbsDev > 0) return "mean_abs_dev";
   return "no_spread";
 }
 
-function modifiedZ(value: number, spread: Spread, rule: ZScaleRule): number | null {
+/**
+ * The modified z-score of one value against a group, and whether it is an outlier: the one
+ * TypeScript copy of the formula (the SQL one: lib/published/modified-z-sql.ts).
+ */
+export function modifiedZScore(value: number, rule: ZScaleRule, spread: ZScaleSpread): { modifiedZ: number | null; outlier: boolean } {
+  if (rule === "too_few") return { modifiedZ: null, outlier: false };
   const offset = value - spread.median;
   let z: number;
   if (rule === "mad") z = (MODIFIED_Z_FACTOR * offset) / spread.mad;
   else if (rule === "mean_abs_dev") z = offset / (MEAN_AD_FACTOR * spread.meanAbsDev);
-  else if (rule === "no_spread") z = offset === 0 ? 0 : Number.NaN;
-  else return null;
+  else z = offset === 0 ? 0 : Number.NaN;
   // Belt and braces: a tiny divisor could still overflow; report "no score" rather than Infinity.
-  return Number.isFinite(z) ? z + 0 : null; // + 0 turns −0 into 0
+  const modifiedZ = Number.isFinite(z) ? z + 0 : null; // + 0 turns −0 into 0
+  return { modifiedZ, outlier: modifiedZ === null ? value !== spread.median : Math.abs(modifiedZ) > MODIFIED_Z_CUTOFF };
 }
 
 /** Per-value flags, with the rule that produced them. Throws StatsInputError on a bad value. */
@@ -101,13 +114,9 @@ export function describeFlags(values: number[]): FlagReport {
       points: values.map((value) => ({ value, modifiedZ: null, outlier: false, tukey: "none" })),
     };
   }
-  const rule = zScaleRuleOf(spread);
+  const rule = zScaleRuleOf(sorted.length, spread);
   const fences = tukeyFences(spread.q1, spread.q3);
-  const points = values.map((value): FlaggedPoint => {
-    const z = modifiedZ(value, spread, rule);
-    const outlier = z === null ? value !== spread.median : Math.abs(z) > MODIFIED_Z_CUTOFF;
-    return { value, modifiedZ: z, outlier, tukey: tukeyFlag(value, fences) };
-  });
+  const points = values.map((value): FlaggedPoint => ({ value, ...modifiedZScore(value, rule, spread), tukey: tukeyFlag(value, fences) }));
   return { zScaleRule: rule, fences, points };
 }
 

@@ -8,5 +8,6 @@ export * from "./moderation";
 export * from "./photos";
 export * from "./quantities";
 export * from "./roles";
+export * from "./statistics";
 export * from "./submissions";
 export * from "./worksheets";

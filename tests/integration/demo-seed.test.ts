@@ -2,7 +2,8 @@ import { QueryTypes } from "sequelize";
 import { afterAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
 import { stopBoss } from "@/lib/jobs";
-import { getValueHistory, listAuditEvents, revertEvent } from "@/lib/moderation";
+import { listAuditEvents, revertEvent } from "@/lib/moderation";
+import { getValueHistory } from "@/lib/published/history";
 import { db } from "@/models";
 import { useTestDatabase } from "@/tests/support/database";
 

@@ -24,7 +24,7 @@ import { requestPasswordReset } from "@/lib/auth/password-reset";
 import { getHomeCounts } from "@/lib/catalogue/home-counts";
 import { listMountingPatterns } from "@/lib/catalogue/mounting-patterns";
 import { stopBoss } from "@/lib/jobs";
-import { getValueHistory } from "@/lib/moderation/history";
+import { getValueHistory } from "@/lib/published/history";
 import { contributorRecord } from "@/lib/moderation/trust";
 import { chosenBoard } from "@/lib/submissions/form-data";
 import { listQuadWorksheets, openWorksheetId } from "@/lib/worksheets";

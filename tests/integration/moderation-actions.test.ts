@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { POST as bulkRoute } from "@/app/api/v1/moderation/bulk-approve/route";
 import { GET as eventsRoute } from "@/app/api/v1/moderation/events/route";
 import { stopBoss } from "@/lib/jobs";
-import { getValueHistory } from "@/lib/moderation";
+import { getValueHistory } from "@/lib/published/history";
 import { CONFLICT_MESSAGE } from "@/lib/vocabulary";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";

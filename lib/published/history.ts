@@ -1,12 +1,12 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { type AuditAction, type ConfidenceLabel, QUANTITIES, type Quantity } from "@/lib/vocabulary";
-import { publishedFiguresMoved } from "@/lib/published/from-values";
-import { refreshGroups, type PublishedStats } from "@/lib/published/refresh";
-import { type GroupKey } from "@/lib/published/group-key";
-import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
-import { db, PublishedValueHistory } from "@/models";
+import { BoardStat, db, PublishedValueHistory, type BoardStatRow } from "@/models";
+import { QUANTITY_KEYS, type QuantityKey } from "./board-values-types";
+import { publishedFiguresMoved } from "./from-values";
+import type { GroupKey } from "./group-key";
+import { refreshGroups, type PublishedStats } from "./refresh";
 
-// The history of published values (migrations/20261210001200-…). A moderation action that can
+// The history of published values (migrations/20261210001200-…) and the board page's timeline of it. A moderation action that can
 // move a group's figures refreshes the group through refreshWithHistory, which compares what
 // board_stats published before and after and appends one row per quantity whose recommended
 // value, n or interval changed, naming the audit event that caused it. The first time a quantity
@@ -14,24 +14,18 @@ import { db, PublishedValueHistory } from "@/models";
 // timeline always starts from what readers saw.
 
 /** The published figures of one quantity that the history keeps. */
-export type PublishedFigures = {
-  recommendedValue: number;
-  n: number;
-  median: number;
-  ciLow: number | null;
-  ciHigh: number | null;
-  confidence: ConfidenceLabel;
-  computedAt: Date;
-};
+export type PublishedFigures = Pick<BoardStatRow, "recommendedValue" | "n" | "median" | "ciLow" | "ciHigh" | "confidence" | "computedAt">;
 
 /** board_stats of one group by quantity, read by primary key. */
 export async function publishedFigures(group: GroupKey, transaction?: Transaction): Promise<Map<Quantity, PublishedFigures>> {
-  const rows = await db().query<PublishedFigures & { quantity: Quantity }>(
-    `SELECT quantity, recommended_value AS "recommendedValue", n, median, ci_low AS "ciLow", ci_high AS "ciHigh", confidence, computed_at AS "computedAt"
-       FROM board_stats WHERE board_revision_id = :r AND firmware_family_id = :f`,
-    { replacements: { r: group.boardRevisionId, f: group.firmwareFamilyId }, type: QueryTypes.SELECT, transaction },
-  );
-  return new Map(rows.map((row) => [row.quantity, row]));
+  db();
+  const rows = await BoardStat.findAll({
+    attributes: ["quantity", "recommendedValue", "n", "median", "ciLow", "ciHigh", "confidence", "computedAt"],
+    where: { boardRevisionId: group.boardRevisionId, firmwareFamilyId: group.firmwareFamilyId },
+    raw: true,
+    transaction,
+  });
+  return new Map(rows.map(({ quantity, ...figures }) => [quantity, figures]));
 }
 
 const figuresOf = (row: PublishedStats): PublishedFigures => ({

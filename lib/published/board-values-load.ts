@@ -5,7 +5,7 @@ import type { BoardStatRow } from "@/models/BoardStat";
 import type { FirmwareFamily } from "@/models/FirmwareFamily";
 import { QUANTITY_KEYS, type BoardValues, type FamilyUnits, type GroupValues, type QuantityValues, type ValuePoint } from "./board-values-types";
 
-// Reads one board's published values from PostgreSQL, uncached (board-values.ts caches them).
+// Reads one board's published values from PostgreSQL, uncached (values-cache.ts caches them).
 // The figures come from board_stats as PostgreSQL computed them; only the per-value flags are
 // computed here, with lib/stats, because they belong to each value rather than to the group.
 
@@ -20,7 +20,7 @@ export type BoardHeader = {
   stamp: string;
 };
 
-/** The stamp of board row `bm`, as BOARD_SQL and the change feed (board-values-feed.ts) read it. */
+/** The stamp of board row `bm`, as BOARD_SQL and the change feed (values-cache.ts) read it. */
 export const BOARD_STAMP_SQL = `concat_ws('|', bm.id, bm.values_version, (extract(epoch FROM bm.created_at) * 1000000)::bigint)`;
 
 // The stamp is the board row's values_version (migrations/20261212001000-…): the id of the last

@@ -80,7 +80,7 @@ async function writeRows(sequelize: Sequelize, rows: PublishedStats[], transacti
 /**
  * Marks the boards whose board_stats were just rewritten as changed: board_models.values_version
  * becomes this transaction's id (migrations/20261212001000-…). It is the stamp every cache of the
- * published values (lib/published/board-values.ts, in any process) revalidates by, and it commits
+ * published values (lib/published/values-cache.ts, in any process) revalidates by, and it commits
  * or rolls back with the figures themselves.
  */
 async function bumpValuesVersion(sequelize: Sequelize, groups: GroupKey[] | null, transaction: Transaction): Promise<void> {

@@ -57,3 +57,29 @@ export class FirmwareFamily extends Model<InferAttributes<FirmwareFamily>, Infer
     );
   }
 }
+
+/**
+ * The unit fields of a firmware family, in column order: how each setting is counted (unit, step,
+ * response) and the range a setting may take. FamilyUnitFields is their one TypeScript type,
+ * FAMILY_UNIT_COLUMNS / familyUnitColumnsSql their one SQL column list.
+ */
+export const FAMILY_UNIT_FIELDS = [
+  "voltageScaleUnit", "voltageScaleStep", "voltageScaleResponse", "voltageScaleMin", "voltageScaleMax",
+  "currentScaleUnit", "currentScaleStep", "currentScaleResponse", "currentScaleMin", "currentScaleMax",
+  "currentOffsetUnit", "currentOffsetStep", "currentOffsetMin", "currentOffsetMax",
+] as const satisfies readonly (keyof InferAttributes<FirmwareFamily>)[];
+
+export type FamilyUnitFields = Pick<InferAttributes<FirmwareFamily>, (typeof FAMILY_UNIT_FIELDS)[number]>;
+
+/** The same fields as firmware_families column names (the underscored naming of the model). */
+export const FAMILY_UNIT_COLUMNS = FAMILY_UNIT_FIELDS.map((field) => field.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`));
+
+/** `column AS "field"` for each unit field, for a raw SELECT; `table` is an optional alias prefix. */
+export function familyUnitColumnsSql(table?: string): string {
+  return FAMILY_UNIT_FIELDS.map((field, i) => `${table ? `${table}.` : ""}${FAMILY_UNIT_COLUMNS[i]} AS "${field}"`).join(", ");
+}
+
+/** Just the unit fields of a family (a model instance or a plain row), as plain data. */
+export function familyUnitFieldsOf(family: FamilyUnitFields): FamilyUnitFields {
+  return Object.fromEntries(FAMILY_UNIT_FIELDS.map((field) => [field, family[field]])) as FamilyUnitFields;
+}

@@ -31,6 +31,7 @@ export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, M
 export { IdempotencyKey, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
 export { Account, AuthSession, PasswordResetToken, RateLimit, VerificationToken };
 export { Pack, PackCharge, Quad, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint };
+export { FAMILY_UNIT_COLUMNS, FAMILY_UNIT_FIELDS, familyUnitColumnsSql, familyUnitFieldsOf, type FamilyUnitFields } from "./FirmwareFamily";
 export { AuditEvent, BoardStat, PublishedValueHistory, type BoardStatRow };
 
 let initialisedWith: Sequelize | undefined;

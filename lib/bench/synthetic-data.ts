@@ -1,6 +1,7 @@
 import { QueryTypes, type Sequelize } from "sequelize";
 import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
 import { BOARD_KINDS, type BoardKind } from "@/lib/vocabulary";
+import { FAMILY_UNIT_COLUMNS } from "@/models/FirmwareFamily";
 
 // The benchmark's synthetic data set: invented makers and boards named by number (nothing here is
 // meant to look like a product), the demo's three invented firmware families, and as many
@@ -154,12 +155,7 @@ SELECT revision_id, id,
 
 export type SeedCounts = { manufacturers: number; boards: number; revisions: number; users: number; submissions: number };
 
-const FAMILY_COLUMNS = [
-  "slug", "name", "description",
-  "voltage_scale_unit", "voltage_scale_step", "voltage_scale_response", "voltage_scale_min", "voltage_scale_max",
-  "current_scale_unit", "current_scale_step", "current_scale_response", "current_scale_min", "current_scale_max",
-  "current_offset_unit", "current_offset_step", "current_offset_min", "current_offset_max",
-] as const;
+const FAMILY_COLUMNS = ["slug", "name", "description", ...FAMILY_UNIT_COLUMNS];
 
 const snakeToCamel = (s: string) => s.replace(/_([a-z])/g, (_, c: string) => c.toUpperCase());
 

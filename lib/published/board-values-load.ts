@@ -2,7 +2,7 @@ import { QueryTypes, type Sequelize } from "sequelize";
 import { CONFIDENCE_EXPLANATIONS, flagPoints, recommendValue } from "@/lib/stats";
 import { type BoardKind, CONFIDENCE_TITLES, type ConfidenceLabel, type Method, QUANTITIES, type Quantity } from "@/lib/vocabulary";
 import type { BoardStatRow } from "@/models/BoardStat";
-import type { FirmwareFamily } from "@/models/FirmwareFamily";
+import { familyUnitColumnsSql, type FamilyUnitFields, type FirmwareFamily } from "@/models/FirmwareFamily";
 import { QUANTITY_KEYS, type BoardValues, type FamilyUnits, type GroupValues, type QuantityValues, type ValuePoint } from "./board-values-types";
 
 // Reads one board's published values from PostgreSQL, uncached (values-cache.ts caches them).
@@ -57,13 +57,7 @@ type PointRow = {
   updatedAt: Date;
 } & Record<Quantity, number | null>;
 
-type FamilyRow = Pick<
-  FirmwareFamily,
-  | "id" | "slug" | "name" | "description"
-  | "voltageScaleUnit" | "voltageScaleStep" | "voltageScaleResponse" | "voltageScaleMin" | "voltageScaleMax"
-  | "currentScaleUnit" | "currentScaleStep" | "currentScaleResponse" | "currentScaleMin" | "currentScaleMax"
-  | "currentOffsetUnit" | "currentOffsetStep" | "currentOffsetMin" | "currentOffsetMax"
->;
+type FamilyRow = Pick<FirmwareFamily, "id" | "slug" | "name" | "description"> & FamilyUnitFields;
 
 const REVISIONS_SQL = `SELECT id, label, position FROM board_revisions WHERE board_model_id = $board ORDER BY position, id`;
 
@@ -85,15 +79,7 @@ const POINTS_SQL = `
    WHERE br.board_model_id = $board AND s.status = 'approved'
    ORDER BY s.updated_at, s.id`;
 
-const FAMILIES_SQL = `
-  SELECT id, slug, name, description,
-         voltage_scale_unit AS "voltageScaleUnit", voltage_scale_step AS "voltageScaleStep",
-         voltage_scale_response AS "voltageScaleResponse", voltage_scale_min AS "voltageScaleMin", voltage_scale_max AS "voltageScaleMax",
-         current_scale_unit AS "currentScaleUnit", current_scale_step AS "currentScaleStep",
-         current_scale_response AS "currentScaleResponse", current_scale_min AS "currentScaleMin", current_scale_max AS "currentScaleMax",
-         current_offset_unit AS "currentOffsetUnit", current_offset_step AS "currentOffsetStep",
-         current_offset_min AS "currentOffsetMin", current_offset_max AS "currentOffsetMax"
-    FROM firmware_families ORDER BY name, id`;
+const FAMILIES_SQL = `SELECT id, slug, name, description, ${familyUnitColumnsSql()} FROM firmware_families ORDER BY name, id`;
 
 export function familyUnits(f: FamilyRow): FamilyUnits {
   return {

@@ -1,6 +1,6 @@
 import type { EvidenceUnits } from "@/lib/calibration/evidence";
 import { getBoardBySlug } from "@/lib/catalogue/get-board";
-import { FirmwareFamily, db } from "@/models";
+import { FirmwareFamily, db, familyUnitFieldsOf } from "@/models";
 import type { FamilyRules } from "./schema";
 
 // What the submission pages hand the (client) form: every firmware family with its unit rules, and
@@ -20,20 +20,7 @@ export async function listFamilyOptions(): Promise<FamilyOption[]> {
     slug: f.slug,
     name: f.name,
     description: f.description,
-    voltageScaleUnit: f.voltageScaleUnit,
-    voltageScaleStep: f.voltageScaleStep,
-    voltageScaleResponse: f.voltageScaleResponse,
-    voltageScaleMin: f.voltageScaleMin,
-    voltageScaleMax: f.voltageScaleMax,
-    currentScaleUnit: f.currentScaleUnit,
-    currentScaleStep: f.currentScaleStep,
-    currentScaleResponse: f.currentScaleResponse,
-    currentScaleMin: f.currentScaleMin,
-    currentScaleMax: f.currentScaleMax,
-    currentOffsetUnit: f.currentOffsetUnit,
-    currentOffsetStep: f.currentOffsetStep,
-    currentOffsetMin: f.currentOffsetMin,
-    currentOffsetMax: f.currentOffsetMax,
+    ...familyUnitFieldsOf(f),
   }));
 }
 

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { LineFitError, fitLine } from "@/lib/calibration/least-squares";
 import { formatCells, formatFigure } from "@/lib/catalogue/format";
 import { MAX_PHOTOS_PER_SUBMISSION } from "@/lib/storage/limits";
-import type { FirmwareFamily } from "@/models/FirmwareFamily";
+import type { FamilyUnitFields, FirmwareFamily } from "@/models/FirmwareFamily";
 import { MEASURED_AT, type Method, METHODS, SENSING_SOURCES } from "@/lib/vocabulary";
 import {
   FIRMWARE_VERSION_RE,
@@ -32,22 +32,7 @@ import {
 // depend on it; the server always passes the family and board it loaded.
 
 /** The family columns the schema reads (plain objects on the client). */
-export type FamilyRules = Pick<
-  FirmwareFamily,
-  | "name"
-  | "voltageScaleUnit"
-  | "voltageScaleStep"
-  | "voltageScaleMin"
-  | "voltageScaleMax"
-  | "currentScaleUnit"
-  | "currentScaleStep"
-  | "currentScaleMin"
-  | "currentScaleMax"
-  | "currentOffsetUnit"
-  | "currentOffsetStep"
-  | "currentOffsetMin"
-  | "currentOffsetMax"
->;
+export type FamilyRules = Pick<FirmwareFamily, "name"> & Omit<FamilyUnitFields, "voltageScaleResponse" | "currentScaleResponse">;
 export type BoardRules = { minCells: number; maxCells: number };
 export type SchemaContext = { family?: FamilyRules | null; board?: BoardRules | null };
 

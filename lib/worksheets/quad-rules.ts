@@ -1,6 +1,6 @@
 import type { WorksheetFamily } from "@/lib/calibration/worksheets";
 import { getQuad, type QuadView } from "@/lib/garage/quads";
-import { BoardModel, BoardRevision, db, FirmwareFamily } from "@/models";
+import { BoardModel, BoardRevision, db, familyUnitFieldsOf, FirmwareFamily } from "@/models";
 import { publishedSetting } from "./recharge";
 
 // What a worksheet page needs about a quad: its family's setting rules as a plain object (for the
@@ -23,14 +23,7 @@ export async function quadWorksheetContext(ownerId: string, quadId: number): Pro
     row && revision ? publishedSetting(revision.boardModel.slug, revision.label, row.slug, key) : Promise.resolve(null);
   const [voltageScale, currentScale, currentOffset] = await Promise.all([lookup("voltageScale"), lookup("currentScale"), lookup("currentOffset")]);
   const family: WorksheetFamily | null = row
-    ? {
-        name: row.name,
-        voltageScaleUnit: row.voltageScaleUnit, voltageScaleStep: row.voltageScaleStep, voltageScaleResponse: row.voltageScaleResponse,
-        voltageScaleMin: row.voltageScaleMin, voltageScaleMax: row.voltageScaleMax,
-        currentScaleUnit: row.currentScaleUnit, currentScaleStep: row.currentScaleStep, currentScaleResponse: row.currentScaleResponse,
-        currentScaleMin: row.currentScaleMin, currentScaleMax: row.currentScaleMax,
-        currentOffsetUnit: row.currentOffsetUnit, currentOffsetStep: row.currentOffsetStep, currentOffsetMin: row.currentOffsetMin, currentOffsetMax: row.currentOffsetMax,
-      }
+    ? { name: row.name, ...familyUnitFieldsOf(row) }
     : null;
   return { quad, family, published: { voltageScale, currentScale, currentOffset } };
 }

@@ -1,30 +1,13 @@
 import { z } from "zod";
 import { formatFigure } from "@/lib/catalogue/format";
 import { MAX_CELLS, MAX_MAH, MIN_CELLS } from "@/lib/submissions/limits";
-import type { FirmwareFamily } from "@/models/FirmwareFamily";
+import type { FamilyUnitFields, FirmwareFamily } from "@/models/FirmwareFamily";
 
 // The zod field builders the worksheets share, with the limits of lib/submissions/limits.ts so a
 // worksheet refuses what the contribution form refuses, in words of the same kind.
 
 /** The family columns the worksheets read (plain objects in tests and on the client). */
-export type WorksheetFamily = Pick<
-  FirmwareFamily,
-  | "name"
-  | "voltageScaleUnit"
-  | "voltageScaleStep"
-  | "voltageScaleResponse"
-  | "voltageScaleMin"
-  | "voltageScaleMax"
-  | "currentScaleUnit"
-  | "currentScaleStep"
-  | "currentScaleResponse"
-  | "currentScaleMin"
-  | "currentScaleMax"
-  | "currentOffsetUnit"
-  | "currentOffsetStep"
-  | "currentOffsetMin"
-  | "currentOffsetMax"
->;
+export type WorksheetFamily = Pick<FirmwareFamily, "name"> & FamilyUnitFields;
 
 /** "The reported mAh" → "the reported mAh": only the first letter, so units keep their case. */
 const lowerFirst = (label: string) => label.charAt(0).toLowerCase() + label.slice(1);

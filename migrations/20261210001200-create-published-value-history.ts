@@ -2,7 +2,7 @@ import type { QueryInterface } from "sequelize";
 
 // Every change of a published value, per (board revision, firmware family, quantity): the
 // recommended setting, n, median, the median's interval and the confidence label as board_stats
-// had them after the change, when, and the audit event that caused it (lib/moderation/history.ts).
+// had them after the change, when, and the audit event that caused it (lib/published/history.ts).
 // n = 0 records that the quantity stopped being published (its last approved value went). Rows
 // with no event are baselines: what was published before the first recorded change of that
 // quantity. Append-only, like audit_events: a revert adds rows, it never removes any.

@@ -5,7 +5,7 @@ import type { BoardRevision } from "./Board";
 import type { FirmwareFamily } from "./FirmwareFamily";
 
 /**
- * One published value after a change (migrations/20261210001200-…; lib/moderation/history.ts).
+ * One published value after a change (migrations/20261210001200-…; lib/published/history.ts).
  * Append-only; n = 0 with nulls means the quantity stopped being published.
  */
 export class PublishedValueHistory extends Model<InferAttributes<PublishedValueHistory>, InferCreationAttributes<PublishedValueHistory>> {

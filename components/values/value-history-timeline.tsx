@@ -4,7 +4,7 @@ import { ACTION_LABELS, type Quantity, QUANTITY_LABELS } from "@/lib/vocabulary"
 
 // How each published value got where it is: one timeline per revision, firmware family and
 // quantity, newest change first, with the value, n, interval, when and which kind of event moved
-// it. Public: names and moderators' reasons are not shown (lib/moderation/history leaves them out).
+// it. Public: names and moderators' reasons are not shown (lib/published/history leaves them out).
 
 const dateTime = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
 const LABEL_BY_KEY: Record<string, string> = { voltageScale: QUANTITY_LABELS.voltage_scale, currentScale: QUANTITY_LABELS.current_scale, currentOffset: QUANTITY_LABELS.current_offset } satisfies Record<string, (typeof QUANTITY_LABELS)[Quantity]>;

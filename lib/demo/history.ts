@@ -10,7 +10,7 @@ import type { DemoSubmission } from "./submissions";
 // they happened; after each one the group's figures are worked out with the same definitions
 // board_stats uses (lib/stats for the order statistics, lib/published/refresh.ts derivePublished
 // for the recommended value and confidence), and a history row is written for each quantity whose
-// recommended value, n or interval moved, as lib/moderation/history.ts refreshWithHistory does
+// recommended value, n or interval moved, as lib/published/history.ts refreshWithHistory does
 // for a live approval. So the newest row of each series is what board_stats publishes.
 
 export type DemoApproval = {

@@ -5,7 +5,6 @@ export {
   flagPoints,
   modifiedZScore,
   zScaleRuleOf,
-  type ZScaleSpread,
   describeFlags,
   tukeyFences,
   tukeyFlag,

@@ -1,5 +1,5 @@
 // How far a published value can be trusted, in one word; lib/stats/confidence.ts decides which.
-export const CONFIDENCE_LABELS = ["strong", "fair", "weak", "too_few"] as const;
+const CONFIDENCE_LABELS = ["strong", "fair", "weak", "too_few"] as const;
 export type ConfidenceLabel = (typeof CONFIDENCE_LABELS)[number];
 
 export const CONFIDENCE_TITLES: Record<ConfidenceLabel, string> = {

@@ -16,7 +16,8 @@ const DECISION_PATHS: Record<Decision, string> = { approve: "approve", reject: "
 
 function useRefreshingMutation<V, R>(mutationFn: (values: V) => Promise<R>, when: "success" | "settled" = "success") {
   const router = useRouter();
-  return useMutation({ mutationFn, [when === "success" ? "onSuccess" : "onSettled"]: () => router.refresh() });
+  const refresh = () => router.refresh();
+  return useMutation(when === "success" ? { mutationFn, onSuccess: refresh } : { mutationFn, onSettled: refresh });
 }
 
 /** One decision on one submission: { version, note? | reason | message } by decision. */

@@ -9,7 +9,7 @@ import { errorsOf, FieldError, NumberInput, PublishPanel, numberIn, SavedEntries
 
 // The bench worksheet, saved on the server point by point (lib/worksheets/bench.ts): clamp-meter
 // current beside the display's at several steady throttles, fitted on the server by
-// lib/calibration/worksheets/bench.ts with every earlier point. It means props on and motors under
+// lib/calibration/bench.ts with every earlier point. It means props on and motors under
 // load, so the caution comes first and fly-and-recharge is suggested instead.
 
 function Advice() {

@@ -9,7 +9,7 @@ import { errorsOf, FieldError, NumberInput, PublishPanel, numberIn, SavedEntries
 
 // The voltage worksheet, saved on the server pair by pair (lib/worksheets/voltage.ts), so a
 // builder can pick it up again on a phone at the field. The server judges each new pair with the
-// earlier ones (lib/calibration/worksheets/voltage.ts) and answers with the worksheet computed.
+// earlier ones (lib/calibration/voltage.ts) and answers with the worksheet computed.
 
 const PLACE: Record<MeasuredAt, string> = { main_lead: "main lead", balance_outer_pins: "balance plug, outer pins" };
 const volts = (v: number) => `${formatFigure(v, 2)} V`;

@@ -1,4 +1,4 @@
-import { hardwareFiguresFromRevision, type HardwareFigures } from "@/lib/calibration/worksheets/hardware-figures";
+import { hardwareFiguresFromRevision, type HardwareFigures } from "@/lib/calibration/hardware-figures";
 import type { QuadView } from "@/lib/garage/quads";
 import { BoardModel, BoardRevision, db } from "@/models";
 

@@ -1,4 +1,4 @@
-import type { WorksheetFamily } from "@/lib/calibration/worksheets";
+import type { WorksheetFamily } from "@/lib/calibration";
 import { getQuad, type QuadView } from "@/lib/garage/quads";
 import { BoardModel, BoardRevision, db, FirmwareFamily } from "@/models";
 import { publishedSetting } from "./recharge";

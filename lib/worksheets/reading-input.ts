@@ -1,12 +1,12 @@
 import { z } from "zod";
-import type { BenchWorksheet, FieldIssue, VoltageWorksheet } from "@/lib/calibration/worksheets";
-import { benchPointSchema } from "@/lib/calibration/worksheets/bench";
-import { cellsField, numberField, positiveNumber } from "@/lib/calibration/worksheets/fields";
+import type { BenchWorksheet, FieldIssue, VoltageWorksheet } from "@/lib/calibration";
+import { benchPointSchema } from "@/lib/calibration/bench";
+import { cellsField, numberField, positiveNumber } from "@/lib/calibration/fields";
 import { MEASURED_AT, type MeasuredAt } from "@/lib/submissions/vocabulary";
 
 // The voltage and bench worksheets' inputs and computed views, free of server imports so the
 // pages' forms check with the very schemas the route handlers parse with. Each reading or point is
-// then judged with every earlier one by lib/calibration/worksheets (voltage.ts, bench.ts) on the
+// then judged with every earlier one by lib/calibration (voltage.ts, bench.ts) on the
 // server, where it is stored whole or refused.
 
 const quadId = z.number({ error: "Choose the quad" }).int().positive("Choose the quad");

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import type { FieldIssue, RechargeWorksheet } from "@/lib/calibration/worksheets";
-import { cellsField, mahField, numberField } from "@/lib/calibration/worksheets/fields";
+import type { FieldIssue, RechargeWorksheet } from "@/lib/calibration";
+import { cellsField, mahField, numberField } from "@/lib/calibration/fields";
 
 // The fly-and-recharge worksheet's inputs and its computed view, free of server imports so the
 // page's form checks with the very schema the route handler uses.

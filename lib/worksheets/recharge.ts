@@ -1,5 +1,5 @@
 import { ApiError, badRequest } from "@/lib/api/errors";
-import { rechargeWorksheet } from "@/lib/calibration/worksheets";
+import { rechargeWorksheet } from "@/lib/calibration";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { getBoardValues } from "@/lib/published/board-values";
 import { startInput, stepInput, type RechargeStepRow, type WorksheetView } from "./recharge-input";
@@ -7,7 +7,7 @@ import { entriesOf, newEntryErrors, takeBackLast } from "./saved-entries";
 import { BoardModel, BoardRevision, db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
 
 // Server side of the fly-and-recharge worksheet: start it on a quad, add one iteration per request
-// (checked with every earlier one by lib/calibration/worksheets/recharge.ts and stored whole in a
+// (checked with every earlier one by lib/calibration/recharge.ts and stored whole in a
 // transaction, or refused with field-level errors and nothing stored), read it back computed, and
 // publish it as an ordinary pending submission (lib/worksheets/publish.ts, one transaction for every kind).
 

@@ -1,7 +1,7 @@
 import type { Transaction } from "sequelize";
 import { ApiError, badRequest } from "@/lib/api/errors";
-import { settingField, type SettingKind, type WorksheetFamily } from "@/lib/calibration/worksheets/fields";
-import type { FieldIssue } from "@/lib/calibration/worksheets";
+import { settingField, type SettingKind, type WorksheetFamily } from "@/lib/calibration/fields";
+import type { FieldIssue } from "@/lib/calibration";
 import { db, WorksheetBenchPoint, WorksheetStep, WorksheetVoltageReading, type Worksheet } from "@/models";
 
 // What every kind of worksheet shares about its saved iterations, readings and points: the rows in

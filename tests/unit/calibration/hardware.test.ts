@@ -6,7 +6,7 @@ import {
   packVoltsFromAdcCount,
   unwrapWorksheet,
   WorksheetInputError,
-} from "@/lib/calibration/worksheets";
+} from "@/lib/calibration";
 import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
 import { ADC, DIVIDER, OHM } from "./sources";
 

@@ -5,7 +5,7 @@ import {
   roundSetting,
   shuntSensitivityMvPerAmp,
   voltageScaleSettingFromRatio,
-} from "@/lib/calibration/units";
+} from "./units";
 import { formatFigure } from "@/lib/catalogue/format";
 import { CELL_VOLTS_CEILING } from "@/lib/submissions/limits";
 import { adcLsbVolts, adcSpecSchema } from "./adc";

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { CHEMISTRY_LIMITS, MAH_WARNING_FRACTION, packWarnings, unwrapWorksheet } from "@/lib/calibration/worksheets";
+import { CHEMISTRY_LIMITS, MAH_WARNING_FRACTION, packWarnings, unwrapWorksheet } from "@/lib/calibration";
 import { LIPO_BMFA, LIPO_UW } from "./sources";
 
 const log = (mah: number[], full = true) => mah.map((chargedMah) => ({ chargedMah, afterFullFlight: full }));

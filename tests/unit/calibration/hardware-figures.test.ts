@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { hardwareWorksheet, unwrapWorksheet } from "@/lib/calibration/worksheets";
-import { comparisonVerdict, figureOrigin, HARDWARE_FIELD_PATHS, hardwareFiguresFromRevision, hardwareWorksheetInput } from "@/lib/calibration/worksheets/hardware-figures";
+import { hardwareWorksheet, unwrapWorksheet } from "@/lib/calibration";
+import { comparisonVerdict, figureOrigin, HARDWARE_FIELD_PATHS, hardwareFiguresFromRevision, hardwareWorksheetInput } from "@/lib/calibration/hardware-figures";
 import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
 import { DIVIDER, OHM } from "./sources";
 

@@ -1,7 +1,7 @@
 import { rSquared } from "simple-statistics";
 import { z } from "zod";
-import { impliedFromBench } from "@/lib/calibration/evidence";
-import { roundSetting, sensitivityFromCurrentScaleSetting } from "@/lib/calibration/units";
+import { impliedFromBench } from "./evidence";
+import { roundSetting, sensitivityFromCurrentScaleSetting } from "./units";
 import { formatFigure } from "@/lib/catalogue/format";
 import { MAX_BENCH_AMPS, MAX_BENCH_POINTS, MAX_READING_RATIO, MIN_BENCH_POINTS, MIN_READING_RATIO, MIN_REPORTED_AMPS } from "@/lib/submissions/limits";
 import { BENCH_CAUTIONS, type Caution } from "./cautions";

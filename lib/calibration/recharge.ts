@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { impliedCurrentScaleFromCycle } from "@/lib/calibration/evidence";
+import { impliedCurrentScaleFromCycle } from "./evidence";
 import { formatFigure } from "@/lib/catalogue/format";
 import { medianOfSorted, sortedCopy } from "@/lib/stats";
 import { MAX_CHARGED_OVER_RATED, MAX_CYCLES, MAX_READING_RATIO, MIN_READING_RATIO } from "@/lib/submissions/limits";

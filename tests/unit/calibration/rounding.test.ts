@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { predictedReadingError, roundBothWays, safeRoundingSide } from "@/lib/calibration/worksheets";
+import { predictedReadingError, roundBothWays, safeRoundingSide } from "@/lib/calibration";
 import { ROUNDING_SIDE } from "./sources";
 
 describe(`both roundings and the safe side — ${ROUNDING_SIDE}`, () => {

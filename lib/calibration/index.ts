@@ -1,5 +1,9 @@
-// Public face of the calibration worksheets: pure calculations a worksheet page runs as the builder
-// types. Each returns { ok, value, warnings } or { ok: false, errors } with field-level messages.
+// Public face of the calibration arithmetic: pure calculations, one file per method (voltage.ts,
+// bench.ts for the clamp-meter method, recharge.ts for fly-and-recharge, hardware.ts with
+// hardware-figures.ts and adc.ts for the divider, shunt and Hall arithmetic), over the shared pieces
+// (rounding, units, evidence, least-squares, pack and chemistry, cautions, sources, fields, result).
+// A worksheet page runs them as the builder types; each worksheet returns { ok, value, warnings } or
+// { ok: false, errors } with field-level messages.
 export { voltageWorksheet, VOLTAGE_TOLERANCE, VOLTAGE_TOLERANCE_SOURCE, type VoltageWorksheet, type VoltageWorksheetInput, type VoltagePair } from "./voltage";
 export { benchWorksheet, benchPointSchema, BENCH_MIN_R_SQUARED, type BenchWorksheet, type BenchWorksheetInput, type BenchResidual } from "./bench";
 export {

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { impliedVoltageScale } from "@/lib/calibration/evidence";
+import { impliedVoltageScale } from "./evidence";
 import { formatFigure } from "@/lib/catalogue/format";
 import { medianOfSorted, sortedCopy } from "@/lib/stats";
 import { CELL_VOLTS_CEILING, CELL_VOLTS_FLOOR, MAX_CELLS, MAX_READINGS, MIN_CELLS, REPORTED_VOLTS_SLACK, packVoltsRange } from "@/lib/submissions/limits";

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { ProbeCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
-import { voltageReadingInput, voltageStartInput, type VoltageSheetView } from "@/lib/worksheets/reading-input";
+import { voltageReadingInput, voltageStartInput, type VoltageSheetView } from "@/lib/worksheets/voltage-input";
 import { MEASURED_AT, type MeasuredAt } from "@/lib/submissions/vocabulary";
 import { errorsOf, FieldError, NumberInput, PublishPanel, numberIn, SavedEntries, useCheckedSubmit, useSavedWorksheet, useStartWorksheet, Warnings } from "./saved-worksheet";
 

@@ -1,7 +1,7 @@
 import type { WorksheetFamily } from "@/lib/calibration";
 import { getQuad, type QuadView } from "@/lib/garage/quads";
 import { BoardModel, BoardRevision, db, FirmwareFamily } from "@/models";
-import { publishedSetting } from "./recharge";
+import { publishedSetting } from "./shared";
 
 // What a worksheet page needs about a quad: its family's setting rules as a plain object (for the
 // browser), and the board's published recommended values as starting points.

@@ -2,11 +2,42 @@ import type { Transaction } from "sequelize";
 import { ApiError, badRequest } from "@/lib/api/errors";
 import { settingField, type SettingKind, type WorksheetFamily } from "@/lib/calibration/fields";
 import type { FieldIssue } from "@/lib/calibration";
-import { db, WorksheetBenchPoint, WorksheetStep, WorksheetVoltageReading, type Worksheet } from "@/models";
+import { notYours } from "@/lib/garage/owned";
+import { getBoardValues } from "@/lib/published/board-values";
+import { BoardModel, BoardRevision, db, FirmwareFamily, Quad, Worksheet, WorksheetBenchPoint, WorksheetStep, WorksheetVoltageReading } from "@/models";
 
-// What every kind of worksheet shares about its saved iterations, readings and points: the rows in
-// order (live and taken back), taking back the last one, the field errors of a refused one, and
-// the check of a setting in force at the start.
+// What every kind of worksheet shares: the caller's own worksheet (locked inside a transaction),
+// the quad it is started on with its family and revision, the board's published setting as the
+// starting point; about its saved iterations, readings and points: the rows in order (live and
+// taken back), taking back the last one, the field errors of a refused one, and the check of a
+// setting in force at the start.
+
+/** The quad a worksheet starts on, with the family whose rules it follows and the revision it is filed under. */
+export async function quadContext(ownerId: string, quadId: number, setting = "current-scale") {
+  db();
+  const quad = await Quad.findOne({ where: { id: quadId, ownerId } });
+  if (!quad) throw notYours("quad");
+  if (!quad.firmwareFamilyId) throw badRequest({ quadId: [`Give this quad its firmware family first: the worksheet follows that family's ${setting} rules`] });
+  if (!quad.boardRevisionId) throw badRequest({ quadId: ["Give this quad its board revision first: its published value is the worksheet's starting point and the result is filed under it"] });
+  const family = (await FirmwareFamily.findByPk(quad.firmwareFamilyId))!;
+  const revision = (await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as BoardRevision & { boardModel: BoardModel };
+  return { quad, family, revision };
+}
+
+/** The board's published recommended setting for this revision and family, or null. */
+export async function publishedSetting(boardSlug: string, revisionLabel: string, familySlug: string, key: "currentScale" | "voltageScale" | "currentOffset"): Promise<number | null> {
+  const selected = await getBoardValues(boardSlug, { revision: revisionLabel, family: familySlug });
+  if (!selected?.ok) return null;
+  return selected.values.revisions[0]?.families[0]?.[key]?.recommended.setting ?? null;
+}
+
+/** The caller's worksheet of any kind (row-locked inside a transaction), or the 404 of someone else's. */
+export async function ownSheet(ownerId: string, id: number, transaction?: Transaction) {
+  db();
+  const sheet = await Worksheet.findOne({ where: { id, ownerId }, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+  if (!sheet) throw notYours("worksheet");
+  return sheet;
+}
 
 type EntryModel = typeof WorksheetVoltageReading | typeof WorksheetBenchPoint | typeof WorksheetStep;
 type Entry = WorksheetVoltageReading | WorksheetBenchPoint | WorksheetStep;

@@ -5,7 +5,7 @@ import { createServer, type Server } from "node:http";
 // values path with the bytes and headers the app sent for it, from memory. No framework, no
 // routing beyond one Map lookup, no JSON work. Run as its own process (like the app), so that it
 // does not share an event loop with the load generator:
-//   node --require tsx/cjs lib/bench/bare-server.ts <responses.json> <port>
+//   node --require tsx/cjs tests/benchmarks/bare-server.ts <responses.json> <port>
 
 /** What the app answered for one path; `headers` are the ones that shape the bytes on the wire. */
 export type StoredResponse = { headers: Record<string, string>; body: string };

@@ -1,6 +1,6 @@
 import { z } from "zod";
 
-// Command-line options of `npm run bench:lookup`. Parsed by hand into flag → text (so that a typo
+// Command-line options of `npm run benchmark:lookup`. Parsed by hand into flag → text (so that a typo
 // in a flag name is caught, not ignored), then checked by one zod schema that names the flag in
 // every message.
 
@@ -8,7 +8,7 @@ import { z } from "zod";
 export const MAX_BOARDS = 5_000;
 export const MAX_SUBMISSIONS = 1_000_000;
 
-export type BenchOptions = {
+export type BenchmarkOptions = {
   /** Board models in the synthetic catalogue (each with 1–3 revisions). */
   boards: number;
   /** Data-set sizes to measure the lookup at, in submissions; one database per size. */
@@ -30,7 +30,7 @@ export type BenchOptions = {
   help: boolean;
 };
 
-export const USAGE = `npm run bench:lookup -- [flags]
+export const USAGE = `npm run benchmark:lookup -- [flags]
 
   --boards N            board models in the synthetic catalogue (1–${MAX_BOARDS}; default 500)
   --sizes A,B,...       data-set sizes in submissions, one seeded database each (1–${MAX_SUBMISSIONS.toLocaleString("en")};
@@ -49,7 +49,7 @@ export const USAGE = `npm run bench:lookup -- [flags]
                         "gzip, deflate, br" (default: none; the bare server (d) never compresses)
   --help                this text
 
-The full run the issue asks for:  npm run bench:lookup -- --boards 5000 --sizes 10000,1000000`;
+The full run the issue asks for:  npm run benchmark:lookup -- --boards 5000 --sizes 10000,1000000`;
 
 const FLAGS_WITH_VALUE = ["boards", "sizes", "submissions", "connections", "duration", "rounds", "warmup", "docs", "accept-encoding"] as const;
 const SWITCHES = ["no-docs", "stock-rebuild", "help"] as const;
@@ -86,10 +86,10 @@ const Schema = z
   .refine((o) => !(o.sizes && o.submissions), { message: "give either --sizes or --submissions, not both", path: ["submissions"] })
   .refine((o) => o.duration >= o.rounds, { message: "--rounds cannot exceed --duration: each round lasts at least a second", path: ["rounds"] });
 
-export class BenchArgsError extends Error {
+export class BenchmarkArgsError extends Error {
   constructor(readonly fieldErrors: Record<string, string[]>) {
     super(Object.entries(fieldErrors).map(([flag, messages]) => `--${flag}: ${messages.join("; ")}`).join("\n"));
-    this.name = "BenchArgsError";
+    this.name = "BenchmarkArgsError";
   }
 }
 
@@ -120,17 +120,17 @@ function collect(args: string[]): Record<string, string | boolean> {
       if (inline === undefined && args[i + 1] !== undefined && !args[i + 1].startsWith("--")) i++;
     }
   }
-  if (Object.keys(errors).length) throw new BenchArgsError(errors);
+  if (Object.keys(errors).length) throw new BenchmarkArgsError(errors);
   return out;
 }
 
-/** Reads the benchmark's flags; throws BenchArgsError naming each bad flag. */
-export function parseBenchArgs(args: string[]): BenchOptions {
+/** Reads the benchmark's flags; throws BenchmarkArgsError naming each bad flag. */
+export function parseBenchmarkArgs(args: string[]): BenchmarkOptions {
   const parsed = Schema.safeParse(collect(args));
   if (!parsed.success) {
     const errors: Record<string, string[]> = {};
     for (const issue of parsed.error.issues) (errors[String(issue.path[0] ?? "args")] ??= []).push(issue.message);
-    throw new BenchArgsError(errors);
+    throw new BenchmarkArgsError(errors);
   }
   const o = parsed.data;
   return {

@@ -8,8 +8,8 @@ import type { SeedCounts } from "./synthetic-data";
 // of docs/benchmarks.md. Only the part between the two markers is rewritten, so the prose around
 // it (method, findings) is kept from run to run.
 
-export const START_MARKER = "<!-- bench:lookup results: written by `npm run bench:lookup`, edits inside are lost -->";
-export const END_MARKER = "<!-- bench:lookup results end -->";
+export const START_MARKER = "<!-- benchmark:lookup results: written by `npm run benchmark:lookup`, edits inside are lost -->";
+export const END_MARKER = "<!-- benchmark:lookup results end -->";
 
 export type SizeReport = {
   submissions: number;
@@ -22,7 +22,7 @@ export type SizeReport = {
   plans: LookupPlans[];
 };
 
-export type BenchReport = {
+export type BenchmarkReport = {
   startedAt: Date;
   totalMs: number;
   machine: string;
@@ -65,7 +65,7 @@ export function runLine(r: RunFigures): string {
   return `(${TARGETS[r.target].letter}) ${TARGETS[r.target].label} @${r.connections}: ${n(Math.round(r.reqPerSec))} req/s (q1–q3 ${n(Math.round(r.reqPerSecQ1))}–${n(Math.round(r.reqPerSecQ3))}), p50 ${r.p50Ms} ms, p99 ${r.p99Ms} ms${status}${errors}`;
 }
 
-export function consoleSummary(report: BenchReport): string {
+export function consoleSummary(report: BenchmarkReport): string {
   const ratios = ratiosOf(report.runs);
   const lines = [
     "",
@@ -89,7 +89,7 @@ function mdTable(header: string[], rows: string[][]): string[] {
   return [`| ${header.join(" | ")} |`, `|${header.map(() => "---").join("|")}|`, ...rows.map((r) => `| ${r.join(" | ")} |`)];
 }
 
-export function markdownSection(report: BenchReport): string {
+export function markdownSection(report: BenchmarkReport): string {
   const ratios = ratiosOf(report.runs);
   const out = [
     START_MARKER,
@@ -151,7 +151,7 @@ export function markdownSection(report: BenchReport): string {
 const NEW_FILE_HEAD = `# Benchmarks\n\n`;
 
 /** Rewrites the results section of `file` (creating the file if needed), keeping everything outside the markers. */
-export function writeReport(file: string, report: BenchReport): void {
+export function writeReport(file: string, report: BenchmarkReport): void {
   const section = markdownSection(report);
   const current = existsSync(file) ? readFileSync(file, "utf8") : NEW_FILE_HEAD;
   const start = current.indexOf(START_MARKER);

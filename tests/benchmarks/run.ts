@@ -12,14 +12,14 @@ import { freePort } from "@/lib/platform/wait-for-http";
 import { refreshGroups } from "@/lib/published/refresh";
 import { sample, uniformPicker, warmUp, type Pick } from "./drive";
 import { RUN_ORDER, figuresOf, type RunFigures, type Samples, type TargetId } from "./figures";
-import { BenchArgsError, USAGE, parseBenchArgs, type BenchOptions } from "./options";
+import { BenchmarkArgsError, USAGE, parseBenchmarkArgs, type BenchmarkOptions } from "./options";
 import { explainLookups } from "./query-plans";
 import { recordResponses } from "./record-responses";
 import { consoleSummary, runLine, writeReport, type SizeReport } from "./report";
 import { startBareServerProcess, startNextApp } from "./servers";
 import { seedSyntheticData } from "./synthetic-data";
 
-// `npm run bench:lookup`: the published-values lookup under load, against its framework's and
+// `npm run benchmark:lookup`: the published-values lookup under load, against its framework's and
 // its machine's ceilings, at each data-set size asked for. Everything runs on a throwaway
 // PostgreSQL cluster in a temporary folder on a free port (never .data), and everything started is
 // stopped again on success, failure or Ctrl-C. Not part of npm test.
@@ -41,8 +41,8 @@ async function rebuildStats(sequelize: Sequelize, stock: boolean): Promise<numbe
   });
 }
 
-async function prepareSize(root: string, cluster: Cluster, options: BenchOptions, submissions: number): Promise<PreparedSize> {
-  const database = `bench_lookup_${submissions}`;
+async function prepareSize(root: string, cluster: Cluster, options: BenchmarkOptions, submissions: number): Promise<PreparedSize> {
+  const database = `benchmark_lookup_${submissions}`;
   await ensureDatabase(cluster.url("postgres"), database);
   const sequelize = createSequelize(cluster.url(database), { poolMax: 2 });
   try {
@@ -78,7 +78,7 @@ async function prepareSize(root: string, cluster: Cluster, options: BenchOptions
 }
 
 /** Whole seconds per round, adding up to --duration. */
-function roundSeconds(options: BenchOptions): number[] {
+function roundSeconds(options: BenchmarkOptions): number[] {
   const base = Math.floor(options.duration / options.rounds);
   return Array.from({ length: options.rounds }, (_, i) => base + (i < options.duration % options.rounds ? 1 : 0));
 }
@@ -87,7 +87,7 @@ async function measureSize(
   root: string,
   url: string,
   prepared: PreparedSize,
-  options: BenchOptions,
+  options: BenchmarkOptions,
   scratch: string,
   lifecycle: Lifecycle,
 ): Promise<RunFigures[]> {
@@ -152,7 +152,7 @@ async function machineLine(cluster: Cluster, root: string, loadAtStart: number[]
   }
 }
 
-function methodNotes(options: BenchOptions): string[] {
+function methodNotes(options: BenchmarkOptions): string[] {
   return [
     "Each size is seeded into its own database on a throwaway PostgreSQL cluster (temporary folder, free port, fsync off), migrated from zero; the app runs `next start` on the production build against it, one process, restarted per size.",
     `Requests for (a), (b) and (d) each draw a board uniformly at random from all ${options.boards.toLocaleString("en")} boards (autocannon setupRequest); (b) sends back the ETag recorded for the board drawn. The default view is asked for (no filters, no points).`,
@@ -166,11 +166,11 @@ function methodNotes(options: BenchOptions): string[] {
 }
 
 export async function runLookupBenchmark(args: string[]): Promise<number> {
-  let options: BenchOptions;
+  let options: BenchmarkOptions;
   try {
-    options = parseBenchArgs(args);
+    options = parseBenchmarkArgs(args);
   } catch (error) {
-    if (!(error instanceof BenchArgsError)) throw error;
+    if (!(error instanceof BenchmarkArgsError)) throw error;
     console.error(`${error.message}\n\n${USAGE}`);
     return 2;
   }
@@ -189,7 +189,7 @@ export async function runLookupBenchmark(args: string[]): Promise<number> {
   );
   const lifecycle = new Lifecycle();
   try {
-    const scratch = mkdtempSync(path.join(os.tmpdir(), "shuntbook-bench-"));
+    const scratch = mkdtempSync(path.join(os.tmpdir(), "shuntbook-benchmark-"));
     lifecycle.onStop("the benchmark's scratch folder", () => rmSync(scratch, { recursive: true, force: true }));
     const cluster = describeCluster(scratch, await freePort());
     initCluster(cluster);
@@ -209,7 +209,7 @@ export async function runLookupBenchmark(args: string[]): Promise<number> {
       startedAt,
       totalMs: Date.now() - startedAt.getTime(),
       machine: await machineLine(cluster, root, loadAtStart),
-      command: `npm run bench:lookup -- ${args.join(" ")}`.trim(),
+      command: `npm run benchmark:lookup -- ${args.join(" ")}`.trim(),
       method: methodNotes(options),
       sizes,
       runs,

@@ -27,7 +27,7 @@ export async function startNextApp(root: string, databaseUrl: string, lifecycle:
   return { url, stop };
 }
 
-/** lib/bench/bare-server.ts in its own process, answering the recorded responses. */
+/** tests/benchmarks/bare-server.ts in its own process, answering the recorded responses. */
 export async function startBareServerProcess(
   root: string,
   responses: Record<string, StoredResponse>,
@@ -38,7 +38,7 @@ export async function startBareServerProcess(
   writeFileSync(file, JSON.stringify(responses));
   const port = await freePort();
   const tsxCjs = createRequire(path.join(root, "package.json")).resolve("tsx/cjs");
-  const child = spawnGroup(process.execPath, ["--require", tsxCjs, path.join(root, "lib/bench/bare-server.ts"), file, String(port)], {
+  const child = spawnGroup(process.execPath, ["--require", tsxCjs, path.join(root, "tests/benchmarks/bare-server.ts"), file, String(port)], {
     cwd: root,
     stdio: ["ignore", "ignore", "inherit"],
     env: { ...process.env, NODE_ENV: "production" },

@@ -36,15 +36,15 @@ export function revisionsOfBoard(i: number): number {
 
 export function buildSyntheticCatalogue(boardCount: number): SyntheticCatalogue {
   const makerCount = Math.max(1, Math.ceil(boardCount / BOARDS_PER_MAKER));
-  const manufacturers = Array.from({ length: makerCount }, (_, m) => ({ slug: `bench-maker-${pad(m + 1, 3)}`, name: `Bench Maker ${pad(m + 1, 3)}` }));
+  const manufacturers = Array.from({ length: makerCount }, (_, m) => ({ slug: `benchmark-maker-${pad(m + 1, 3)}`, name: `Benchmark Maker ${pad(m + 1, 3)}` }));
   const boards: SyntheticBoard[] = [];
   const revisions: SyntheticRevision[] = [];
   for (let i = 0; i < boardCount; i++) {
-    const slug = `bench-board-${pad(i + 1, 5)}`;
+    const slug = `benchmark-board-${pad(i + 1, 5)}`;
     const [minCells, maxCells] = CELL_RANGES[i % CELL_RANGES.length];
     boards.push({
       slug,
-      name: `Bench Board ${pad(i + 1, 5)}`,
+      name: `Benchmark Board ${pad(i + 1, 5)}`,
       manufacturerSlug: manufacturers[i % makerCount].slug,
       kind: BOARD_KINDS[i % BOARD_KINDS.length],
       mountingPattern: MOUNTING_PATTERNS[i % MOUNTING_PATTERNS.length],
@@ -201,7 +201,7 @@ export async function seedSyntheticData(sequelize: Sequelize, size: { boards: nu
     );
     await run(
       `INSERT INTO users (name, email, role)
-       SELECT 'Bench Contributor ' || g, 'bench-contributor-' || g || '@shuntbook.test', 'contributor'
+       SELECT 'Benchmark Contributor ' || g, 'benchmark-contributor-' || g || '@shuntbook.test', 'contributor'
          FROM generate_series(1, :users) AS g`,
       { users },
     );

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { figuresOf, headlineRatio, ratio, ratioLine, ratiosOf, verdicts, type RunFigures, type Samples, type TargetId } from "@/lib/bench/figures";
+import { figuresOf, headlineRatio, ratio, ratioLine, ratiosOf, verdicts, type RunFigures, type Samples, type TargetId } from "@/tests/benchmarks/figures";
 
 // The benchmark's arithmetic. Expected values are worked by hand from the inputs written here;
 // the targets are the (a/c ≥ 0.8, b/c ≥ 0.9, p99 < 25 ms at 8 connections, flat lookup).

@@ -1,22 +1,22 @@
 import { describe, expect, it } from "vitest";
-import { BenchArgsError, parseBenchArgs } from "@/lib/bench/options";
+import { BenchmarkArgsError, parseBenchmarkArgs } from "@/tests/benchmarks/options";
 
-// The benchmark's flags (lib/bench/options.ts). The bounds are the issue's: up to 5 000 boards and
+// The benchmark's flags (tests/benchmarks/options.ts). The bounds are the issue's: up to 5 000 boards and
 // 1 000 000 submissions.
 
 function errorsOf(args: string[]): Record<string, string[]> {
   try {
-    parseBenchArgs(args);
+    parseBenchmarkArgs(args);
   } catch (error) {
-    if (error instanceof BenchArgsError) return error.fieldErrors;
+    if (error instanceof BenchmarkArgsError) return error.fieldErrors;
     throw error;
   }
-  throw new Error("expected a BenchArgsError");
+  throw new Error("expected a BenchmarkArgsError");
 }
 
-describe("bench:lookup flags", () => {
+describe("benchmark:lookup flags", () => {
   it("has defaults that finish in a few minutes and still measure two sizes", () => {
-    expect(parseBenchArgs([])).toEqual({
+    expect(parseBenchmarkArgs([])).toEqual({
       boards: 500,
       sizes: [10_000, 100_000],
       connections: [8, 64],
@@ -31,18 +31,18 @@ describe("bench:lookup flags", () => {
   });
 
   it("sends Accept-Encoding only when asked to, and refuses an empty one", () => {
-    expect(parseBenchArgs(["--accept-encoding", "gzip, deflate, br"]).acceptEncoding).toBe("gzip, deflate, br");
-    expect(parseBenchArgs(["--accept-encoding=br"]).acceptEncoding).toBe("br");
+    expect(parseBenchmarkArgs(["--accept-encoding", "gzip, deflate, br"]).acceptEncoding).toBe("gzip, deflate, br");
+    expect(parseBenchmarkArgs(["--accept-encoding=br"]).acceptEncoding).toBe("br");
     expect(errorsOf(["--accept-encoding", " "])["accept-encoding"]).toHaveLength(1);
   });
 
   it("reads the issue's full run, in either flag spelling", () => {
-    const o = parseBenchArgs(["--boards", "5000", "--sizes=1000000,10000"]);
+    const o = parseBenchmarkArgs(["--boards", "5000", "--sizes=1000000,10000"]);
     expect(o.boards).toBe(5000);
     expect(o.sizes).toEqual([10_000, 1_000_000]); // sorted: the smallest size is the baseline
-    expect(parseBenchArgs(["--submissions", "250000"]).sizes).toEqual([250_000]);
-    expect(parseBenchArgs(["--connections", "8,8,64"]).connections).toEqual([8, 64]);
-    expect(parseBenchArgs(["--no-docs"]).docs).toBeNull();
+    expect(parseBenchmarkArgs(["--submissions", "250000"]).sizes).toEqual([250_000]);
+    expect(parseBenchmarkArgs(["--connections", "8,8,64"]).connections).toEqual([8, 64]);
+    expect(parseBenchmarkArgs(["--no-docs"]).docs).toBeNull();
   });
 
   it("names the flag in every error", () => {

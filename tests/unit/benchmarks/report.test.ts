@@ -2,15 +2,15 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { END_MARKER, START_MARKER, writeReport, type BenchReport } from "@/lib/bench/report";
+import { END_MARKER, START_MARKER, writeReport, type BenchmarkReport } from "@/tests/benchmarks/report";
 
 // docs/benchmarks.md is half prose, half figures: a run must replace the figures and keep the prose.
 
-const report: BenchReport = {
+const report: BenchmarkReport = {
   startedAt: new Date("2026-12-02T10:00:00Z"),
   totalMs: 200_000,
   machine: "2 × test CPU",
-  command: "npm run bench:lookup --",
+  command: "npm run benchmark:lookup --",
   method: ["a note"],
   sizes: [],
   runs: [
@@ -21,7 +21,7 @@ const report: BenchReport = {
 
 const folders: string[] = [];
 function scratchFile(): string {
-  const folder = mkdtempSync(path.join(os.tmpdir(), "bench-report-"));
+  const folder = mkdtempSync(path.join(os.tmpdir(), "benchmark-report-"));
   folders.push(folder);
   return path.join(folder, "benchmarks.md");
 }

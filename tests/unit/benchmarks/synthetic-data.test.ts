@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { buildSyntheticCatalogue, familyDraws, revisionsOfBoard, syntheticUserCount } from "@/lib/bench/synthetic-data";
+import { buildSyntheticCatalogue, familyDraws, revisionsOfBoard, syntheticUserCount } from "@/tests/benchmarks/synthetic-data";
 import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
 import { BOARD_KINDS } from "@/models/BoardModel";
 

@@ -98,7 +98,7 @@ export type BenchImplication = {
  * output at zero current). With the scale set to s_u and the offset to o_u the firmware displays
  *   offset in mV:  I_d = (V − o_u) / s_u             = (s/s_u)·I + (z − o_u)/s_u
  *   offset in mA:  I_d = V / s_u − o_u/1000          = (s/s_u)·I + z/s_u − o_u/1000
- * (the offset is subtracted, in the family's unit; lib/demo/catalogue.ts offsetSetting reads the
+ * (the offset is subtracted, in the family's unit; seeders/demo/catalogue.ts offsetSetting reads the
  * offset the same way). Matching I_d = gain·I + intercept term by term:
  *   gain = s/s_u, so the scale moves like a reading ratio of 1/gain: an inverse (mV/A) setting
  *     becomes old × gain, a proportional (A/V) one old ÷ gain;

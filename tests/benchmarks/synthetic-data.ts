@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from "sequelize";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { BOARD_KINDS, type BoardKind } from "@/models/BoardModel";
 
 // The benchmark's synthetic data set: invented makers and boards named by number (nothing here is

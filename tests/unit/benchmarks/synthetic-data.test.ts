@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { buildSyntheticCatalogue, familyDraws, revisionsOfBoard, syntheticUserCount } from "@/tests/benchmarks/synthetic-data";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { BOARD_KINDS } from "@/models/BoardModel";
 
 // The benchmark's synthetic catalogue, at a tiny size. The patterns and lengths are the CHECK
@@ -60,7 +60,7 @@ describe("synthetic catalogue", () => {
     expect(draws[0].lo).toBe(0);
     expect(draws[draws.length - 1].hi).toBe(1);
     for (let i = 1; i < draws.length; i++) expect(draws[i].lo).toBe(draws[i - 1].hi);
-    // shares 0.5 / 0.3 / 0.2 (lib/demo/firmware-families.ts)
+    // shares 0.5 / 0.3 / 0.2 (seeders/demo/firmware-families.ts)
     expect(draws.map((d) => d.hi - d.lo)).toEqual(DEMO_FIRMWARE_FAMILIES.map((f) => expect.closeTo(f.share, 12)));
   });
 });

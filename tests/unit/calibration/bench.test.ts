@@ -6,7 +6,7 @@ import { linearRegression, rSquared, sampleCorrelation } from "simple-statistics
 import { describe, expect, it } from "vitest";
 import { currentScaleSettingFromSensitivity, sensitivityFromCurrentScaleSetting, shuntSensitivityMvPerAmp } from "@/lib/calibration/units";
 import { BENCH_MIN_R_SQUARED, benchWorksheet, unwrapWorksheet } from "@/lib/calibration";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { ANSCOMBE, OHM, ROUNDING_SIDE, SIMPLE_STATISTICS } from "./sources";
 
 const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // mV/A + mV, A/V + mA, mV/A + mV

@@ -24,8 +24,8 @@ import {
   shuntSensitivityMvPerAmp,
   voltageScaleSettingFromRatio,
 } from "@/lib/calibration/units";
-import { offsetSetting } from "@/lib/demo/catalogue";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { offsetSetting } from "@/seeders/demo/catalogue";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 
 // Outside references: /work/shared/reference/check-values.md.
 const RECHARGE_SOURCE = "fly-and-recharge rule (common practice, no source)";
@@ -101,7 +101,7 @@ describe(`bench points — least squares; ${OHM_SOURCE}`, () => {
     const points = currents.map((measuredAmps) => ({ measuredAmps, reportedAmps: displayed(family, scaleUsed, offsetUsed, measuredAmps) }));
     const implied = impliedFromBench({ scaleUsed, offsetUsed, points }, family);
     expect(implied.impliedScale).toBeCloseTo(currentScaleSettingFromSensitivity(sensitivity, family), 6);
-    // the offset the demo scenario would store for this sensor (lib/demo/catalogue.ts reads offsets the same way)
+    // the offset the demo scenario would store for this sensor (seeders/demo/catalogue.ts reads offsets the same way)
     const truth = { ratio: 11, sensitivityMvPerAmp: sensitivity, zeroErrorMv, ratioPublished: true, sensitivityPublished: true };
     expect(implied.impliedOffset).toBeCloseTo(offsetSetting(truth, family), 6);
     expect(implied.r).toBeCloseTo(1, 12);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { hardwareWorksheet, unwrapWorksheet } from "@/lib/calibration";
 import { comparisonVerdict, figureOrigin, HARDWARE_FIELD_PATHS, hardwareFiguresFromRevision, hardwareWorksheetInput } from "@/lib/calibration/hardware-figures";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { DIVIDER, OHM } from "./sources";
 
 const [VORNEL] = DEMO_FIRMWARE_FAMILIES; // V/V in tenths, mV/A in tenths

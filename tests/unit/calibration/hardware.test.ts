@@ -7,7 +7,7 @@ import {
   unwrapWorksheet,
   WorksheetInputError,
 } from "@/lib/calibration";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { ADC, DIVIDER, OHM } from "./sources";
 
 const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // V/V + mV/A, V/V + A/V, mV/V + mV/A

@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { currentScaleSettingFromSensitivity, sensitivityFromCurrentScaleSetting } from "@/lib/calibration/units";
 import { EXPECTED_MAX_CYCLES, rechargeWorksheet, STOP_TOLERANCE, unwrapWorksheet, type RechargeCycleInput } from "@/lib/calibration";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { RECHARGE_RULE, ROUNDING_SIDE } from "./sources";
 
 // A simulated board and pilot, modelled from the physics rather than from the worksheet:

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { CHARGED_OVER_RATED_WARNING, rechargeWorksheet, STOP_TOLERANCE, unwrapWorksheet } from "@/lib/calibration";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { LIPO_BMFA, LIPO_UW, RECHARGE_RULE, ROUNDING_SIDE } from "./sources";
 
 const [VORNEL, SKELMAR] = DEMO_FIRMWARE_FAMILIES; // mV/A (inverse), A/V (proportional)

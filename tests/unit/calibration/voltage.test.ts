@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { dividerRatio, ratioFromVoltageScaleSetting, voltageScaleSettingFromRatio } from "@/lib/calibration/units";
 import { unwrapWorksheet, VOLTAGE_TOLERANCE, voltageWorksheet } from "@/lib/calibration";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { DIVIDER, LIPO_BMFA } from "./sources";
 
 const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // V/V (proportional), V/V, mV/V (inverse)

@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { dividerRatio, revisionDividerRatio, revisionSensitivityMvPerAmp } from "@/lib/calibration/units";
-import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
-import { minimumRatioFor } from "@/lib/demo/hardware";
-import { DEMO_LANDMARKS, buildDemoScenario } from "@/lib/demo/scenario";
+import { DEMO_ACCOUNTS } from "@/seeders/demo/accounts";
+import { minimumRatioFor } from "@/seeders/demo/hardware";
+import { DEMO_LANDMARKS, buildDemoScenario } from "@/seeders/demo/scenario";
 import { BOARD_KINDS } from "@/models/BoardModel";
 import { METHODS, SENSING_SOURCES, STATUSES } from "@/models/Submission";
 import { ROLES } from "@/models/User";

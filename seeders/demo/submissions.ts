@@ -37,7 +37,7 @@ export type DemoSubmission = {
   anomaly: Anomaly | null;
   /** 1 for an approved one (its seeded approval event's "after", so an admin can revert it), else 0 */
   version: number;
-  /** filled in by lib/demo/evidence.ts attachDemoEvidence */
+  /** filled in by seeders/demo/evidence.ts attachDemoEvidence */
   evidence: DemoEvidence;
   evidenceSummary: EvidenceSummary | null;
   evidenceMismatch: boolean;

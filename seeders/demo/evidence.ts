@@ -172,7 +172,7 @@ function bench(rng: Rng, fam: DemoFirmwareFamily, kind: BoardKind, target: { sca
 /** The value the measurements really pointed at: the claim, unless a planted mistake replaced it. */
 function honestTargets(s: DemoSubmission, truth: DemoTruth): Targets {
   const exact = truth.settings[s.familySlug];
-  // a planted mistake sits more than 15 % off (lib/demo/submissions.ts plantOutliers); honest scatter does not
+  // a planted mistake sits more than 15 % off (seeders/demo/submissions.ts plantOutliers); honest scatter does not
   const planted = (claimed: number | null, right: number) => s.anomaly != null && claimed != null && Math.abs(claimed - right) / Math.abs(right) > 0.1;
   return {
     voltageScale: planted(s.voltageScale, exact.voltageScale) ? roundSetting(exact.voltageScale) : s.voltageScale,

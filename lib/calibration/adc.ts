@@ -4,7 +4,7 @@ import { WorksheetInputError, parseInput } from "./result";
 import { SOURCES } from "./sources";
 
 // ADC conversion for the hardware worksheet. We use 1 LSB = Vref / 2^N, the usual form and the
-// IEEE Std 1241 definition (as cited in check-values.md). Some documentation divides by 2^N − 1
+// IEEE Std 1241 definition (from memory). Some documentation divides by 2^N − 1
 // instead; at 12 bits the two differ by 0.024 %, far below any setting step, but the choice is
 // named here so that the figures can be checked: 12 bits, 3.3 V, count 2048 → 1.650000 V.
 

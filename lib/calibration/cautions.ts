@@ -1,8 +1,7 @@
 import { SOURCES } from "./sources";
 
-// The usual cautions for the work a worksheet asks for, with their sources
-// (/work/shared/reference/check-values.md). A page shows them beside the worksheet; they never
-// replace the maker's instructions or local rules.
+// The usual cautions for the work a worksheet asks for, each naming its source (sources.ts). A
+// page shows them beside the worksheet; they never replace the maker's instructions or local rules.
 
 export type Caution = { text: string; source: string };
 

@@ -1,8 +1,8 @@
 import { SOURCES } from "./sources";
 
-// Per-cell voltage limits by pack chemistry, each with where it comes from
-// (/work/shared/reference/check-values.md, "Lithium-polymer packs"). Li-ion figures are recalled,
-// not looked up: cells differ, and their maker's datasheet decides.
+// Per-cell voltage limits by pack chemistry, each naming where it comes from (the battery-safety
+// guidance in sources.ts). Li-ion figures are recalled, not looked up: cells differ, and their
+// maker's datasheet decides.
 
 export const CHEMISTRIES = ["lipo", "lihv", "liion"] as const;
 export type Chemistry = (typeof CHEMISTRIES)[number];

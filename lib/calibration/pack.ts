@@ -10,7 +10,7 @@ import { SOURCES } from "./sources";
 // Suggested OSD warnings for one pack: a consumed-mAh warning and per-cell voltage limits for its
 // chemistry, from its rating or, better, from what the charger has been putting back.
 
-/** Warn at 80 % of usable capacity (check-values.md: common practice, no source). */
+/** Warn at 80 % of usable capacity (common practice, no source). */
 export const MAH_WARNING_FRACTION = 0.8;
 /** The estimate is the median of the last 5 charges after full flights, once there are 3 (our own rule). */
 export const RECENT_CHARGES = 5;

@@ -11,7 +11,7 @@ import { SOURCES } from "./sources";
 
 // Fly-and-recharge worksheet (issue "Calibration worksheets", section 4). Each row: the current
 // scale flown with, the mAh the OSD showed at landing, the mAh the charger put back. The charger is
-// the truth, so (check-values.md, "Fly-and-recharge rule": common practice, no source; the formula
+// the truth, so (common practice, no source; the formula
 // is evidence.ts impliedCurrentScaleFromCycle, one implementation):
 //   'inverse' unit (mV/A):      next = scale × reported ÷ charged;
 //   'proportional' unit (A/V):  next = scale × charged ÷ reported (the display grows with the scale).
@@ -25,7 +25,7 @@ import { SOURCES } from "./sources";
 export const STOP_TOLERANCE = 0.01;
 /** ... on this many usable cycles in a row (our own rule, in line with common practice, no source). */
 export const STOP_CYCLES = 2;
-/** The rule usually settles in 3–5 cycles (check-values.md, common practice); the tests hold it to 5. */
+/** The rule usually settles in 3–5 cycles (common practice, no source); the tests hold it to 5. */
 export const EXPECTED_MAX_CYCLES = 5;
 /** A charge more than 10 % over the pack's rating is doubtful (our own rule); over 1.5 × it is refused (limits.ts). */
 export const CHARGED_OVER_RATED_WARNING = 0.1;

@@ -3,7 +3,7 @@ import type { Response } from "@/models/FirmwareFamily";
 
 // A worksheet's exact next setting is rarely a whole number, and the firmware stores whole steps.
 // Both neighbours are offered with the reading error each leaves, and the one on the safe side is
-// recommended (common practice, no source: check-values.md, "Fly-and-recharge rule").
+// recommended (common practice, no source).
 //
 // The reading error of a setting s against the exact setting s* (which makes the display read the
 // truth): the display is proportional to the setting, or to its reciprocal —

@@ -1,6 +1,6 @@
 // Where each rule and figure in the worksheets comes from, as the words a page shows beside it.
-// The references are collected in /work/shared/reference/check-values.md; a trade habit with no
-// citable source says so, and a figure recalled rather than looked up says "from memory".
+// Each names its reference itself; a trade habit with no citable source says so, and a figure
+// recalled rather than looked up says "from memory".
 
 export const SOURCES = {
   commonPractice: "common practice, no source",

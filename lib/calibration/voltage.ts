@@ -15,7 +15,7 @@ import { SOURCES } from "./sources";
 // V_d = V_true × (ratio the setting stands for ÷ true ratio), so
 //   'proportional' unit (V/V):  next = current × measured ÷ reported;
 //   'inverse' unit (mV/V):      the setting is 1000 ÷ ratio, so next = current × reported ÷ measured.
-// (check-values.md, "Fly-and-recharge rule", last point: common practice, no source.)
+// (Common practice, no source.)
 //
 // Several pairs combine by the MEDIAN of the per-pair implied settings, not a least-squares ratio
 // through the origin: every pair measures the same ratio, and least squares (Σxy ÷ Σx²) weighs the

@@ -5,7 +5,8 @@ import type { BoardKind } from "@/models/BoardModel";
 // database (the scenario invents a hidden true value for it, see hardware.ts).
 //
 // Dividers are chosen to cover the board's maximum cell count at 4.35 V per cell (HV packs) with a
-// 3.3 V ADC: ratio ≥ cells × 4.35 / 3.3 (check-values.md, "Divider headroom", derived there).
+// 3.3 V ADC: ratio ≥ cells × 4.35 / 3.3 (derived from the divider formula Vout = Vin·R2/(R1+R2):
+// the full pack must reach the pin below Vref).
 
 export type DividerSpec = { topOhms: number; bottomOhms: number } | null;
 export type SensorSpec =

@@ -13,14 +13,14 @@ const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // mV/A + mV, A/V + m
 
 describe(`bench fit against ${ANSCOMBE}, data from the npm package vega-datasets`, () => {
   // vega-datasets exports only "." (ESM, fetching from a CDN), not even its package.json: resolve
-  // the package's build entry and read the JSON beside it from disk (check-values.md)
+  // the package's build entry and read the JSON beside it from disk
   const require = createRequire(__filename);
   const file = path.join(path.dirname(require.resolve("vega-datasets")), "../data/anscombe.json");
   const rows = JSON.parse(readFileSync(file, "utf8")) as Array<{ Series: string; X: number; Y: number }>;
   const points = (series: string) => rows.filter((r) => r.Series === series).map((r) => ({ measuredAmps: r.X, reportedAmps: r.Y }));
 
   // Computed from the package's data (its set I has Y = 4.81 at X = 7; published 4.82), and the
-  // published 0.500 / 3.00 / 0.816, at check-values' tolerances: slope ±0.001, intercept ±0.005, r ±0.001.
+  // published 0.500 / 3.00 / 0.816, at the published figures' rounding: slope ±0.001, intercept ±0.005, r ±0.001.
   it.each([
     ["I", 0.5003, 2.9975, 0.8162],
     ["II", 0.5, 3.0009, 0.8162],

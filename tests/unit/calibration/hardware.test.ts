@@ -13,7 +13,7 @@ import { ADC, DIVIDER, OHM } from "./sources";
 const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // V/V + mV/A, V/V + A/V, mV/V + mV/A
 
 describe(`from the hardware: the divider — ${DIVIDER}`, () => {
-  // check-values.md worked examples: Vin, R1, R2 → Vout
+  // worked by hand from the divider formula: Vin, R1, R2 → Vout
   it.each([
     [16.8, 10_000, 1_000, 1.527273],
     [25.2, 100_000, 10_000, 2.290909],
@@ -38,9 +38,9 @@ describe(`from the hardware: the divider — ${DIVIDER}`, () => {
     expect(voltage!.comparison!.differencePercent).toBeCloseTo((2 / 110) * 100, 9);
   });
 
-  // Divider headroom with a 3.3 V ADC (check-values.md, derived there): ÷10 saturates on a full
+  // Divider headroom with a 3.3 V ADC (derived from the divider formula): ÷10 saturates on a full
   // 8S HV pack (needs 10.55), ÷11 covers it.
-  it("headroom: ÷11 covers 8S HV on a 3.3 V ADC, ÷10 does not (check-values, derived)", () => {
+  it("headroom: ÷11 covers 8S HV on a 3.3 V ADC, ÷10 does not (derived from the divider formula)", () => {
     const adc = { vrefVolts: 3.3, bits: 12 };
     const ok11 = hardwareWorksheet({ divider: { topOhms: 10_000, bottomOhms: 1_000 }, adc, maxCells: 8 }, VORNEL);
     expect(ok11.ok && ok11.value.voltage!.headroom).toMatchObject({ saturates: false });
@@ -53,7 +53,7 @@ describe(`from the hardware: the divider — ${DIVIDER}`, () => {
 });
 
 describe(`from the hardware: the current sensor — ${OHM}`, () => {
-  // check-values.md table: shunt × gain → sensitivity, output at a current, shunt dissipation
+  // worked by hand by Ohm's law: shunt × gain → sensitivity, output at a current, shunt dissipation
   it.each([
     [0.5, 50, 25, 40, 1.0, 0.8],
     [0.25, 20, 5, 100, 0.5, 2.5],
@@ -78,7 +78,7 @@ describe(`from the hardware: the current sensor — ${OHM}`, () => {
     expect(current).toMatchObject({ sensitivityMvPerAmp: 40, nearestSetting: 4000, atAmps: { outputVolts: 2, shuntWatts: null } });
   });
 
-  it("warns outside the 2–200 mV/A usual for hobby boards (check-values, no source) and when the amplifier clips the ADC", () => {
+  it("warns outside the 2–200 mV/A usual for hobby boards (common practice, no source) and when the amplifier clips the ADC", () => {
     const r = hardwareWorksheet({ currentSensor: { kind: "shunt", shuntMilliohms: 5, amplifierGain: 50 }, atAmps: 20, adc: { vrefVolts: 3.3, bits: 12 } }, VORNEL);
     expect(r.warnings.map((w) => w.field).sort()).toEqual(["atAmps", "currentSensor"]);
   });
@@ -114,7 +114,7 @@ describe(`ADC conversion — ${ADC}`, () => {
     expect(packVoltsFromAdcCount(1896, adc, 11).toFixed(4)).toBe("16.8029");
   });
 
-  it("uses 2^N, not 2^N − 1: the other convention differs by 0.024 % at 12 bits (check-values)", () => {
+  it("uses 2^N, not 2^N − 1: the other convention differs by 0.024 % at 12 bits (IEEE Std 1241 form, from memory)", () => {
     const other = 3.3 / (2 ** 12 - 1);
     expect((other / adcLsbVolts(adc) - 1) * 100).toBeCloseTo(0.0244, 4);
   });

@@ -13,7 +13,7 @@ import { RECHARGE_RULE, ROUNDING_SIDE } from "./sources";
 //   the charger puts back consumed ÷ efficiency (a fixed 95–100 % per run) with ±0.3 % scatter,
 //   shown as a whole mAh;
 //   the pilot enters what the worksheet recommends (the safe, over-reporting rounding).
-// Claim (check-values.md: the rule "takes 3–5 cycles", common practice, no source): from a start
+// Claim (the rule "takes 3–5 cycles": common practice, no source): from a start
 // up to ±30 % off, the stop rule (≤ 1 % on two cycles in a row) is met within EXPECTED_MAX_CYCLES
 // (5; in this simulation it takes 3, or 2 when the start is already within 1 %).
 // Error budget of one cycle after the first (derived below, our own arithmetic): the ratio shown
@@ -68,7 +68,7 @@ describe(`iterating the ${RECHARGE_RULE} on a simulated sensor, rounding: ${ROUN
     fc.assert(
       fc.property(
         fc.constantFrom(...DEMO_FIRMWARE_FAMILIES),
-        fc.double({ min: 2, max: 200, noNaN: true }), // mV/A, the range hobby boards use (check-values)
+        fc.double({ min: 2, max: 200, noNaN: true }), // mV/A, the range hobby boards use (common practice, no source)
         fc.double({ min: 0.7, max: 1.3, noNaN: true }),
         fc.double({ min: 0.95, max: 1, noNaN: true }),
         fc.integer({ min: 1_000, max: 10_000 }),

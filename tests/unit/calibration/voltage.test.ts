@@ -6,7 +6,7 @@ import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { DIVIDER, LIPO_BMFA } from "./sources";
 
 const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // V/V (proportional), V/V, mV/V (inverse)
-const VOLTAGE_RULE = "voltage scale moves with multimeter ÷ display (check-values, common practice, no source)";
+const VOLTAGE_RULE = "voltage scale moves with multimeter ÷ display (common practice, no source)";
 
 /** What the OSD shows: the pin voltage (divider formula) times the ratio the setting stands for. */
 function displayed(packVolts: number, trueRatio: number, setting: number, family: typeof VORNEL) {

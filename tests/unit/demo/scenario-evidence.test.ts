@@ -58,7 +58,7 @@ describe("demo evidence", () => {
   });
 
   it("recharge cycles follow new = old × reported ÷ charged (mV/A; inverse for A/V) to the value sent in", () => {
-    // check-values.md "Fly-and-recharge rule" (common practice, no source)
+    // the fly-and-recharge rule (common practice, no source)
     for (const s of scenario.submissions.filter((x) => x.method === "fly_recharge")) {
       const family = familyBySlug.get(s.familySlug)!;
       const c = s.evidence.cycles;

@@ -10,8 +10,6 @@ import { db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
 // transaction, or refused with field-level errors and nothing stored), read it back computed, and
 // publish it as an ordinary pending submission (lib/worksheets/publish.ts, one transaction for every kind).
 
-export { startInput, stepInput, type WorksheetView };
-
 export async function startRechargeWorksheet(ownerId: string, input: unknown): Promise<WorksheetView> {
   const data = parseOrThrow(startInput, input);
   const { quad, family, revision } = await quadContext(ownerId, data.quadId);

@@ -1,7 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { requireRole } from "@/lib/auth";
 import { revertEvent } from "@/lib/moderation/revert";
 import { updateUser } from "@/lib/moderation/users";

@@ -1,5 +1,5 @@
 import type { Transaction } from "sequelize";
-import { ApiError, badRequest } from "@/lib/api/errors";
+import { ApiError, badRequest } from "@/lib/http/errors";
 import { settingField, type SettingKind, type WorksheetFamily } from "@/lib/calibration/worksheets/fields";
 import type { FieldIssue } from "@/lib/calibration/worksheets";
 import { db, WorksheetBenchPoint, WorksheetStep, WorksheetVoltageReading, type Worksheet } from "@/models";

@@ -2,7 +2,7 @@
 
 import { useQuery } from "@tanstack/react-query";
 import { useEffect, useId, useState } from "react";
-import type { BoardDetailResponse, BoardListResponse } from "@/lib/api/schemas/boards";
+import type { BoardDetailResponse, BoardListResponse } from "@/lib/catalogue/api-schemas";
 import { formatCells } from "@/lib/catalogue/format";
 import type { ChosenBoard } from "./draft";
 import { ErrorText } from "./field";

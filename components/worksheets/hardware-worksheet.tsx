@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useMemo, useState } from "react";
-import { hardwareWorksheet, type HardwareWorksheet, type WorksheetFamily } from "@/lib/calibration/worksheets";
+import { hardwareWorksheet, type HardwareWorksheet, type WorksheetFamily } from "@/lib/calibration";
 import {
   comparisonVerdict,
   figureOrigin,
@@ -13,13 +13,13 @@ import {
   type FigureOrigin,
   type HardwareFigureKey,
   type HardwareFigures,
-} from "@/lib/calibration/worksheets/hardware-figures";
+} from "@/lib/calibration/hardware-figures";
 import { formatFigure } from "@/lib/catalogue/format";
 import type { CurrentSensorKind } from "@/lib/vocabulary";
 import { FieldError } from "./saved-worksheet";
 
 // From the hardware: the board record's parts, overridable by what the builder reads off the
-// board, worked out as they type by lib/calibration/worksheets/hardware.ts. Nothing is stored.
+// board, worked out as they type by lib/calibration/hardware.ts. Nothing is stored.
 
 type Props = {
   family: WorksheetFamily;

@@ -3,7 +3,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useState, type ChangeEvent, type FormEvent } from "react";
-import { CHEMISTRY_LIMITS } from "@/lib/calibration/worksheets/chemistry";
+import { CHEMISTRY_LIMITS } from "@/lib/calibration/chemistry";
 import type { PackView } from "@/lib/garage/packs";
 import { startInput } from "@/lib/worksheets/recharge-input";
 

@@ -1,7 +1,7 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
-import { badRequest } from "@/lib/api/errors";
-import { parseQuery } from "@/lib/api/query";
+import { badRequest } from "@/lib/http/errors";
+import { parseQuery } from "@/lib/http/query";
 import { AuditEvent, db } from "@/models";
 import { ACTION_LABELS, AUDIT_ACTIONS, type AuditAction, type AuditEntityType, type Role, type SubmissionStatus } from "@/lib/vocabulary";
 

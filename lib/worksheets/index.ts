@@ -1,9 +1,10 @@
 import { QueryTypes } from "sequelize";
-import { badRequest } from "@/lib/api/errors";
+import { badRequest } from "@/lib/http/errors";
 import { db } from "@/models";
 import { WORKSHEET_KINDS, type WorksheetKind } from "@/lib/vocabulary";
 import { addBenchPoint, getBenchWorksheet, removeBenchPoint, startBenchWorksheet } from "./bench";
-import { addRechargeStep, getRechargeWorksheet, ownSheet, removeRechargeStep, startRechargeWorksheet } from "./recharge";
+import { addRechargeStep, getRechargeWorksheet, removeRechargeStep, startRechargeWorksheet } from "./recharge";
+import { ownSheet } from "./shared";
 import { addVoltageReading, getVoltageWorksheet, removeVoltageReading, startVoltageWorksheet } from "./voltage";
 
 // Public face of lib/worksheets: the routes under /api/v1/garage/worksheets and the garage pages

@@ -1,9 +1,10 @@
 import type { Transaction } from "sequelize";
-import { ApiError, badRequest } from "@/lib/api/errors";
+import { ApiError, badRequest } from "@/lib/http/errors";
 import { createSubmission, type SubmissionView } from "@/lib/submissions";
 import { db, Quad, Worksheet } from "@/models";
 import { benchSubmissionBody, getBenchWorksheet } from "./bench";
-import { getRechargeWorksheet, ownSheet, rechargeSubmissionBody } from "./recharge";
+import { getRechargeWorksheet, rechargeSubmissionBody } from "./recharge";
+import { ownSheet } from "./shared";
 import { getVoltageWorksheet, voltageSubmissionBody } from "./voltage";
 
 // "Publish to Shuntbook" for every kind of worksheet: the worksheet becomes an ordinary pending

@@ -2,11 +2,11 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StartWorksheet } from "@/components/worksheets/start-worksheet";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { requirePageUser } from "@/lib/auth";
 import { getQuad } from "@/lib/garage/quads";
 import { listQuadWorksheets } from "@/lib/worksheets";
-import { WORKSHEET_LABELS } from "@/lib/worksheets/reading-input";
+import { WORKSHEET_LABELS } from "@/lib/worksheets/common-input";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Quad" };

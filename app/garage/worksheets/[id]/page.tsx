@@ -4,10 +4,10 @@ import { notFound } from "next/navigation";
 import { BenchSheet } from "@/components/worksheets/bench-worksheet";
 import { RechargeWorksheetView } from "@/components/worksheets/recharge-worksheet";
 import { VoltageSheet } from "@/components/worksheets/voltage-worksheet";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { requirePageUser } from "@/lib/auth";
 import { getWorksheet } from "@/lib/worksheets";
-import { WORKSHEET_LABELS } from "@/lib/worksheets/reading-input";
+import { WORKSHEET_LABELS } from "@/lib/worksheets/common-input";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Worksheet" };

@@ -8,7 +8,7 @@ import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
 import { ConvergencePlot } from "./convergence-plot";
 import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useSavedWorksheet } from "@/components/hooks/use-worksheet";
-import { FieldError, TakenBack, type Errors } from "./saved-worksheet";
+import { FieldError, TakenBack, Warnings, type Errors } from "./saved-worksheet";
 
 // The fly-and-recharge worksheet: each iteration is sent on its own and stored whole, then the page
 // shows what the recharge maths makes of all of them (lib/calibration/worksheets/recharge.ts).
@@ -48,10 +48,10 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
   const last = sheet.steps.at(-1);
   const takeBack = (position: number) =>
     remove.mutate(position, {
-      ...outcome,
+      onError: outcome.onError,
       // the next iteration's scale was filled in from the taken-back one: fill it in afresh
       onSuccess: () => {
-        setErrors({});
+        outcome.onSuccess();
         setFormKey((k) => k + 1);
       },
     });
@@ -115,11 +115,7 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
         </section>
       )}
 
-      {sheet.warnings.length > 0 && (
-        <ul className="space-y-1 rounded-md border-2 border-caution-edge bg-caution p-3 text-small" data-testid="worksheet-warnings">
-          {sheet.warnings.map((w) => <li key={w.field + w.message}>⚠ {w.message}</li>)}
-        </ul>
-      )}
+      <Warnings items={sheet.warnings} />
 
       {r && r.convergence.length > 0 && <ConvergencePlot worksheet={r} />}
 

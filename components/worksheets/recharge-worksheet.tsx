@@ -8,7 +8,7 @@ import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
 import { ConvergencePlot } from "./convergence-plot";
 import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useSavedWorksheet } from "@/components/hooks/use-worksheet";
-import { FieldError, TakenBack, Warnings, type Errors } from "./saved-worksheet";
+import { FieldError, numberOrNull, TakenBack, Warnings, type Errors } from "./saved-worksheet";
 
 // The fly-and-recharge worksheet: each iteration is sent on its own and stored whole, then the page
 // shows what the recharge maths makes of all of them (lib/calibration/worksheets/recharge.ts).
@@ -147,7 +147,6 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
 }
 
 type StepFields = { scaleUsed: string; reportedMah: string; chargedMah: string; fullyRecharged: boolean };
-const numberOrNull = (text: string | undefined) => ((text ?? "").trim() === "" ? null : Number(text));
 
 /** One iteration, checked with the server's own schema before it is sent. */
 function StepForm(props: {

@@ -16,6 +16,9 @@ export const numberOrUndefined = (text: string | undefined) => {
   return raw === "" ? undefined : Number(raw);
 };
 
+/** The same, null when empty: what the fly-and-recharge schemas expect of an empty box. */
+export const numberOrNull = (text: string | undefined) => numberOrUndefined(text) ?? null;
+
 export function FieldError({ id, messages }: { id?: string; messages?: string[] }) {
   if (!messages?.length) return null;
   return (

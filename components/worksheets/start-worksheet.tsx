@@ -7,6 +7,7 @@ import { usePacks } from "@/components/hooks/use-garage";
 import { useStartWorksheet } from "@/components/hooks/use-worksheet";
 import { CHEMISTRY_LIMITS } from "@/lib/calibration/worksheets/chemistry";
 import { startInput } from "@/lib/worksheets/recharge-input";
+import { numberOrNull } from "./saved-worksheet";
 
 // Starts a fly-and-recharge worksheet on a quad. The starting scale is the board's published value
 // when there is one (the server decides); the builder's own is asked for only as a fallback.
@@ -14,7 +15,6 @@ import { startInput } from "@/lib/worksheets/recharge-input";
 // which stay editable; which pack it was is not stored, so the worksheet is the same either way.
 
 type StartFields = { cells: string; ratedMah: string; startingScale: string };
-const numberOrNull = (text: string | undefined) => ((text ?? "").trim() === "" ? null : Number(text));
 const NO_ANSWER = "The server did not answer; try again.";
 
 export function StartWorksheet({ quadId }: { quadId: number }) {

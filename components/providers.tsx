@@ -3,7 +3,7 @@
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useState, type ReactNode } from "react";
 
-// Client-side data fetching for the interactive parts that later issues add (forms, moderation).
+// react-query for every client read and write (the hooks in components/hooks, over apiFetch).
 // One QueryClient per browser tab, made lazily so that server rendering never shares a cache
 // between visitors.
 export function Providers({ children }: { children: ReactNode }) {

@@ -1,6 +1,6 @@
 import type { QueryInterface } from "sequelize";
 
-// A builder's flight pack. Chemistry is one of lib/calibration/worksheets/chemistry.ts CHEMISTRIES;
+// A builder's flight pack. Chemistry is one of lib/calibration/chemistry.ts CHEMISTRIES;
 // cells and rated mAh stay within lib/submissions/limits.ts (1–14 cells, up to 100 000 mAh).
 export async function up(queryInterface: QueryInterface) {
   await queryInterface.sequelize.query(`

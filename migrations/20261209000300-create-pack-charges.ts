@@ -2,7 +2,7 @@ import type { QueryInterface } from "sequelize";
 
 // One charge of one pack: what the charger put back and the resting voltage per cell after it.
 // The count of rows is the pack's cycle count; the charges after full flights give its usable
-// capacity (lib/calibration/worksheets/pack.ts). Resting volts are bounded to what any lithium
+// capacity (lib/calibration/pack.ts). Resting volts are bounded to what any lithium
 // cell can read at rest (2.5–4.45 V, our own plausibility rule).
 export async function up(queryInterface: QueryInterface) {
   await queryInterface.sequelize.query(`

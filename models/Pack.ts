@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-import type { Chemistry } from "@/lib/calibration/worksheets/chemistry";
+import type { Chemistry } from "@/lib/calibration/chemistry";
 import type { User } from "./User";
 
 /** A flight pack in a builder's garage (migrations/20261209000200-…). */

@@ -1,10 +1,10 @@
 import type { QueryInterface } from "sequelize";
-import { deleteDemoScenario, insertDemoScenario } from "@/lib/demo/persist";
-import { buildDemoScenario } from "@/lib/demo/scenario";
+import { deleteDemoScenario, insertDemoScenario } from "./demo/persist";
+import { buildDemoScenario } from "./demo/scenario";
 import { refreshGroups } from "@/lib/published/refresh";
 
 // The invented demo scenario (makers, boards, firmware families, people, submissions): built in
-// lib/demo/scenario.ts without a database, inserted here in one transaction so that a failed seed
+// seeders/demo/scenario.ts without a database, inserted here in one transaction so that a failed seed
 // leaves nothing behind. board_stats is derived from approved submissions and is kept current by
 // whoever changes them, so the seed recomputes it in the same transaction.
 export async function up(queryInterface: QueryInterface) {

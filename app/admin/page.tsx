@@ -4,7 +4,6 @@ import { requirePageRole } from "@/lib/auth";
 import { listAuditEvents } from "@/lib/moderation/audit";
 import { TRUST_LABELS } from "@/lib/moderation/vocabulary";
 import { listUsers } from "@/lib/moderation/users";
-import { revertAction, updateUserAction } from "./actions";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Admin" };
@@ -37,7 +36,7 @@ export default async function AdminPage({ searchParams }: Props) {
               <p className="text-small">
                 {u.record.approved} approved · {u.record.rejected} rejected · {u.record.pending} pending · {TRUST_LABELS[u.trust.reason]}
               </p>
-              <UserForm action={updateUserAction} user={{ id: u.id, name: u.name, role: u.role, override: u.trust.override }} />
+              <UserForm user={{ id: u.id, name: u.name, role: u.role, override: u.trust.override }} />
             </li>
           ))}
         </ul>
@@ -57,7 +56,7 @@ export default async function AdminPage({ searchParams }: Props) {
               </p>
               {e.reason && <p className="text-small">“{e.reason}”</p>}
               {e.revertedByEventId !== null && <p className="text-small text-muted">Reverted by event {e.revertedByEventId}.</p>}
-              {e.revertable && <RevertForm action={revertAction} eventId={e.id} />}
+              {e.revertable && <RevertForm eventId={e.id} />}
             </li>
           ))}
         </ol>

@@ -3,7 +3,6 @@ import Link from "next/link";
 import { QueueView } from "@/components/moderation/queue-view";
 import { Pagination } from "@/components/pagination";
 import { requirePageRole } from "@/lib/auth";
-import { bulkApproveAction } from "./actions";
 import { loadQueue, parseQueueQuery, queueHref, type QueueAge, type QueueFlag, type QueueQuery, type QueueSort } from "./_data/queue";
 
 export const dynamic = "force-dynamic";
@@ -100,7 +99,7 @@ export default async function ModerationQueuePage({ searchParams }: Props) {
       {data.rows.length === 0 ? (
         <p className="rounded-md border-3 border-rule bg-surface p-4">Nothing is waiting here. {q.flag || q.board || q.age ? <Link href="/moderation">Show the whole queue</Link> : null}</p>
       ) : (
-        <QueueView rows={data.rows} approve={bulkApproveAction} />
+        <QueueView rows={data.rows} />
       )}
       <p className="text-small text-muted">
         {data.total} pending · page {q.page} of {data.pageCount}

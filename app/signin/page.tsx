@@ -3,7 +3,7 @@ import Link from "next/link";
 import { AccountPage, Card } from "@/components/auth/page-frame";
 import { MagicLinkForm, PasswordSignInForm } from "@/components/auth/sign-in-forms";
 import { FormMessage } from "@/components/auth/fields";
-import { signInErrorMessage } from "@/components/auth/auth-client";
+import { signInErrorMessage } from "@/components/auth/next-auth-client";
 import { currentUser } from "@/lib/auth/guard";
 import { safeNextPath } from "@/lib/auth/safe-next";
 

@@ -1,37 +1,82 @@
 "use client";
 
-import { useActionState } from "react";
-import type { AdminState } from "@/app/admin/actions";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { z } from "zod";
+import { asApiFetchError } from "@/components/form-errors";
+import { useRevertEvent, useUpdateUser } from "@/components/hooks/use-moderation";
+import { RevertBodySchema, UserPatchBodySchema, type RevertBody, type UserPatchBody } from "@/lib/moderation/schemas";
+import { ROLE_CHOICES, ROLE_LABELS } from "@/lib/moderation/vocabulary";
 
-type Action = (prev: AdminState, form: FormData) => Promise<AdminState>;
+// The admin page's two forms, each checked in the browser with the schema its endpoint uses and
+// sent through apiFetch; a refusal's field messages show under the form, its message below them.
 
-function Outcome({ state }: { state: AdminState }) {
-  if (!state) return null;
+type Outcome = { ok: boolean; message: string } | null;
+
+function OutcomeLine({ outcome }: { outcome: Outcome }) {
+  if (!outcome) return null;
   return (
-    <p role={state.ok ? "status" : "alert"} className={`text-small font-semibold ${state.ok ? "" : "text-fault"}`}>
-      {state.message}
+    <p role={outcome.ok ? "status" : "alert"} className={`text-small font-semibold ${outcome.ok ? "" : "text-fault"}`}>
+      {outcome.message}
     </p>
   );
 }
-const fieldError = (state: AdminState, name: string) => state?.fieldErrors?.[name]?.join(" ");
 
-export function UserForm({ action, user }: { action: Action; user: { id: string; name: string; role: string; override: boolean | null } }) {
-  const [state, formAction, pending] = useActionState(action, null);
-  const roleError = fieldError(state, "role");
+function FieldProblem({ message }: { message: string | undefined }) {
+  return message ? <p className="w-full text-small font-semibold text-fault">{message}</p> : null;
+}
+
+const TRUST_CHOICES = ["record", "yes", "no"] as const;
+type UserFormValues = { role: string; trusted: (typeof TRUST_CHOICES)[number]; reason: string };
+
+/** The form's selects and text as the endpoint's body, then the endpoint's own schema over it. */
+const UserFormSchema = z
+  .object({ role: z.string(), trusted: z.enum(TRUST_CHOICES), reason: z.string() })
+  .transform(({ role, trusted, reason }): UserPatchBody => ({
+    role: role as UserPatchBody["role"],
+    trusted: trusted === "yes" ? true : trusted === "no" ? false : null,
+    reason: reason.trim() || null,
+  }))
+  .pipe(UserPatchBodySchema);
+
+export function UserForm({ user }: { user: { id: string; name: string; role: string; override: boolean | null } }) {
+  const updateUser = useUpdateUser(user.id);
+  const { register, handleSubmit, setError, formState } = useForm<UserFormValues, unknown, z.output<typeof UserFormSchema>>({
+    resolver: zodResolver(UserFormSchema),
+    defaultValues: { role: user.role, trusted: user.override === true ? "yes" : user.override === false ? "no" : "record", reason: "" },
+    reValidateMode: "onSubmit",
+    shouldFocusError: false,
+  });
+  const [outcome, setOutcome] = useState<Outcome>(null);
+  const onSubmit = handleSubmit(async (body) => {
+    setOutcome(null);
+    try {
+      const { user: saved } = await updateUser.mutateAsync(body);
+      setOutcome({ ok: true, message: `Saved: ${saved.name} is now ${saved.role}, ${saved.trust.trusted ? "trusted" : "not trusted"}.` });
+    } catch (error) {
+      const refused = asApiFetchError(error);
+      if (refused.fieldErrors.role) setError("role", { type: "server", message: refused.fieldErrors.role.join(" ") });
+      setOutcome({ ok: false, message: refused.message });
+    }
+  });
+  const roleError = formState.errors.role?.message;
+  const reasonError = formState.errors.reason?.message;
   return (
-    <form action={formAction} className="flex flex-wrap items-end gap-2" aria-label={`Role and trust of ${user.name}`}>
-      <input type="hidden" name="userId" value={user.id} />
+    <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-end gap-2" aria-label={`Role and trust of ${user.name}`}>
       <label className="flex flex-col text-small font-semibold">
         Role
-        <select name="role" defaultValue={user.role} className="sb-field min-h-11" aria-invalid={roleError ? "true" : undefined}>
-          <option value="contributor">Contributor</option>
-          <option value="moderator">Moderator</option>
-          <option value="admin">Admin</option>
+        <select {...register("role")} className="sb-field min-h-11" aria-invalid={roleError ? "true" : undefined}>
+          {ROLE_CHOICES.map((role) => (
+            <option key={role} value={role}>
+              {ROLE_LABELS[role]}
+            </option>
+          ))}
         </select>
       </label>
       <label className="flex flex-col text-small font-semibold">
         Trust
-        <select name="trusted" defaultValue={user.override === true ? "yes" : user.override === false ? "no" : "record"} className="sb-field min-h-11">
+        <select {...register("trusted")} className="sb-field min-h-11">
           <option value="record">By their record</option>
           <option value="yes">Always trusted</option>
           <option value="no">Never auto-approved</option>
@@ -39,33 +84,51 @@ export function UserForm({ action, user }: { action: Action; user: { id: string;
       </label>
       <label className="flex flex-col text-small font-semibold">
         Reason (optional)
-        <input name="reason" className="sb-field min-h-11" />
+        <input {...register("reason")} className="sb-field min-h-11" aria-invalid={reasonError ? "true" : undefined} />
       </label>
-      <button type="submit" className="sb-button sb-button-quiet min-h-11" disabled={pending}>
+      <button type="submit" className="sb-button sb-button-quiet min-h-11" disabled={formState.isSubmitting}>
         Save
       </button>
-      {roleError && <p className="w-full text-small font-semibold text-fault">{roleError}</p>}
-      <Outcome state={state} />
+      <FieldProblem message={roleError} />
+      <FieldProblem message={reasonError} />
+      <OutcomeLine outcome={outcome} />
     </form>
   );
 }
 
-export function RevertForm({ action, eventId }: { action: Action; eventId: number }) {
-  const [state, formAction, pending] = useActionState(action, null);
-  const reasonError = fieldError(state, "reason");
+export function RevertForm({ eventId }: { eventId: number }) {
+  const revertEvent = useRevertEvent(eventId);
+  const { register, handleSubmit, setError, formState } = useForm<RevertBody>({
+    resolver: zodResolver(RevertBodySchema),
+    defaultValues: { reason: "" },
+    reValidateMode: "onSubmit",
+    shouldFocusError: false,
+  });
+  const [outcome, setOutcome] = useState<Outcome>(null);
+  const onSubmit = handleSubmit(async (body) => {
+    setOutcome(null);
+    try {
+      const { submission } = await revertEvent.mutateAsync(body);
+      setOutcome({ ok: true, message: `Reverted: submission #${submission.id} is ${submission.status.replace("_", " ")} again.` });
+    } catch (error) {
+      const refused = asApiFetchError(error);
+      if (refused.fieldErrors.reason) setError("reason", { type: "server", message: refused.fieldErrors.reason.join(" ") });
+      setOutcome({ ok: false, message: refused.message });
+    }
+  });
+  const reasonError = formState.errors.reason?.message;
   return (
-    <form action={formAction} noValidate className="flex flex-wrap items-end gap-2" aria-label={`Revert event ${eventId}`}>
-      <input type="hidden" name="eventId" value={eventId} />
+    <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-end gap-2" aria-label={`Revert event ${eventId}`}>
       <label className="flex flex-col text-small font-semibold">
         Why revert (required)
-        <input name="reason" className="sb-field min-h-11" aria-invalid={reasonError ? "true" : undefined} />
+        <input {...register("reason")} className="sb-field min-h-11" aria-invalid={reasonError ? "true" : undefined} />
       </label>
-      <button type="submit" className="sb-button sb-button-quiet min-h-11" disabled={pending}>
+      <button type="submit" className="sb-button sb-button-quiet min-h-11" disabled={formState.isSubmitting}>
         Revert
       </button>
-      {reasonError && <p className="w-full text-small font-semibold text-fault">{reasonError}</p>}
-      {!state?.ok && !reasonError && <Outcome state={state} />}
-      {state?.ok && <Outcome state={state} />}
+      <FieldProblem message={reasonError} />
+      {/* a refusal about the reason is said beside it; anything else (or a success) below */}
+      {(outcome?.ok || !reasonError) && <OutcomeLine outcome={outcome} />}
     </form>
   );
 }

@@ -1,7 +1,7 @@
 "use client";
 
 import type { ReactNode } from "react";
-import type { FieldErrors, FieldValues, Path, UseFormRegister, UseFormSetError } from "react-hook-form";
+import type { FieldErrors, FieldValues, Path, UseFormRegister } from "react-hook-form";
 
 // Labelled inputs for the account forms. Each shows its own message under it, tied to the input
 // with aria-describedby and aria-invalid, so a screen reader reads the reason with the field.
@@ -66,14 +66,4 @@ export function FormMessage({ tone, children }: { tone: "fault" | "done"; childr
       {children}
     </div>
   );
-}
-
-/** Puts the server's per-field messages onto the form's fields; returns the ones no field shows. */
-export function applyFieldErrors<T extends FieldValues>(setError: UseFormSetError<T>, fieldErrors: Record<string, string[]>, fields: readonly string[]): string[] {
-  const rest: string[] = [];
-  for (const [field, messages] of Object.entries(fieldErrors)) {
-    if (fields.includes(field)) setError(field as Path<T>, { type: "server", message: messages[0] });
-    else rest.push(...messages);
-  }
-  return rest;
 }

@@ -12,8 +12,9 @@ import {
   type ProfileNameInput,
   type SetPasswordInput,
 } from "@/lib/auth/schemas";
-import { accountRequest } from "./auth-client";
-import { applyFieldErrors, FormMessage, TextField } from "./fields";
+import { formProblem } from "@/components/form-errors";
+import { useSaveName, useSavePassword } from "@/components/hooks/use-account";
+import { FormMessage, TextField } from "./fields";
 
 export function NameForm({ name }: { name: string }) {
   const router = useRouter();
@@ -22,18 +23,19 @@ export function NameForm({ name }: { name: string }) {
     mode: "onTouched",
     defaultValues: { name },
   });
+  const saveName = useSaveName();
   const [message, setMessage] = useState<{ tone: "fault" | "done"; text: string } | null>(null);
   const onSubmit = handleSubmit(async (values) => {
     setMessage(null);
-    const result = await accountRequest("/api/auth/profile", "PATCH", values);
-    if (result.ok) {
-      const saved = (result.body as { user: { name: string } }).user.name;
-      reset({ name: saved });
+    try {
+      const { user } = await saveName.mutateAsync(values);
+      reset({ name: user.name });
       setMessage({ tone: "done", text: "Name saved." });
-      return router.refresh(); // the header shows the new name
+      router.refresh(); // the header shows the new name
+    } catch (error) {
+      const problem = formProblem(setError, error, ["name"]);
+      if (problem) setMessage({ tone: "fault", text: problem });
     }
-    const rest = applyFieldErrors(setError, result.fieldErrors, ["name"]);
-    if (rest.length || !Object.keys(result.fieldErrors).length) setMessage({ tone: "fault", text: result.message });
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
@@ -54,17 +56,19 @@ export function PasswordForm({ hasPassword }: { hasPassword: boolean }) {
     resolver: zodResolver(hasPassword ? ChangePasswordSchema : SetPasswordSchema),
     mode: "onTouched",
   });
+  const savePassword = useSavePassword();
   const [message, setMessage] = useState<{ tone: "fault" | "done"; text: string } | null>(null);
   const form = { register, errors: formState.errors };
   const onSubmit = handleSubmit(async (values) => {
     setMessage(null);
-    const result = await accountRequest("/api/auth/profile/password", "POST", values);
-    if (result.ok) {
+    try {
+      const saved = await savePassword.mutateAsync(values);
       reset({ currentPassword: "", newPassword: "", confirm: "" });
-      return setMessage({ tone: "done", text: (result.body as { message: string }).message });
+      setMessage({ tone: "done", text: saved.message });
+    } catch (error) {
+      const problem = formProblem(setError, error, ["currentPassword", "newPassword", "confirm"]);
+      if (problem) setMessage({ tone: "fault", text: problem });
     }
-    const rest = applyFieldErrors(setError, result.fieldErrors, ["currentPassword", "newPassword", "confirm"]);
-    if (rest.length || !Object.keys(result.fieldErrors).length) setMessage({ tone: "fault", text: result.message });
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">

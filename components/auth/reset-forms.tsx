@@ -5,20 +5,23 @@ import Link from "next/link";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { ResetConfirmSchema, ResetRequestSchema, type ResetConfirmInput, type ResetRequestInput } from "@/lib/auth/schemas";
-import { accountRequest } from "./auth-client";
-import { applyFieldErrors, FormMessage, TextField } from "./fields";
+import { applyFieldErrors, asApiFetchError, formProblem } from "@/components/form-errors";
+import { useCompleteReset, useRequestReset } from "@/components/hooks/use-account";
+import { FormMessage, TextField } from "./fields";
 
 /** Step 1: an address; the answer never says whether an account has it. */
 export function ResetRequestForm() {
   const { register, handleSubmit, setError, formState } = useForm<ResetRequestInput>({ resolver: zodResolver(ResetRequestSchema), mode: "onTouched" });
   const [problem, setProblem] = useState<string | null>(null);
+  const requestReset = useRequestReset();
   const [sent, setSent] = useState<string | null>(null);
   const onSubmit = handleSubmit(async (values) => {
     setProblem(null);
-    const result = await accountRequest("/api/auth/password-reset", "POST", values);
-    if (result.ok) return setSent((result.body as { message: string }).message);
-    const rest = applyFieldErrors(setError, result.fieldErrors, ["email"]);
-    if (rest.length || !Object.keys(result.fieldErrors).length) setProblem(result.message);
+    try {
+      setSent((await requestReset.mutateAsync(values)).message);
+    } catch (error) {
+      setProblem(formProblem(setError, error, ["email"]));
+    }
   });
   if (sent) return <FormMessage tone="done">{sent} Check the spam folder too.</FormMessage>;
   return (
@@ -40,14 +43,20 @@ export function ResetCompleteForm({ token }: { token: string }) {
     defaultValues: { token, password: "", confirm: "" },
   });
   const [problem, setProblem] = useState<string | null>(null);
+  const completeReset = useCompleteReset();
   const [done, setDone] = useState(false);
   const onSubmit = handleSubmit(async (values) => {
     setProblem(null);
-    const result = await accountRequest("/api/auth/password-reset/complete", "POST", values);
-    if (result.ok) return setDone(true);
-    const rest = applyFieldErrors(setError, result.fieldErrors, ["password", "confirm"]);
-    if (result.fieldErrors.token) rest.push(...result.fieldErrors.token);
-    if (rest.length || !Object.keys(result.fieldErrors).length) setProblem(rest[0] ?? result.message);
+    try {
+      await completeReset.mutateAsync(values);
+      setDone(true);
+    } catch (error) {
+      const refusal = asApiFetchError(error);
+      // the token has no field to show beside: its message (an expired or used link) leads the form's
+      const rest = applyFieldErrors(setError, refusal.fieldErrors, ["password", "confirm"]);
+      if (refusal.fieldErrors.token) rest.push(...refusal.fieldErrors.token);
+      if (rest.length || !Object.keys(refusal.fieldErrors).length) setProblem(rest[0] ?? refusal.message);
+    }
   });
   if (done) {
     return (

@@ -3,9 +3,12 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
+import { applyFieldErrors, asApiFetchError, formProblem } from "@/components/form-errors";
 import { MagicLinkSchema, SignInSchema, type MagicLinkInput, type SignInInput } from "@/lib/auth/schemas";
-import { nextAuthPost } from "./auth-client";
-import { applyFieldErrors, FormMessage, TextField } from "./fields";
+import { FormMessage, TextField } from "./fields";
+import { nextAuthPost } from "./next-auth-client";
+
+const callbackFor = (next: string) => new URL(next, window.location.origin).toString();
 
 /** E-mail and password. On success the whole page reloads at `next`, so the header shows the account. */
 export function PasswordSignInForm({ next }: { next: string }) {
@@ -13,10 +16,15 @@ export function PasswordSignInForm({ next }: { next: string }) {
   const [problem, setProblem] = useState<string | null>(null);
   const onSubmit = handleSubmit(async (values) => {
     setProblem(null);
-    const result = await nextAuthPost("callback/credentials", values, new URL(next, window.location.origin).toString());
-    if (result.ok) return window.location.assign(next);
-    applyFieldErrors(setError, result.fieldErrors, ["email", "password"]);
-    setProblem(result.message);
+    try {
+      await nextAuthPost("callback/credentials", values, callbackFor(next));
+    } catch (error) {
+      const refusal = asApiFetchError(error);
+      applyFieldErrors(setError, refusal.fieldErrors, ["email", "password"]);
+      // always said: a wrong password is no one field's fault
+      return setProblem(refusal.message);
+    }
+    window.location.assign(next);
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-describedby={problem ? "password-signin-problem" : undefined}>
@@ -40,10 +48,12 @@ export function MagicLinkForm({ next }: { next: string }) {
   const [problem, setProblem] = useState<string | null>(null);
   const onSubmit = handleSubmit(async (values) => {
     setProblem(null);
-    const result = await nextAuthPost("signin/email", { email: values.email }, new URL(next, window.location.origin).toString());
-    if (result.ok) return window.location.assign(`/signin/check-email?email=${encodeURIComponent(values.email)}`);
-    const rest = applyFieldErrors(setError, result.fieldErrors, ["email"]);
-    if (rest.length || !Object.keys(result.fieldErrors).length) setProblem(result.message);
+    try {
+      await nextAuthPost("signin/email", { email: values.email }, callbackFor(next));
+    } catch (error) {
+      return setProblem(formProblem(setError, error, ["email"]));
+    }
+    window.location.assign(`/signin/check-email?email=${encodeURIComponent(values.email)}`);
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">

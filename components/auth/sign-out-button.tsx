@@ -1,7 +1,8 @@
 "use client";
 
 import { useState } from "react";
-import { nextAuthPost } from "./auth-client";
+import { asApiFetchError } from "@/components/form-errors";
+import { nextAuthPost } from "./next-auth-client";
 
 /** Ends the session (next-auth's sign-out POST, with its CSRF token) and reloads at the front page. */
 export function SignOutButton({ className = "sb-button" }: { className?: string }) {
@@ -15,10 +16,13 @@ export function SignOutButton({ className = "sb-button" }: { className?: string 
         disabled={busy}
         onClick={async () => {
           setBusy(true);
-          const result = await nextAuthPost("signout", {}, new URL("/", window.location.origin).toString());
-          if (result.ok) return window.location.assign("/");
-          setBusy(false);
-          setProblem(result.message);
+          try {
+            await nextAuthPost("signout", {}, new URL("/", window.location.origin).toString());
+          } catch (error) {
+            setBusy(false);
+            return setProblem(asApiFetchError(error).message);
+          }
+          window.location.assign("/");
         }}
       >
         {busy ? "Signing out…" : "Sign out"}

@@ -4,27 +4,36 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
+import { applyFieldErrors, asApiFetchError } from "@/components/form-errors";
+import { useSignUp } from "@/components/hooks/use-account";
 import { SignUpSchema, type SignUpInput } from "@/lib/auth/schemas";
-import { accountRequest, nextAuthPost } from "./auth-client";
-import { applyFieldErrors, FormMessage, TextField } from "./fields";
+import { FormMessage, TextField } from "./fields";
+import { nextAuthPost } from "./next-auth-client";
 
 const FIELDS = ["name", "email", "password", "confirm"] as const;
 
 /** Creates the account, then signs in with the same password and goes on to `next`. */
 export function SignUpForm({ next }: { next: string }) {
   const { register, handleSubmit, setError, formState } = useForm<SignUpInput>({ resolver: zodResolver(SignUpSchema), mode: "onTouched" });
+  const signUp = useSignUp();
   const [problem, setProblem] = useState<string | null>(null);
   const form = { register, errors: formState.errors };
   const onSubmit = handleSubmit(async (values) => {
     setProblem(null);
-    const made = await accountRequest("/api/auth/sign-up", "POST", values);
-    if (!made.ok) {
-      const rest = applyFieldErrors(setError, made.fieldErrors, FIELDS);
-      if (rest.length || !Object.keys(made.fieldErrors).length || made.status === 429) setProblem(made.message);
+    try {
+      await signUp.mutateAsync(values);
+    } catch (error) {
+      const refusal = asApiFetchError(error);
+      const rest = applyFieldErrors(setError, refusal.fieldErrors, FIELDS);
+      // a rate limit names the e-mail field but is about the whole form: say it above too
+      if (rest.length || !Object.keys(refusal.fieldErrors).length || refusal.status === 429) setProblem(refusal.message);
       return;
     }
-    const signedIn = await nextAuthPost("callback/credentials", { email: values.email, password: values.password }, new URL(next, window.location.origin).toString());
-    window.location.assign(signedIn.ok ? next : "/signin");
+    const signedIn = await nextAuthPost("callback/credentials", { email: values.email, password: values.password }, new URL(next, window.location.origin).toString()).then(
+      () => true,
+      () => false,
+    );
+    window.location.assign(signedIn ? next : "/signin");
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">

@@ -1,6 +1,6 @@
 "use client";
 
-import { CHEMISTRIES, CHEMISTRY_LIMITS } from "@/lib/calibration/worksheets/chemistry";
+import { CHEMISTRIES, CHEMISTRY_LIMITS } from "@/lib/calibration/chemistry";
 import { chargeInput, packInput, quadInput } from "@/lib/garage/schemas";
 import { GarageForm } from "./garage-form";
 

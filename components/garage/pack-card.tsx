@@ -3,7 +3,7 @@ import { formatFigure } from "@/lib/catalogue/format";
 import type { PackView } from "@/lib/garage/packs";
 
 // One pack: its log, what the log says about it, and the suggested OSD warnings with where each
-// figure comes from (lib/calibration/worksheets/pack.ts). The charging cautions come with it.
+// figure comes from (lib/calibration/pack.ts). The charging cautions come with it.
 
 const v = (volts: number) => `${formatFigure(volts, 2)} V`;
 

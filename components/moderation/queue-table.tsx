@@ -2,8 +2,8 @@
 
 import { tableFeatures, useTable, type ColumnDef } from "@tanstack/react-table";
 import Link from "next/link";
-import type { QueueRow } from "@/app/moderation/_data/queue";
 import { formatFigure } from "@/lib/catalogue/format";
+import type { QueueRow } from "@/lib/moderation/queue";
 
 // The pending submissions as a TanStack table. Paging, sorting and filtering happen on the server
 // (the URL holds them), so the table only lays out the rows it is given.
@@ -12,11 +12,11 @@ const features = tableFeatures({});
 const dateTime = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
 const figure = (v: number | null) => (v === null ? "—" : formatFigure(v, 4));
 
-export function FlagChips({ row }: { row: Pick<QueueRow, "outlier" | "mismatch" | "newContributor" | "maxAbsZ"> }) {
+function FlagChips({ flags }: { flags: Pick<QueueRow["flags"], "outlier" | "mismatch" | "newContributor" | "maxAbsZ"> }) {
   const chips: { label: string; tone: string }[] = [];
-  if (row.outlier) chips.push({ label: `Far off (|z| ${row.maxAbsZ === null || !Number.isFinite(row.maxAbsZ) ? "∞" : formatFigure(row.maxAbsZ, 1)})`, tone: "border-fault text-fault" });
-  if (row.mismatch) chips.push({ label: "Evidence disagrees", tone: "border-caution-edge bg-caution" });
-  if (row.newContributor) chips.push({ label: "First-time contributor", tone: "border-rule" });
+  if (flags.outlier) chips.push({ label: `Far off (|z| ${flags.maxAbsZ === null || !Number.isFinite(flags.maxAbsZ) ? "∞" : formatFigure(flags.maxAbsZ, 1)})`, tone: "border-fault text-fault" });
+  if (flags.mismatch) chips.push({ label: "Evidence disagrees", tone: "border-caution-edge bg-caution" });
+  if (flags.newContributor) chips.push({ label: "First-time contributor", tone: "border-rule" });
   if (chips.length === 0) return <span className="text-small text-muted">No flags</span>;
   return (
     <ul className="flex flex-wrap gap-1">
@@ -36,21 +36,21 @@ const columns: ColumnDef<typeof features, QueueRow>[] = [
     cell: ({ row }) => (
       <div>
         <Link href={`/moderation/${row.original.id}`} className="font-semibold" aria-label={`Review submission #${row.original.id}`}>
-          #{row.original.id} {row.original.boardName} rev {row.original.revision}
+          #{row.original.id} {row.original.board.name} rev {row.original.revision.label}
         </Link>
         <p className="text-small text-muted">
-          {row.original.family} · by {row.original.contributor}
+          {row.original.family.name} · by {row.original.contributor.name}
         </p>
       </div>
     ),
   },
-  { id: "flags", header: "Flags", cell: ({ row }) => <FlagChips row={row.original} /> },
+  { id: "flags", header: "Flags", cell: ({ row }) => <FlagChips flags={row.original.flags} /> },
   {
     id: "values",
     header: "Voltage / current scale / offset",
     cell: ({ row }) => (
       <span className="font-mono text-small">
-        {figure(row.original.voltageScale)} / {figure(row.original.currentScale)} / {figure(row.original.currentOffset)}
+        {figure(row.original.values.voltageScale)} / {figure(row.original.values.currentScale)} / {figure(row.original.values.currentOffset)}
       </span>
     ),
   },

@@ -1,20 +1,29 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useState } from "react";
-import type { BulkState } from "@/app/moderation/actions";
-import type { QueueRow } from "@/app/moderation/_data/queue";
+import { asApiFetchError } from "@/components/form-errors";
+import { useBulkApprove } from "@/components/hooks/use-moderation";
+import type { BulkResult } from "@/lib/moderation/actions";
+import type { QueueRow } from "@/lib/moderation/queue";
 import { QueueTable } from "./queue-table";
 
 // Bulk approval is only offered for rows with no flag at all: anything far off, with disagreeing
-// evidence or from a first-time contributor is reviewed one by one.
-const unflagged = (r: QueueRow) => !r.outlier && !r.mismatch && !r.newContributor;
+// evidence or from a first-time contributor is reviewed one by one. (The server refuses flagged
+// ones too, not only this page hiding them.)
+const unflagged = (r: QueueRow) => !r.flags.outlier && !r.flags.mismatch && !r.flags.newContributor;
 
-export function QueueView({ rows, approve }: { rows: QueueRow[]; approve: (items: { id: number; version: number }[]) => Promise<BulkState> }) {
-  const router = useRouter();
+/** What came of a bulk approval, in one sentence; ok only when every chosen item was approved. */
+function bulkOutcome(r: BulkResult): { ok: boolean; text: string } {
+  const parts = [`Approved ${r.approved.length}`];
+  if (r.conflicted.length) parts.push(`someone else acted on ${r.conflicted.map((id) => `#${id}`).join(", ")} first`);
+  if (r.refused.length) parts.push(`refused ${r.results.filter((x) => x.outcome === "refused").map((x) => ("message" in x ? x.message : `#${x.id}`)).join(" ")}`);
+  return { ok: r.conflicted.length === 0 && r.refused.length === 0, text: `${parts.join("; ")}.` };
+}
+
+export function QueueView({ rows }: { rows: QueueRow[] }) {
+  const bulkApprove = useBulkApprove();
   const [selected, setSelected] = useState<Set<number>>(new Set());
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
-  const [busy, setBusy] = useState(false);
   const toggle = (id: number) =>
     setSelected((s) => {
       const next = new Set(s);
@@ -25,14 +34,15 @@ export function QueueView({ rows, approve }: { rows: QueueRow[]; approve: (items
   const candidates = rows.filter(unflagged);
 
   async function approveSelected() {
-    setBusy(true);
     setMessage(null);
     const items = rows.filter((r) => selected.has(r.id)).map((r) => ({ id: r.id, version: r.version }));
-    const result = await approve(items).catch(() => ({ ok: false, message: "The approvals could not be sent. Try again in a moment." }));
-    setBusy(false);
+    const outcome = await bulkApprove.mutateAsync({ items }).then(bulkOutcome, (error: unknown) => {
+      const refused = asApiFetchError(error);
+      // no answer at all keeps the queue's own words; a refusal of the whole request says the server's
+      return { ok: false, text: refused.status === 0 ? "The approvals could not be sent. Try again in a moment." : refused.message };
+    });
     setSelected(new Set());
-    setMessage({ ok: result.ok, text: result.message });
-    router.refresh();
+    setMessage(outcome);
   }
 
   return (
@@ -42,8 +52,8 @@ export function QueueView({ rows, approve }: { rows: QueueRow[]; approve: (items
           <button type="button" className="sb-button sb-button-quiet min-h-11" onClick={() => setSelected(new Set(candidates.map((r) => r.id)))}>
             Select all unflagged ({candidates.length})
           </button>
-          <button type="button" className="sb-button min-h-11" disabled={selected.size === 0 || busy} onClick={approveSelected}>
-            {busy ? "Approving…" : `Approve selected (${selected.size})`}
+          <button type="button" className="sb-button min-h-11" disabled={selected.size === 0 || bulkApprove.isPending} onClick={approveSelected}>
+            {bulkApprove.isPending ? "Approving…" : `Approve selected (${selected.size})`}
           </button>
         </div>
       )}

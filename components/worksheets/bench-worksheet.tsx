@@ -4,14 +4,14 @@ import { useState } from "react";
 import { CartesianGrid, ReferenceLine, Scatter, ScatterChart, XAxis, YAxis } from "recharts";
 import { BenchCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
-import { benchPointInput, benchStartInput, type BenchSheetView } from "@/lib/worksheets/reading-input";
+import { benchPointInput, benchStartInput, type BenchSheetView } from "@/lib/worksheets/bench-input";
 import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useSavedWorksheet, useStartWorksheet } from "@/components/hooks/use-worksheet";
 import { FieldError, NumberInput, numberOrUndefined, PublishPanel, SavedEntries, Warnings } from "./saved-worksheet";
 
 // The bench worksheet, saved on the server point by point (lib/worksheets/bench.ts): clamp-meter
 // current beside the display's at several steady throttles, fitted on the server by
-// lib/calibration/worksheets/bench.ts with every earlier point. It means props on and motors under
+// lib/calibration/bench.ts with every earlier point. It means props on and motors under
 // load, so the caution comes first and fly-and-recharge is suggested instead.
 
 function Advice() {

@@ -1,7 +1,7 @@
 "use client";
 
 import { CartesianGrid, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
-import type { RechargeWorksheet } from "@/lib/calibration/worksheets";
+import type { RechargeWorksheet } from "@/lib/calibration";
 
 // How the display's error closes in on zero, cycle by cycle, with the stop band (±1 %) drawn in.
 export function ConvergencePlot({ worksheet }: { worksheet: RechargeWorksheet }) {

@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useMemo, useState } from "react";
-import { hardwareWorksheet, type HardwareWorksheet, type WorksheetFamily } from "@/lib/calibration/worksheets";
+import { hardwareWorksheet, type HardwareWorksheet, type WorksheetFamily } from "@/lib/calibration";
 import {
   comparisonVerdict,
   figureOrigin,
@@ -13,14 +13,14 @@ import {
   type FigureOrigin,
   type HardwareFigureKey,
   type HardwareFigures,
-} from "@/lib/calibration/worksheets/hardware-figures";
+} from "@/lib/calibration/hardware-figures";
 import { formatFigure } from "@/lib/catalogue/format";
 import type { CurrentSensorKind } from "@/models/BoardRevision";
 import { FieldError } from "./saved-worksheet";
 
 // From the hardware: the board record's parts, overridable by what the builder reads off the
-// board, worked out as they type by lib/calibration/worksheets/hardware.ts. Nothing is stored or
-// sent, so it is live state rather than a react-hook-form form.
+// board, worked out as they type by lib/calibration/hardware.ts. Nothing is stored or sent, so it
+// is live state rather than a react-hook-form form.
 
 type Props = {
   family: WorksheetFamily;

@@ -2,8 +2,8 @@
 
 import { useState, type ReactNode } from "react";
 import { formatFigure } from "@/lib/catalogue/format";
-import { CHARGING_CAUTIONS } from "@/lib/calibration/worksheets/cautions";
-import type { RoundedSetting } from "@/lib/calibration/worksheets";
+import { CHARGING_CAUTIONS } from "@/lib/calibration/cautions";
+import type { RoundedSetting } from "@/lib/calibration";
 import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
 import { ConvergencePlot } from "./convergence-plot";
 import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
@@ -11,7 +11,7 @@ import { useSavedWorksheet } from "@/components/hooks/use-worksheet";
 import { FieldError, numberOrNull, TakenBack, Warnings, type Errors } from "./saved-worksheet";
 
 // The fly-and-recharge worksheet: each iteration is sent on its own and stored whole, then the page
-// shows what the recharge maths makes of all of them (lib/calibration/worksheets/recharge.ts).
+// shows what the recharge maths makes of all of them (lib/calibration/recharge.ts).
 
 const pct = (e: number | null) => (e == null ? "—" : `${e >= 0 ? "+" : ""}${formatFigure(e * 100, 2)} %`);
 

@@ -5,7 +5,7 @@ import { useState } from "react";
 import { showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
 import { usePacks } from "@/components/hooks/use-garage";
 import { useStartWorksheet } from "@/components/hooks/use-worksheet";
-import { CHEMISTRY_LIMITS } from "@/lib/calibration/worksheets/chemistry";
+import { CHEMISTRY_LIMITS } from "@/lib/calibration/chemistry";
 import { startInput } from "@/lib/worksheets/recharge-input";
 import { numberOrNull } from "./saved-worksheet";
 

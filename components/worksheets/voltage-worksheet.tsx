@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { ProbeCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
-import { voltageReadingInput, voltageStartInput, type VoltageSheetView } from "@/lib/worksheets/reading-input";
+import { voltageReadingInput, voltageStartInput, type VoltageSheetView } from "@/lib/worksheets/voltage-input";
 import { MEASURED_AT, type MeasuredAt } from "@/lib/submissions/vocabulary";
 import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useSavedWorksheet, useStartWorksheet } from "@/components/hooks/use-worksheet";
@@ -11,7 +11,7 @@ import { FieldError, NumberInput, numberOrUndefined, PublishPanel, SavedEntries,
 
 // The voltage worksheet, saved on the server pair by pair (lib/worksheets/voltage.ts), so a
 // builder can pick it up again on a phone at the field. The server judges each new pair with the
-// earlier ones (lib/calibration/worksheets/voltage.ts) and answers with the worksheet computed.
+// earlier ones (lib/calibration/voltage.ts) and answers with the worksheet computed.
 
 const PLACE: Record<MeasuredAt, string> = { main_lead: "main lead", balance_outer_pins: "balance plug, outer pins" };
 const volts = (v: number) => `${formatFigure(v, 2)} V`;

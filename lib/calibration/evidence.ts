@@ -23,8 +23,8 @@ type Response = FirmwareFamily["voltageScaleResponse"];
 /**
  * How far a claimed scale may sit from the value its evidence implies before the submission is
  * flagged for a moderator: 2 % of the implied value. Our own rule, in line with common practice
- * (a fly-and-recharge calibration is usually called done within a few per cent; check-values.md
- * "Fly-and-recharge rule", common practice, no source). It only flags; it never refuses.
+ * (a fly-and-recharge calibration is usually called done within a few per cent:
+ * common practice, no source). It only flags; it never refuses.
  */
 export const EVIDENCE_TOLERANCE = 0.02;
 /**
@@ -59,8 +59,8 @@ function scaleBy(response: Response, setting: number, readingRatio: number): num
 }
 
 /**
- * Voltage check with a multimeter (check-values.md, "Fly-and-recharge rule", last point: common
- * practice, no source). The display shows V_d = V_true × (ratio_set ÷ ratio_true), so
+ * Voltage check with a multimeter (common practice, no source). The display shows
+ * V_d = V_true × (ratio_set ÷ ratio_true), so
  *   proportional unit: new = old × measured ÷ reported;
  *   inverse unit:      new = old × reported ÷ measured.
  */
@@ -69,7 +69,7 @@ export function impliedVoltageScale(scaleUsed: number, reportedVolts: number, me
 }
 
 /**
- * One fly-and-recharge cycle (check-values.md, common practice, no source): the charger's mAh is
+ * One fly-and-recharge cycle (common practice, no source): the charger's mAh is
  * the truth, the display's mAh the reading, so
  *   inverse unit (mV/A):      implied = scale × reported ÷ charged;
  *   proportional unit (A/V):  implied = scale × charged ÷ reported.
@@ -98,7 +98,7 @@ export type BenchImplication = {
  * output at zero current). With the scale set to s_u and the offset to o_u the firmware displays
  *   offset in mV:  I_d = (V − o_u) / s_u             = (s/s_u)·I + (z − o_u)/s_u
  *   offset in mA:  I_d = V / s_u − o_u/1000          = (s/s_u)·I + z/s_u − o_u/1000
- * (the offset is subtracted, in the family's unit; lib/demo/catalogue.ts offsetSetting reads the
+ * (the offset is subtracted, in the family's unit; seeders/demo/catalogue.ts offsetSetting reads the
  * offset the same way). Matching I_d = gain·I + intercept term by term:
  *   gain = s/s_u, so the scale moves like a reading ratio of 1/gain: an inverse (mV/A) setting
  *     becomes old × gain, a proportional (A/V) one old ÷ gain;

@@ -1,11 +1,11 @@
-import { packWarnings, type PackWarnings } from "@/lib/calibration/worksheets";
-import type { FieldIssue } from "@/lib/calibration/worksheets";
+import { packWarnings, type PackWarnings } from "@/lib/calibration";
+import type { FieldIssue } from "@/lib/calibration";
 import { db, Pack, PackCharge } from "@/models";
 import { notYours, parseOrThrow } from "./owned";
 import { chargeInput, packInput } from "./schemas";
 
 // A builder's packs and their charge logs. The cycle count, the usable-capacity estimate and the
-// suggested OSD warnings come from lib/calibration/worksheets/pack.ts; nothing is re-derived here.
+// suggested OSD warnings come from lib/calibration/pack.ts; nothing is re-derived here.
 
 export type ChargeView = { id: number; chargedOn: string; chargedMah: number; restingVoltsPerCell: number | null; afterFullFlight: boolean };
 export type PackView = {

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { CHEMISTRIES, CHEMISTRY_LIMITS } from "@/lib/calibration/worksheets/chemistry";
-import { cellsField, mahField, numberField } from "@/lib/calibration/worksheets/fields";
+import { CHEMISTRIES, CHEMISTRY_LIMITS } from "@/lib/calibration/chemistry";
+import { cellsField, mahField, numberField } from "@/lib/calibration/fields";
 
 // The garage's input rules, shared by the route handlers and the forms (zod on both sides). Bounds
 // match the CHECKs of migrations/20261209000100…300; messages name the field in plain words.

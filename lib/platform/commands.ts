@@ -1,7 +1,7 @@
 import path from "node:path";
 import { env } from "@/lib/env";
 import { runApp } from "./run-app";
-import { runLookupBenchmark } from "@/lib/bench/run";
+import { runLookupBenchmark } from "@/tests/benchmarks/run";
 import { runStatsRebuild } from "./run-task";
 import { runTests } from "./test-run";
 
@@ -10,7 +10,7 @@ const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   dev: () => runApp("dev"),
   test: (args) => runTests(args),
   "stats:rebuild": () => runStatsRebuild(),
-  "bench:lookup": (args) => runLookupBenchmark(args),
+  "benchmark:lookup": (args) => runLookupBenchmark(args),
 };
 
 /** Dispatches `npm start|run dev|test` (see bootstrap.mjs) and exits with the command's status. */

@@ -1,15 +1,14 @@
 import type { Transaction } from "sequelize";
 import { badRequest } from "@/lib/api/errors";
-import { benchWorksheet, type FieldIssue } from "@/lib/calibration/worksheets";
+import { benchWorksheet, type FieldIssue } from "@/lib/calibration";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { db, FirmwareFamily, Quad, Worksheet, WorksheetBenchPoint } from "@/models";
-import { benchPointInput, benchStartInput, type BenchPointRow, type BenchSheetView } from "./reading-input";
-import { ownSheet, publishedSetting, quadContext } from "./recharge";
-import { assertOpen, checkSetting, entriesOf, newEntryErrors, takeBackLast } from "./saved-entries";
+import { benchPointInput, benchStartInput, type BenchPointRow, type BenchSheetView } from "./bench-input";
+import { assertOpen, checkSetting, entriesOf, newEntryErrors, ownSheet, publishedSetting, quadContext, takeBackLast } from "./shared";
 
 // Server side of the bench worksheet: start it on a quad with the current scale and offset in
 // force, add one clamp-meter point per request (fitted with every earlier point by
-// lib/calibration/worksheets/bench.ts and stored whole in a transaction, or refused with
+// lib/calibration/bench.ts and stored whole in a transaction, or refused with
 // field-level errors and nothing stored), take back the last point, read it back computed.
 // Publishing is lib/worksheets/publish.ts.
 

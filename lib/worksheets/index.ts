@@ -2,7 +2,8 @@ import { QueryTypes } from "sequelize";
 import { badRequest } from "@/lib/api/errors";
 import { db, WORKSHEET_KINDS, type WorksheetKind } from "@/models";
 import { addBenchPoint, getBenchWorksheet, removeBenchPoint, startBenchWorksheet } from "./bench";
-import { addRechargeStep, getRechargeWorksheet, ownSheet, removeRechargeStep, startRechargeWorksheet } from "./recharge";
+import { addRechargeStep, getRechargeWorksheet, removeRechargeStep, startRechargeWorksheet } from "./recharge";
+import { ownSheet } from "./shared";
 import { addVoltageReading, getVoltageWorksheet, removeVoltageReading, startVoltageWorksheet } from "./voltage";
 
 // Public face of lib/worksheets: the routes under /api/v1/garage/worksheets and the garage pages

@@ -3,7 +3,8 @@ import { ApiError, badRequest } from "@/lib/api/errors";
 import { createSubmission, type SubmissionView } from "@/lib/submissions";
 import { db, Quad, Worksheet } from "@/models";
 import { benchSubmissionBody, getBenchWorksheet } from "./bench";
-import { getRechargeWorksheet, ownSheet, rechargeSubmissionBody } from "./recharge";
+import { getRechargeWorksheet, rechargeSubmissionBody } from "./recharge";
+import { ownSheet } from "./shared";
 import { getVoltageWorksheet, voltageSubmissionBody } from "./voltage";
 
 // "Publish to Shuntbook" for every kind of worksheet: the worksheet becomes an ordinary pending

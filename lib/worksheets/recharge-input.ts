@@ -1,12 +1,13 @@
 import { z } from "zod";
-import type { FieldIssue, RechargeWorksheet } from "@/lib/calibration/worksheets";
-import { cellsField, mahField, numberField } from "@/lib/calibration/worksheets/fields";
+import type { FieldIssue, RechargeWorksheet } from "@/lib/calibration";
+import { cellsField, mahField, numberField } from "@/lib/calibration/fields";
+import { quadIdField, type Removed } from "./common-input";
 
 // The fly-and-recharge worksheet's inputs and its computed view, free of server imports so the
 // page's form checks with the very schema the route handler uses.
 
 export const startInput = z.object({
-  quadId: z.number({ error: "Choose the quad" }).int().positive("Choose the quad"),
+  quadId: quadIdField,
   ratedMah: mahField("The pack's rated mAh").int("The rated mAh is a whole number, as printed on the label"),
   cells: cellsField(),
   startingScale: numberField("The starting current scale").int("A setting is a whole number").positive("The starting current scale must be more than 0").nullish(),
@@ -33,7 +34,7 @@ export type WorksheetView = {
   startingSource: "published" | "own";
   steps: RechargeStepRow[];
   /** Iterations the builder took back: kept and shown, never counted or published. */
-  removed: Array<RechargeStepRow & { removedAt: string }>;
+  removed: Array<Removed<RechargeStepRow>>;
   result: RechargeWorksheet | null;
   warnings: FieldIssue[];
   submissionId: number | null;

@@ -1,36 +1,14 @@
 import { ApiError, badRequest } from "@/lib/api/errors";
-import { rechargeWorksheet } from "@/lib/calibration/worksheets";
+import { rechargeWorksheet } from "@/lib/calibration";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
-import { getBoardValues } from "@/lib/published/board-values";
 import { startInput, stepInput, type RechargeStepRow, type WorksheetView } from "./recharge-input";
-import { entriesOf, newEntryErrors, takeBackLast } from "./saved-entries";
-import { BoardModel, BoardRevision, db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
+import { entriesOf, newEntryErrors, ownSheet, publishedSetting, quadContext, takeBackLast } from "./shared";
+import { db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
 
 // Server side of the fly-and-recharge worksheet: start it on a quad, add one iteration per request
-// (checked with every earlier one by lib/calibration/worksheets/recharge.ts and stored whole in a
+// (checked with every earlier one by lib/calibration/recharge.ts and stored whole in a
 // transaction, or refused with field-level errors and nothing stored), read it back computed, and
 // publish it as an ordinary pending submission (lib/worksheets/publish.ts, one transaction for every kind).
-
-export { startInput, stepInput, type WorksheetView };
-
-// quadContext and ownSheet serve the voltage and bench worksheets too (lib/worksheets/voltage.ts, bench.ts)
-export async function quadContext(ownerId: string, quadId: number, setting = "current-scale") {
-  db();
-  const quad = await Quad.findOne({ where: { id: quadId, ownerId } });
-  if (!quad) throw notYours("quad");
-  if (!quad.firmwareFamilyId) throw badRequest({ quadId: [`Give this quad its firmware family first: the worksheet follows that family's ${setting} rules`] });
-  if (!quad.boardRevisionId) throw badRequest({ quadId: ["Give this quad its board revision first: its published value is the worksheet's starting point and the result is filed under it"] });
-  const family = (await FirmwareFamily.findByPk(quad.firmwareFamilyId))!;
-  const revision = (await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as BoardRevision & { boardModel: BoardModel };
-  return { quad, family, revision };
-}
-
-/** The board's published recommended setting for this revision and family, or null. */
-export async function publishedSetting(boardSlug: string, revisionLabel: string, familySlug: string, key: "currentScale" | "voltageScale" | "currentOffset"): Promise<number | null> {
-  const selected = await getBoardValues(boardSlug, { revision: revisionLabel, family: familySlug });
-  if (!selected?.ok) return null;
-  return selected.values.revisions[0]?.families[0]?.[key]?.recommended.setting ?? null;
-}
 
 export async function startRechargeWorksheet(ownerId: string, input: unknown): Promise<WorksheetView> {
   const data = parseOrThrow(startInput, input);
@@ -45,13 +23,6 @@ export async function startRechargeWorksheet(ownerId: string, input: unknown): P
     startingScale, startingSource: published != null ? "published" : "own",
   });
   return getRechargeWorksheet(ownerId, sheet.id);
-}
-
-export async function ownSheet(ownerId: string, id: number, transaction?: import("sequelize").Transaction) {
-  db();
-  const sheet = await Worksheet.findOne({ where: { id, ownerId }, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
-  if (!sheet) throw notYours("worksheet");
-  return sheet;
 }
 
 async function ownRechargeSheet(ownerId: string, id: number, transaction?: import("sequelize").Transaction) {

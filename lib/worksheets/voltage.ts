@@ -1,15 +1,14 @@
 import type { Transaction } from "sequelize";
 import { badRequest } from "@/lib/api/errors";
-import { voltageWorksheet } from "@/lib/calibration/worksheets";
+import { voltageWorksheet } from "@/lib/calibration";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { db, FirmwareFamily, Quad, Worksheet, WorksheetVoltageReading } from "@/models";
-import { voltageReadingInput, voltageStartInput, type VoltageReadingRow, type VoltageSheetView } from "./reading-input";
-import { ownSheet, publishedSetting, quadContext } from "./recharge";
-import { assertOpen, checkSetting, entriesOf, newEntryErrors, takeBackLast } from "./saved-entries";
+import { voltageReadingInput, voltageStartInput, type VoltageReadingRow, type VoltageSheetView } from "./voltage-input";
+import { assertOpen, checkSetting, entriesOf, newEntryErrors, ownSheet, publishedSetting, quadContext, takeBackLast } from "./shared";
 
 // Server side of the voltage worksheet: start it on a quad with the voltage scale in force, add
 // one display/multimeter pair per request (judged with every earlier pair by
-// lib/calibration/worksheets/voltage.ts and stored whole in a transaction, or refused with
+// lib/calibration/voltage.ts and stored whole in a transaction, or refused with
 // field-level errors and nothing stored), take back the last pair, read it back computed.
 // Publishing is lib/worksheets/publish.ts.
 

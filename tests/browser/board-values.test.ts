@@ -2,7 +2,7 @@ import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO_LANDMARKS } from "@/lib/demo/scenario";
+import { DEMO_LANDMARKS } from "@/seeders/demo/scenario";
 import type { BoardValues, QuantityKey } from "@/lib/published/board-values-types";
 import { METHOD_LABELS } from "@/lib/submissions/vocabulary";
 import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";

@@ -2,8 +2,8 @@ import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO_LANDMARKS, buildDemoScenario } from "@/lib/demo/scenario";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_LANDMARKS, buildDemoScenario } from "@/seeders/demo/scenario";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { linkIn, waitForMails } from "@/tests/support/auth";
 import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 

@@ -2,7 +2,7 @@ import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
+import { DEMO_ACCOUNTS } from "@/seeders/demo/accounts";
 import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // A moderator's pass through the queue in Chromium against the build `npm test` serves

@@ -2,7 +2,7 @@ import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO_LANDMARKS, buildDemoScenario } from "@/lib/demo/scenario";
+import { DEMO_LANDMARKS, buildDemoScenario } from "@/seeders/demo/scenario";
 import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
 
 // The first pages in a real browser against the production build that `npm test` serves on a

@@ -10,7 +10,7 @@ import { authenticate } from "@/lib/auth/accounts";
 import { currentUser } from "@/lib/auth/guard";
 import { hashResetToken } from "@/lib/auth/password-reset";
 import { LIMITS } from "@/lib/auth/rate-limit";
-import { DEMO_ACCOUNT_LIST } from "@/lib/demo/accounts";
+import { DEMO_ACCOUNT_LIST } from "@/seeders/demo/accounts";
 import { drainJobsOnce, stopBoss } from "@/lib/jobs";
 import { db, PasswordResetToken, User } from "@/models";
 import { callRoute, inRequest, linkIn, sessionCookieFor, testAccount, waitForMails, withCookie } from "@/tests/support/auth";

@@ -6,7 +6,7 @@ import { GET, POST } from "@/app/api/auth/[...nextauth]/route";
 import { currentUser } from "@/lib/auth/guard";
 import { LIMITS } from "@/lib/auth/rate-limit";
 import { sessionCookieName } from "@/lib/auth/session-cookie";
-import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
+import { DEMO_ACCOUNTS } from "@/seeders/demo/accounts";
 import { env } from "@/lib/env";
 import { stopBoss } from "@/lib/jobs";
 import { db, User, VerificationToken } from "@/models";

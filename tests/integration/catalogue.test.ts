@@ -5,14 +5,14 @@ import { getHomeCounts } from "@/lib/catalogue/home-counts";
 import { listBoards, type CatalogueRow } from "@/lib/catalogue/list-boards";
 import { listMountingPatterns } from "@/lib/catalogue/mounting-patterns";
 import { DEFAULT_PAGE_SIZE, parseCatalogueParams, type CatalogueParams } from "@/lib/catalogue/search-params";
-import { DEMO_LANDMARKS, buildDemoScenario } from "@/lib/demo/scenario";
+import { DEMO_LANDMARKS, buildDemoScenario } from "@/seeders/demo/scenario";
 import { db } from "@/models";
 import { BOARD_KINDS } from "@/models/BoardModel";
 import { useTestDatabase } from "@/tests/support/database";
 
 useTestDatabase("seeded");
 
-// What the seeder inserted, rebuilt from the same source (lib/demo) so that expectations follow
+// What the seeder inserted, rebuilt from the same source (seeders/demo) so that expectations follow
 // the scenario instead of hard-coded counts. The catalogue part does not depend on the date.
 const scenario = buildDemoScenario();
 const allSlugs = scenario.boardModels.map((b) => b.slug);

@@ -1,6 +1,6 @@
 import { QueryTypes } from "sequelize";
 import { afterAll, describe, expect, it } from "vitest";
-import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
+import { DEMO_ACCOUNTS } from "@/seeders/demo/accounts";
 import { stopBoss } from "@/lib/jobs";
 import { getValueHistory, listAuditEvents, revertEvent } from "@/lib/moderation";
 import { db } from "@/models";
@@ -16,6 +16,13 @@ afterAll(() => stopBoss());
 const select = <T extends object>(sql: string, replacements: Record<string, unknown> = {}) => db().query<T>(sql, { type: QueryTypes.SELECT, replacements });
 
 describe("the seeded demo", () => {
+  it("was inserted by the one seeder file; the scenario's modules in seeders/demo/ are not seeders", async () => {
+    // lib/db/migrate.ts globs seeders/*.{ts,js} without descending into folders (and sequelize-cli reads
+    // only the top level of its seeders-path too, from memory), so seeders/demo/*.ts are never run
+    const rows = await select<{ name: string }>(`SELECT name FROM "SequelizeData" ORDER BY name`);
+    expect(rows.map((r) => r.name)).toEqual(["20261202000100-demo-scenario.ts"]);
+  });
+
   it("has evidence rows for every measured submission and none for the unverified, with a few mismatches flagged", async () => {
     const rows = await select<{ method: string; n: number; without: number; mismatched: number; summarised: number }>(`
       SELECT s.method, count(*)::int AS n,

@@ -51,7 +51,7 @@ const added = async (id: number, body: unknown) => {
 };
 
 // fixture family: voltage scale in V/V, 'proportional', so next = scale × measured ÷ reported
-// (check-values.md "Fly-and-recharge rule", last point: common practice, no source)
+// (common practice, no source)
 const reading = (reportedVolts: number, measuredVolts: number, cells = 4) => ({ cells, reportedVolts, measuredVolts, measuredAt: "main_lead" });
 
 describe("voltage worksheet, saved reading by reading", () => {

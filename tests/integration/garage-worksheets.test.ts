@@ -44,7 +44,7 @@ describe("fly-and-recharge worksheet, saved step by step", () => {
     expect(sheet).toMatchObject({ startingScale: 400, startingSource: "own", steps: [] });
 
     // fixture family: mV/A, an 'inverse' unit, so next = scale × reported ÷ charged
-    // (check-values.md "Fly-and-recharge rule": common practice, no source): 400 × 1200 ÷ 1300 = 369.23…
+    // (the fly-and-recharge rule: common practice, no source): 400 × 1200 ÷ 1300 = 369.23…
     let view = (await (await callRoute(postStep, req(`/x`, cookie, { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }), params(sheet.id))).json()).worksheet;
     expect(view.result.iterations[0].impliedScale).toBeCloseTo((400 * 1200) / 1300, 9);
     expect(view.result.next.down.setting).toBe(369);

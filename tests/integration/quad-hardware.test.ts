@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { quadHardware } from "@/lib/worksheets/quad-hardware";
+import { quadHardware } from "@/lib/worksheets/hardware";
 import { BoardRevision, db } from "@/models";
 import { useTestDatabase } from "@/tests/support/database";
 import { insertFixture, type Fixture } from "@/tests/support/fixtures";

@@ -13,7 +13,6 @@ import { summarise } from "@/lib/stats";
 import { loadSubmissionView, type SubmissionView } from "@/lib/submissions";
 import { placeValue } from "@/lib/submissions/placement";
 import { db, EvidencePhoto, Submission, User } from "@/models";
-import { decideAction } from "./actions";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Review a submission" };
@@ -139,7 +138,7 @@ export default async function ReviewPage({ params }: Props) {
             </ul>
           </section>
           {/* always mounted: after a decision the page refreshes as decided, and the form keeps its confirmation */}
-          <DecisionForm id={s.id} version={s.version} act={decideAction} open={open} />
+          <DecisionForm id={s.id} version={s.version} open={open} />
         </div>
       </div>
     </div>

@@ -1,4 +1,4 @@
-import { listQueue } from "@/lib/moderation/queue";
+import { listQueue, type QueueCounts, type QueueRow } from "@/lib/moderation/queue";
 import { QUEUE_AGES, QUEUE_FLAGS, QUEUE_SORTS, type QueueAge, type QueueFlag, type QueueSort } from "@/lib/moderation/vocabulary";
 
 // The page's side of the queue: the URL's params (lenient: anything unknown falls back to the
@@ -8,24 +8,6 @@ import { QUEUE_AGES, QUEUE_FLAGS, QUEUE_SORTS, type QueueAge, type QueueFlag, ty
 export type { QueueAge, QueueFlag, QueueSort };
 export type QueueQuery = { page: number; sort: QueueSort; board: string | null; flag: QueueFlag | null; age: QueueAge | null };
 
-export type QueueRow = {
-  id: number;
-  version: number;
-  createdAt: string;
-  boardName: string;
-  revision: string;
-  family: string;
-  contributor: string;
-  voltageScale: number | null;
-  currentScale: number | null;
-  currentOffset: number | null;
-  maxAbsZ: number | null;
-  outlier: boolean;
-  mismatch: boolean;
-  newContributor: boolean;
-};
-
-export type QueueCounts = Record<QueueFlag | "all", number>;
 export type QueueData = { rows: QueueRow[]; total: number; pageCount: number; counts: QueueCounts; boards: { slug: string; name: string }[] };
 
 const one = <T extends readonly string[]>(list: T, v: string | undefined): T[number] | null => (v && (list as readonly string[]).includes(v) ? v : null);
@@ -63,22 +45,7 @@ export async function loadQueue(q: QueueQuery): Promise<QueueData> {
     throw error;
   });
   return {
-    rows: page.rows.map((r) => ({
-      id: r.id,
-      version: r.version,
-      createdAt: r.createdAt,
-      boardName: r.board.name,
-      revision: r.revision.label,
-      family: r.family.name,
-      contributor: r.contributor.name,
-      voltageScale: r.values.voltageScale,
-      currentScale: r.values.currentScale,
-      currentOffset: r.values.currentOffset,
-      maxAbsZ: r.flags.maxAbsZ,
-      outlier: r.flags.outlier,
-      mismatch: r.flags.mismatch,
-      newContributor: r.flags.newContributor,
-    })),
+    rows: page.rows,
     total: page.total,
     pageCount: page.pageCount,
     counts: page.counts,

@@ -24,10 +24,10 @@ import {
   shuntSensitivityMvPerAmp,
   voltageScaleSettingFromRatio,
 } from "@/lib/calibration/units";
-import { offsetSetting } from "@/lib/demo/catalogue";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { offsetSetting } from "@/seeders/demo/catalogue";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 
-// Outside references: /work/shared/reference/check-values.md.
+// Outside references are named beside each checked value.
 const RECHARGE_SOURCE = "fly-and-recharge rule (common practice, no source)";
 const DIVIDER_SOURCE = "voltage divider Vout = Vin·R2/(R1+R2), Horowitz & Hill 3rd ed. §1.2.3 (from memory)";
 const OHM_SOURCE = "Ohm's law: sensitivity = R_shunt × gain";
@@ -38,7 +38,7 @@ const [VV_MVA_MV, VV_AV_MA, MVV_MVA_MV] = DEMO_FIRMWARE_FAMILIES;
 const units = (f: (typeof DEMO_FIRMWARE_FAMILIES)[number]): EvidenceUnits & typeof f => f;
 
 describe(`voltage check — ${DIVIDER_SOURCE}`, () => {
-  // 10 k / 1 k divides by 11: 16.8 V reaches the pin as 1.527273 V (check-values table)
+  // 10 k / 1 k divides by 11: 16.8 V reaches the pin as 1.527273 V (divider formula, by hand)
   const ratioTrue = dividerRatio(10_000, 1_000);
   const packVolts = 16.8;
 
@@ -54,7 +54,7 @@ describe(`voltage check — ${DIVIDER_SOURCE}`, () => {
     expect(impliedVoltageScale(used, reported, packVolts, family.voltageScaleResponse)).toBeCloseTo(trueSetting, 9);
   });
 
-  it("proportional: new = old × measured ÷ reported; inverse divides instead (check-values, common practice)", () => {
+  it("proportional: new = old × measured ÷ reported; inverse divides instead (common practice, no source)", () => {
     expect(impliedVoltageScale(100, 15.2727, 16.8, "proportional")).toBeCloseTo((100 * 16.8) / 15.2727, 12);
     expect(impliedVoltageScale(1000, 15.2727, 16.8, "inverse")).toBeCloseTo((1000 * 15.2727) / 16.8, 12);
   });
@@ -69,7 +69,7 @@ describe(`fly-and-recharge cycles — ${RECHARGE_SOURCE}`, () => {
     expect(impliedCurrentScaleFromCycle({ scaleUsed: 2500, reportedMah: 1200, chargedMah: 1300 }, "proportional")).toBeCloseTo((2500 * 1300) / 1200, 12);
   });
 
-  // A 0.5 mΩ shunt behind a ×50 amplifier is 25 mV/A (check-values "Shunt and amplifier").
+  // A 0.5 mΩ shunt behind a ×50 amplifier is 25 mV/A (Ohm's law).
   const sensitivity = shuntSensitivityMvPerAmp(0.5, 50);
   it.each([VV_MVA_MV, VV_AV_MA])(`$slug ($currentScaleUnit): a simulated cycle on a 25 mV/A sensor (${OHM_SOURCE}) implies its setting`, (family) => {
     expect(sensitivity).toBe(25);
@@ -101,7 +101,7 @@ describe(`bench points — least squares; ${OHM_SOURCE}`, () => {
     const points = currents.map((measuredAmps) => ({ measuredAmps, reportedAmps: displayed(family, scaleUsed, offsetUsed, measuredAmps) }));
     const implied = impliedFromBench({ scaleUsed, offsetUsed, points }, family);
     expect(implied.impliedScale).toBeCloseTo(currentScaleSettingFromSensitivity(sensitivity, family), 6);
-    // the offset the demo scenario would store for this sensor (lib/demo/catalogue.ts reads offsets the same way)
+    // the offset the demo scenario would store for this sensor (seeders/demo/catalogue.ts reads offsets the same way)
     const truth = { ratio: 11, sensitivityMvPerAmp: sensitivity, zeroErrorMv, ratioPublished: true, sensitivityPublished: true };
     expect(implied.impliedOffset).toBeCloseTo(offsetSetting(truth, family), 6);
     expect(implied.r).toBeCloseTo(1, 12);
@@ -126,7 +126,7 @@ describe(`bench points — least squares; ${OHM_SOURCE}`, () => {
 });
 
 describe(`least squares — ${ANSCOMBE_SOURCE}, data from the npm package vega-datasets`, () => {
-  // vega-datasets is ESM with only "." exported; read the file beside its build (check-values.md)
+  // vega-datasets is ESM with only "." exported; read the file beside its build
   const require = createRequire(__filename);
   const file = path.join(path.dirname(require.resolve("vega-datasets")), "../data/anscombe.json");
   const rows = JSON.parse(readFileSync(file, "utf8")) as { Series: string; X: number; Y: number }[];
@@ -148,7 +148,7 @@ describe(`least squares — ${ANSCOMBE_SOURCE}, data from the npm package vega-d
     expect(Math.abs(fit.slope - slope)).toBeLessThan(0.0001);
     expect(Math.abs(fit.intercept - intercept)).toBeLessThan(0.0001);
     expect(Math.abs(fit.r! - r)).toBeLessThan(0.0001);
-    // the published figures, at check-values' tolerances
+    // the published figures, at their published rounding
     expect(Math.abs(fit.slope - 0.5)).toBeLessThanOrEqual(0.001);
     expect(Math.abs(fit.intercept - 3)).toBeLessThanOrEqual(0.005);
     expect(Math.abs(fit.r! - 0.816)).toBeLessThanOrEqual(0.001);

@@ -15,12 +15,12 @@ import {
   type VoltageUnits,
 } from "@/lib/calibration/units";
 
-// Worked examples come from /work/shared/reference/check-values.md, section "Electronics".
+// Worked examples are computed by hand from the formulas named in each describe.
 const DIVIDER_SOURCE = "voltage divider formula Vout = Vin·R2/(R1+R2), Horowitz & Hill 3rd ed. §1.2.3 (from memory)";
 const SHUNT_SOURCE = "Ohm's law, sensitivity = R_shunt × gain";
 
 describe(`divider ratio — ${DIVIDER_SOURCE}`, () => {
-  // Vin, R1 (top), R2 (bottom), Vout from the check-values table
+  // Vin, R1 (top), R2 (bottom), Vout by the divider formula
   const table: Array<[number, number, number, number]> = [
     [16.8, 10_000, 1_000, 1.527273],
     [25.2, 100_000, 10_000, 2.290909],
@@ -31,7 +31,7 @@ describe(`divider ratio — ${DIVIDER_SOURCE}`, () => {
     expect(vin / dividerRatio(top, bottom)).toBeCloseTo(vout, 6);
   });
 
-  it("a 10 k / 1 k pair divides by 11, not 10 (check-values: '1:10' is ambiguous)", () => {
+  it("a 10 k / 1 k pair divides by 11, not 10 ('1:10' is ambiguous: common practice, no source)", () => {
     expect(dividerRatio(10_000, 1_000)).toBe(11);
   });
 
@@ -49,7 +49,7 @@ describe(`divider ratio — ${DIVIDER_SOURCE}`, () => {
 });
 
 describe(`shunt and amplifier sensitivity — ${SHUNT_SOURCE}`, () => {
-  // shunt mΩ, gain V/V, sensitivity mV/A, test current A, output V (check-values table)
+  // shunt mΩ, gain V/V, sensitivity mV/A, test current A, output V (Ohm's law, by hand)
   const table: Array<[number, number, number, number, number]> = [
     [0.5, 50, 25, 40, 1.0],
     [0.25, 20, 5, 100, 0.5],

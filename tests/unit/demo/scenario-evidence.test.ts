@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { impliedCurrentScaleFromCycle } from "@/lib/calibration/evidence";
 import { roundSetting } from "@/lib/calibration/units";
-import { demoPayload } from "@/lib/demo/evidence";
-import { buildDemoScenario } from "@/lib/demo/scenario";
+import { demoPayload } from "@/seeders/demo/evidence";
+import { buildDemoScenario } from "@/seeders/demo/scenario";
 import { QUANTITIES } from "@/lib/published/quantities";
 import { recommendValue, summarise } from "@/lib/stats";
 import { evidenceVerdict } from "@/lib/submissions/evidence-rows";
@@ -10,7 +10,7 @@ import { packVoltsRange } from "@/lib/submissions/limits";
 import { fieldErrorsByPath, submissionSchema } from "@/lib/submissions/schema";
 import type { FirmwareFamily } from "@/models/FirmwareFamily";
 
-// The demo's evidence and moderation past (lib/demo/evidence.ts, lib/demo/history.ts), without a
+// The demo's evidence and moderation past (seeders/demo/evidence.ts, seeders/demo/history.ts), without a
 // database: every submission passes THE submission schema with its family's and board's limits,
 // its stored verdict is what evidenceVerdict says, and the value history replays to the figures
 // board_stats publishes. The CHECK constraints of migrations/20261205000200…400 are restated here.
@@ -58,7 +58,7 @@ describe("demo evidence", () => {
   });
 
   it("recharge cycles follow new = old × reported ÷ charged (mV/A; inverse for A/V) to the value sent in", () => {
-    // check-values.md "Fly-and-recharge rule" (common practice, no source)
+    // the fly-and-recharge rule (common practice, no source)
     for (const s of scenario.submissions.filter((x) => x.method === "fly_recharge")) {
       const family = familyBySlug.get(s.familySlug)!;
       const c = s.evidence.cycles;

@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { dividerRatio, revisionDividerRatio, revisionSensitivityMvPerAmp } from "@/lib/calibration/units";
-import { DEMO_ACCOUNTS } from "@/lib/demo/accounts";
-import { minimumRatioFor } from "@/lib/demo/hardware";
-import { DEMO_LANDMARKS, buildDemoScenario } from "@/lib/demo/scenario";
+import { DEMO_ACCOUNTS } from "@/seeders/demo/accounts";
+import { minimumRatioFor } from "@/seeders/demo/hardware";
+import { DEMO_LANDMARKS, buildDemoScenario } from "@/seeders/demo/scenario";
 import { BOARD_KINDS } from "@/models/BoardModel";
 import { METHODS, SENSING_SOURCES, STATUSES } from "@/models/Submission";
 import { ROLES } from "@/models/User";
@@ -117,7 +117,7 @@ describe("catalogue rows satisfy the schema", () => {
     expect(scenario.boardRevisions.some((r) => r.currentSensor === "hall")).toBe(true);
   });
 
-  // check-values.md "Divider headroom with a 3.3 V ADC" (derived there): ratio ≥ pack V / 3.3,
+  // Divider headroom with a 3.3 V ADC (derived from the divider formula): ratio ≥ pack V / 3.3,
   // here for HV cells at 4.35 V (common practice). 8S HV needs 10.55, which ÷11 covers.
   it("every divider, published or invented, keeps a full HV pack of the board's max cells under 3.3 V", () => {
     expect(minimumRatioFor(8)).toBeCloseTo(10.545, 2);
@@ -153,7 +153,7 @@ describe("catalogue rows satisfy the schema", () => {
 });
 
 describe("true settings come from the hardware (lib/calibration/units.ts)", () => {
-  // check-values.md: a 10 k / 1 k pair divides by 11; 0.5 mΩ × 50 V/V = 25 mV/A (Ohm's law)
+  // divider formula: a 10 k / 1 k pair divides by 11; 0.5 mΩ × 50 V/V = 25 mV/A (Ohm's law)
   it("a ÷11 revision's true voltage scale is 110 / 1100 / 909.09 steps in the three families", () => {
     const r = scenario.boardRevisions.find((x) => x.dividerTopOhms === 10_000 && x.dividerBottomOhms === 1_000)!;
     expect(revisionDividerRatio(r)).toBe(dividerRatio(10_000, 1_000));

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { DEMO_FIRMWARE_FAMILIES } from "@/lib/demo/firmware-families";
+import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { fieldErrorsByPath, submissionSchema, type SubmissionInput } from "@/lib/submissions/schema";
 
 // The one schema of a contribution, as the form and the API use it. Each refusal must land on the

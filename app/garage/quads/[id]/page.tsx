@@ -6,7 +6,7 @@ import { ApiError } from "@/lib/api/errors";
 import { requirePageUser } from "@/lib/auth";
 import { getQuad } from "@/lib/garage/quads";
 import { listQuadWorksheets } from "@/lib/worksheets";
-import { WORKSHEET_LABELS } from "@/lib/worksheets/reading-input";
+import { WORKSHEET_LABELS } from "@/lib/worksheets/common-input";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Quad" };

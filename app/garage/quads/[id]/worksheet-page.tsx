@@ -4,7 +4,7 @@ import type { ReactNode } from "react";
 import { ApiError } from "@/lib/api/errors";
 import { requirePageUser } from "@/lib/auth";
 import { getWorksheet, openWorksheetId, type AnyWorksheetView } from "@/lib/worksheets";
-import { quadWorksheetContext } from "@/lib/worksheets/quad-rules";
+import { quadWorksheetContext } from "@/lib/worksheets/page-context";
 
 type Context = Awaited<ReturnType<typeof quadWorksheetContext>> & { open: AnyWorksheetView | null };
 

@@ -7,7 +7,7 @@ import { VoltageSheet } from "@/components/worksheets/voltage-worksheet";
 import { ApiError } from "@/lib/api/errors";
 import { requirePageUser } from "@/lib/auth";
 import { getWorksheet } from "@/lib/worksheets";
-import { WORKSHEET_LABELS } from "@/lib/worksheets/reading-input";
+import { WORKSHEET_LABELS } from "@/lib/worksheets/common-input";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Worksheet" };

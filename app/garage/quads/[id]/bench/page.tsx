@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { BenchWorksheet } from "@/components/worksheets/bench-worksheet";
-import type { BenchSheetView } from "@/lib/worksheets/reading-input";
+import type { BenchSheetView } from "@/lib/worksheets/bench-input";
 import { QuadWorksheetPage } from "../worksheet-page";
 
 export const dynamic = "force-dynamic";

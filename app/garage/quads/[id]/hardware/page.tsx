@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { HardwareWorksheetForm } from "@/components/worksheets/hardware-worksheet";
 import type { QuadView } from "@/lib/garage/quads";
-import { quadHardware } from "@/lib/worksheets/quad-hardware";
+import { quadHardware } from "@/lib/worksheets/hardware";
 import { QuadWorksheetPage } from "../worksheet-page";
 
 export const dynamic = "force-dynamic";

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { VoltageWorksheet } from "@/components/worksheets/voltage-worksheet";
-import type { VoltageSheetView } from "@/lib/worksheets/reading-input";
+import type { VoltageSheetView } from "@/lib/worksheets/voltage-input";
 import { QuadWorksheetPage } from "../worksheet-page";
 
 export const dynamic = "force-dynamic";

@@ -3,7 +3,7 @@ import { signedIn } from "@/lib/auth";
 import { idFrom, parseOrThrow } from "@/lib/garage/owned";
 import { privateJson, readJsonBody, requestUser } from "@/lib/submissions/http";
 import { publishWorksheet } from "@/lib/worksheets";
-import { publishInput } from "@/lib/worksheets/reading-input";
+import { publishInput } from "@/lib/worksheets/publish-input";
 
 // "Publish to Shuntbook": the worksheet becomes a pending submission, moderated like any other;
 // submission, evidence and link in one transaction, so a second publish is a 409 and adds nothing.

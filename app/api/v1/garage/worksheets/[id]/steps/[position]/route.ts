@@ -3,7 +3,7 @@ import { signedIn } from "@/lib/auth";
 import { idFrom } from "@/lib/garage/owned";
 import { privateJson, requestUser } from "@/lib/submissions/http";
 import { removeWorksheetEntry } from "@/lib/worksheets";
-import { positionFrom } from "@/lib/worksheets/saved-entries";
+import { positionFrom } from "@/lib/worksheets/shared";
 
 // Take back the last iteration, voltage reading or bench point of an unpublished worksheet (position counts
 // from 0 and must be the last one). The row is kept, marked as taken back; the answer carries it.

@@ -1,0 +1,36 @@
+import type { WorksheetFamily } from "@/lib/calibration";
+import { getQuad, type QuadView } from "@/lib/garage/quads";
+import { BoardModel, BoardRevision, db, FirmwareFamily } from "@/models";
+import { publishedSetting } from "./shared";
+
+// What a worksheet page needs about a quad: its family's setting rules as a plain object (for the
+// browser), and the board's published recommended values as starting points.
+
+export type QuadWorksheetContext = {
+  quad: QuadView;
+  family: WorksheetFamily | null;
+  published: { voltageScale: number | null; currentScale: number | null; currentOffset: number | null };
+};
+
+export async function quadWorksheetContext(ownerId: string, quadId: number): Promise<QuadWorksheetContext> {
+  const quad = await getQuad(ownerId, quadId);
+  db();
+  const row = quad.firmwareFamilyId ? await FirmwareFamily.findByPk(quad.firmwareFamilyId) : null;
+  const revision = quad.boardRevisionId
+    ? ((await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as BoardRevision & { boardModel: BoardModel })
+    : null;
+  const lookup = (key: "voltageScale" | "currentScale" | "currentOffset") =>
+    row && revision ? publishedSetting(revision.boardModel.slug, revision.label, row.slug, key) : Promise.resolve(null);
+  const [voltageScale, currentScale, currentOffset] = await Promise.all([lookup("voltageScale"), lookup("currentScale"), lookup("currentOffset")]);
+  const family: WorksheetFamily | null = row
+    ? {
+        name: row.name,
+        voltageScaleUnit: row.voltageScaleUnit, voltageScaleStep: row.voltageScaleStep, voltageScaleResponse: row.voltageScaleResponse,
+        voltageScaleMin: row.voltageScaleMin, voltageScaleMax: row.voltageScaleMax,
+        currentScaleUnit: row.currentScaleUnit, currentScaleStep: row.currentScaleStep, currentScaleResponse: row.currentScaleResponse,
+        currentScaleMin: row.currentScaleMin, currentScaleMax: row.currentScaleMax,
+        currentOffsetUnit: row.currentOffsetUnit, currentOffsetStep: row.currentOffsetStep, currentOffsetMin: row.currentOffsetMin, currentOffsetMax: row.currentOffsetMax,
+      }
+    : null;
+  return { quad, family, published: { voltageScale, currentScale, currentOffset } };
+}

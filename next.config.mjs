@@ -1,6 +1,6 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
-  // Sequelize loads its dialect with a dynamic require; bundling it breaks that (see stack notes).
+  // Sequelize loads its dialect with a dynamic require; bundling it breaks that.
   serverExternalPackages: ["sequelize", "pg", "pg-hstore"],
   poweredByHeader: false,
   // Lets several checkouts' builds (or a benchmark and a test run) live side by side; declared

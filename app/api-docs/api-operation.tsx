@@ -1,4 +1,4 @@
-import type { OperationView } from "@/lib/api/openapi-view";
+import type { OperationView } from "@/lib/openapi/view";
 import { SchemaRows } from "./schema-table";
 
 // One endpoint of the API docs page: what it does, its parameters, its body, its responses, and a curl line.

@@ -1,4 +1,4 @@
-import type { FieldRow } from "@/lib/api/openapi-view";
+import type { FieldRow } from "@/lib/openapi/view";
 
 /** A table of fields, nested fields indented: for a component schema or a request body. */
 export function SchemaRows({ rows }: { rows: FieldRow[] }) {

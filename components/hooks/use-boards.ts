@@ -2,7 +2,7 @@
 
 import { useMutation, useQuery } from "@tanstack/react-query";
 import type { ChosenBoard } from "@/lib/submissions/form-data";
-import type { BoardDetailResponse, BoardListResponse } from "@/lib/api/schemas/boards";
+import type { BoardDetailResponse, BoardListResponse } from "@/lib/catalogue/api-schemas";
 import { apiFetch, type FallbackMessage } from "@/lib/client/api-fetch";
 
 // The catalogue as the contribution form reads it: the board search (GET /api/v1/boards?q=, the

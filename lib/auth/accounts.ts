@@ -1,5 +1,5 @@
 import { col, fn, UniqueConstraintError, where } from "sequelize";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { enqueue } from "@/lib/jobs";
 import { passwordChangedMail } from "@/lib/mail/templates";
 import { db, User } from "@/models";

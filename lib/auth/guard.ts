@@ -1,10 +1,8 @@
 import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
-import { ApiError } from "@/lib/api/errors";
-import type { ApiGuard } from "@/lib/api/guard";
+import { ApiError } from "@/lib/http/errors";
 import { db, User, type Role } from "@/models";
 import { roleSatisfies } from "./roles";
-import { assertSameOrigin } from "./same-origin";
 import { signInPath } from "./safe-next";
 import { decodeSessionToken, parseCookieHeader, sessionTokenFrom } from "./session-cookie";
 
@@ -45,14 +43,16 @@ export async function userFromRequest(request: Request): Promise<SessionUser | n
   return userForToken(sessionTokenFrom(parseCookieHeader(request.headers.get("cookie"))));
 }
 
-function checkRole(user: SessionUser, roles: readonly Role[]): SessionUser {
+/** `user` if it holds one of `roles` or a higher one, else ApiError(403) saying which role it needs. */
+export function checkRole(user: SessionUser, roles: readonly Role[]): SessionUser {
   if (!roleSatisfies(user.role, roles)) {
     throw new ApiError(403, `This needs the ${roles.join(" or ")} role; you are signed in as a ${user.role}.`);
   }
   return user;
 }
 
-function mustBeSignedIn(user: SessionUser | null): SessionUser {
+/** `user` if there is one, else ApiError(401). */
+export function mustBeSignedIn(user: SessionUser | null): SessionUser {
   if (!user) throw new ApiError(401, "Sign in first: this needs a Shuntbook account.");
   return user;
 }
@@ -79,18 +79,4 @@ export async function requirePageRole(nextPath: string, ...roles: Role[]): Promi
   const user = await requirePageUser(nextPath);
   if (!roleSatisfies(user.role, roles)) redirect(`/forbidden?needs=${encodeURIComponent(roles.join(","))}`);
   return user;
-}
-
-/** apiRoute guard: any signed-in user (401 otherwise; 403 for a write from another site's page). */
-export const signedIn: ApiGuard = async (request) => {
-  assertSameOrigin(request);
-  mustBeSignedIn(await userFromRequest(request));
-};
-
-/** apiRoute guard: a signed-in user with one of `roles` or higher (401 anonymous, 403 wrong role or another site's page). */
-export function role(...roles: Role[]): ApiGuard {
-  return async (request) => {
-    assertSameOrigin(request);
-    checkRole(mustBeSignedIn(await userFromRequest(request)), roles);
-  };
 }

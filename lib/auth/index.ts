@@ -4,8 +4,6 @@ export {
   requirePageUser,
   requireRole,
   requireUser,
-  role,
-  signedIn,
   userFromRequest,
   type SessionUser,
 } from "./guard";

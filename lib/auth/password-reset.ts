@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from "node:crypto";
 import { Op } from "sequelize";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { enqueue } from "@/lib/jobs";
 import { passwordChangedMail, passwordResetMail } from "@/lib/mail/templates";
 import { db, PasswordResetToken, User } from "@/models";

@@ -1,4 +1,4 @@
-import { tooManyRequests } from "./http";
+import { tooManyRequests } from "@/lib/http/respond";
 import { clearAttempts, clientIp, limitKey, spendAttempt } from "./rate-limit";
 
 // Rate limits in front of next-auth's own endpoints, which have no hook that sees the caller's

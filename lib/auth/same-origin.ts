@@ -1,4 +1,4 @@
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 
 // A second lock against cross-site requests, beside the session cookie's SameSite=Lax: a browser
 // names the page's origin on every POST/PATCH/PUT/DELETE, and it must be this site. Requests

@@ -5,6 +5,9 @@ import { z } from "zod";
 // would give. Plain zod only: this file is imported by client components.
 
 /** An e-mail address, trimmed and lower-cased: addresses are stored and compared in lower case. */
+/** The account endpoints' JSON body cap: these bodies are a few short fields, so 8 kB bounds the parser. */
+export const ACCOUNT_BODY_BYTES = 8 * 1024;
+
 export const emailField = z
   .string({ error: "Enter your e-mail address." })
   .trim()

@@ -1,10 +1,11 @@
 import type { z } from "zod";
-import { ApiError, badRequest } from "@/lib/api/errors";
+import { ApiError, badRequest } from "@/lib/http/errors";
 import type { QuantityKey } from "@/lib/published/board-values-types";
 import { db, type SubmissionStatus } from "@/models";
 import { getAuditEvent, type AuditEventView } from "./audit";
 import { flagsOfRow, scoredSubmission } from "./flags";
-import { ApproveBodySchema, BulkApproveBodySchema, fieldErrorsByPath, RejectBodySchema, RequestChangesBodySchema } from "./schemas";
+import { fieldErrorsOf } from "@/lib/http/field-errors";
+import { ApproveBodySchema, BulkApproveBodySchema, RejectBodySchema, RequestChangesBodySchema } from "./schemas";
 import { applyTransition, ModerationRefusal, type TransitionInput } from "./transition";
 import { QUEUE_FLAG_LABELS, type Decision } from "./vocabulary";
 
@@ -27,7 +28,7 @@ export type DecisionResult = {
 
 function parse<S extends z.ZodType>(schema: S, body: unknown): z.output<S> {
   const parsed = schema.safeParse(body ?? {});
-  if (!parsed.success) throw badRequest(fieldErrorsByPath(parsed.error.issues));
+  if (!parsed.success) throw badRequest(fieldErrorsOf(parsed.error.issues));
   return parsed.data;
 }
 

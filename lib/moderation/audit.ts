@@ -1,7 +1,7 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
-import { badRequest } from "@/lib/api/errors";
-import { parseQuery } from "@/lib/api/query";
+import { badRequest } from "@/lib/http/errors";
+import { parseQuery } from "@/lib/http/query";
 import { AUDIT_ACTIONS, AuditEvent, db, type AuditAction, type AuditEntityType, type Role, type SubmissionStatus } from "@/models";
 import { ACTION_LABELS } from "./vocabulary";
 

@@ -1,7 +1,7 @@
 import { QueryTypes } from "sequelize";
 import { z } from "zod";
-import { badRequest } from "@/lib/api/errors";
-import { parseQuery } from "@/lib/api/query";
+import { badRequest } from "@/lib/http/errors";
+import { parseQuery } from "@/lib/http/query";
 import type { QuantityKey } from "@/lib/published/board-values-types";
 import { db, type Method } from "@/models";
 import { FLAG_CONDITIONS, flaggedSql, flagsOfRow, type ScoredRow, type SubmissionFlags } from "./flags";
@@ -32,7 +32,7 @@ export const QueueParamsSchema = z.object({
   age: z.enum(QUEUE_AGES, { error: `age is one of: ${QUEUE_AGES.join(", ")}` }).nullable().default(null),
 });
 
-/** Query-string parameters (as lib/api/query's queryRecord gives them) to QueueParams, or ApiError 400 naming each bad one. */
+/** Query-string parameters (as lib/http/query's queryRecord gives them) to QueueParams, or ApiError 400 naming each bad one. */
 export function parseQueueParams(input: Record<string, string | string[] | undefined>): QueueParams {
   const parsed = parseQuery(QueueParamsSchema, input);
   if (!parsed.ok) throw badRequest(parsed.fieldErrors);

@@ -1,8 +1,9 @@
 import { UniqueConstraintError } from "sequelize";
-import { badRequest } from "@/lib/api/errors";
+import { badRequest } from "@/lib/http/errors";
 import { db, STATUSES } from "@/models";
 import { getAuditEvent, type SubmissionState } from "./audit";
-import { fieldErrorsByPath, RevertBodySchema } from "./schemas";
+import { fieldErrorsOf } from "@/lib/http/field-errors";
+import { RevertBodySchema } from "./schemas";
 import { applyTransition, ModerationRefusal } from "./transition";
 import type { Actor, DecisionResult } from "./actions";
 
@@ -25,7 +26,7 @@ function submissionState(value: Record<string, unknown>): SubmissionState | null
 /** Reverts event `eventId`; body { reason }. 404 unknown event, 409 when it cannot be undone (see above). */
 export async function revertEvent(actor: Actor, eventId: number, body: unknown): Promise<DecisionResult> {
   const parsed = RevertBodySchema.safeParse(body ?? {});
-  if (!parsed.success) throw badRequest(fieldErrorsByPath(parsed.error.issues));
+  if (!parsed.success) throw badRequest(fieldErrorsOf(parsed.error.issues));
   const { reason } = parsed.data;
   const event = await getAuditEvent(eventId);
   if (!event) throw missingEvent(eventId);

@@ -1,8 +1,5 @@
 import { z } from "zod";
-import { fieldErrorsByPath } from "@/lib/submissions/schema";
 import { BULK_MAX_ITEMS, NOTE_MAX_LENGTH, ROLE_CHOICES } from "./vocabulary";
-
-export { fieldErrorsByPath };
 
 // The bodies of the moderation and admin endpoints, with field-level messages. Plain zod and
 // browser-safe imports only: the moderation UI can check a form with the schema the handler uses.

@@ -1,5 +1,5 @@
 import { QueryTypes, type Transaction } from "sequelize";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { enqueue } from "@/lib/jobs";
 import { invalidateBoardValues } from "@/lib/published/board-values";
 import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";

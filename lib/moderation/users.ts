@@ -1,10 +1,11 @@
 import { QueryTypes } from "sequelize";
 import { z } from "zod";
-import { ApiError, badRequest } from "@/lib/api/errors";
-import { parseQuery } from "@/lib/api/query";
+import { ApiError, badRequest } from "@/lib/http/errors";
+import { parseQuery } from "@/lib/http/query";
 import { db, type Role } from "@/models";
 import { writeAuditEvent, type AuditEventView, type UserState, getAuditEvent } from "./audit";
-import { fieldErrorsByPath, UserPatchBodySchema } from "./schemas";
+import { fieldErrorsOf } from "@/lib/http/field-errors";
+import { UserPatchBodySchema } from "./schemas";
 import { decideTrust, trustThreshold, type TrustState } from "./trust";
 import type { Actor } from "./actions";
 import { ROLE_CHOICES } from "./vocabulary";
@@ -110,7 +111,7 @@ const missingUser = (id: string) => new ApiError(404, `There is no user with id 
 export async function updateUser(actor: Actor, userId: string, body: unknown): Promise<UserUpdateResult> {
   if (!z.uuid().safeParse(userId).success) throw missingUser(userId);
   const parsed = UserPatchBodySchema.safeParse(body ?? {});
-  if (!parsed.success) throw badRequest(fieldErrorsByPath(parsed.error.issues));
+  if (!parsed.success) throw badRequest(fieldErrorsOf(parsed.error.issues));
   const change = parsed.data;
   const sequelize = db();
   const eventId = await sequelize.transaction(async (transaction) => {

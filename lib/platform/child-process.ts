@@ -1,7 +1,7 @@
 import { spawn, type ChildProcess, type SpawnOptions } from "node:child_process";
 
 // Children run in their own process group so that a stop reaches every process they started
-// (Next forks next-server; killing only the parent would orphan it, see stack notes).
+// (`next start` serves from a forked child; signalling only the parent would leave that child running).
 export function spawnGroup(command: string, args: string[], options: SpawnOptions): ChildProcess {
   return spawn(command, args, { ...options, detached: true });
 }

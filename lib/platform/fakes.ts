@@ -29,7 +29,7 @@ export async function startMailCatcher(
       "--smtp", String(opts.smtpPort), "--web", String(opts.webPort),
       "--mail-directory", opts.mailDir, "--silent",
     ],
-    // maildev warns that some of its dependencies prefer Node 22; it works on 20 (stack notes)
+    // maildev warns that some of its dependencies prefer Node 22; it works on 20, where our tests run it
     { cwd: root, stdio: ["ignore", "ignore", "ignore"] },
   );
   opts.lifecycle.onStop("the mail catcher", () => stopGroup(child));

@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { Op, Transaction } from "sequelize";
 import { z } from "zod";
-import { ApiError, badRequest, notFound } from "@/lib/api/errors";
+import { ApiError, badRequest, notFound } from "@/lib/http/errors";
 import { EvidencePhoto, Submission, db, type Role } from "@/models";
 import { MAX_PHOTOS_PER_SUBMISSION, MAX_UNATTACHED_PHOTOS_PER_USER } from "./limits";
 import { deleteOrphanObject, getObject, putObject } from "./object-store";

@@ -38,7 +38,7 @@ export function s3Client(config: StoreConfig = env()): S3Client {
       // s3rver (and most self-hosted stores) know only path-style addresses: http://host/bucket/key
       forcePathStyle: true,
       // Since 3.729 the SDK adds CRC checksums with aws-chunked framing by default; s3rver stores
-      // that framing inside the object (stack notes). Checksums only where an operation needs one.
+      // that framing inside the object instead of the bytes sent. Checksums only where an operation needs one.
       requestChecksumCalculation: "WHEN_REQUIRED",
       responseChecksumValidation: "WHEN_REQUIRED",
     });

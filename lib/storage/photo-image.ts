@@ -1,6 +1,6 @@
 import { createHash } from "node:crypto";
 import sharp, { type Metadata, type OutputInfo } from "sharp";
-import { badRequest } from "@/lib/api/errors";
+import { badRequest } from "@/lib/http/errors";
 import { PHOTO_FIELD } from "./photo-api";
 import { ACCEPTED_INPUT_TYPES, ACCEPTED_LABEL, MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, formatMegabytes, type AcceptedInputType, type StoredType } from "./limits";
 

@@ -1,4 +1,4 @@
-import { ifNoneMatchHits } from "@/lib/api/etag";
+import { ifNoneMatchHits } from "@/lib/http/etag";
 import { findViewablePhoto, readPhotoObject, type PhotoSummary, type PhotoViewer } from "./evidence-photos";
 
 // HTTP for evidence photos, so the route handlers stay thin.

@@ -1,4 +1,4 @@
-import { badRequest } from "@/lib/api/errors";
+import { badRequest } from "@/lib/http/errors";
 import { MAX_PHOTO_BYTES, formatMegabytes } from "./limits";
 import { PHOTO_FIELD } from "./photo-api";
 

@@ -1,6 +1,6 @@
 import { createHash } from "node:crypto";
 import { QueryTypes, type Transaction } from "sequelize";
-import { ApiError, badRequest } from "@/lib/api/errors";
+import { ApiError, badRequest } from "@/lib/http/errors";
 import { db } from "@/models";
 
 // Idempotency-Key for POST /api/v1/submissions (the pattern of the IETF httpapi draft

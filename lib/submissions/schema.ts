@@ -270,14 +270,3 @@ function crossFieldChecks(v: Loose, add: (path: (string | number)[], message: st
   if (hasVoltage && !present(v.voltageScale)) add(["voltageScale"], "Enter the voltage scale your voltage check led to");
   if ((hasCycles || hasBench) && !present(v.currentScale)) add(["currentScale"], "Enter the current scale your measurements led to");
 }
-
-/** zod issues as field errors keyed by the full dotted path ("cycles.2.chargedMah"); "body" for the whole. */
-export function fieldErrorsByPath(issues: readonly z.core.$ZodIssue[]): Record<string, string[]> {
-  const out: Record<string, string[]> = {};
-  for (const issue of issues) {
-    const key = issue.path.length ? issue.path.map(String).join(".") : "body";
-    const list = (out[key] ??= []);
-    if (!list.includes(issue.message)) list.push(issue.message);
-  }
-  return out;
-}

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ApiError, badRequest, notFound } from "@/lib/api/errors";
+import { ApiError, badRequest, notFound } from "@/lib/http/errors";
 import type { SessionUser } from "@/lib/auth";
 import { attachPhotosToSubmission } from "@/lib/storage/evidence-photos";
 import { Submission, db, type SubmissionStatus } from "@/models";
@@ -19,11 +19,6 @@ export const VersionSchema = z.object({
 });
 
 const missing = (id: unknown) => notFound(`There is no submission with id ${String(id)}.`, "id");
-
-export function parseSubmissionId(raw: string): number {
-  if (!/^[1-9][0-9]{0,9}$/.test(raw) || Number(raw) > 2_147_483_647) throw missing(raw);
-  return Number(raw);
-}
 
 const stale = (sent: number, current: number) =>
   new ApiError(409, `This submission changed since you loaded it (you edited version ${sent}; it is now at version ${current}). Reload it and make your change again.`, {

@@ -1,7 +1,8 @@
 import type { Transaction } from "sequelize";
-import { badRequest } from "@/lib/api/errors";
+import { badRequest } from "@/lib/http/errors";
 import { BoardModel, BoardRevision, FirmwareFamily, db } from "@/models";
-import { fieldErrorsByPath, submissionSchema, type SubmissionPayload } from "./schema";
+import { fieldErrorsOf } from "@/lib/http/field-errors";
+import { submissionSchema, type SubmissionPayload } from "./schema";
 
 // The server side of the form's validation: load what the body points at (the board revision and
 // the firmware family), then parse through the same schema the form used, made for that context.
@@ -27,7 +28,7 @@ export async function validateSubmission(body: unknown, transaction?: Transactio
   ]);
   const board = revision?.boardModel ?? null;
   const parsed = submissionSchema({ family, board }).safeParse(body);
-  const fieldErrors = parsed.success ? {} : fieldErrorsByPath(parsed.error.issues);
+  const fieldErrors = parsed.success ? {} : fieldErrorsOf(parsed.error.issues);
   if (revisionId && !revision) (fieldErrors.boardRevisionId ??= []).push(`There is no board revision with id ${revisionId}; choose the board again`);
   if (familyId && !family) (fieldErrors.firmwareFamilyId ??= []).push(`There is no firmware family with id ${familyId}; choose the family again`);
   if (!parsed.success || Object.keys(fieldErrors).length > 0) throw badRequest(fieldErrors);

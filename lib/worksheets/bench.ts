@@ -1,5 +1,5 @@
 import type { Transaction } from "sequelize";
-import { badRequest } from "@/lib/api/errors";
+import { badRequest } from "@/lib/http/errors";
 import { benchWorksheet, type FieldIssue } from "@/lib/calibration";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { db, FirmwareFamily, Quad, Worksheet, WorksheetBenchPoint } from "@/models";

@@ -1,5 +1,5 @@
 import { QueryTypes } from "sequelize";
-import { badRequest } from "@/lib/api/errors";
+import { badRequest } from "@/lib/http/errors";
 import { db, WORKSHEET_KINDS, type WorksheetKind } from "@/models";
 import { addBenchPoint, getBenchWorksheet, removeBenchPoint, startBenchWorksheet } from "./bench";
 import { addRechargeStep, getRechargeWorksheet, removeRechargeStep, startRechargeWorksheet } from "./recharge";

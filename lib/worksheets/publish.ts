@@ -1,5 +1,5 @@
 import type { Transaction } from "sequelize";
-import { ApiError, badRequest } from "@/lib/api/errors";
+import { ApiError, badRequest } from "@/lib/http/errors";
 import { createSubmission, type SubmissionView } from "@/lib/submissions";
 import { db, Quad, Worksheet } from "@/models";
 import { benchSubmissionBody, getBenchWorksheet } from "./bench";

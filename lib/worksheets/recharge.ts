@@ -1,4 +1,4 @@
-import { ApiError, badRequest } from "@/lib/api/errors";
+import { ApiError, badRequest } from "@/lib/http/errors";
 import { rechargeWorksheet } from "@/lib/calibration";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { startInput, stepInput, type RechargeStepRow, type WorksheetView } from "./recharge-input";

@@ -1,5 +1,5 @@
 import type { Transaction } from "sequelize";
-import { ApiError, badRequest } from "@/lib/api/errors";
+import { ApiError, badRequest } from "@/lib/http/errors";
 import { settingField, type SettingKind, type WorksheetFamily } from "@/lib/calibration/fields";
 import type { FieldIssue } from "@/lib/calibration";
 import { notYours } from "@/lib/garage/owned";

@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import { GET as getBoard, POST as postBoard } from "@/app/api/v1/boards/[slug]/route";
 import { GET as listBoardsRoute, POST as postBoards } from "@/app/api/v1/boards/route";
 import { GET as unknownEndpoint } from "@/app/api/v1/[...path]/route";
-import { BoardDetailResponseSchema, BoardListResponseSchema, type BoardListResponse } from "@/lib/api/schemas/boards";
+import { BoardDetailResponseSchema, BoardListResponseSchema, type BoardListResponse } from "@/lib/catalogue/api-schemas";
 import { getBoardBySlug } from "@/lib/catalogue/get-board";
 import { listBoards } from "@/lib/catalogue/list-boards";
 import { parseCatalogueParams, MAX_PAGE } from "@/lib/catalogue/search-params";

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { GET } from "@/app/api/v1/openapi.json/route";
 import { CatalogueParamsSchema } from "@/lib/catalogue/search-params";
-import { ValuesQuerySchema } from "@/lib/api/schemas/values";
+import { ValuesQuerySchema } from "@/lib/published/api-schemas";
 import { submissionSchema } from "@/lib/submissions/schema";
 
 // GET /api/v1/openapi.json. The structure checks follow the OpenAPI Specification 3.0.3

@@ -3,7 +3,7 @@ import { QueryTypes } from "sequelize";
 import { median as ssMedian, medianAbsoluteDeviation as ssMad } from "simple-statistics";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET } from "@/app/api/v1/boards/[slug]/values/route";
-import { BoardValuesResponseSchema, type BoardValuesResponse } from "@/lib/api/schemas/values";
+import { BoardValuesResponseSchema, type BoardValuesResponse } from "@/lib/published/api-schemas";
 import { invalidateBoardValues } from "@/lib/published/board-values";
 import { refreshGroups } from "@/lib/published/refresh";
 import { flagPoints } from "@/lib/stats";

@@ -1,8 +1,8 @@
 import { describe, expect, it, vi } from "vitest";
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
-import { apiRoute } from "@/lib/api/handler";
-import { currentUser, requirePageRole, requirePageUser, requireRole, requireUser, role, signedIn } from "@/lib/auth";
+import { currentUser, requirePageRole, requirePageUser, requireRole, requireUser } from "@/lib/auth";
+import { route } from "@/lib/http";
 import { sessionCookieName } from "@/lib/auth/session-cookie";
 import { db, User } from "@/models";
 import {
@@ -20,8 +20,8 @@ import { useTestDatabase } from "@/tests/support/database";
 useTestDatabase("migrated");
 
 const page = (cookie: string) => withCookie(new Request("http://test/somewhere"), cookie);
-const whoAmI = apiRoute(async () => Response.json(await requireUser()), { guard: signedIn });
-const moderatorsOnly = apiRoute(async () => Response.json({ ok: true }), { guard: role("moderator") });
+const whoAmI = route({ auth: "user" }, async () => Response.json(await requireUser()));
+const moderatorsOnly = route({ auth: "moderator" }, async () => Response.json({ ok: true }));
 
 describe("the guard (lib/auth/guard.ts)", () => {
   it("anonymous: currentUser is null, requireUser throws 401, API guards answer 401 JSON, pages redirect to sign-in", async () => {

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it, vi } from "vitest";
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { attachPhotosToSubmission, listSubmissionPhotos } from "@/lib/storage/evidence-photos";
 import { MAX_PHOTOS_PER_SUBMISSION } from "@/lib/storage/limits";
 import { db } from "@/models";

@@ -188,7 +188,7 @@ describe("the bytes kept per view", () => {
       for (const header of ["", "gzip, deflate, br", "gzip"]) {
         const res = await call(query, header ? { "accept-encoding": header } : {});
         expect(res.status).toBe(200);
-        // a handler's Content-Encoding would be dropped by Next 16 (see lib/api/values-response.ts)
+        // a handler's Content-Encoding would be dropped by Next 16 (see lib/published/api-response.ts)
         expect(res.headers.get("content-encoding")).toBeNull();
         expect(res.headers.get("vary")).toBe("Accept-Encoding");
         expect(res.headers.get("etag")).toBe(etag);

@@ -18,7 +18,7 @@ import { runWithRequest } from "./next-headers";
 //   import { callRoute, inRequest, redirectTarget, sessionCookieFor, withCookie } from "@/tests/support/auth";
 //   useTestDatabase("seeded");
 //
-//   // a route handler (apiRoute guards read the Request's Cookie header; requireUser() inside the
+//   // a route handler (route() reads the Request's Cookie header; requireUser() inside a
 //   // handler reads next/headers, which callRoute points at the same request)
 //   const cookie = await sessionCookieFor("contributor");
 //   const res = await callRoute(POST, withCookie(new Request("http://test/api/v1/x", { method: "POST", body }), cookie));

@@ -3,7 +3,7 @@ import type { LaunchOptions } from "playwright-core";
 
 // One place for how every browser test starts Debian's Chromium (never a downloaded browser):
 // headless, no sandbox (CI runs as root), and none of the background traffic that this closed
-// network refuses (stack notes). Playwright makes its own empty profile.
+// network refuses. Playwright makes its own empty profile.
 export const CHROMIUM_LAUNCH: LaunchOptions = {
   executablePath: "/usr/bin/chromium",
   headless: true,

@@ -7,7 +7,8 @@ import { QUANTITIES } from "@/lib/published/quantities";
 import { recommendValue, summarise } from "@/lib/stats";
 import { evidenceVerdict } from "@/lib/submissions/evidence-rows";
 import { packVoltsRange } from "@/lib/submissions/limits";
-import { fieldErrorsByPath, submissionSchema } from "@/lib/submissions/schema";
+import { fieldErrorsOf as fieldErrorsByPath } from "@/lib/http/field-errors";
+import { submissionSchema } from "@/lib/submissions/schema";
 import type { FirmwareFamily } from "@/models/FirmwareFamily";
 
 // The demo's evidence and moderation past (seeders/demo/evidence.ts, seeders/demo/history.ts), without a

@@ -1,6 +1,6 @@
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS } from "@/lib/storage/limits";
 import { sanitisePhoto, sniffPhotoType } from "@/lib/storage/photo-image";
 import {

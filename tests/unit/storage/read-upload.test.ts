@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { MAX_PHOTO_BYTES } from "@/lib/storage/limits";
 import { readUpload } from "@/lib/storage/read-upload";
 

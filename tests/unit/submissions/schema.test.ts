@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
-import { fieldErrorsByPath, submissionSchema, type SubmissionInput } from "@/lib/submissions/schema";
+import { fieldErrorsOf as fieldErrorsByPath } from "@/lib/http/field-errors";
+import { submissionSchema, type SubmissionInput } from "@/lib/submissions/schema";
 
 // The one schema of a contribution, as the form and the API use it. Each refusal must land on the
 // field the form shows it beside, keyed by the same dotted path the API returns.

@@ -2,6 +2,7 @@ import NextAuth from "next-auth";
 import type { NextRequest } from "next/server";
 import { authOptions } from "@/lib/auth/options";
 import { limitAuthRequest } from "@/lib/auth/route-limits";
+import { routes } from "@/lib/http";
 
 // next-auth's endpoints (/api/auth/signin, callback, session, csrf, signout, …), with the sign-in
 // rate limit in front. Our own account endpoints are static routes beside this one
@@ -19,4 +20,5 @@ async function handle(request: NextRequest, context: Context): Promise<Response>
   return response;
 }
 
-export { handle as GET, handle as POST };
+// next-auth answers GET and POST itself; the other methods get the API's JSON 405.
+export const { GET, POST, PUT, PATCH, DELETE } = routes({ GET: handle, POST: handle });

@@ -1,25 +1,13 @@
-import { apiRoute } from "@/lib/api/handler";
+import { route, routes, privateJson } from "@/lib/http";
 import { hasPassword, updateName } from "@/lib/auth/accounts";
-import { signedIn, userFromRequest } from "@/lib/auth/guard";
-import { accountJson, readBody } from "@/lib/auth/http";
-import { ProfileNameSchema } from "@/lib/auth/schemas";
+import { ACCOUNT_BODY_BYTES, ProfileNameSchema } from "@/lib/auth/schemas";
 
 // GET /api/auth/profile: who is signed in. PATCH {name}: the name shown beside contributions.
 export const dynamic = "force-dynamic";
 
-export const GET = apiRoute(
-  async (request) => {
-    const user = (await userFromRequest(request))!;
-    return accountJson({ user, hasPassword: await hasPassword(user.id) });
-  },
-  { guard: signedIn },
-);
-
-export const PATCH = apiRoute(
-  async (request) => {
-    const me = (await userFromRequest(request))!;
-    const { name } = await readBody(request, ProfileNameSchema);
-    return accountJson({ user: await updateName(me.id, name) });
-  },
-  { guard: signedIn },
-);
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: route({ auth: "user" }, async ({ user }) => privateJson({ user, hasPassword: await hasPassword(user.id) })),
+  PATCH: route({ auth: "user", body: ProfileNameSchema, maxBytes: ACCOUNT_BODY_BYTES }, async ({ user, body }) =>
+    privateJson({ user: await updateName(user.id, body.name) }),
+  ),
+});

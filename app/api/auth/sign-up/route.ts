@@ -1,19 +1,16 @@
-import { apiRoute } from "@/lib/api/handler";
+import { route, routes, privateJson, tooManyRequests } from "@/lib/http";
 import { signUp } from "@/lib/auth/accounts";
-import { accountJson, readBody, tooManyRequests } from "@/lib/auth/http";
 import { clientIp, limitKey, spendAttempt } from "@/lib/auth/rate-limit";
-import { assertSameOrigin } from "@/lib/auth/same-origin";
-import { SignUpSchema } from "@/lib/auth/schemas";
+import { ACCOUNT_BODY_BYTES, SignUpSchema } from "@/lib/auth/schemas";
 
 // POST /api/auth/sign-up {name, email, password, confirm}: a contributor account. The page then
 // signs in with the same password through next-auth.
 export const dynamic = "force-dynamic";
 
-export const POST = apiRoute(async (request) => {
-  assertSameOrigin(request);
-  const input = await readBody(request, SignUpSchema);
-  const verdict = await spendAttempt("signUp", limitKey(clientIp(request.headers), input.email));
-  if (!verdict.ok) return tooManyRequests(verdict.message, verdict.retryAfterSeconds);
-  const user = await signUp(input);
-  return accountJson({ user }, 201);
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  POST: route({ auth: "public", body: SignUpSchema, maxBytes: ACCOUNT_BODY_BYTES }, async ({ req, body }) => {
+    const verdict = await spendAttempt("signUp", limitKey(clientIp(req.headers), body.email));
+    if (!verdict.ok) return tooManyRequests(verdict.message, verdict.retryAfterSeconds);
+    return privateJson({ user: await signUp(body) }, 201);
+  }),
 });

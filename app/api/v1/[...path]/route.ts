@@ -1,13 +1,8 @@
-import { ApiError } from "@/lib/api/errors";
-import { apiRoute } from "@/lib/api/handler";
+import { ApiError, route, routes } from "@/lib/http";
 
 // Any /api/v1 address that names no endpoint: the API's JSON 404 instead of the site's HTML page.
-const unknownEndpoint = apiRoute(async (request) => {
-  throw new ApiError(404, `There is no endpoint at ${new URL(request.url).pathname}. The endpoints are listed at /api/v1/openapi.json.`);
+const unknownEndpoint = route({ auth: "public" }, async ({ req }) => {
+  throw new ApiError(404, `There is no endpoint at ${new URL(req.url).pathname}. The endpoints are listed at /api/v1/openapi.json.`);
 });
 
-export const GET = unknownEndpoint;
-export const POST = unknownEndpoint;
-export const PUT = unknownEndpoint;
-export const PATCH = unknownEndpoint;
-export const DELETE = unknownEndpoint;
+export const { GET, POST, PUT, PATCH, DELETE } = routes({ GET: unknownEndpoint, POST: unknownEndpoint, PUT: unknownEndpoint, PATCH: unknownEndpoint, DELETE: unknownEndpoint });

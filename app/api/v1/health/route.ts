@@ -1,4 +1,4 @@
-import { readOnly } from "@/lib/api/handler";
+import { route, routes } from "@/lib/http";
 
 // GET /api/v1/health: answers while the process serves requests, and touches nothing else (no
 // database), so a load balancer's probe cannot pile work onto a struggling database. Being the
@@ -6,13 +6,6 @@ import { readOnly } from "@/lib/api/handler";
 // no-store: a cached "ok" would hide an instance that has stopped answering.
 export const dynamic = "force-dynamic";
 
-const HEADERS = { "Cache-Control": "no-store" } as const;
-
-export function GET(): Response {
-  return Response.json({ ok: true }, { headers: HEADERS });
-}
-
-export const POST = readOnly();
-export const PUT = readOnly();
-export const PATCH = readOnly();
-export const DELETE = readOnly();
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: route({ auth: "public" }, async () => Response.json({ ok: true }, { headers: { "Cache-Control": "no-store" } })),
+});

@@ -1,14 +1,10 @@
-import { apiRoute, readOnly } from "@/lib/api/handler";
-import { openApiDocument } from "@/lib/api/openapi";
-import { jsonWithEtag } from "@/lib/api/respond";
+import { jsonWithEtag, route, routes } from "@/lib/http";
+import { openApiDocument } from "@/lib/openapi/document";
 
 // GET /api/v1/openapi.json: the OpenAPI 3 document, generated from the zod schemas once per process.
-export const GET = apiRoute(async (request) => {
-  const { text, etag } = openApiDocument();
-  return jsonWithEtag(request, etag, text);
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: route({ auth: "public" }, async ({ req }) => {
+    const { text, etag } = openApiDocument();
+    return jsonWithEtag(req, etag, text);
+  }),
 });
-
-export const POST = readOnly();
-export const PUT = readOnly();
-export const PATCH = readOnly();
-export const DELETE = readOnly();

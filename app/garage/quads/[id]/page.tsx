@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StartWorksheet } from "@/components/worksheets/start-worksheet";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { requirePageUser } from "@/lib/auth";
 import { getQuad } from "@/lib/garage/quads";
 import { listQuadWorksheets } from "@/lib/worksheets";

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import type { ReactNode } from "react";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { requirePageUser } from "@/lib/auth";
 import { getWorksheet, openWorksheetId, type AnyWorksheetView } from "@/lib/worksheets";
 import { quadWorksheetContext } from "@/lib/worksheets/page-context";

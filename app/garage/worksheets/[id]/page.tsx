@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { BenchSheet } from "@/components/worksheets/bench-worksheet";
 import { RechargeWorksheetView } from "@/components/worksheets/recharge-worksheet";
 import { VoltageSheet } from "@/components/worksheets/voltage-worksheet";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/http/errors";
 import { requirePageUser } from "@/lib/auth";
 import { getWorksheet } from "@/lib/worksheets";
 import { WORKSHEET_LABELS } from "@/lib/worksheets/common-input";

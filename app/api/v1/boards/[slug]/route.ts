@@ -1,21 +1,11 @@
-import { boardDetailResponse } from "@/lib/api/boards-response";
-import { notFound } from "@/lib/api/errors";
-import { apiRoute, readOnly } from "@/lib/api/handler";
-import { jsonOk } from "@/lib/api/respond";
-import type { BoardDetailResponse } from "@/lib/api/schemas/boards";
-import { getBoardBySlug } from "@/lib/catalogue/get-board";
-
-type Context = { params: Promise<{ slug: string }> };
+import { z } from "zod";
+import { jsonOk, route, routes } from "@/lib/http";
+import { boardDetail } from "@/lib/catalogue/api-response";
+import type { BoardDetailResponse } from "@/lib/catalogue/api-schemas";
 
 // GET /api/v1/boards/{slug}: one board with its revisions' sensor hardware.
-export const GET = apiRoute<Context>(async (request, { params }) => {
-  const { slug } = await params;
-  const board = await getBoardBySlug(slug);
-  if (!board) throw notFound(`No board has the slug "${slug}".`, "slug");
-  return jsonOk<BoardDetailResponse>(request, boardDetailResponse(board));
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: route({ auth: "public", params: z.object({ slug: z.string() }) }, async ({ req, params }) =>
+    jsonOk<BoardDetailResponse>(req, await boardDetail(params.slug)),
+  ),
 });
-
-export const POST = readOnly();
-export const PUT = readOnly();
-export const PATCH = readOnly();
-export const DELETE = readOnly();

@@ -1,12 +1,8 @@
-import { apiRoute } from "@/lib/api/handler";
-import { signedIn } from "@/lib/auth";
+import { privateJson, route, routes } from "@/lib/http";
 import { createPack, listPacks } from "@/lib/garage/packs";
-import { privateJson, readJsonBody, requestUser } from "@/lib/submissions/http";
 
 // The caller's own packs, each with its charge log and suggested OSD warnings.
-export const GET = apiRoute(async (request) => privateJson({ packs: await listPacks((await requestUser(request)).id) }), { guard: signedIn });
-
-export const POST = apiRoute(
-  async (request) => privateJson({ pack: await createPack((await requestUser(request)).id, await readJsonBody(request)) }, 201),
-  { guard: signedIn },
-);
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: route({ auth: "user" }, async ({ user }) => privateJson({ packs: await listPacks(user.id) })),
+  POST: route({ auth: "user", body: "json" }, async ({ user, body }) => privateJson({ pack: await createPack(user.id, body) }, 201)),
+});

@@ -1,12 +1,8 @@
-import { apiRoute } from "@/lib/api/handler";
-import { signedIn } from "@/lib/auth";
+import { privateJson, route, routes } from "@/lib/http";
 import { createQuad, listQuads } from "@/lib/garage/quads";
-import { privateJson, readJsonBody, requestUser } from "@/lib/submissions/http";
 
 // The caller's own quads: list and add.
-export const GET = apiRoute(async (request) => privateJson({ quads: await listQuads((await requestUser(request)).id) }), { guard: signedIn });
-
-export const POST = apiRoute(
-  async (request) => privateJson({ quad: await createQuad((await requestUser(request)).id, await readJsonBody(request)) }, 201),
-  { guard: signedIn },
-);
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: route({ auth: "user" }, async ({ user }) => privateJson({ quads: await listQuads(user.id) })),
+  POST: route({ auth: "user", body: "json" }, async ({ user, body }) => privateJson({ quad: await createQuad(user.id, body) }, 201)),
+});

@@ -1,10 +1,7 @@
-import { apiRoute } from "@/lib/api/handler";
-import { signedIn } from "@/lib/auth";
-import { privateJson, readJsonBody, requestUser } from "@/lib/submissions/http";
+import { privateJson, route, routes } from "@/lib/http";
 import { startWorksheet } from "@/lib/worksheets";
 
 // Start a worksheet on one of the caller's quads: `kind` fly_recharge (the default), voltage or bench.
-export const POST = apiRoute(
-  async (request) => privateJson({ worksheet: await startWorksheet((await requestUser(request)).id, await readJsonBody(request)) }, 201),
-  { guard: signedIn },
-);
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  POST: route({ auth: "user", body: "json" }, async ({ user, body }) => privateJson({ worksheet: await startWorksheet(user.id, body) }, 201)),
+});

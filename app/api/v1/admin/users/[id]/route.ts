@@ -1,32 +1,17 @@
-import { notFound } from "@/lib/api/errors";
-import { apiRoute, readOnly } from "@/lib/api/handler";
+import { z } from "zod";
+import { notFound, privateJson, route, routes } from "@/lib/http";
 import { getUserSummary, updateUser } from "@/lib/moderation";
-import { adminOnly, privateJson, readJsonBody, requestUser } from "@/lib/moderation/http";
 
-type Context = { params: Promise<{ id: string }> };
+const UserParams = z.object({ id: z.string() });
 
-// GET /api/v1/admin/users/{id}: one person's role, trust and record. Admins only.
-export const GET = apiRoute<Context>(
-  async (_request, { params }) => {
-    const { id } = await params;
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  // GET /api/v1/admin/users/{id}: one person's role, trust and record. Admins only.
+  GET: route({ auth: "admin", params: UserParams }, async ({ params: { id } }) => {
     const user = await getUserSummary(id);
     if (!user) throw notFound(`There is no user with id ${id}.`, "id");
     return privateJson({ user });
-  },
-  { guard: adminOnly },
-);
-
-// PATCH /api/v1/admin/users/{id} with { role?, trusted?, reason? }: audited ('user_update'); the
-// role applies on the person's next request. 409 when it would leave the site without an admin.
-export const PATCH = apiRoute<Context>(
-  async (request, { params }) => {
-    const actor = await requestUser(request);
-    return privateJson(await updateUser(actor, (await params).id, await readJsonBody(request)));
-  },
-  { guard: adminOnly },
-);
-
-const allowed = readOnly(["GET", "PATCH"]);
-export const POST = allowed;
-export const PUT = allowed;
-export const DELETE = allowed;
+  }),
+  // PATCH /api/v1/admin/users/{id} with { role?, trusted?, reason? }: audited ('user_update'); the
+  // role applies on the person's next request. 409 when it would leave the site without an admin.
+  PATCH: route({ auth: "admin", params: UserParams, body: "json" }, async ({ user, params, body }) => privateJson(await updateUser(user, params.id, body))),
+});

@@ -1,20 +1,12 @@
-import { badRequest } from "@/lib/api/errors";
-import { apiRoute, readOnly } from "@/lib/api/handler";
-import { parseQuery, queryRecord } from "@/lib/api/query";
-import { ValuesQuerySchema } from "@/lib/api/schemas/values";
-import { boardValuesResponse } from "@/lib/api/values-response";
-
-type Context = { params: Promise<{ slug: string }> };
+import { z } from "zod";
+import { route, routes } from "@/lib/http";
+import { boardValuesResponse } from "@/lib/published/api-response";
+import { ValuesQuerySchema } from "@/lib/published/api-schemas";
 
 // GET /api/v1/boards/{slug}/values: published values per revision and firmware family, cached in
-// memory and tagged so that a revalidation costs no database work (lib/api/values-response.ts).
-export const GET = apiRoute<Context>(async (request, { params }) => {
-  const parsed = parseQuery(ValuesQuerySchema, queryRecord(request));
-  if (!parsed.ok) throw badRequest(parsed.fieldErrors);
-  return boardValuesResponse(request, (await params).slug, parsed.params);
+// memory and tagged so that a revalidation costs no database work (lib/published/api-response.ts).
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: route({ auth: "public", params: z.object({ slug: z.string() }), query: ValuesQuerySchema }, async ({ req, params, query }) =>
+    boardValuesResponse(req, params.slug, query),
+  ),
 });
-
-export const POST = readOnly();
-export const PUT = readOnly();
-export const PATCH = readOnly();
-export const DELETE = readOnly();

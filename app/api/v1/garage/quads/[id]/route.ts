@@ -1,21 +1,15 @@
-import { apiRoute } from "@/lib/api/handler";
-import { signedIn } from "@/lib/auth";
-import { idFrom } from "@/lib/garage/owned";
+import { noContent, privateJson, route, routes } from "@/lib/http";
+import { ownedIdParams } from "@/lib/garage/owned";
 import { deleteQuad, getQuad, updateQuad } from "@/lib/garage/quads";
-import { privateJson, readJsonBody, requestUser } from "@/lib/submissions/http";
 
 // One of the caller's quads; anyone else's answers 404.
-type Ctx = { params: Promise<{ id: string }> };
-const id = async (ctx: Ctx) => idFrom((await ctx.params).id, "quad");
+const params = ownedIdParams("quad");
 
-export const GET = apiRoute<Ctx>(async (request, ctx) => privateJson({ quad: await getQuad((await requestUser(request)).id, await id(ctx)) }), { guard: signedIn });
-
-export const PUT = apiRoute<Ctx>(
-  async (request, ctx) => privateJson({ quad: await updateQuad((await requestUser(request)).id, await id(ctx), await readJsonBody(request)) }),
-  { guard: signedIn },
-);
-
-export const DELETE = apiRoute<Ctx>(async (request, ctx) => {
-  await deleteQuad((await requestUser(request)).id, await id(ctx));
-  return new Response(null, { status: 204, headers: { "Cache-Control": "no-store" } });
-}, { guard: signedIn });
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: route({ auth: "user", params }, async ({ user, params }) => privateJson({ quad: await getQuad(user.id, params.id) })),
+  PUT: route({ auth: "user", params, body: "json" }, async ({ user, params, body }) => privateJson({ quad: await updateQuad(user.id, params.id, body) })),
+  DELETE: route({ auth: "user", params }, async ({ user, params }) => {
+    await deleteQuad(user.id, params.id);
+    return noContent();
+  }),
+});

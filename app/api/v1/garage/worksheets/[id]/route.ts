@@ -1,12 +1,8 @@
-import { apiRoute } from "@/lib/api/handler";
-import { signedIn } from "@/lib/auth";
-import { idFrom } from "@/lib/garage/owned";
-import { privateJson, requestUser } from "@/lib/submissions/http";
+import { privateJson, route, routes } from "@/lib/http";
+import { ownedIdParams } from "@/lib/garage/owned";
 import { getWorksheet } from "@/lib/worksheets";
 
 // One of the caller's worksheets of any kind, computed: what was entered, the next values, warnings.
-type Ctx = { params: Promise<{ id: string }> };
-export const GET = apiRoute<Ctx>(
-  async (request, ctx) => privateJson({ worksheet: await getWorksheet((await requestUser(request)).id, idFrom((await ctx.params).id, "worksheet")) }),
-  { guard: signedIn },
-);
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: route({ auth: "user", params: ownedIdParams("worksheet") }, async ({ user, params }) => privateJson({ worksheet: await getWorksheet(user.id, params.id) })),
+});

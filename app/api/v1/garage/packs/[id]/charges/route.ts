@@ -1,14 +1,10 @@
-import { apiRoute } from "@/lib/api/handler";
-import { signedIn } from "@/lib/auth";
-import { idFrom } from "@/lib/garage/owned";
+import { privateJson, route, routes } from "@/lib/http";
+import { ownedIdParams } from "@/lib/garage/owned";
 import { addCharge } from "@/lib/garage/packs";
-import { privateJson, readJsonBody, requestUser } from "@/lib/submissions/http";
 
 // Log one charge of one of the caller's packs; answers the pack with its new warnings.
-type Ctx = { params: Promise<{ id: string }> };
-
-export const POST = apiRoute<Ctx>(
-  async (request, ctx) =>
-    privateJson({ pack: await addCharge((await requestUser(request)).id, idFrom((await ctx.params).id, "pack"), await readJsonBody(request)) }, 201),
-  { guard: signedIn },
-);
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  POST: route({ auth: "user", params: ownedIdParams("pack"), body: "json" }, async ({ user, params, body }) =>
+    privateJson({ pack: await addCharge(user.id, params.id, body) }, 201),
+  ),
+});

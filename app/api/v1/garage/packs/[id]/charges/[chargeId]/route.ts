@@ -1,13 +1,11 @@
-import { apiRoute } from "@/lib/api/handler";
-import { signedIn } from "@/lib/auth";
-import { idFrom } from "@/lib/garage/owned";
+import { z } from "zod";
+import { privateJson, route, routes } from "@/lib/http";
+import { ownedId } from "@/lib/garage/owned";
 import { deleteCharge } from "@/lib/garage/packs";
-import { privateJson, requestUser } from "@/lib/submissions/http";
 
 // Remove one mistaken charge from a pack's log; answers the pack as it now stands.
-type Ctx = { params: Promise<{ id: string; chargeId: string }> };
+const ChargeParams = z.object({ id: ownedId("pack"), chargeId: ownedId("charge") });
 
-export const DELETE = apiRoute<Ctx>(async (request, ctx) => {
-  const { id, chargeId } = await ctx.params;
-  return privateJson({ pack: await deleteCharge((await requestUser(request)).id, idFrom(id, "pack"), idFrom(chargeId, "charge")) });
-}, { guard: signedIn });
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  DELETE: route({ auth: "user", params: ChargeParams }, async ({ user, params }) => privateJson({ pack: await deleteCharge(user.id, params.id, params.chargeId) })),
+});

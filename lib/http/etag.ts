@@ -4,7 +4,7 @@ import { createHash } from "node:crypto";
 // bytes. Two ways to make one:
 //  - etagOf(body): a hash of the serialised body, for responses that are cheap to rebuild;
 //  - etagOf(stamp, variant): a hash of a freshness stamp that is already at hand (see
-//    lib/api/values-response.ts), so a matching If-None-Match is answered 304 without
+//    lib/published/api-response.ts), so a matching If-None-Match is answered 304 without
 //    building the body at all.
 
 /** A quoted, strong entity tag: the first 128 bits of SHA-1 over the parts, base64url. */

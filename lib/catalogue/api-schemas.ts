@@ -3,7 +3,7 @@ import { CATALOGUE_SORTS } from "@/lib/catalogue/search-params";
 import { BOARD_KINDS } from "@/models/BoardModel";
 
 // Response bodies of GET /api/v1/boards and GET /api/v1/boards/{slug}. The handlers' output is
-// typed by these schemas (lib/api/boards-response.ts) and the OpenAPI document is generated from
+// typed by these schemas (lib/catalogue/api-response.ts) and the OpenAPI document is generated from
 // them, so the document cannot drift from what is sent.
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/).meta({ description: "A calendar date, YYYY-MM-DD." });

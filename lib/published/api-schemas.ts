@@ -3,7 +3,7 @@ import { BOARD_KINDS } from "@/models/BoardModel";
 import { METHODS } from "@/models/Submission";
 
 // GET /api/v1/boards/{slug}/values: its query parameters and its response body. The body's type
-// must accept lib/published's BoardValues (checked at compile time in lib/api/values-response.ts).
+// must accept lib/published's BoardValues (checked at compile time in lib/published/api-response.ts).
 
 const SLUG_RE = /^[a-z0-9]+(-[a-z0-9]+)*$/;
 const iso = z.iso.datetime({ offset: true }).meta({ description: "ISO 8601 date and time, UTC." });

@@ -1,5 +1,6 @@
 import type { z } from "zod";
 import type { FieldErrors } from "./errors";
+import { fieldErrorsOf } from "./field-errors";
 
 /**
  * The query string as parseCatalogueParams takes it: one string per parameter, or an array when
@@ -12,13 +13,6 @@ export function queryRecord(request: Request): Record<string, string | string[]>
     const all = search.getAll(key);
     out[key] = all.length === 1 ? all[0] : all;
   }
-  return out;
-}
-
-/** zod issues as field errors keyed by the parameter's name (the first path segment). */
-export function fieldErrorsOf(issues: readonly z.core.$ZodIssue[], fallback = "query"): FieldErrors {
-  const out: FieldErrors = {};
-  for (const issue of issues) (out[String(issue.path[0] ?? fallback)] ??= []).push(issue.message);
   return out;
 }
 
@@ -41,7 +35,7 @@ export function parseQuery<S extends z.ZodObject>(schema: S, input: Record<strin
   }
   const parsed = schema.safeParse(raw);
   if (!parsed.success) {
-    for (const [field, messages] of Object.entries(fieldErrorsOf(parsed.error.issues))) (fieldErrors[field] ??= []).push(...messages);
+    for (const [field, messages] of Object.entries(fieldErrorsOf(parsed.error.issues, "query"))) (fieldErrors[field] ??= []).push(...messages);
   }
   if (!parsed.success || Object.keys(fieldErrors).length > 0) return { ok: false, fieldErrors };
   return { ok: true, params: parsed.data };

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { parseQuery, queryRecord } from "@/lib/api/query";
-import { ValuesQuerySchema } from "@/lib/api/schemas/values";
+import { parseQuery, queryRecord } from "@/lib/http/query";
+import { ValuesQuerySchema } from "@/lib/published/api-schemas";
 
 const record = (qs: string) => queryRecord(new Request(`http://test.local/x?${qs}`));
 

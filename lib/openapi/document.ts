@@ -5,15 +5,15 @@ import { CatalogueParamsSchema, DEFAULT_PAGE_SIZE, MAX_PAGE, MAX_PAGE_SIZE, QUER
 import { IDEMPOTENCY_HEADER, KEY_TTL_HOURS } from "@/lib/submissions/idempotency";
 import { submissionSchema } from "@/lib/submissions/schema";
 import { VersionSchema } from "@/lib/submissions/update";
-import { etagOf } from "./etag";
-import { BoardDetailResponseSchema, BoardListResponseSchema } from "./schemas/boards";
-import { ErrorBodySchema } from "./schemas/error";
-import { SubmissionListResponseSchema, SubmissionResponseSchema } from "./schemas/submissions";
-import { BoardValuesResponseSchema, ValuesQuerySchema } from "./schemas/values";
+import { etagOf } from "@/lib/http/etag";
+import { BoardDetailResponseSchema, BoardListResponseSchema } from "@/lib/catalogue/api-schemas";
+import { ErrorBodySchema } from "@/lib/http/error-body";
+import { SubmissionListResponseSchema, SubmissionResponseSchema } from "@/lib/submissions/api-schemas";
+import { BoardValuesResponseSchema, ValuesQuerySchema } from "@/lib/published/api-schemas";
 
 // The OpenAPI 3 document of /api/v1, generated from the same zod schemas that parse the requests
-// (lib/catalogue/search-params.ts, lib/api/schemas/values.ts, lib/submissions/schema.ts) and type
-// the responses (lib/api/schemas/*). Served at /api/v1/openapi.json and rendered at /api-docs.
+// (lib/catalogue/search-params.ts, lib/published/api-schemas.ts, lib/submissions/schema.ts) and type
+// the responses (each concept's api-schemas.ts). Served at /api/v1/openapi.json and rendered at /api-docs.
 // The contribution endpoints are here too; the moderation, admin and garage ones serve the site's
 // own pages and are left out until someone outside needs them.
 

@@ -1,9 +1,9 @@
 import { ConnectionRefusedError } from "sequelize";
 import { afterEach, describe, expect, it, vi } from "vitest";
-import { ApiError, badRequest, notFound, toApiError } from "@/lib/api/errors";
-import { apiRoute, readOnly } from "@/lib/api/handler";
+import { badRequest, notFound, toApiError } from "@/lib/http/errors";
+import { route, routes } from "@/lib/http/route";
 
-// apiRoute's promise: whatever a handler throws leaves as the one JSON error body, never a bare 500.
+// route()'s promise: whatever a handler throws leaves as the one JSON error body, never a bare 500.
 const req = (method = "GET") => new Request("http://test.local/api/v1/x?secret=1", { method });
 
 afterEach(() => vi.restoreAllMocks());
@@ -14,14 +14,14 @@ async function bodyOf(res: Response) {
   return (await res.json()).error;
 }
 
-describe("apiRoute", () => {
+describe("route", () => {
   it("passes a handler's response through", async () => {
-    const res = await apiRoute(async () => new Response("ok"))(req(), undefined);
+    const res = await route({ auth: "public" }, async () => new Response("ok"))(req(), undefined);
     expect(await res.text()).toBe("ok");
   });
 
   it("turns a thrown ApiError into its status and body", async () => {
-    const res = await apiRoute(async () => {
+    const res = await route({ auth: "public" }, async () => {
       throw badRequest({ page: ["page must be 1 or more"] });
     })(req(), undefined);
     expect(res.status).toBe(400);
@@ -35,7 +35,7 @@ describe("apiRoute", () => {
 
   it("maps an unexpected error to a logged 500 that shows nothing of it", async () => {
     const log = vi.spyOn(console, "error").mockImplementation(() => undefined);
-    const res = await apiRoute(async () => {
+    const res = await route({ auth: "public" }, async () => {
       throw new TypeError("cannot read x of undefined at /srv/secret.ts");
     })(req(), undefined);
     expect(res.status).toBe(500);
@@ -53,13 +53,11 @@ describe("apiRoute", () => {
     expect([error.status, error.code]).toEqual([503, "service_unavailable"]);
   });
 
-  it("runs the guard first; a guard's ApiError is the answer", async () => {
+  it("checks the caller first; its ApiError is the answer", async () => {
     const handler = vi.fn(async () => new Response("never"));
-    const res = await apiRoute(handler, {
-      guard: () => {
-        throw new ApiError(403, "Moderators only.");
-      },
-    })(req(), undefined);
+    // a write from another site's page: refused before the session or the handler is looked at
+    const crossSite = new Request("http://test.local/api/v1/x", { method: "POST", headers: { host: "test.local", origin: "https://elsewhere.test" } });
+    const res = await route({ auth: "moderator" }, handler)(crossSite, undefined);
     expect(res.status).toBe(403);
     expect((await bodyOf(res)).code).toBe("forbidden");
     expect(handler).not.toHaveBeenCalled();
@@ -72,8 +70,8 @@ describe("error helpers", () => {
     expect(notFound("Nothing here.").fieldErrors).toEqual({});
   });
 
-  it("readOnly answers 405 with Allow", async () => {
-    const res = await readOnly()(req("DELETE"), undefined);
+  it("routes() answers a method the file does not implement with 405 and Allow", async () => {
+    const res = await routes({ GET: route({ auth: "public" }, async () => new Response("ok")) }).DELETE(req("DELETE"), undefined);
     expect(res.status).toBe(405);
     expect(res.headers.get("allow")).toBe("GET, HEAD");
     expect((await bodyOf(res)).message).toContain("DELETE");

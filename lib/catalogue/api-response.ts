@@ -1,7 +1,8 @@
-import type { BoardDetail } from "@/lib/catalogue/get-board";
-import type { CataloguePage, CatalogueRow } from "@/lib/catalogue/list-boards";
-import { catalogueQueryString, type CatalogueParams } from "@/lib/catalogue/search-params";
-import type { BoardDetailResponse, BoardListResponse } from "./schemas/boards";
+import { badRequest, notFound } from "@/lib/http/errors";
+import { getBoardBySlug, type BoardDetail } from "./get-board";
+import { listBoards, type CataloguePage, type CatalogueRow } from "./list-boards";
+import { catalogueQueryString, parseCatalogueParams, type CatalogueParams } from "./search-params";
+import type { BoardDetailResponse, BoardListResponse } from "./api-schemas";
 
 // lib/catalogue's results in the API's published shape. Mapped field by field (not spread) so a
 // column added to a query does not silently become part of the public API.
@@ -83,4 +84,23 @@ export function boardDetailResponse(board: BoardDetail): BoardDetailResponse {
     })),
     links: boardLinks(board.slug),
   };
+}
+
+/** GET /api/v1/boards's query, through the /boards page's parameter schema; 400 naming each bad one. */
+export function catalogueQuery(record: Record<string, string | string[]>): CatalogueParams {
+  const parsed = parseCatalogueParams(record);
+  if (!parsed.ok) throw badRequest(parsed.fieldErrors);
+  return parsed.params;
+}
+
+/** GET /api/v1/boards: one page of the catalogue. */
+export async function boardList(params: CatalogueParams): Promise<BoardListResponse> {
+  return boardListResponse(await listBoards(params), params);
+}
+
+/** GET /api/v1/boards/{slug}: the board, or a 404 naming `slug`. */
+export async function boardDetail(slug: string): Promise<BoardDetailResponse> {
+  const board = await getBoardBySlug(slug);
+  if (!board) throw notFound(`No board has the slug "${slug}".`, "slug");
+  return boardDetailResponse(board);
 }

@@ -1,6 +1,6 @@
-import type { ApiError } from "./errors";
+import { ApiError } from "./errors";
 import { etagOf, ifNoneMatchHits } from "./etag";
-import type { ErrorBody } from "./schemas/error";
+import type { ErrorBody } from "./error-body";
 
 // JSON responses for the API. Every success carries an ETag and Cache-Control; every error the one
 // error body and `no-store`, so that a cache never keeps a 4xx/5xx for a URL that may work later.
@@ -77,4 +77,14 @@ export function privateJson(body: unknown, status = 200, headers: Record<string,
     status,
     headers: { "Content-Type": "application/json; charset=utf-8", "Cache-Control": "no-store", ...headers },
   });
+}
+
+/** 204 for a private write that has nothing to say (a deletion). */
+export function noContent(): Response {
+  return new Response(null, { status: 204, headers: { "Cache-Control": "no-store" } });
+}
+
+/** 429 in the one error shape, with Retry-After (RFC 6585 §4); `field` names what was limited. */
+export function tooManyRequests(message: string, retryAfterSeconds: number, field = "email"): Response {
+  return errorResponse(new ApiError(429, message, { [field]: [message] }), { "Retry-After": String(retryAfterSeconds) });
 }

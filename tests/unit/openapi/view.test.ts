@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { openApiDocument } from "@/lib/api/openapi";
-import { componentNames, fieldRows, operations } from "@/lib/api/openapi-view";
+import { openApiDocument } from "@/lib/openapi/document";
+import { componentNames, fieldRows, operations } from "@/lib/openapi/view";
 
 // The docs page's reading of the generated document.
 describe("openapi-view", () => {

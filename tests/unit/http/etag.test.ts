@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { etagOf, ifNoneMatchHits } from "@/lib/api/etag";
+import { etagOf, ifNoneMatchHits } from "@/lib/http/etag";
 
 // If-None-Match evaluation per RFC 9110 §13.1.2 (weak comparison, "*", comma-separated lists).
 describe("etagOf", () => {

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { ERROR_CODES } from "../errors";
+import { ERROR_CODES } from "./errors";
 
-// The one error body of the API (lib/api/respond.ts builds it).
+// The one error body of the API (lib/http/respond.ts builds it).
 const codes = Object.values(ERROR_CODES) as [string, ...string[]];
 
 export const ErrorBodySchema = z

@@ -1,8 +1,8 @@
 import { boardValuesStamp, loadBoardValues, type BoardValues } from "@/lib/published/board-values";
-import { notFound } from "./errors";
-import { etagOf, ifNoneMatchHits } from "./etag";
-import { notModified, varyingJson } from "./respond";
-import type { BoardValuesResponse, ValuesQuery } from "./schemas/values";
+import { notFound } from "@/lib/http/errors";
+import { etagOf, ifNoneMatchHits } from "@/lib/http/etag";
+import { notModified, varyingJson } from "@/lib/http/respond";
+import type { BoardValuesResponse, ValuesQuery } from "./api-schemas";
 
 // GET /api/v1/boards/{slug}/values, after its parameters were parsed. The ETag is made from the
 // values' freshness stamp and the view asked for, both at hand before any body exists, so:

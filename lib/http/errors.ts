@@ -1,7 +1,7 @@
 import { ConnectionAcquireTimeoutError, ConnectionError, TimeoutError } from "sequelize";
 
 // The one error type of the JSON API. Route handlers throw it (or let lib code throw anything
-// else); lib/api/handler.ts turns whatever was thrown into the one error body via toApiError.
+// else); route() in lib/http/route.ts turns whatever was thrown into the one error body via toApiError.
 
 export const ERROR_CODES = {
   400: "bad_request",

@@ -2,7 +2,8 @@ import { QUERY_MAX_LENGTH } from "@/lib/catalogue/search-params";
 
 /**
  * The big "find a board" box: a plain GET form to /boards, so it works before (and without)
- * JavaScript and the result URL can be shared.
+ * JavaScript and the result URL can be shared. That is why it stays a plain HTML form rather
+ * than a react-hook-form one.
  */
 export function BoardSearch({ id = "board-search", defaultValue }: { id?: string; defaultValue?: string }) {
   return (

@@ -11,7 +11,8 @@ import {
 
 /**
  * Search, filter and sort for /boards as one GET form: the URL holds the whole state, the back
- * button works, and it needs no JavaScript. Submitting starts again at page 1 (no page field).
+ * button works, and it needs no JavaScript (so it stays a plain HTML form, not a react-hook-form
+ * one). Submitting starts again at page 1 (no page field).
  */
 export function CatalogueFilters({ params, mountingPatterns }: { params: CatalogueParams; mountingPatterns: string[] }) {
   // keep a hand-typed pattern selectable even when no board uses it yet

@@ -1,35 +1,23 @@
 "use client";
 
-import { useQuery } from "@tanstack/react-query";
 import { useEffect, useId, useState } from "react";
-import type { BoardDetailResponse, BoardListResponse } from "@/lib/catalogue/api-schemas";
+import { useBoardSearch, useChooseBoard } from "@/components/hooks/use-boards";
 import { formatCells } from "@/lib/catalogue/format";
 import type { ChosenBoard } from "./draft";
 import { ErrorText } from "./field";
 
-// Finding the board: the catalogue's own search (GET /api/v1/boards?q=, the same aliases and close
-// spellings as the board list), then its revisions from GET /api/v1/boards/{slug}. (No import from
-// lib/catalogue/search-params here: it pulls the models, and so Sequelize, into the browser; the
-// API names a too-long search in its own error.)
-
-async function getJson<T>(url: string, signal?: AbortSignal): Promise<T> {
-  const res = await fetch(url, { signal, headers: { accept: "application/json" } });
-  const body = await res.json().catch(() => null);
-  if (!res.ok) throw new Error(body?.error?.message ?? `The catalogue did not answer (HTTP ${res.status}).`);
-  return body as T;
-}
-
-export async function fetchChosenBoard(slug: string): Promise<ChosenBoard> {
-  const b = await getJson<BoardDetailResponse>(`/api/v1/boards/${encodeURIComponent(slug)}`);
-  return { slug: b.slug, name: b.name, minCells: b.minCells, maxCells: b.maxCells, revisions: b.revisions.map((r) => ({ id: r.id, label: r.label })) };
-}
+// Finding the board: the catalogue's own search, then the chosen board's revisions, both through
+// the hooks in components/hooks/use-boards.ts. (No import from lib/catalogue/search-params here:
+// it pulls the models, and so Sequelize, into the browser; the API names a too-long search in its
+// own error.)
 
 export function BoardPicker({ board, onChoose, error }: { board: ChosenBoard | null; onChoose: (board: ChosenBoard | null) => void; error?: string }) {
   const inputId = useId();
   const [text, setText] = useState("");
   const [q, setQ] = useState("");
-  const [choosing, setChoosing] = useState<string | null>(null);
-  const [loadError, setLoadError] = useState<string | null>(null);
+  const chooser = useChooseBoard(onChoose);
+  const choosing = chooser.isPending ? chooser.variables : null;
+  const loadError = chooser.error?.message ?? null;
 
   // search as the person types, a quarter second after the last key
   useEffect(() => {
@@ -37,23 +25,8 @@ export function BoardPicker({ board, onChoose, error }: { board: ChosenBoard | n
     return () => clearTimeout(t);
   }, [text]);
 
-  const results = useQuery({
-    queryKey: ["submit-board-search", q],
-    queryFn: ({ signal }) => getJson<BoardListResponse>(`/api/v1/boards?${new URLSearchParams({ q, pageSize: "8" })}`, signal),
-    enabled: q.length >= 2 && board === null,
-  });
-
-  async function choose(slug: string) {
-    setChoosing(slug);
-    setLoadError(null);
-    try {
-      onChoose(await fetchChosenBoard(slug));
-    } catch (e) {
-      setLoadError((e as Error).message);
-    } finally {
-      setChoosing(null);
-    }
-  }
+  const results = useBoardSearch(q, q.length >= 2 && board === null);
+  const choose = (slug: string) => chooser.mutate(slug);
 
   if (board) {
     return (

@@ -1,18 +1,17 @@
 "use client";
 
-import { useQuery } from "@tanstack/react-query";
 import { useWatch } from "react-hook-form";
+import { useBoardValues } from "@/components/hooks/use-board-values";
 import { formatFigure, plural } from "@/lib/catalogue/format";
 import type { QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
 import { placeValue } from "@/lib/submissions/placement";
-import { fetchGroupValues, valuesQueryKey } from "@/components/values/fetch-values";
 import { findGroup } from "@/components/values/selection";
 import type { ChosenBoard, FamilyOption, SubmissionDraft } from "./draft";
 
 // Before sending: where the contributor's values fall among the approved ones for the same board
 // revision and firmware family (GET /api/v1/boards/{slug}/values), as the median, its 95 % range
 // and the value's modified z-score (lib/submissions/placement.ts). The read is the board page's
-// own (components/values), so both share react-query's cache for the same view.
+// own (useBoardValues), so both share react-query's cache for the same view.
 
 const QUANTITIES: { key: QuantityKey; title: string }[] = [
   { key: "voltageScale", title: "Voltage scale" },
@@ -53,11 +52,7 @@ export function DistributionPreview({ board, families }: { board: ChosenBoard | 
   const family = families.find((f) => f.id === familyId) ?? null;
   const ready = Boolean(board && revision && family);
   const selection = { revision: revision?.label ?? "", family: family?.slug ?? "" };
-  const values = useQuery({
-    queryKey: valuesQueryKey(board?.slug ?? "", selection),
-    queryFn: ({ signal }) => fetchGroupValues(board!.slug, selection, signal),
-    enabled: ready,
-  });
+  const values = useBoardValues(board?.slug ?? "", selection, { enabled: ready });
   if (!ready) return null;
   const mine: Record<QuantityKey, number | null> = { voltageScale, currentScale, currentOffset };
   const entered = QUANTITIES.filter((q) => typeof mine[q.key] === "number" && Number.isFinite(mine[q.key]!));

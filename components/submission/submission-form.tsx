@@ -5,7 +5,9 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMemo, useRef, useState, type ReactNode } from "react";
 import { FormProvider, useForm, useWatch, type FieldErrors, type Resolver } from "react-hook-form";
+import { useSendSubmission, type SendTarget } from "@/components/hooks/use-submission";
 import { EvidencePhotos } from "@/components/photos/evidence-photos";
+import { ApiFetchError } from "@/lib/client/api-fetch";
 import { NOTES_MAX_LENGTH } from "@/lib/submissions/limits";
 import { submissionSchema } from "@/lib/submissions/schema";
 import { METHOD_HINTS, METHOD_LABELS, METHODS, SENSING_SOURCE_LABELS, SENSING_SOURCES } from "@/lib/vocabulary";
@@ -18,7 +20,7 @@ import { ErrorText, NumberField, SelectField, TextField, errorAt, fieldId } from
 
 // The contribution form. react-hook-form holds the draft; validation is lib/submissions/schema.ts
 // (the same schema POST/PATCH /api/v1/submissions parse with), made for the chosen family and
-// board, over the body toPayload builds. The form sends through the API itself, with an
+// board, over the body toPayload builds. It sends through useSendSubmission, with an
 // Idempotency-Key that lives as long as this draft, so a retry after a dropped connection can
 // never create a second submission.
 
@@ -109,43 +111,33 @@ export function SubmissionForm({
 
   const showSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
 
+  const sender = useSendSubmission();
+
   async function send() {
     setOutcome(null);
     const body = toPayload(getValues());
-    let res: Response;
+    const target: SendTarget = mode.kind === "create" ? { kind: "create", idempotencyKey } : mode;
+    let sent: { submission: { id: number } };
     try {
-      res =
-        mode.kind === "create"
-          ? await fetch("/api/v1/submissions", {
-              method: "POST",
-              headers: { "content-type": "application/json", accept: "application/json", "idempotency-key": idempotencyKey },
-              body: JSON.stringify(body),
-            })
-          : await fetch(`/api/v1/submissions/${mode.id}`, {
-              method: "PATCH",
-              headers: { "content-type": "application/json", accept: "application/json" },
-              body: JSON.stringify({ ...body, version: mode.version }),
-            });
-    } catch {
-      setOutcome({ message: "It was not sent: Shuntbook could not be reached. Check your connection and send again; sending twice is safe, it will not make two.", others: [] });
-      return showSummary();
+      sent = await sender.mutateAsync({ target, body });
+    } catch (e) {
+      if (!(e instanceof ApiFetchError)) throw e;
+      return refused(e);
     }
-    const data = await res.json().catch(() => null);
-    if (res.ok) {
-      const id = data?.submission?.id;
-      router.push(`/my/submissions?${mode.kind === "create" ? "sent" : "updated"}=${id}`);
-      return;
-    }
-    const error = data?.error as { message?: string; fieldErrors?: Record<string, string[]> } | undefined;
+    router.push(`/my/submissions?${mode.kind === "create" ? "sent" : "updated"}=${sent?.submission?.id}`);
+  }
+
+  /** The server's refusal: its field errors on the fields, the rest and a summary at the top. */
+  function refused(error: ApiFetchError) {
     const others: string[] = [];
-    for (const [path, messages] of Object.entries(error?.fieldErrors ?? {})) {
+    for (const [path, messages] of Object.entries(error.fieldErrors)) {
       if (DRAFT_KEYS.has(path.split(".")[0]) && path !== "photoIds") setError(path as never, { type: "server", message: messages[0] });
       else others.push(...messages);
     }
-    let message = error?.message ?? `It was not saved (HTTP ${res.status}).`;
-    if (res.status === 400) message = "Some values need another look; each is marked below.";
-    if (res.status === 401) message = "Your sign-in has ended. Sign in again in another tab, then send once more: nothing you typed is lost.";
-    if (res.status === 422) {
+    let message = error.message;
+    if (error.status === 400) message = "Some values need another look; each is marked below.";
+    if (error.status === 401) message = "Your sign-in has ended. Sign in again in another tab, then send once more: nothing you typed is lost.";
+    if (error.status === 422) {
       // this draft's key was used for other values: keep the work, make the next send a new one
       setIdempotencyKey(newKey());
       message = "This form was already sent once with other values. Check My submissions before sending again; sending now makes a new submission.";

@@ -1,14 +1,13 @@
 "use client";
 
-import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { useMemo, useState, type ReactNode } from "react";
+import { useBoardValues } from "@/components/hooks/use-board-values";
 import { plural } from "@/lib/catalogue/format";
 import type { BoardValues, QuantityKey } from "@/lib/published/board-values-types";
 import { describeDifference, revisionDifferences, type RevisionFacts } from "@/lib/published/revision-differences";
 import { DifferenceNotes } from "./difference-notes";
 import { DistributionChart } from "./distribution-chart";
-import { fetchGroupValues, valuesQueryKey } from "./fetch-values";
 import type { PartsFigures } from "./quantity-meaning";
 import { RecommendedValue } from "./recommended-value";
 import { findGroup, groupSize, type Selection } from "./selection";
@@ -84,12 +83,7 @@ export function BoardValuesSection(props: Props) {
 function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }: Props & { initial: NonNullable<Props["initial"]> }) {
   const [selection, setSelection] = useState<Selection>(initial.selection);
   const isInitial = selection.revision === initial.selection.revision && selection.family === initial.selection.family;
-  const query = useQuery({
-    queryKey: valuesQueryKey(slug, selection),
-    queryFn: ({ signal }) => fetchGroupValues(slug, selection, signal),
-    initialData: isInitial ? initial.values : undefined,
-    placeholderData: keepPreviousData,
-  });
+  const query = useBoardValues(slug, selection, { initial: isInitial ? initial.values : undefined, keepPrevious: true });
 
   function choose(next: Selection) {
     setSelection(next);

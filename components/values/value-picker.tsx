@@ -5,7 +5,7 @@ import type { Selection } from "./selection";
 
 // Revision and firmware family as two rows of radio chips. It is a real GET form: before the
 // script runs (or without it) "Show values" reloads the page for the choice; once hydrated a
-// change switches in place and the button goes away.
+// change switches in place and the button goes away. Navigation only, so no react-hook-form.
 
 export type PickerOption = { value: string; label: string; hint?: string };
 

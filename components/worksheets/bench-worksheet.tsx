@@ -5,7 +5,9 @@ import { CartesianGrid, ReferenceLine, Scatter, ScatterChart, XAxis, YAxis } fro
 import { BenchCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
 import { benchPointInput, benchStartInput, type BenchSheetView } from "@/lib/worksheets/bench-input";
-import { errorsOf, FieldError, NumberInput, PublishPanel, numberIn, SavedEntries, useCheckedSubmit, useSavedWorksheet, useStartWorksheet, Warnings } from "./saved-worksheet";
+import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { useSavedWorksheet, useStartWorksheet } from "@/components/hooks/use-worksheet";
+import { FieldError, NumberInput, numberOrUndefined, PublishPanel, SavedEntries, Warnings } from "./saved-worksheet";
 
 // The bench worksheet, saved on the server point by point (lib/worksheets/bench.ts): clamp-meter
 // current beside the display's at several steady throttles, fitted on the server by
@@ -27,12 +29,11 @@ function Advice() {
 export function BenchWorksheet(props: { quadId: number; startingScale: number | null; startingOffset: number | null; initial: BenchSheetView | null }) {
   const [sheet, setSheet] = useState(props.initial);
   const start = useStartWorksheet<BenchSheetView>(setSheet);
-  const form = useCheckedSubmit(
-    benchStartInput,
-    (f) => ({ kind: "bench", quadId: props.quadId, scaleUsed: numberIn(f, "scaleUsed"), offsetUsed: numberIn(f, "offsetUsed") }),
-    (body) => start.mutate(body, { onError: (e) => form.setErrors(errorsOf(e)) }),
-  );
-  const { errors, submit } = form;
+  const { form, errors } = useSchemaForm<{ scaleUsed: string; offsetUsed: string }>(benchStartInput, {
+    defaultValues: { scaleUsed: props.startingScale == null ? "" : String(props.startingScale), offsetUsed: String(props.startingOffset ?? 0) },
+    toBody: (v) => ({ kind: "bench", quadId: props.quadId, scaleUsed: numberOrUndefined(v.scaleUsed), offsetUsed: numberOrUndefined(v.offsetUsed) }),
+  });
+  const submit = form.handleSubmit((body) => start.mutate(body, { onError: (e) => showServerErrors(form.setError, e) }));
   if (sheet) return <BenchSheet initial={sheet} />;
 
   return (
@@ -42,9 +43,9 @@ export function BenchWorksheet(props: { quadId: number; startingScale: number | 
         <h2 className="font-display text-lg font-bold tracking-wide uppercase">Start a bench check</h2>
         <FieldError messages={[...(errors.input ?? []), ...(errors.quadId ?? [])]} />
         <div className="grid gap-3 sm:grid-cols-2">
-          <NumberInput idPrefix="bs" name="scaleUsed" label="Current scale in force" errors={errors} defaultValue={props.startingScale ?? undefined}
+          <NumberInput idPrefix="bs" field={form.register("scaleUsed")} label="Current scale in force" errors={errors}
             hint={props.startingScale != null ? "The board's published recommended value; change it if your quad runs another." : "Nothing is published for this board yet: enter your quad's value."} />
-          <NumberInput idPrefix="bs" name="offsetUsed" label="Current offset in force" errors={errors} defaultValue={props.startingOffset ?? 0} />
+          <NumberInput idPrefix="bs" field={form.register("offsetUsed")} label="Current offset in force" errors={errors} />
         </div>
         <button type="submit" className="sb-button w-full sm:w-auto" disabled={start.isPending}>{start.isPending ? "Starting…" : "Start"}</button>
       </form>
@@ -53,15 +54,9 @@ export function BenchWorksheet(props: { quadId: number; startingScale: number | 
 }
 
 export function BenchSheet({ initial }: { initial: BenchSheetView }) {
-  const { sheet, add, remove, publish, addErrors, removeErrors, publishErrors, busy } = useSavedWorksheet(initial);
+  const { sheet, add, remove, publish, busy } = useSavedWorksheet(initial);
+  // a saved point starts the next from a fresh form
   const [formKey, setFormKey] = useState(0);
-  const { errors: formErrors, submit } = useCheckedSubmit(
-    benchPointInput,
-    (f) => ({ measuredAmps: numberIn(f, "measuredAmps"), reportedAmps: numberIn(f, "reportedAmps") }),
-    (body) => add.mutate(body, { onSuccess: () => setFormKey((k) => k + 1) }),
-    () => add.reset(),
-  );
-  const errors = { ...addErrors, ...formErrors };
   const v = sheet.result;
   const open = sheet.submissionId == null;
 
@@ -74,7 +69,7 @@ export function BenchSheet({ initial }: { initial: BenchSheetView }) {
       </p>
 
       <SavedEntries id="b-points" title="Points" testId="bench-points" entries={sheet.points} removed={sheet.removed} open={open} busy={busy}
-        onRemove={(position) => remove.mutate(position)} removeErrors={removeErrors}
+        onRemove={(position) => remove.mutate(position)} removeErrors={errorsOf(remove.error)}
         describe={(p) => <>clamp meter <span className="font-mono">{formatFigure(p.measuredAmps, 2)} A</span>, display <span className="font-mono">{formatFigure(p.reportedAmps, 2)} A</span></>} />
 
       {v && (
@@ -102,21 +97,33 @@ export function BenchSheet({ initial }: { initial: BenchSheetView }) {
       )}
       <Warnings items={sheet.warnings} />
 
-      {open && (
-        <form key={formKey} onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="bench-form">
-          <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add point {sheet.points.length + 1}</h2>
-          <p className="text-small">Hold the throttle steady until both readings settle; clamp the battery lead, arrow towards the board.</p>
-          <FieldError messages={[...(errors.input ?? []), ...(errors.points ?? [])]} />
-          <div className="grid gap-3 sm:grid-cols-2">
-            <NumberInput idPrefix="b" name="measuredAmps" label="Clamp meter (A)" errors={errors} />
-            <NumberInput idPrefix="b" name="reportedAmps" label="Display current (A)" errors={errors} />
-          </div>
-          <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>{add.isPending ? "Saving…" : "Save point"}</button>
-        </form>
-      )}
+      {open && <PointForm key={formKey} sheet={sheet} add={add} busy={busy} onSaved={() => setFormKey((k) => k + 1)} />}
 
-      <PublishPanel submissionId={sheet.submissionId} ready={v != null} busy={busy} errors={publishErrors} onPublish={() => publish.mutate()}
+      <PublishPanel submissionId={sheet.submissionId} ready={v != null} busy={busy} errors={errorsOf(publish.error)} onPublish={() => publish.mutate()}
         what="Sends the recommended current scale and offset with every point above as its bench evidence." />
     </div>
+  );
+}
+
+function PointForm({ sheet, add, busy, onSaved }: { sheet: BenchSheetView; add: ReturnType<typeof useSavedWorksheet<BenchSheetView>>["add"]; busy: boolean; onSaved: () => void }) {
+  const { form, errors } = useSchemaForm<{ measuredAmps: string; reportedAmps: string }>(benchPointInput, {
+    defaultValues: { measuredAmps: "", reportedAmps: "" },
+    toBody: (v) => ({ measuredAmps: numberOrUndefined(v.measuredAmps), reportedAmps: numberOrUndefined(v.reportedAmps) }),
+  });
+  const submit = form.handleSubmit(
+    (body) => add.mutate(body, { onSuccess: onSaved, onError: (e) => showServerErrors(form.setError, e) }),
+    () => add.reset(),
+  );
+  return (
+    <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="bench-form">
+      <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add point {sheet.points.length + 1}</h2>
+      <p className="text-small">Hold the throttle steady until both readings settle; clamp the battery lead, arrow towards the board.</p>
+      <FieldError messages={[...(errors.input ?? []), ...(errors.points ?? [])]} />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <NumberInput idPrefix="b" field={form.register("measuredAmps")} label="Clamp meter (A)" errors={errors} />
+        <NumberInput idPrefix="b" field={form.register("reportedAmps")} label="Display current (A)" errors={errors} />
+      </div>
+      <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>{add.isPending ? "Saving…" : "Save point"}</button>
+    </form>
   );
 }

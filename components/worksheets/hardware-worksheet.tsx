@@ -19,7 +19,8 @@ import type { CurrentSensorKind } from "@/lib/vocabulary";
 import { FieldError } from "./saved-worksheet";
 
 // From the hardware: the board record's parts, overridable by what the builder reads off the
-// board, worked out as they type by lib/calibration/hardware.ts. Nothing is stored.
+// board, worked out as they type by lib/calibration/hardware.ts. Nothing is stored or sent, so it
+// is live state rather than a react-hook-form form.
 
 type Props = {
   family: WorksheetFamily;

@@ -1,13 +1,14 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useState, type FormEvent, type ReactNode } from "react";
+import { useState, type ReactNode } from "react";
 import { formatFigure } from "@/lib/catalogue/format";
 import { CHARGING_CAUTIONS } from "@/lib/calibration/cautions";
 import type { RoundedSetting } from "@/lib/calibration";
 import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
 import { ConvergencePlot } from "./convergence-plot";
-import { checked, errorsOf, FieldError, sendJson, TakenBack, type Errors } from "./saved-worksheet";
+import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { useSavedWorksheet } from "@/components/hooks/use-worksheet";
+import { FieldError, numberOrNull, TakenBack, Warnings, type Errors } from "./saved-worksheet";
 
 // The fly-and-recharge worksheet: each iteration is sent on its own and stored whole, then the page
 // shows what the recharge maths makes of all of them (lib/calibration/recharge.ts).
@@ -35,64 +36,26 @@ function Cell({ label, children }: { label: string; children: ReactNode }) {
 }
 
 export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
-  const router = useRouter();
-  const [sheet, setSheet] = useState(initial);
+  const { sheet, add, remove, publish, busy } = useSavedWorksheet(initial);
+  // what the last take-back or publish was refused for; a new iteration's send replaces it
   const [errors, setErrors] = useState<Errors>({});
-  const [busy, setBusy] = useState(false);
   const [formKey, setFormKey] = useState(0);
   const r = sheet.result;
   const nextScale = r ? r.recommendedSetting : sheet.startingScale;
-
-  async function addStep(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const f = new FormData(event.currentTarget);
-    const num = (k: string) => (String(f.get(k) ?? "").trim() === "" ? null : Number(f.get(k)));
-    const body = { scaleUsed: num("scaleUsed"), reportedMah: num("reportedMah"), chargedMah: num("chargedMah"), fullyRecharged: f.get("fullyRecharged") === "on" };
-    await send(async () => {
-      // the shared schema first, with the server's words, before any round trip
-      const step = checked(stepInput, body);
-      setSheet((await sendJson<{ worksheet: WorksheetView }>(`/api/v1/garage/worksheets/${sheet.id}/steps`, "POST", step)).worksheet);
-      setFormKey((k) => k + 1);
-    });
-  }
-
-  /** Runs one request: busy meanwhile, its refusal shown by field. */
-  async function send(request: () => Promise<void>) {
-    setBusy(true);
-    try {
-      await request();
-      setErrors({});
-    } catch (e) {
-      setErrors(errorsOf(e));
-    } finally {
-      setBusy(false);
-    }
-  }
+  const outcome = { onSuccess: () => setErrors({}), onError: (e: Error) => setErrors(errorsOf(e)) };
 
   // a mistyped iteration: the server keeps it, struck out and no longer counted
   const last = sheet.steps.at(-1);
   const takeBack = (position: number) =>
-    send(async () => {
-      setSheet((await sendJson<{ worksheet: WorksheetView }>(`/api/v1/garage/worksheets/${sheet.id}/steps/${position}`, "DELETE")).worksheet);
+    remove.mutate(position, {
+      onError: outcome.onError,
       // the next iteration's scale was filled in from the taken-back one: fill it in afresh
-      setFormKey((k) => k + 1);
+      onSuccess: () => {
+        outcome.onSuccess();
+        setFormKey((k) => k + 1);
+      },
     });
-
-  const publish = () =>
-    send(async () => {
-      const { submission } = await sendJson<{ submission: { id: number } }>(`/api/v1/garage/worksheets/${sheet.id}/publish`, "POST", {});
-      router.push(`/my/submissions?sent=${submission.id}`);
-    });
-
-  const field = (name: string, label: string, hint?: string, defaultValue?: number) => (
-    <div>
-      <label htmlFor={`w-${name}`} className="mb-1 block font-semibold">{label}</label>
-      <input id={`w-${name}`} name={name} type="number" inputMode="decimal" className="sb-field" defaultValue={defaultValue}
-        aria-invalid={errors[name] ? true : undefined} aria-describedby={errors[name] ? `w-${name}-error` : undefined} />
-      {hint && <p className="mt-1 text-small text-muted">{hint}</p>}
-      {errors[name] && <p id={`w-${name}-error`} className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{errors[name].join(" ")}</p>}
-    </div>
-  );
+  const publishIt = () => publish.mutate(undefined, outcome);
 
   return (
     <div className="space-y-6">
@@ -152,33 +115,18 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
         </section>
       )}
 
-      {sheet.warnings.length > 0 && (
-        <ul className="space-y-1 rounded-md border-2 border-caution-edge bg-caution p-3 text-small" data-testid="worksheet-warnings">
-          {sheet.warnings.map((w) => <li key={w.field + w.message}>⚠ {w.message}</li>)}
-        </ul>
-      )}
+      <Warnings items={sheet.warnings} />
 
       {r && r.convergence.length > 0 && <ConvergencePlot worksheet={r} />}
 
       {sheet.submissionId == null ? (
         <>
-          <form key={formKey} onSubmit={addStep} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="step-form">
-            <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add iteration {sheet.steps.length + 1}</h2>
-            <p className="text-small">Fly a pack down to your usual landing voltage with this scale, note the mAh the OSD shows, then recharge fully and note what the charger put back.</p>
-            {errors.input && <p role="alert" className="font-semibold text-fault">⚠ {errors.input.join(" ")}</p>}
-            <div className="grid gap-3 sm:grid-cols-3">
-              {field("scaleUsed", "Scale used", undefined, nextScale)}
-              {field("reportedMah", "Reported mAh", "What the OSD showed at landing")}
-              {field("chargedMah", "Charged mAh", "What the charger put back")}
-            </div>
-            <label className="flex items-center gap-2 font-semibold"><input type="checkbox" name="fullyRecharged" defaultChecked className="size-5" /> The charger finished (pack fully recharged)</label>
-            <button type="submit" className="sb-button" disabled={busy}>{busy ? "Saving…" : "Save iteration"}</button>
-          </form>
+          <StepForm key={formKey} number={sheet.steps.length + 1} nextScale={nextScale} add={add} busy={busy} requestErrors={errors} onSend={() => setErrors({})} onSaved={() => setFormKey((k) => k + 1)} />
           {r && (
             <div className="space-y-2">
               {errors.steps && <p className="font-semibold text-fault">⚠ {errors.steps.join(" ")}</p>}
               {errors.firmwareVersion && <p className="font-semibold text-fault">⚠ {errors.firmwareVersion.join(" ")}</p>}
-              <button type="button" className="sb-button" onClick={publish} disabled={busy} data-testid="publish">Publish to Shuntbook</button>
+              <button type="button" className="sb-button" onClick={publishIt} disabled={busy} data-testid="publish">Publish to Shuntbook</button>
               <p className="text-small text-muted">Sends the recommended scale and every fully recharged cycle as a contribution. A moderator reviews it like any other.</p>
             </div>
           )}
@@ -195,5 +143,54 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
         </details>
       )}
     </div>
+  );
+}
+
+type StepFields = { scaleUsed: string; reportedMah: string; chargedMah: string; fullyRecharged: boolean };
+
+/** One iteration, checked with the server's own schema before it is sent. */
+function StepForm(props: {
+  number: number;
+  nextScale: number;
+  add: ReturnType<typeof useSavedWorksheet<WorksheetView>>["add"];
+  busy: boolean;
+  requestErrors: Errors;
+  onSend: () => void;
+  onSaved: () => void;
+}) {
+  const { form, errors: formErrors } = useSchemaForm<StepFields>(stepInput, {
+    defaultValues: { scaleUsed: String(props.nextScale), reportedMah: "", chargedMah: "", fullyRecharged: true },
+    toBody: (v) => ({ scaleUsed: numberOrNull(v.scaleUsed), reportedMah: numberOrNull(v.reportedMah), chargedMah: numberOrNull(v.chargedMah), fullyRecharged: v.fullyRecharged === true }),
+  });
+  const errors = { ...props.requestErrors, ...formErrors };
+  const submit = form.handleSubmit(
+    (step) => {
+      props.onSend();
+      props.add.mutate(step, { onSuccess: props.onSaved, onError: (e) => showServerErrors(form.setError, e) });
+    },
+    props.onSend,
+  );
+  const field = (name: "scaleUsed" | "reportedMah" | "chargedMah", label: string, hint?: string) => (
+    <div>
+      <label htmlFor={`w-${name}`} className="mb-1 block font-semibold">{label}</label>
+      <input id={`w-${name}`} type="number" inputMode="decimal" className="sb-field" {...form.register(name)}
+        aria-invalid={errors[name] ? true : undefined} aria-describedby={errors[name] ? `w-${name}-error` : undefined} />
+      {hint && <p className="mt-1 text-small text-muted">{hint}</p>}
+      {errors[name] && <p id={`w-${name}-error`} className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{errors[name].join(" ")}</p>}
+    </div>
+  );
+  return (
+    <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="step-form">
+      <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add iteration {props.number}</h2>
+      <p className="text-small">Fly a pack down to your usual landing voltage with this scale, note the mAh the OSD shows, then recharge fully and note what the charger put back.</p>
+      {errors.input && <p role="alert" className="font-semibold text-fault">⚠ {errors.input.join(" ")}</p>}
+      <div className="grid gap-3 sm:grid-cols-3">
+        {field("scaleUsed", "Scale used")}
+        {field("reportedMah", "Reported mAh", "What the OSD showed at landing")}
+        {field("chargedMah", "Charged mAh", "What the charger put back")}
+      </div>
+      <label className="flex items-center gap-2 font-semibold"><input type="checkbox" className="size-5" {...form.register("fullyRecharged")} /> The charger finished (pack fully recharged)</label>
+      <button type="submit" className="sb-button" disabled={props.busy}>{props.busy ? "Saving…" : "Save iteration"}</button>
+    </form>
   );
 }

@@ -1,69 +1,53 @@
 "use client";
 
-import { useQuery } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useState, type ChangeEvent, type FormEvent } from "react";
+import { useState } from "react";
+import { showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { usePacks } from "@/components/hooks/use-garage";
+import { useStartWorksheet } from "@/components/hooks/use-worksheet";
 import { CHEMISTRY_LIMITS } from "@/lib/calibration/chemistry";
-import type { PackView } from "@/lib/garage/packs";
 import { startInput } from "@/lib/worksheets/recharge-input";
+import { numberOrNull } from "./saved-worksheet";
 
 // Starts a fly-and-recharge worksheet on a quad. The starting scale is the board's published value
 // when there is one (the server decides); the builder's own is asked for only as a fallback.
 // Choosing one of the builder's packs (GET /api/v1/garage/packs) fills in its cells and rated mAh,
 // which stay editable; which pack it was is not stored, so the worksheet is the same either way.
 
-type PackChoice = Pick<PackView, "id" | "label" | "chemistry" | "cells" | "ratedMah">;
-
-async function fetchPacks(signal: AbortSignal): Promise<PackChoice[]> {
-  const res = await fetch("/api/v1/garage/packs", { signal, headers: { accept: "application/json" } });
-  if (!res.ok) throw new Error(`Your packs did not load (HTTP ${res.status}); type the figures instead.`);
-  return ((await res.json()) as { packs: PackChoice[] }).packs;
-}
+type StartFields = { cells: string; ratedMah: string; startingScale: string };
+const NO_ANSWER = "The server did not answer; try again.";
 
 export function StartWorksheet({ quadId }: { quadId: number }) {
   const router = useRouter();
-  const [errors, setErrors] = useState<Record<string, string[]>>({});
-  const [busy, setBusy] = useState(false);
-  const [values, setValues] = useState({ cells: "", ratedMah: "" });
   const [packId, setPackId] = useState("");
-  const packs = useQuery({ queryKey: ["garage-packs"], queryFn: ({ signal }) => fetchPacks(signal) });
+  const packs = usePacks();
+  const { form, errors } = useSchemaForm<StartFields>(startInput, {
+    defaultValues: { cells: "", ratedMah: "", startingScale: "" },
+    toBody: (v) => ({ quadId, ratedMah: numberOrNull(v.ratedMah), cells: numberOrNull(v.cells), startingScale: numberOrNull(v.startingScale) }),
+    raw: true,
+  });
+  const start = useStartWorksheet<{ id: number }>((sheet) => router.push(`/garage/worksheets/${sheet.id}`), { unreachableMessage: NO_ANSWER, fallbackMessage: () => NO_ANSWER });
+  const [cells, ratedMah] = form.watch(["cells", "ratedMah"]);
   const chosen = packs.data?.find((p) => String(p.id) === packId) ?? null;
-  const edited = chosen != null && (values.cells !== String(chosen.cells) || values.ratedMah !== String(chosen.ratedMah));
+  const edited = chosen != null && (cells !== String(chosen.cells) || ratedMah !== String(chosen.ratedMah));
+  const busy = start.isPending;
 
   function choosePack(id: string) {
     setPackId(id);
     const pack = packs.data?.find((p) => String(p.id) === id);
-    if (pack) setValues({ cells: String(pack.cells), ratedMah: String(pack.ratedMah) });
+    if (pack) {
+      form.setValue("cells", String(pack.cells));
+      form.setValue("ratedMah", String(pack.ratedMah));
+    }
   }
 
-  async function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const f = new FormData(event.currentTarget);
-    const num = (k: string) => (String(f.get(k) ?? "").trim() === "" ? null : Number(f.get(k)));
-    const body = { quadId, ratedMah: num("ratedMah"), cells: num("cells"), startingScale: num("startingScale") };
-    const parsed = startInput.safeParse(body);
-    if (!parsed.success) {
-      const next: Record<string, string[]> = {};
-      for (const i of parsed.error.issues) (next[i.path.join(".") || "input"] ??= []).push(i.message);
-      return setErrors(next);
-    }
-    setBusy(true);
-    const res = await fetch("/api/v1/garage/worksheets", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }).finally(() => setBusy(false));
-    const json = await res.json().catch(() => null);
-    if (!res.ok) {
-      const e = json?.error ?? { message: "The server did not answer; try again.", fieldErrors: {} };
-      return setErrors(Object.keys(e.fieldErrors ?? {}).length ? e.fieldErrors : { input: [e.message] });
-    }
-    router.push(`/garage/worksheets/${json.worksheet.id}`);
-  }
+  const submit = form.handleSubmit((body) => start.mutate(body, { onError: (e) => showServerErrors(form.setError, e) }));
 
-  // cells and rated mAh are held in state so a chosen pack can fill them; the scale is left to the form
-  const bound = (name: "cells" | "ratedMah") => ({ value: values[name], onChange: (e: ChangeEvent<HTMLInputElement>) => setValues((v) => ({ ...v, [name]: e.target.value })) });
-  const field = (name: string, label: string, hint?: string, controlled?: ReturnType<typeof bound>) => (
+  const field = (name: keyof StartFields, label: string, hint?: string) => (
     <div>
       <label htmlFor={`s-${name}`} className="mb-1 block font-semibold">{label}</label>
-      <input id={`s-${name}`} name={name} type="number" inputMode="numeric" className="sb-field" aria-invalid={errors[name] ? true : undefined}
-        {...controlled} />
+      <input id={`s-${name}`} type="number" inputMode="numeric" className="sb-field" aria-invalid={errors[name] ? true : undefined}
+        {...form.register(name)} />
       {hint && <p className="mt-1 text-small text-muted">{hint}</p>}
       {errors[name] && <p className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{errors[name].join(" ")}</p>}
     </div>
@@ -89,8 +73,8 @@ export function StartWorksheet({ quadId }: { quadId: number }) {
       )}
       {packs.error && <p className="text-small text-muted">{packs.error.message}</p>}
       <div className="grid gap-3 sm:grid-cols-3">
-        {field("cells", "Pack cells (S)", undefined, bound("cells"))}
-        {field("ratedMah", "Pack rated mAh", undefined, bound("ratedMah"))}
+        {field("cells", "Pack cells (S)")}
+        {field("ratedMah", "Pack rated mAh")}
         {field("startingScale", "Current scale flown now", "Only needed when nothing is published for this board yet")}
       </div>
       <button type="submit" className="sb-button" disabled={busy}>{busy ? "Starting…" : "Start worksheet"}</button>

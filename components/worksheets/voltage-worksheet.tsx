@@ -5,7 +5,9 @@ import { ProbeCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
 import { voltageReadingInput, voltageStartInput, type VoltageSheetView } from "@/lib/worksheets/voltage-input";
 import { MEASURED_AT, type MeasuredAt } from "@/lib/vocabulary";
-import { errorsOf, FieldError, NumberInput, PublishPanel, numberIn, SavedEntries, useCheckedSubmit, useSavedWorksheet, useStartWorksheet, Warnings } from "./saved-worksheet";
+import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { useSavedWorksheet, useStartWorksheet } from "@/components/hooks/use-worksheet";
+import { FieldError, NumberInput, numberOrUndefined, PublishPanel, SavedEntries, Warnings } from "./saved-worksheet";
 
 // The voltage worksheet, saved on the server pair by pair (lib/worksheets/voltage.ts), so a
 // builder can pick it up again on a phone at the field. The server judges each new pair with the
@@ -18,12 +20,11 @@ const volts = (v: number) => `${formatFigure(v, 2)} V`;
 export function VoltageWorksheet({ quadId, startingScale, initial }: { quadId: number; startingScale: number | null; initial: VoltageSheetView | null }) {
   const [sheet, setSheet] = useState(initial);
   const start = useStartWorksheet<VoltageSheetView>(setSheet);
-  const form = useCheckedSubmit(
-    voltageStartInput,
-    (f) => ({ kind: "voltage", quadId, scaleUsed: numberIn(f, "scaleUsed") }),
-    (body) => start.mutate(body, { onError: (e) => form.setErrors(errorsOf(e)) }),
-  );
-  const { errors, submit } = form;
+  const { form, errors } = useSchemaForm<{ scaleUsed: string }>(voltageStartInput, {
+    defaultValues: { scaleUsed: startingScale == null ? "" : String(startingScale) },
+    toBody: (v) => ({ kind: "voltage", quadId, scaleUsed: numberOrUndefined(v.scaleUsed) }),
+  });
+  const submit = form.handleSubmit((body) => start.mutate(body, { onError: (e) => showServerErrors(form.setError, e) }));
   if (sheet) return <VoltageSheet initial={sheet} />;
 
   return (
@@ -32,7 +33,7 @@ export function VoltageWorksheet({ quadId, startingScale, initial }: { quadId: n
       <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="voltage-start">
         <h2 className="font-display text-lg font-bold tracking-wide uppercase">Start a voltage check</h2>
         <FieldError messages={[...(errors.input ?? []), ...(errors.quadId ?? [])]} />
-        <NumberInput idPrefix="vs" name="scaleUsed" label="Voltage scale in force" errors={errors} defaultValue={startingScale ?? undefined}
+        <NumberInput idPrefix="vs" field={form.register("scaleUsed")} label="Voltage scale in force" errors={errors}
           hint={startingScale != null ? "The board's published recommended value; change it if your quad runs another." : "Nothing is published for this board yet: enter the value your quad runs with."} />
         <button type="submit" className="sb-button w-full sm:w-auto" disabled={start.isPending}>{start.isPending ? "Starting…" : "Start"}</button>
       </form>
@@ -41,18 +42,11 @@ export function VoltageWorksheet({ quadId, startingScale, initial }: { quadId: n
 }
 
 export function VoltageSheet({ initial }: { initial: VoltageSheetView }) {
-  const { sheet, add, remove, publish, addErrors, removeErrors, publishErrors, busy } = useSavedWorksheet(initial);
+  const { sheet, add, remove, publish, busy } = useSavedWorksheet(initial);
+  // a saved reading starts the next from a fresh form, its cells and place taken from the last
   const [formKey, setFormKey] = useState(0);
-  const { errors: formErrors, submit } = useCheckedSubmit(
-    voltageReadingInput,
-    (f) => ({ cells: numberIn(f, "cells"), reportedVolts: numberIn(f, "reportedVolts"), measuredVolts: numberIn(f, "measuredVolts"), measuredAt: f.get("measuredAt") ?? undefined }),
-    (body) => add.mutate(body, { onSuccess: () => setFormKey((k) => k + 1) }),
-    () => add.reset(),
-  );
-  const errors = { ...addErrors, ...formErrors };
   const r = sheet.result;
   const open = sheet.submissionId == null;
-  const last = sheet.readings.at(-1);
 
   return (
     <div className="space-y-5">
@@ -63,7 +57,7 @@ export function VoltageSheet({ initial }: { initial: VoltageSheetView }) {
       </p>
 
       <SavedEntries id="v-readings" title="Readings" testId="voltage-readings" entries={sheet.readings} removed={sheet.removed} open={open} busy={busy}
-        onRemove={(position) => remove.mutate(position)} removeErrors={removeErrors}
+        onRemove={(position) => remove.mutate(position)} removeErrors={errorsOf(remove.error)}
         describe={(x) => (
           <>
             {x.cells}S — display <span className="font-mono">{volts(x.reportedVolts)}</span>, meter <span className="font-mono">{volts(x.measuredVolts)}</span>{" "}
@@ -84,33 +78,48 @@ export function VoltageSheet({ initial }: { initial: VoltageSheetView }) {
       )}
       <Warnings items={sheet.warnings} />
 
-      {open && (
-        <form key={formKey} onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="voltage-form">
-          <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add reading {sheet.readings.length + 1}</h2>
-          <p className="text-small">With the pack at rest, read the display and the multimeter at the same moment.</p>
-          <FieldError messages={[...(errors.input ?? []), ...(errors.readings ?? []), ...(errors.scaleUsed ?? [])]} />
-          <div className="grid gap-3 sm:grid-cols-3">
-            <NumberInput idPrefix="v" name="cells" label="Cells (S)" errors={errors} defaultValue={last?.cells} />
-            <NumberInput idPrefix="v" name="reportedVolts" label="Display voltage (V)" errors={errors} hint="The whole pack" />
-            <NumberInput idPrefix="v" name="measuredVolts" label="Multimeter (V)" errors={errors} />
-          </div>
-          <fieldset aria-describedby={errors.measuredAt ? "v-measuredAt-error" : undefined}>
-            <legend className="mb-1 font-semibold">Where the probes touched</legend>
-            <div className="flex flex-wrap gap-x-5 gap-y-2">
-              {MEASURED_AT.map((place) => (
-                <label key={place} className="flex items-center gap-2">
-                  <input type="radio" name="measuredAt" value={place} defaultChecked={(last?.measuredAt ?? "main_lead") === place} className="size-5" /> {PLACE[place]}
-                </label>
-              ))}
-            </div>
-            <FieldError id="v-measuredAt-error" messages={errors.measuredAt} />
-          </fieldset>
-          <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>{add.isPending ? "Saving…" : "Save reading"}</button>
-        </form>
-      )}
+      {open && <ReadingForm key={formKey} sheet={sheet} add={add} busy={busy} onSaved={() => setFormKey((k) => k + 1)} />}
 
-      <PublishPanel submissionId={sheet.submissionId} ready={r != null} busy={busy} errors={publishErrors} onPublish={() => publish.mutate()}
+      <PublishPanel submissionId={sheet.submissionId} ready={r != null} busy={busy} errors={errorsOf(publish.error)} onPublish={() => publish.mutate()}
         what="Sends the recommended voltage scale with every reading above as its multimeter evidence." />
     </div>
+  );
+}
+
+type ReadingFields = { cells: string; reportedVolts: string; measuredVolts: string; measuredAt: MeasuredAt };
+
+function ReadingForm({ sheet, add, busy, onSaved }: { sheet: VoltageSheetView; add: ReturnType<typeof useSavedWorksheet<VoltageSheetView>>["add"]; busy: boolean; onSaved: () => void }) {
+  const last = sheet.readings.at(-1);
+  const { form, errors } = useSchemaForm<ReadingFields>(voltageReadingInput, {
+    defaultValues: { cells: last ? String(last.cells) : "", reportedVolts: "", measuredVolts: "", measuredAt: last?.measuredAt ?? "main_lead" },
+    toBody: (v) => ({ cells: numberOrUndefined(v.cells), reportedVolts: numberOrUndefined(v.reportedVolts), measuredVolts: numberOrUndefined(v.measuredVolts), measuredAt: v.measuredAt ?? undefined }),
+  });
+  const submit = form.handleSubmit(
+    (body) => add.mutate(body, { onSuccess: onSaved, onError: (e) => showServerErrors(form.setError, e) }),
+    () => add.reset(),
+  );
+  return (
+    <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="voltage-form">
+      <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add reading {sheet.readings.length + 1}</h2>
+      <p className="text-small">With the pack at rest, read the display and the multimeter at the same moment.</p>
+      <FieldError messages={[...(errors.input ?? []), ...(errors.readings ?? []), ...(errors.scaleUsed ?? [])]} />
+      <div className="grid gap-3 sm:grid-cols-3">
+        <NumberInput idPrefix="v" field={form.register("cells")} label="Cells (S)" errors={errors} />
+        <NumberInput idPrefix="v" field={form.register("reportedVolts")} label="Display voltage (V)" errors={errors} hint="The whole pack" />
+        <NumberInput idPrefix="v" field={form.register("measuredVolts")} label="Multimeter (V)" errors={errors} />
+      </div>
+      <fieldset aria-describedby={errors.measuredAt ? "v-measuredAt-error" : undefined}>
+        <legend className="mb-1 font-semibold">Where the probes touched</legend>
+        <div className="flex flex-wrap gap-x-5 gap-y-2">
+          {MEASURED_AT.map((place) => (
+            <label key={place} className="flex items-center gap-2">
+              <input type="radio" value={place} className="size-5" {...form.register("measuredAt")} /> {PLACE[place]}
+            </label>
+          ))}
+        </div>
+        <FieldError id="v-measuredAt-error" messages={errors.measuredAt} />
+      </fieldset>
+      <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>{add.isPending ? "Saving…" : "Save reading"}</button>
+    </form>
   );
 }

@@ -30,11 +30,24 @@ function fieldErrorsFrom(value: unknown): FieldErrors {
   return out;
 }
 
+/** What a refusal without the API's error body says, by status. */
+export type FallbackMessage = (status: number) => string;
+
+const defaultFallback: FallbackMessage = (status) => `The server answered ${status}. Try again in a moment.`;
+
+/**
+ * The ApiFetchError for a non-2xx answer whose body is already parsed (or null): the one reading of
+ * the error shape, shared with the photo upload, which gets its body from XMLHttpRequest.
+ */
+export function errorFromBody(status: number, body: unknown, fallback: FallbackMessage = defaultFallback): ApiFetchError {
+  const error = (body as ErrorBody | null)?.error;
+  const message = typeof error?.message === "string" ? error.message : fallback(status);
+  return new ApiFetchError(status, message, fieldErrorsFrom(error?.fieldErrors));
+}
+
 /** The ApiFetchError for a non-2xx answer, from the API's error body when there is one. */
-export async function errorFromResponse(response: Response): Promise<ApiFetchError> {
-  const body = (await response.json().catch(() => null)) as ErrorBody | null;
-  const message = typeof body?.error?.message === "string" ? body.error.message : `The server answered ${response.status}. Try again in a moment.`;
-  return new ApiFetchError(response.status, message, fieldErrorsFrom(body?.error?.fieldErrors));
+export async function errorFromResponse(response: Response, fallback?: FallbackMessage): Promise<ApiFetchError> {
+  return errorFromBody(response.status, await response.json().catch(() => null), fallback);
 }
 
 export type ApiFetchOptions = {
@@ -43,6 +56,10 @@ export type ApiFetchOptions = {
   json?: unknown;
   headers?: Record<string, string>;
   signal?: AbortSignal;
+  /** Said instead of UNREACHABLE_MESSAGE when the server cannot be reached, in the caller's words. */
+  unreachableMessage?: string;
+  /** Said for a refusal that carries no message of the API's own (a proxy's HTML page, say). */
+  fallbackMessage?: FallbackMessage;
 };
 
 /**
@@ -63,9 +80,9 @@ export async function apiFetch<T>(path: string, options: ApiFetchOptions = {}): 
     });
   } catch (error) {
     if (error instanceof DOMException && error.name === "AbortError") throw error;
-    throw new ApiFetchError(0, UNREACHABLE_MESSAGE);
+    throw new ApiFetchError(0, options.unreachableMessage ?? UNREACHABLE_MESSAGE);
   }
-  if (!response.ok) throw await errorFromResponse(response);
+  if (!response.ok) throw await errorFromResponse(response, options.fallbackMessage);
   if (response.status === 204) return undefined as T;
   return (await response.json()) as T;
 }

@@ -15,8 +15,8 @@ export default function ErrorPage({ error, reset }: { error: Error & { digest?: 
       <p className="font-mono text-lg font-bold text-fault">Error</p>
       <h1 className="font-display text-title uppercase">Something tripped on our side</h1>
       <p className="text-lead">
-        This page could not be shown just now. It is not something you did. Try again in a moment; if it keeps happening,
-        the catalogue may be down for maintenance.
+        This page could not be shown just now. It is not something you did. Try again in a moment; if it keeps happening, the catalogue may be down for
+        maintenance.
       </p>
       {error.digest && (
         <p className="text-small text-muted">

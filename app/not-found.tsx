@@ -11,8 +11,7 @@ export default function NotFound() {
         <p className="font-mono text-lg font-bold text-copper">404</p>
         <h1 className="font-display text-title uppercase">Nothing on the bench here</h1>
         <p className="max-w-prose text-lead">
-          There is no page at this address. The board may have been renamed or merged into another entry, or the link
-          has a typo.
+          There is no page at this address. The board may have been renamed or merged into another entry, or the link has a typo.
         </p>
         <div className="max-w-2xl rounded-md border-3 border-rule bg-surface p-4 sm:p-6">
           <BoardSearch id="notfound-search" />

@@ -25,8 +25,8 @@ export default async function HomePage() {
             <span className="bg-[linear-gradient(transparent_62%,var(--sb-signal)_62%,var(--sb-signal)_92%,transparent_92%)] px-1">right.</span>
           </h1>
           <p className="mt-5 max-w-prose text-lead">
-            Shuntbook is the pilots&rsquo; logbook of voltage scale, current scale and current offset for each FPV board
-            revision, measured with multimeters and chargers by the people who fly them.
+            Shuntbook is the pilots&rsquo; logbook of voltage scale, current scale and current offset for each FPV board revision, measured with multimeters and
+            chargers by the people who fly them.
           </p>
         </div>
         <div className="rounded-md border-3 border-rule bg-surface p-4 sm:p-6">

@@ -1,13 +1,7 @@
 import Link from "next/link";
 import { formatMounting } from "@/lib/catalogue/format";
 import { BOARD_KINDS, KIND_LABELS } from "@/lib/vocabulary";
-import {
-  CATALOGUE_SORTS,
-  DEFAULT_PAGE_SIZE,
-  QUERY_MAX_LENGTH,
-  SORT_LABELS,
-  type CatalogueParams,
-} from "@/lib/catalogue/search-params";
+import { CATALOGUE_SORTS, DEFAULT_PAGE_SIZE, QUERY_MAX_LENGTH, SORT_LABELS, type CatalogueParams } from "@/lib/catalogue/search-params";
 
 /**
  * Search, filter and sort for /boards as one GET form: the URL holds the whole state, the back
@@ -16,8 +10,7 @@ import {
  */
 export function CatalogueFilters({ params, mountingPatterns }: { params: CatalogueParams; mountingPatterns: string[] }) {
   // keep a hand-typed pattern selectable even when no board uses it yet
-  const mountings =
-    params.mounting && !mountingPatterns.includes(params.mounting) ? [...mountingPatterns, params.mounting] : mountingPatterns;
+  const mountings = params.mounting && !mountingPatterns.includes(params.mounting) ? [...mountingPatterns, params.mounting] : mountingPatterns;
   return (
     <form action="/boards" method="get" role="search" aria-label="Filter boards" className="rounded-md border-3 border-rule bg-surface p-4">
       <div className="grid grid-cols-2 gap-3 md:grid-cols-[2fr_1.3fr_1fr_1.2fr_auto] md:items-end">

@@ -11,7 +11,11 @@ export function asApiFetchError(error: unknown): ApiFetchError {
 }
 
 /** Puts the server's per-field messages onto the form's fields; returns the ones no field shows. */
-export function applyFieldErrors<T extends FieldValues>(setError: UseFormSetError<T>, fieldErrors: Record<string, string[]>, fields: readonly string[]): string[] {
+export function applyFieldErrors<T extends FieldValues>(
+  setError: UseFormSetError<T>,
+  fieldErrors: Record<string, string[]>,
+  fields: readonly string[],
+): string[] {
   const rest: string[] = [];
   for (const [field, messages] of Object.entries(fieldErrors)) {
     if (fields.includes(field)) setError(field as Path<T>, { type: "server", message: messages[0] });

@@ -12,18 +12,16 @@ export function SafetyNote() {
         </h2>
         <ul className="mt-3 list-disc space-y-2 pl-5">
           <li>
-            <strong>LiPo limits.</strong> A standard pack is full at <span className="font-mono">4.20&nbsp;V</span> per
-            cell; do not charge it higher, and do not discharge below <span className="font-mono">3.0&nbsp;V</span> per
-            cell off load. Common practice is to land at about <span className="font-mono">3.3–3.5&nbsp;V</span> per
-            cell under load.
+            <strong>LiPo limits.</strong> A standard pack is full at <span className="font-mono">4.20&nbsp;V</span> per cell; do not charge it higher, and do
+            not discharge below <span className="font-mono">3.0&nbsp;V</span> per cell off load. Common practice is to land at about{" "}
+            <span className="font-mono">3.3–3.5&nbsp;V</span> per cell under load.
           </li>
           <li>
-            <strong>Measure first.</strong> Check the pack voltage with a multimeter and compare it with your OSD before
-            you rely on any value from this page.
+            <strong>Measure first.</strong> Check the pack voltage with a multimeter and compare it with your OSD before you rely on any value from this page.
           </li>
           <li>
-            <strong>The maker comes first.</strong> These are community values. Your board maker&rsquo;s instructions,
-            your charger&rsquo;s manual and local rules take precedence.
+            <strong>The maker comes first.</strong> These are community values. Your board maker&rsquo;s instructions, your charger&rsquo;s manual and local
+            rules take precedence.
           </li>
         </ul>
       </div>

@@ -19,11 +19,20 @@ const EnvSchema = z.object({
   /** Port the web app listens on. */
   PORT: port.default(3000),
   /** Build folder of the app (next.config.mjs reads it too). */
-  SHUNTBOOK_NEXT_DIST_DIR: z.string().regex(/^\.next[\w-]*$/, "must be .next or start with .next").default(".next"),
+  SHUNTBOOK_NEXT_DIST_DIR: z
+    .string()
+    .regex(/^\.next[\w-]*$/, "must be .next or start with .next")
+    .default(".next"),
   /** Log every SQL statement (1) or not (0). */
-  SHUNTBOOK_SQL_LOG: z.enum(["0", "1"]).default("0").transform((v) => v === "1"),
+  SHUNTBOOK_SQL_LOG: z
+    .enum(["0", "1"])
+    .default("0")
+    .transform((v) => v === "1"),
   /** Outgoing mail. Unset: `npm start` and `npm test` run a local SMTP catcher (maildev) and set it. */
-  SMTP_URL: z.string().regex(/^smtps?:\/\/\S+$/, "must be an smtp:// or smtps:// URL").optional(),
+  SMTP_URL: z
+    .string()
+    .regex(/^smtps?:\/\/\S+$/, "must be an smtp:// or smtps:// URL")
+    .optional(),
   /** Web inbox of the local SMTP catcher, shown in the README and used by browser tests. */
   MAIL_INBOX_URL: z.url().optional(),
   MAIL_FROM: z.string().min(3).default("Shuntbook <no-reply@shuntbook.test>"),
@@ -33,7 +42,10 @@ const EnvSchema = z.object({
   /** S3-compatible store for evidence photos. Unset: the launcher runs a local fake (s3rver) and sets it. */
   S3_ENDPOINT: z.url().optional(),
   S3_REGION: z.string().min(1).default("us-east-1"),
-  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, "must be a valid bucket name").default("shuntbook-evidence"),
+  S3_BUCKET: z
+    .string()
+    .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, "must be a valid bucket name")
+    .default("shuntbook-evidence"),
   // s3rver's fixed credentials; a real store gets its own through the environment
   S3_ACCESS_KEY_ID: z.string().min(1).default("S3RVER"),
   S3_SECRET_ACCESS_KEY: z.string().min(1).default("S3RVER"),

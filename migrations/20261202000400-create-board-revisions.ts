@@ -30,9 +30,7 @@ export async function up(queryInterface: QueryInterface) {
       CHECK (current_sensor IS DISTINCT FROM 'shunt' OR hall_mv_per_amp IS NULL),
       CHECK (current_sensor IS NOT NULL OR (shunt_milliohms IS NULL AND amplifier_gain IS NULL AND hall_mv_per_amp IS NULL))
     )`);
-  await queryInterface.sequelize.query(
-    "CREATE INDEX board_revisions_model_position_idx ON board_revisions (board_model_id, position)",
-  );
+  await queryInterface.sequelize.query("CREATE INDEX board_revisions_model_position_idx ON board_revisions (board_model_id, position)");
 }
 
 export async function down(queryInterface: QueryInterface) {

@@ -15,9 +15,7 @@ export async function up(queryInterface: QueryInterface) {
       -- a mismatch can only come from evidence that was summarised
       ADD CONSTRAINT submissions_mismatch_has_summary CHECK (NOT evidence_mismatch OR evidence_summary IS NOT NULL)`);
   // the review queue: one status, mismatches first, oldest first
-  await queryInterface.sequelize.query(
-    "CREATE INDEX submissions_review_queue_idx ON submissions (status, evidence_mismatch DESC, created_at)",
-  );
+  await queryInterface.sequelize.query("CREATE INDEX submissions_review_queue_idx ON submissions (status, evidence_mismatch DESC, created_at)");
 }
 
 export async function down(queryInterface: QueryInterface) {

@@ -1,8 +1,16 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from "sequelize";
 import type { AuditAction, AuditEntityType } from "@/lib/vocabulary";
 import type { Submission } from "./Submission";
 import type { User } from "./User";
-
 
 /**
  * One entry of the append-only moderation log (migrations/20261210001100-…; lib/moderation/audit.ts).

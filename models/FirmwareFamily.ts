@@ -64,9 +64,20 @@ export class FirmwareFamily extends Model<InferAttributes<FirmwareFamily>, Infer
  * FAMILY_UNIT_COLUMNS / familyUnitColumnsSql their one SQL column list.
  */
 export const FAMILY_UNIT_FIELDS = [
-  "voltageScaleUnit", "voltageScaleStep", "voltageScaleResponse", "voltageScaleMin", "voltageScaleMax",
-  "currentScaleUnit", "currentScaleStep", "currentScaleResponse", "currentScaleMin", "currentScaleMax",
-  "currentOffsetUnit", "currentOffsetStep", "currentOffsetMin", "currentOffsetMax",
+  "voltageScaleUnit",
+  "voltageScaleStep",
+  "voltageScaleResponse",
+  "voltageScaleMin",
+  "voltageScaleMax",
+  "currentScaleUnit",
+  "currentScaleStep",
+  "currentScaleResponse",
+  "currentScaleMin",
+  "currentScaleMax",
+  "currentOffsetUnit",
+  "currentOffsetStep",
+  "currentOffsetMin",
+  "currentOffsetMax",
 ] as const satisfies readonly (keyof InferAttributes<FirmwareFamily>)[];
 
 export type FamilyUnitFields = Pick<InferAttributes<FirmwareFamily>, (typeof FAMILY_UNIT_FIELDS)[number]>;

@@ -5,7 +5,6 @@ import type { Quad } from "./Quad";
 import type { Submission } from "./Submission";
 import type { User } from "./User";
 
-
 /**
  * A calibration worksheet on a builder's quad (migrations/20261211000100-…, 20261212000100-…).
  * ratedMah and cells are set for fly_recharge only; startingOffset for bench only.

@@ -40,10 +40,35 @@ let initialisedWith: Sequelize | undefined;
 export function db(): Sequelize {
   const sequelize = getSequelize();
   if (initialisedWith !== sequelize) {
-    for (const model of [Manufacturer, BoardModel, BoardRevision, BoardAlias, FirmwareFamily, User, Submission, EvidencePhoto,
-      SubmissionVoltageReading, SubmissionCycle, SubmissionBenchPoint, IdempotencyKey,
-      Account, AuthSession, VerificationToken, PasswordResetToken, RateLimit, Quad, Pack, PackCharge,
-      AuditEvent, PublishedValueHistory, BoardStat, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint]) {
+    for (const model of [
+      Manufacturer,
+      BoardModel,
+      BoardRevision,
+      BoardAlias,
+      FirmwareFamily,
+      User,
+      Submission,
+      EvidencePhoto,
+      SubmissionVoltageReading,
+      SubmissionCycle,
+      SubmissionBenchPoint,
+      IdempotencyKey,
+      Account,
+      AuthSession,
+      VerificationToken,
+      PasswordResetToken,
+      RateLimit,
+      Quad,
+      Pack,
+      PackCharge,
+      AuditEvent,
+      PublishedValueHistory,
+      BoardStat,
+      Worksheet,
+      WorksheetStep,
+      WorksheetVoltageReading,
+      WorksheetBenchPoint,
+    ]) {
       model.initModel(sequelize);
     }
     associate();

@@ -26,7 +26,9 @@ export default async function AdminPage({ searchParams }: Props) {
         <h1 className="font-display text-title uppercase">People and decisions</h1>
       </header>
       <section aria-labelledby="people" className="space-y-3">
-        <h2 id="people" className="font-display text-heading uppercase">People</h2>
+        <h2 id="people" className="font-display text-heading uppercase">
+          People
+        </h2>
         <ul className="space-y-3">
           {users.users.map((u) => (
             <li key={u.id} className={box}>
@@ -46,13 +48,19 @@ export default async function AdminPage({ searchParams }: Props) {
         </p>
       </section>
       <section aria-labelledby="log" className="space-y-3">
-        <h2 id="log" className="font-display text-heading uppercase">Latest decisions</h2>
+        <h2 id="log" className="font-display text-heading uppercase">
+          Latest decisions
+        </h2>
         <ol className="space-y-3">
           {events.events.map((e) => (
             <li key={e.id} className={box}>
               <p>
-                <strong>{e.actionLabel}</strong> {e.entity.type === "submission" ? <a href={`/moderation/${e.entity.id}`}>submission #{e.entity.id}</a> : e.entity.name}
-                <span className="text-small text-muted"> · {e.actor?.name ?? "Shuntbook"} · {dateTime.format(new Date(e.at))} UTC</span>
+                <strong>{e.actionLabel}</strong>{" "}
+                {e.entity.type === "submission" ? <a href={`/moderation/${e.entity.id}`}>submission #{e.entity.id}</a> : e.entity.name}
+                <span className="text-small text-muted">
+                  {" "}
+                  · {e.actor?.name ?? "Shuntbook"} · {dateTime.format(new Date(e.at))} UTC
+                </span>
               </p>
               {e.reason && <p className="text-small">“{e.reason}”</p>}
               {e.revertedByEventId !== null && <p className="text-small text-muted">Reverted by event {e.revertedByEventId}.</p>}

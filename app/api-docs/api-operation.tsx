@@ -22,10 +22,18 @@ export function ApiOperation({ op, curl }: { op: OperationView; curl: string }) 
             <table className="w-full border-collapse text-left text-small">
               <thead>
                 <tr className="border-b-2 border-rule">
-                  <th scope="col" className="py-2 pr-4">Name</th>
-                  <th scope="col" className="py-2 pr-4">In</th>
-                  <th scope="col" className="py-2 pr-4">Accepts</th>
-                  <th scope="col" className="py-2">Meaning</th>
+                  <th scope="col" className="py-2 pr-4">
+                    Name
+                  </th>
+                  <th scope="col" className="py-2 pr-4">
+                    In
+                  </th>
+                  <th scope="col" className="py-2 pr-4">
+                    Accepts
+                  </th>
+                  <th scope="col" className="py-2">
+                    Meaning
+                  </th>
                 </tr>
               </thead>
               <tbody>
@@ -67,7 +75,10 @@ export function ApiOperation({ op, curl }: { op: OperationView; curl: string }) 
           {op.body.refs.map((ref) => (
             <p key={ref} className="mt-2">
               {op.body!.rows.length > 0 ? "And every field of " : "The fields of "}
-              <a href={`#schema-${ref}`} className="font-mono">{ref}</a>.
+              <a href={`#schema-${ref}`} className="font-mono">
+                {ref}
+              </a>
+              .
             </p>
           ))}
         </div>
@@ -82,7 +93,11 @@ export function ApiOperation({ op, curl }: { op: OperationView; curl: string }) 
               {r.ref && (
                 <>
                   {" "}
-                  Body: <a href={`#schema-${r.ref}`} className="font-mono">{r.ref}</a>.
+                  Body:{" "}
+                  <a href={`#schema-${r.ref}`} className="font-mono">
+                    {r.ref}
+                  </a>
+                  .
                 </>
               )}
               {r.headers.length > 0 && <span className="text-muted"> Headers: {r.headers.join(", ")}.</span>}

@@ -47,7 +47,7 @@ function exampleCurl(op: OperationView, base: string, slug: string): string {
   const url = `'${base}${exampleQuery(op, slug)}'`;
   const cookie = op.security.length ? " --cookie 'next-auth.session-token=…'" : "";
   if (op.method === "GET") return `curl -s${cookie} ${url}`;
-  const key = op.id === "createSubmission" ? " -H \"Idempotency-Key: $(uuidgen)\"" : "";
+  const key = op.id === "createSubmission" ? ' -H "Idempotency-Key: $(uuidgen)"' : "";
   return `curl -s -X ${op.method}${cookie} -H 'content-type: application/json'${key} --data @submission.json ${url}`;
 }
 
@@ -93,19 +93,18 @@ export default async function ApiDocsPage() {
           </dl>
           <ul className="list-disc space-y-2 pl-5">
             <li>
-              <strong>Settings, not volts.</strong> Every figure in a values response is a firmware setting, a whole number
-              of the family&rsquo;s step. The response lists each family&rsquo;s units: value = setting × step.
+              <strong>Settings, not volts.</strong> Every figure in a values response is a firmware setting, a whole number of the family&rsquo;s step. The
+              response lists each family&rsquo;s units: value = setting × step.
             </li>
             <li>
-              <strong>Caching.</strong> Every success carries an <code className="font-mono">ETag</code> and{" "}
-              <code className="font-mono">Cache-Control</code>. Send the tag back in{" "}
-              <code className="font-mono">If-None-Match</code> and you get <code className="font-mono">304</code> with no body
-              while nothing has changed.
+              <strong>Caching.</strong> Every success carries an <code className="font-mono">ETag</code> and <code className="font-mono">Cache-Control</code>.
+              Send the tag back in <code className="font-mono">If-None-Match</code> and you get <code className="font-mono">304</code> with no body while
+              nothing has changed.
             </li>
             <li>
-              <strong>Errors.</strong> Every 4xx and 5xx has the same body (see <a href="#schema-Error">Error</a>):{" "}
-              <code className="font-mono">400</code> names each bad parameter in <code className="font-mono">fieldErrors</code>,{" "}
-              <code className="font-mono">404</code> says which name matched nothing. Errors are never cached.
+              <strong>Errors.</strong> Every 4xx and 5xx has the same body (see <a href="#schema-Error">Error</a>): <code className="font-mono">400</code> names
+              each bad parameter in <code className="font-mono">fieldErrors</code>, <code className="font-mono">404</code> says which name matched nothing.
+              Errors are never cached.
             </li>
           </ul>
           <nav aria-labelledby="endpoints-title">

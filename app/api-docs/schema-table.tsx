@@ -7,9 +7,15 @@ export function SchemaRows({ rows }: { rows: FieldRow[] }) {
       <table className="w-full border-collapse text-left text-small">
         <thead>
           <tr className="border-b-2 border-rule">
-            <th scope="col" className="py-2 pr-4">Field</th>
-            <th scope="col" className="py-2 pr-4">Type</th>
-            <th scope="col" className="py-2">Meaning</th>
+            <th scope="col" className="py-2 pr-4">
+              Field
+            </th>
+            <th scope="col" className="py-2 pr-4">
+              Type
+            </th>
+            <th scope="col" className="py-2">
+              Meaning
+            </th>
           </tr>
         </thead>
         <tbody>

@@ -105,7 +105,11 @@ function describe(params: CatalogueParams, total: number): string {
 /** The filters in force, each with a link that drops just that one. */
 function ActiveFilters({ params }: { params: CatalogueParams }) {
   const chips: { label: string; href: string }[] = [];
-  if (params.q) chips.push({ label: `“${params.q}”`, href: `/boards${catalogueQueryString({ ...params, q: undefined, page: 1, sort: params.sort === "relevance" ? "name" : params.sort })}` });
+  if (params.q)
+    chips.push({
+      label: `“${params.q}”`,
+      href: `/boards${catalogueQueryString({ ...params, q: undefined, page: 1, sort: params.sort === "relevance" ? "name" : params.sort })}`,
+    });
   if (params.kind) chips.push({ label: kindLabel(params.kind), href: `/boards${catalogueQueryString({ ...params, kind: undefined, page: 1 })}` });
   if (params.mounting)
     chips.push({ label: `${formatMounting(params.mounting)} mm`, href: `/boards${catalogueQueryString({ ...params, mounting: undefined, page: 1 })}` });

@@ -14,11 +14,25 @@ export const metadata: Metadata = { title: "My garage" };
 
 async function choices(): Promise<{ revisions: Choice[]; families: Choice[]; revisionName: Map<number, string>; familyName: Map<number, string> }> {
   db();
-  const revs = await BoardRevision.findAll({ include: [{ model: BoardModel, as: "boardModel", attributes: ["name"] }], order: [["boardModelId", "ASC"], ["position", "ASC"]] });
+  const revs = await BoardRevision.findAll({
+    include: [{ model: BoardModel, as: "boardModel", attributes: ["name"] }],
+    order: [
+      ["boardModelId", "ASC"],
+      ["position", "ASC"],
+    ],
+  });
   const fams = await FirmwareFamily.findAll({ attributes: ["id", "name"], order: [["name", "ASC"]] });
-  const revisions = revs.map((r) => ({ value: String(r.id), label: `${(r as BoardRevision & { boardModel?: BoardModel }).boardModel?.name ?? "Board"} ${r.label}` }));
+  const revisions = revs.map((r) => ({
+    value: String(r.id),
+    label: `${(r as BoardRevision & { boardModel?: BoardModel }).boardModel?.name ?? "Board"} ${r.label}`,
+  }));
   const families = fams.map((f) => ({ value: String(f.id), label: f.name }));
-  return { revisions, families, revisionName: new Map(revisions.map((r) => [Number(r.value), r.label])), familyName: new Map(families.map((f) => [Number(f.value), f.label])) };
+  return {
+    revisions,
+    families,
+    revisionName: new Map(revisions.map((r) => [Number(r.value), r.label])),
+    familyName: new Map(families.map((f) => [Number(f.value), f.label])),
+  };
 }
 
 export default async function GaragePage() {
@@ -29,20 +43,37 @@ export default async function GaragePage() {
     <div className="mx-auto max-w-page space-y-8 px-4 py-6 sm:px-6">
       <header>
         <h1 className="font-display text-display uppercase">My garage</h1>
-        <p className="mt-2 max-w-prose">Your quads and packs. Only you can see them; a worksheet you finish here can be published to Shuntbook as a contribution.</p>
+        <p className="mt-2 max-w-prose">
+          Your quads and packs. Only you can see them; a worksheet you finish here can be published to Shuntbook as a contribution.
+        </p>
       </header>
 
       <section aria-labelledby="quads-title" className="space-y-4">
-        <h2 id="quads-title" className="font-display text-heading uppercase">Quads</h2>
-        {quads.length === 0 ? <p className="text-muted">No quads yet: add the first below.</p> : (
+        <h2 id="quads-title" className="font-display text-heading uppercase">
+          Quads
+        </h2>
+        {quads.length === 0 ? (
+          <p className="text-muted">No quads yet: add the first below.</p>
+        ) : (
           <ul className="grid gap-3 sm:grid-cols-2" data-testid="quad-list">
             {quads.map((q) => (
               <li key={q.id} className="rounded-md border-3 border-rule bg-surface p-4">
-                <h3 className="font-display text-lg font-bold uppercase"><Link href={`/garage/quads/${q.id}`} className="text-ink">{q.name}</Link></h3>
+                <h3 className="font-display text-lg font-bold uppercase">
+                  <Link href={`/garage/quads/${q.id}`} className="text-ink">
+                    {q.name}
+                  </Link>
+                </h3>
                 <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-small">
-                  <dt className="text-muted">Board</dt><dd>{q.boardRevisionId ? lists.revisionName.get(q.boardRevisionId) : <span className="sb-unknown">not chosen</span>}</dd>
-                  <dt className="text-muted">Firmware</dt><dd>{[q.firmwareFamilyId ? lists.familyName.get(q.firmwareFamilyId) : null, q.firmwareVersion].filter(Boolean).join(" ") || <span className="sb-unknown">not given</span>}</dd>
-                  <dt className="text-muted">ESC</dt><dd>{q.esc ?? <span className="sb-unknown">not given</span>}</dd>
+                  <dt className="text-muted">Board</dt>
+                  <dd>{q.boardRevisionId ? lists.revisionName.get(q.boardRevisionId) : <span className="sb-unknown">not chosen</span>}</dd>
+                  <dt className="text-muted">Firmware</dt>
+                  <dd>
+                    {[q.firmwareFamilyId ? lists.familyName.get(q.firmwareFamilyId) : null, q.firmwareVersion].filter(Boolean).join(" ") || (
+                      <span className="sb-unknown">not given</span>
+                    )}
+                  </dd>
+                  <dt className="text-muted">ESC</dt>
+                  <dd>{q.esc ?? <span className="sb-unknown">not given</span>}</dd>
                 </dl>
                 {q.notes && <p className="mt-2 text-small whitespace-pre-line">{q.notes}</p>}
               </li>
@@ -53,8 +84,12 @@ export default async function GaragePage() {
       </section>
 
       <section aria-labelledby="packs-title" className="space-y-4">
-        <h2 id="packs-title" className="font-display text-heading uppercase">Packs</h2>
-        {packs.length === 0 ? <p className="text-muted">No packs yet: add the first below.</p> : (
+        <h2 id="packs-title" className="font-display text-heading uppercase">
+          Packs
+        </h2>
+        {packs.length === 0 ? (
+          <p className="text-muted">No packs yet: add the first below.</p>
+        ) : (
           <ul className="space-y-4" data-testid="pack-list">
             {packs.map((p) => (
               <li key={p.id}>

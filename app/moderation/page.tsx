@@ -10,13 +10,23 @@ export const metadata: Metadata = { title: "Moderation" };
 
 type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
 
-const FLAG_LABELS: Record<QueueFlag | "all", string> = { all: "All pending", outlier: "Far off", mismatch: "Evidence disagrees", new: "First-time contributor", none: "No flags" };
+const FLAG_LABELS: Record<QueueFlag | "all", string> = {
+  all: "All pending",
+  outlier: "Far off",
+  mismatch: "Evidence disagrees",
+  new: "First-time contributor",
+  none: "No flags",
+};
 const AGE_LABELS: Record<QueueAge, string> = { day: "Last 24 hours", week: "Last 7 days", older: "Waiting over a week" };
 const SORT_LABELS: Record<QueueSort, string> = { severity: "Most serious first", oldest: "Oldest first", newest: "Newest first" };
 
 function Chip({ href, active, children }: { href: string; active: boolean; children: React.ReactNode }) {
   return (
-    <Link href={href} aria-current={active ? "true" : undefined} className={`inline-flex min-h-11 items-center gap-2 rounded-md border-2 px-3 font-semibold no-underline ${active ? "border-ink bg-ink text-paper hover:text-paper" : "border-rule text-ink hover:bg-sunken hover:text-ink"}`}>
+    <Link
+      href={href}
+      aria-current={active ? "true" : undefined}
+      className={`inline-flex min-h-11 items-center gap-2 rounded-md border-2 px-3 font-semibold no-underline ${active ? "border-ink bg-ink text-paper hover:text-paper" : "border-rule text-ink hover:bg-sunken hover:text-ink"}`}
+    >
       {children}
     </Link>
   );
@@ -97,7 +107,9 @@ export default async function ModerationQueuePage({ searchParams }: Props) {
       </nav>
       <FilterForm q={q} boards={data.boards} />
       {data.rows.length === 0 ? (
-        <p className="rounded-md border-3 border-rule bg-surface p-4">Nothing is waiting here. {q.flag || q.board || q.age ? <Link href="/moderation">Show the whole queue</Link> : null}</p>
+        <p className="rounded-md border-3 border-rule bg-surface p-4">
+          Nothing is waiting here. {q.flag || q.board || q.age ? <Link href="/moderation">Show the whole queue</Link> : null}
+        </p>
       ) : (
         <QueueView rows={data.rows} />
       )}

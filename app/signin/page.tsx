@@ -34,11 +34,7 @@ export default async function SignInPage({ searchParams }: Props) {
   const problem = signInErrorMessage(one(params.error));
   const user = await currentUser();
   return (
-    <AccountPage
-      kicker="Account"
-      title="Sign in"
-      lead="Sign in to send the values you measured and to follow what moderators say about them."
-    >
+    <AccountPage kicker="Account" title="Sign in" lead="Sign in to send the values you measured and to follow what moderators say about them.">
       {problem && <FormMessage tone="fault">{problem}</FormMessage>}
       {user && (
         <FormMessage tone="done">
@@ -57,8 +53,7 @@ export default async function SignInPage({ searchParams }: Props) {
         </Card>
       </div>
       <p>
-        New here? <Link href={`/signup?next=${encodeURIComponent(next)}`}>Create an account</Link>. Reading the catalogue
-        needs none.
+        New here? <Link href={`/signup?next=${encodeURIComponent(next)}`}>Create an account</Link>. Reading the catalogue needs none.
       </p>
     </AccountPage>
   );

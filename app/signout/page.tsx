@@ -27,8 +27,7 @@ export default async function SignOutPage() {
         </Link>
       </div>
       <p className="max-w-prose text-small text-muted">
-        To sign out everywhere at once, change your password on the profile page: every other device then has to sign in
-        again.
+        To sign out everywhere at once, change your password on the profile page: every other device then has to sign in again.
       </p>
     </AccountPage>
   );

@@ -24,8 +24,8 @@ export default async function SubmitPage({ searchParams }: Props) {
         <p className="font-display text-lg font-bold tracking-wider uppercase">Contribute</p>
         <h1 className="font-display text-title uppercase">Send your values</h1>
         <p className="mt-3 text-lead">
-          Tell us which board and firmware you calibrated, how you checked, and what you measured. We work out what your
-          measurements imply and show where your values fall among everyone else&rsquo;s before you send.
+          Tell us which board and firmware you calibrated, how you checked, and what you measured. We work out what your measurements imply and show where your
+          values fall among everyone else&rsquo;s before you send.
         </p>
         <p className="mt-2">
           Already sent some? See <Link href="/my/submissions">My submissions</Link>.

@@ -35,7 +35,10 @@ export async function AccountLinks() {
         </NavLink>
       </li>
       <li>
-        <Link href="/signout" className="inline-flex min-h-11 items-center border-b-4 border-transparent px-1 font-display text-lg font-bold uppercase tracking-wider text-ink no-underline hover:border-copper hover:text-ink">
+        <Link
+          href="/signout"
+          className="inline-flex min-h-11 items-center border-b-4 border-transparent px-1 font-display text-lg font-bold uppercase tracking-wider text-ink no-underline hover:border-copper hover:text-ink"
+        >
           Sign out
         </Link>
       </li>

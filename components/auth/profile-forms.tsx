@@ -40,7 +40,14 @@ export function NameForm({ name }: { name: string }) {
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {message && <FormMessage tone={message.tone}>{message.text}</FormMessage>}
-      <TextField form={{ register, errors: formState.errors }} idPrefix="pf" name="name" label="Name" autoComplete="nickname" hint="Shown beside your contributions." />
+      <TextField
+        form={{ register, errors: formState.errors }}
+        idPrefix="pf"
+        name="name"
+        label="Name"
+        autoComplete="nickname"
+        hint="Shown beside your contributions."
+      />
       <button type="submit" className="sb-button" disabled={formState.isSubmitting}>
         Save the name
       </button>
@@ -74,9 +81,24 @@ export function PasswordForm({ hasPassword }: { hasPassword: boolean }) {
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {message && <FormMessage tone={message.tone}>{message.text}</FormMessage>}
       {hasPassword && (
-        <TextField form={form} idPrefix="pw-change" name={"currentPassword" as never} label="Current password" type="password" autoComplete="current-password" />
+        <TextField
+          form={form}
+          idPrefix="pw-change"
+          name={"currentPassword" as never}
+          label="Current password"
+          type="password"
+          autoComplete="current-password"
+        />
       )}
-      <TextField form={form} idPrefix="pw-change" name="newPassword" label="New password" type="password" autoComplete="new-password" hint="At least 10 characters. Other devices are signed out when it changes." />
+      <TextField
+        form={form}
+        idPrefix="pw-change"
+        name="newPassword"
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters. Other devices are signed out when it changes."
+      />
       <TextField form={form} idPrefix="pw-change" name="confirm" label="New password again" type="password" autoComplete="new-password" />
       <button type="submit" className="sb-button" disabled={formState.isSubmitting}>
         {hasPassword ? "Change the password" : "Set a password"}

@@ -27,7 +27,14 @@ export function ResetRequestForm() {
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {problem && <FormMessage tone="fault">{problem}</FormMessage>}
-      <TextField form={{ register, errors: formState.errors }} idPrefix="rr" name="email" label="E-mail address of the account" type="email" autoComplete="email" />
+      <TextField
+        form={{ register, errors: formState.errors }}
+        idPrefix="rr"
+        name="email"
+        label="E-mail address of the account"
+        type="email"
+        autoComplete="email"
+      />
       <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Sending…" : "Mail me a reset link"}
       </button>
@@ -61,8 +68,7 @@ export function ResetCompleteForm({ token }: { token: string }) {
   if (done) {
     return (
       <FormMessage tone="done">
-        Your new password is set, and any other device signed in to this account is now signed out.{" "}
-        <Link href="/signin">Sign in with the new password</Link>.
+        Your new password is set, and any other device signed in to this account is now signed out. <Link href="/signin">Sign in with the new password</Link>.
       </FormMessage>
     );
   }
@@ -75,8 +81,23 @@ export function ResetCompleteForm({ token }: { token: string }) {
         </FormMessage>
       )}
       <input type="hidden" {...register("token")} />
-      <TextField form={{ register, errors: formState.errors }} idPrefix="rc" name="password" label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." />
-      <TextField form={{ register, errors: formState.errors }} idPrefix="rc" name="confirm" label="New password again" type="password" autoComplete="new-password" />
+      <TextField
+        form={{ register, errors: formState.errors }}
+        idPrefix="rc"
+        name="password"
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters."
+      />
+      <TextField
+        form={{ register, errors: formState.errors }}
+        idPrefix="rc"
+        name="confirm"
+        label="New password again"
+        type="password"
+        autoComplete="new-password"
+      />
       <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Saving…" : "Set the new password"}
       </button>

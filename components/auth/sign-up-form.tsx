@@ -29,7 +29,11 @@ export function SignUpForm({ next }: { next: string }) {
       if (rest.length || !Object.keys(refusal.fieldErrors).length || refusal.status === 429) setProblem(refusal.message);
       return;
     }
-    const signedIn = await nextAuthPost("callback/credentials", { email: values.email, password: values.password }, new URL(next, window.location.origin).toString()).then(
+    const signedIn = await nextAuthPost(
+      "callback/credentials",
+      { email: values.email, password: values.password },
+      new URL(next, window.location.origin).toString(),
+    ).then(
       () => true,
       () => false,
     );
@@ -39,8 +43,24 @@ export function SignUpForm({ next }: { next: string }) {
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {problem && <FormMessage tone="fault">{problem}</FormMessage>}
       <TextField form={form} idPrefix="su" name="name" label="Name" autoComplete="nickname" hint="Shown beside your contributions. A handle is fine." />
-      <TextField form={form} idPrefix="su" name="email" label="E-mail address" type="email" autoComplete="email" hint="For sign-in links and password resets only; never shown." />
-      <TextField form={form} idPrefix="su" name="password" label="Password" type="password" autoComplete="new-password" hint="At least 10 characters. A few unrelated words work well." />
+      <TextField
+        form={form}
+        idPrefix="su"
+        name="email"
+        label="E-mail address"
+        type="email"
+        autoComplete="email"
+        hint="For sign-in links and password resets only; never shown."
+      />
+      <TextField
+        form={form}
+        idPrefix="su"
+        name="password"
+        label="Password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters. A few unrelated words work well."
+      />
       <TextField form={form} idPrefix="su" name="confirm" label="Password again" type="password" autoComplete="new-password" />
       <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Creating the account…" : "Create my account"}

@@ -38,7 +38,14 @@ function defaultOf(field: GarageField): string | boolean {
   return field.type === "select" ? (field.options?.[0]?.value ?? "") : "";
 }
 
-export function GarageForm({ title, action, schema, fields, submitLabel, testId }: {
+export function GarageForm({
+  title,
+  action,
+  schema,
+  fields,
+  submitLabel,
+  testId,
+}: {
   title: string;
   action: string;
   schema: z.ZodType;
@@ -68,11 +75,20 @@ export function GarageForm({ title, action, schema, fields, submitLabel, testId 
   return (
     <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid={testId}>
       <h3 className="font-display text-lg font-bold tracking-wide uppercase">{title}</h3>
-      {errors.input && <p role="alert" className="font-semibold text-fault">⚠ {errors.input.join(" ")}</p>}
+      {errors.input && (
+        <p role="alert" className="font-semibold text-fault">
+          ⚠ {errors.input.join(" ")}
+        </p>
+      )}
       <div className="grid gap-3 sm:grid-cols-2">
         {fields.map((f) => {
           const message = errors[f.name]?.join(" ");
-          const common = { id: id(f.name), ...form.register(f.name), "aria-invalid": message ? true : undefined, "aria-describedby": message ? `${id(f.name)}-error` : undefined };
+          const common = {
+            id: id(f.name),
+            ...form.register(f.name),
+            "aria-invalid": message ? true : undefined,
+            "aria-describedby": message ? `${id(f.name)}-error` : undefined,
+          };
           return (
             <div key={f.name} className={f.type === "textarea" ? "sm:col-span-2" : undefined}>
               {f.type === "checkbox" ? (
@@ -81,12 +97,18 @@ export function GarageForm({ title, action, schema, fields, submitLabel, testId 
                 </label>
               ) : (
                 <>
-                  <label htmlFor={id(f.name)} className="mb-1 block font-semibold">{f.label}</label>
+                  <label htmlFor={id(f.name)} className="mb-1 block font-semibold">
+                    {f.label}
+                  </label>
                   {f.type === "textarea" ? (
                     <textarea {...common} rows={3} className="sb-field" />
                   ) : f.type === "select" ? (
                     <select {...common} className="sb-field">
-                      {f.options?.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+                      {f.options?.map((o) => (
+                        <option key={o.value} value={o.value}>
+                          {o.label}
+                        </option>
+                      ))}
                     </select>
                   ) : (
                     <input {...common} type={f.type ?? "text"} step={f.step} inputMode={f.type === "number" ? "decimal" : undefined} className="sb-field" />
@@ -94,12 +116,19 @@ export function GarageForm({ title, action, schema, fields, submitLabel, testId 
                 </>
               )}
               {f.hint && <p className="mt-1 text-small text-muted">{f.hint}</p>}
-              {message && <p id={`${id(f.name)}-error`} className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{message}</p>}
+              {message && (
+                <p id={`${id(f.name)}-error`} className="mt-1 font-semibold text-fault">
+                  <span aria-hidden="true">⚠ </span>
+                  {message}
+                </p>
+              )}
             </div>
           );
         })}
       </div>
-      <button type="submit" className="sb-button" disabled={busy}>{busy ? "Saving…" : submitLabel}</button>
+      <button type="submit" className="sb-button" disabled={busy}>
+        {busy ? "Saving…" : submitLabel}
+      </button>
     </form>
   );
 }

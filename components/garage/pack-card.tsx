@@ -19,34 +19,64 @@ export function PackCard({ pack, children }: { pack: PackView; children?: ReactN
       </header>
       {w && (
         <dl className="grid grid-cols-2 gap-px overflow-hidden rounded-md border-2 border-rule bg-rule sm:grid-cols-4">
-          <div className="bg-surface px-3 py-2"><dt className="text-small text-muted">Cycles</dt><dd className="font-mono text-lg" data-testid="cycles">{w.capacity.cycleCount}</dd></div>
+          <div className="bg-surface px-3 py-2">
+            <dt className="text-small text-muted">Cycles</dt>
+            <dd className="font-mono text-lg" data-testid="cycles">
+              {w.capacity.cycleCount}
+            </dd>
+          </div>
           <div className="bg-surface px-3 py-2">
             <dt className="text-small text-muted">Usable capacity</dt>
-            <dd className="font-mono text-lg">{w.capacity.estimatedUsableMah == null ? <span className="sb-unknown text-body">needs 3 full-flight charges</span> : `${formatFigure(w.capacity.estimatedUsableMah, 0)} mAh`}</dd>
+            <dd className="font-mono text-lg">
+              {w.capacity.estimatedUsableMah == null ? (
+                <span className="sb-unknown text-body">needs 3 full-flight charges</span>
+              ) : (
+                `${formatFigure(w.capacity.estimatedUsableMah, 0)} mAh`
+              )}
+            </dd>
           </div>
           <div className="bg-surface px-3 py-2">
             <dt className="text-small text-muted">OSD mAh warning</dt>
             <dd className="font-mono text-lg">{w.mahWarning.mah} mAh</dd>
-            <dd className="text-small text-muted">{w.mahWarning.fraction * 100} % of the {w.capacity.basis} ({w.mahWarning.source})</dd>
+            <dd className="text-small text-muted">
+              {w.mahWarning.fraction * 100} % of the {w.capacity.basis} ({w.mahWarning.source})
+            </dd>
           </div>
           <div className="bg-surface px-3 py-2">
             <dt className="text-small text-muted">OSD voltage warning / critical</dt>
-            <dd className="font-mono text-lg">{v(w.voltageWarning.pack)} / {v(w.voltageCritical.pack)}</dd>
-            <dd className="text-small text-muted">{v(w.voltageWarning.perCell)} / {v(w.voltageCritical.perCell)} a cell under load ({w.voltageWarning.source})</dd>
+            <dd className="font-mono text-lg">
+              {v(w.voltageWarning.pack)} / {v(w.voltageCritical.pack)}
+            </dd>
+            <dd className="text-small text-muted">
+              {v(w.voltageWarning.perCell)} / {v(w.voltageCritical.perCell)} a cell under load ({w.voltageWarning.source})
+            </dd>
           </div>
         </dl>
       )}
-      {w && <p className="text-small">Full: <span className="font-mono">{v(w.full.pack)}</span> ({v(w.full.perCell)} a cell; {w.full.source}).</p>}
+      {w && (
+        <p className="text-small">
+          Full: <span className="font-mono">{v(w.full.pack)}</span> ({v(w.full.perCell)} a cell; {w.full.source}).
+        </p>
+      )}
       {pack.notes.length > 0 && (
         <ul className="space-y-1 rounded-md border-2 border-caution-edge bg-caution p-3 text-small">
-          {pack.notes.map((n) => <li key={n.message}>⚠ {n.message}</li>)}
+          {pack.notes.map((n) => (
+            <li key={n.message}>⚠ {n.message}</li>
+          ))}
         </ul>
       )}
       {pack.charges.length > 0 && (
         <div className="overflow-x-auto">
           <table className="w-full text-small">
             <caption className="text-left font-semibold">Charge log</caption>
-            <thead><tr className="text-left text-muted"><th className="py-1 pr-3">Date</th><th className="pr-3">mAh in</th><th className="pr-3">Resting V/cell</th><th>Full flight before</th></tr></thead>
+            <thead>
+              <tr className="text-left text-muted">
+                <th className="py-1 pr-3">Date</th>
+                <th className="pr-3">mAh in</th>
+                <th className="pr-3">Resting V/cell</th>
+                <th>Full flight before</th>
+              </tr>
+            </thead>
             <tbody>
               {pack.charges.map((c) => (
                 <tr key={c.id} className="border-t border-rule">
@@ -64,7 +94,11 @@ export function PackCard({ pack, children }: { pack: PackView; children?: ReactN
         <details className="rounded-md border-2 border-caution-edge bg-caution p-3 text-small">
           <summary className="font-semibold">Charging cautions</summary>
           <ul className="mt-2 list-disc space-y-1 pl-5">
-            {w.cautions.map((c) => <li key={c.text}>{c.text} <span className="text-muted">({c.source})</span></li>)}
+            {w.cautions.map((c) => (
+              <li key={c.text}>
+                {c.text} <span className="text-muted">({c.source})</span>
+              </li>
+            ))}
           </ul>
         </details>
       )}

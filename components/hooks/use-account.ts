@@ -18,10 +18,14 @@ export const useSaveName = () =>
 
 /** Change the password, or set a first one (the server knows which the account needs). */
 export const useSavePassword = () =>
-  useMutation({ mutationFn: (values: ChangePasswordInput | SetPasswordInput) => apiFetch<Message>("/api/auth/profile/password", { method: "POST", json: values }) });
+  useMutation({
+    mutationFn: (values: ChangePasswordInput | SetPasswordInput) => apiFetch<Message>("/api/auth/profile/password", { method: "POST", json: values }),
+  });
 
 export const useRequestReset = () =>
   useMutation({ mutationFn: (values: ResetRequestInput) => apiFetch<Message>("/api/auth/password-reset", { method: "POST", json: values }) });
 
 export const useCompleteReset = () =>
-  useMutation({ mutationFn: (values: ResetConfirmInput) => apiFetch<Message & { email: string }>("/api/auth/password-reset/complete", { method: "POST", json: values }) });
+  useMutation({
+    mutationFn: (values: ResetConfirmInput) => apiFetch<Message & { email: string }>("/api/auth/password-reset/complete", { method: "POST", json: values }),
+  });

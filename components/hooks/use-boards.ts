@@ -15,7 +15,8 @@ const catalogueFallback: FallbackMessage = (status) => `The catalogue did not an
 export function useBoardSearch(q: string, enabled: boolean) {
   return useQuery({
     queryKey: ["submit-board-search", q],
-    queryFn: ({ signal }) => apiFetch<BoardListResponse>(`/api/v1/boards?${new URLSearchParams({ q, pageSize: "8" })}`, { signal, fallbackMessage: catalogueFallback }),
+    queryFn: ({ signal }) =>
+      apiFetch<BoardListResponse>(`/api/v1/boards?${new URLSearchParams({ q, pageSize: "8" })}`, { signal, fallbackMessage: catalogueFallback }),
     enabled,
   });
 }

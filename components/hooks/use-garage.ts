@@ -21,7 +21,11 @@ export function usePacks() {
         return (await apiFetch<{ packs: PackChoice[] }>("/api/v1/garage/packs", { signal })).packs;
       } catch (error) {
         if (!(error instanceof ApiFetchError)) throw error;
-        throw new Error(error.status === 0 ? "Your packs did not load: the server could not be reached; type the figures instead." : `Your packs did not load (HTTP ${error.status}); type the figures instead.`);
+        throw new Error(
+          error.status === 0
+            ? "Your packs did not load: the server could not be reached; type the figures instead."
+            : `Your packs did not load (HTTP ${error.status}); type the figures instead.`,
+        );
       }
     },
   });

@@ -31,7 +31,9 @@ export const useBulkApprove = () =>
   useRefreshingMutation((body: BulkApproveBody) => apiFetch<BulkResult>("/api/v1/moderation/bulk-approve", { method: "POST", json: body }), "settled");
 
 export const useUpdateUser = (userId: string) =>
-  useRefreshingMutation((body: UserPatchBody) => apiFetch<UserUpdateResult>(`/api/v1/admin/users/${encodeURIComponent(userId)}`, { method: "PATCH", json: body }));
+  useRefreshingMutation((body: UserPatchBody) =>
+    apiFetch<UserUpdateResult>(`/api/v1/admin/users/${encodeURIComponent(userId)}`, { method: "PATCH", json: body }),
+  );
 
 export const useRevertEvent = (eventId: number) =>
   useRefreshingMutation((body: RevertBody) => apiFetch<DecisionResult>(`/api/v1/admin/events/${eventId}/revert`, { method: "POST", json: body }));

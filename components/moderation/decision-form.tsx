@@ -24,7 +24,12 @@ const TEXT_FIELD: Record<Decision, { name: "note" | "reason" | "message"; label:
 };
 const BUTTON: Record<Decision, string> = { approve: "Approve", reject: "Reject", request_changes: "Ask for changes" };
 const BODY_SCHEMAS = { approve: ApproveBodySchema, reject: RejectBodySchema, request_changes: RequestChangesBodySchema } as const;
-const DONE: Record<DecisionResult["submission"]["status"], string> = { approved: "approved", rejected: "rejected", changes_requested: "sent back for changes", pending: "left pending" };
+const DONE: Record<DecisionResult["submission"]["status"], string> = {
+  approved: "approved",
+  rejected: "rejected",
+  changes_requested: "sent back for changes",
+  pending: "left pending",
+};
 
 type Values = { decision: Decision; text: string };
 type Body = Record<string, unknown>;
@@ -80,7 +85,9 @@ export function DecisionForm({ id, version, open }: Props) {
   if (decide.isSuccess) {
     return (
       <div role="status" className="space-y-2 rounded-md border-3 border-verdigris bg-surface p-4">
-        <p className="font-semibold">Submission #{id} {DONE[decide.data.submission.status]}. The contributor gets an e-mail.</p>
+        <p className="font-semibold">
+          Submission #{id} {DONE[decide.data.submission.status]}. The contributor gets an e-mail.
+        </p>
         <Link href="/moderation">Back to the queue</Link>
       </div>
     );
@@ -110,8 +117,12 @@ export function DecisionForm({ id, version, open }: Props) {
         </div>
       </fieldset>
       <div className="flex flex-col gap-1">
-        <label htmlFor="decision-text" className="font-semibold">{field.label}</label>
-        <p id="decision-hint" className="text-small text-muted">{field.hint}</p>
+        <label htmlFor="decision-text" className="font-semibold">
+          {field.label}
+        </label>
+        <p id="decision-hint" className="text-small text-muted">
+          {field.hint}
+        </p>
         <textarea
           id="decision-text"
           rows={4}

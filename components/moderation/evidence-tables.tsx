@@ -9,11 +9,23 @@ function Table({ caption, head, rows }: { caption: string; head: string[]; rows:
       <table className="w-full border-collapse text-left text-small">
         <caption className="text-left font-semibold">{caption}</caption>
         <thead>
-          <tr>{head.map((h) => <th key={h} scope="col" className="border-b-2 border-rule px-2 py-1">{h}</th>)}</tr>
+          <tr>
+            {head.map((h) => (
+              <th key={h} scope="col" className="border-b-2 border-rule px-2 py-1">
+                {h}
+              </th>
+            ))}
+          </tr>
         </thead>
         <tbody>
           {rows.map((r, i) => (
-            <tr key={i}>{r.map((c, j) => <td key={j} className="border-b border-rule-soft px-2 py-1 font-mono">{c}</td>)}</tr>
+            <tr key={i}>
+              {r.map((c, j) => (
+                <td key={j} className="border-b border-rule-soft px-2 py-1 font-mono">
+                  {c}
+                </td>
+              ))}
+            </tr>
           ))}
         </tbody>
       </table>

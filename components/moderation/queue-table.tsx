@@ -14,7 +14,11 @@ const figure = (v: number | null) => (v === null ? "—" : formatFigure(v, 4));
 
 function FlagChips({ flags }: { flags: Pick<QueueRow["flags"], "outlier" | "mismatch" | "newContributor" | "maxAbsZ"> }) {
   const chips: { label: string; tone: string }[] = [];
-  if (flags.outlier) chips.push({ label: `Far off (|z| ${flags.maxAbsZ === null || !Number.isFinite(flags.maxAbsZ) ? "∞" : formatFigure(flags.maxAbsZ, 1)})`, tone: "border-fault text-fault" });
+  if (flags.outlier)
+    chips.push({
+      label: `Far off (|z| ${flags.maxAbsZ === null || !Number.isFinite(flags.maxAbsZ) ? "∞" : formatFigure(flags.maxAbsZ, 1)})`,
+      tone: "border-fault text-fault",
+    });
   if (flags.mismatch) chips.push({ label: "Evidence disagrees", tone: "border-caution-edge bg-caution" });
   if (flags.newContributor) chips.push({ label: "First-time contributor", tone: "border-rule" });
   if (chips.length === 0) return <span className="text-small text-muted">No flags</span>;
@@ -57,7 +61,17 @@ const columns: ColumnDef<typeof features, QueueRow>[] = [
   { id: "sent", header: "Sent", cell: ({ row }) => <span className="text-small">{dateTime.format(new Date(row.original.createdAt))} UTC</span> },
 ];
 
-export function QueueTable({ rows, selectable, selected, onToggle }: { rows: QueueRow[]; selectable: (r: QueueRow) => boolean; selected: ReadonlySet<number>; onToggle: (id: number) => void }) {
+export function QueueTable({
+  rows,
+  selectable,
+  selected,
+  onToggle,
+}: {
+  rows: QueueRow[];
+  selectable: (r: QueueRow) => boolean;
+  selected: ReadonlySet<number>;
+  onToggle: (id: number) => void;
+}) {
   const table = useTable({ features, columns, data: rows, getRowId: (r) => String(r.id) });
   return (
     <div className="overflow-x-auto rounded-md border-3 border-rule bg-surface">

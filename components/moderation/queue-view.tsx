@@ -16,7 +16,13 @@ const unflagged = (r: QueueRow) => !r.flags.outlier && !r.flags.mismatch && !r.f
 function bulkOutcome(r: BulkResult): { ok: boolean; text: string } {
   const parts = [`Approved ${r.approved.length}`];
   if (r.conflicted.length) parts.push(`someone else acted on ${r.conflicted.map((id) => `#${id}`).join(", ")} first`);
-  if (r.refused.length) parts.push(`refused ${r.results.filter((x) => x.outcome === "refused").map((x) => ("message" in x ? x.message : `#${x.id}`)).join(" ")}`);
+  if (r.refused.length)
+    parts.push(
+      `refused ${r.results
+        .filter((x) => x.outcome === "refused")
+        .map((x) => ("message" in x ? x.message : `#${x.id}`))
+        .join(" ")}`,
+    );
   return { ok: r.conflicted.length === 0 && r.refused.length === 0, text: `${parts.join("; ")}.` };
 }
 

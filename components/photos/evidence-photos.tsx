@@ -132,9 +132,8 @@ export function EvidencePhotos({ draftKey, onChange }: { draftKey: string; onCha
         Add photos <span className="font-normal text-muted">(optional, up to {MAX_PHOTOS_PER_SUBMISSION})</span>
       </label>
       <p id={hintId} className="mb-2 text-small text-muted">
-        {ACCEPTED_LABEL}, up to {formatMegabytes(MAX_PHOTO_BYTES)} each: the meter beside the OSD, the charger&rsquo;s mAh
-        readout. Location and camera details are removed before a photo is stored. Moderators see your photos; everyone
-        sees them once the submission is approved.
+        {ACCEPTED_LABEL}, up to {formatMegabytes(MAX_PHOTO_BYTES)} each: the meter beside the OSD, the charger&rsquo;s mAh readout. Location and camera details
+        are removed before a photo is stored. Moderators see your photos; everyone sees them once the submission is approved.
       </p>
       <input
         id={inputId}

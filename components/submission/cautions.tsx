@@ -22,8 +22,8 @@ function Caution({ id, title, children }: { id: string; title: string; children:
 
 const MakerFirst = () => (
   <li>
-    <strong>The maker comes first.</strong> Follow your board&rsquo;s, meter&rsquo;s and charger&rsquo;s instructions and your local
-    rules where they say otherwise.
+    <strong>The maker comes first.</strong> Follow your board&rsquo;s, meter&rsquo;s and charger&rsquo;s instructions and your local rules where they say
+    otherwise.
   </li>
 );
 
@@ -31,8 +31,8 @@ export function ProbeCaution() {
   return (
     <Caution id="caution-probes" title="Measuring pack voltage">
       <li>
-        <strong>Never short the probes.</strong> Do not let the two tips touch each other, or bridge two pins or pads: a LiPo
-        can push hundreds of amps through a short and burn you or the board.
+        <strong>Never short the probes.</strong> Do not let the two tips touch each other, or bridge two pins or pads: a LiPo can push hundreds of amps through
+        a short and burn you or the board.
       </li>
       <li>Set the meter to DC volts before touching the pack, black probe on the negative first.</li>
       <li>
@@ -50,12 +50,11 @@ export function BenchCaution() {
         <strong>Props off</strong> for every bit of setup. Unplug the battery rather than trusting an arming switch.
       </li>
       <li>
-        For a current test with props on: <strong>restrain the quad</strong> firmly, point it away from people, keep clear of
-        the prop arc and <strong>wear eye protection</strong>.
+        For a current test with props on: <strong>restrain the quad</strong> firmly, point it away from people, keep clear of the prop arc and{" "}
+        <strong>wear eye protection</strong>.
       </li>
       <li>
-        Use a clamp meter <strong>rated for DC</strong>: an AC-only clamp reads nothing useful on a battery lead. Close the jaw
-        round one lead only.
+        Use a clamp meter <strong>rated for DC</strong>: an AC-only clamp reads nothing useful on a battery lead. Close the jaw round one lead only.
       </li>
       <li>An inline fuse (a &ldquo;smoke stopper&rdquo;) for the first power-up is common practice.</li>
       <MakerFirst />
@@ -71,9 +70,8 @@ export function ChargingCaution() {
       </li>
       <li>Charge on a non-flammable surface or in a fire-retardant bag.</li>
       <li>
-        Charge at <strong>no more than 1C</strong> (1 × the pack&rsquo;s capacity in amps) unless its maker allows more, and not
-        above <span className="font-mono">4.20&nbsp;V</span> a cell (<span className="font-mono">4.35&nbsp;V</span> for
-        high-voltage packs).
+        Charge at <strong>no more than 1C</strong> (1 × the pack&rsquo;s capacity in amps) unless its maker allows more, and not above{" "}
+        <span className="font-mono">4.20&nbsp;V</span> a cell (<span className="font-mono">4.35&nbsp;V</span> for high-voltage packs).
       </li>
       <li>Stop using a swollen or damaged pack.</li>
       <MakerFirst />

@@ -23,16 +23,24 @@ function Row({ title, value, q }: { title: string; value: number; q: QuantityVal
   if (!q) {
     return (
       <li>
-        <strong>{title} {value}:</strong> nobody has an approved value here yet, so yours would be the first.
+        <strong>
+          {title} {value}:
+        </strong>{" "}
+        nobody has an approved value here yet, so yours would be the first.
       </li>
     );
   }
-  const p = placeValue(value, q, (q.points ?? []).map((x) => x.value));
+  const p = placeValue(
+    value,
+    q,
+    (q.points ?? []).map((x) => x.value),
+  );
   const range = q.ciLow !== null && q.ciHigh !== null ? `, 95 % range for the median ${formatFigure(q.ciLow)}–${formatFigure(q.ciHigh)}` : "";
   let where: string;
   if (p.rule === "too_few") where = "too few approved values to judge how far off it is.";
   else if (p.modifiedZ === null) where = "every approved value is the same and yours differs.";
-  else where = `modified z-score ${formatFigure(p.modifiedZ, 2)}${p.outlier ? " — far from the others (beyond ±3.5), so a moderator will look twice" : " — in line with the others"}.`;
+  else
+    where = `modified z-score ${formatFigure(p.modifiedZ, 2)}${p.outlier ? " — far from the others (beyond ±3.5), so a moderator will look twice" : " — in line with the others"}.`;
   return (
     <li className={p.outlier ? "font-semibold" : ""}>
       <strong>
@@ -64,8 +72,8 @@ export function DistributionPreview({ board, families }: { board: ChosenBoard | 
         How your values compare
       </h3>
       <p className="mt-1 text-small text-muted">
-        Approved values for the {board!.name} revision {revision!.label} under {family!.name}. A different value is not wrong:
-        boards vary, and this is how outliers get found.
+        Approved values for the {board!.name} revision {revision!.label} under {family!.name}. A different value is not wrong: boards vary, and this is how
+        outliers get found.
       </p>
       {values.isLoading && <p className="mt-2">Loading the published values…</p>}
       {values.error && <p className="mt-2 text-fault">{(values.error as Error).message}</p>}

@@ -14,12 +14,20 @@ const finite = (v: unknown): v is number => typeof v === "number" && Number.isFi
 function completeEvidence(d: SubmissionDraft) {
   const shown = sectionsFor(d.method, d.includeVoltageCheck);
   const readings = shown.voltageCheck
-    ? d.voltageCheck.readings.filter((r) => positive(r.reportedVolts) && positive(r.measuredVolts)).map((r) => ({ ...r, cells: r.cells ?? 0, reportedVolts: r.reportedVolts!, measuredVolts: r.measuredVolts! }))
+    ? d.voltageCheck.readings
+        .filter((r) => positive(r.reportedVolts) && positive(r.measuredVolts))
+        .map((r) => ({ ...r, cells: r.cells ?? 0, reportedVolts: r.reportedVolts!, measuredVolts: r.measuredVolts! }))
     : [];
   const cycles = shown.cycles
-    ? d.cycles.filter((c) => positive(c.scaleUsed) && positive(c.reportedMah) && positive(c.chargedMah)).map((c) => ({ scaleUsed: c.scaleUsed!, reportedMah: c.reportedMah!, chargedMah: c.chargedMah!, ratedMah: c.ratedMah ?? 0, cells: c.cells ?? 0 }))
+    ? d.cycles
+        .filter((c) => positive(c.scaleUsed) && positive(c.reportedMah) && positive(c.chargedMah))
+        .map((c) => ({ scaleUsed: c.scaleUsed!, reportedMah: c.reportedMah!, chargedMah: c.chargedMah!, ratedMah: c.ratedMah ?? 0, cells: c.cells ?? 0 }))
     : [];
-  const points = shown.bench ? d.bench.points.filter((p) => finite(p.reportedAmps) && finite(p.measuredAmps)).map((p) => ({ reportedAmps: p.reportedAmps!, measuredAmps: p.measuredAmps! })) : [];
+  const points = shown.bench
+    ? d.bench.points
+        .filter((p) => finite(p.reportedAmps) && finite(p.measuredAmps))
+        .map((p) => ({ reportedAmps: p.reportedAmps!, measuredAmps: p.measuredAmps! }))
+    : [];
   const distinctCurrents = new Set(points.map((p) => p.measuredAmps)).size;
   return {
     voltageScale: finite(d.voltageScale) ? d.voltageScale : null,
@@ -27,7 +35,10 @@ function completeEvidence(d: SubmissionDraft) {
     currentOffset: finite(d.currentOffset) ? d.currentOffset : null,
     voltageCheck: positive(d.voltageCheck.scaleUsed) && readings.length ? { scaleUsed: d.voltageCheck.scaleUsed, readings } : null,
     cycles,
-    bench: positive(d.bench.scaleUsed) && finite(d.bench.offsetUsed) && distinctCurrents >= 2 ? { scaleUsed: d.bench.scaleUsed, offsetUsed: d.bench.offsetUsed, points } : null,
+    bench:
+      positive(d.bench.scaleUsed) && finite(d.bench.offsetUsed) && distinctCurrents >= 2
+        ? { scaleUsed: d.bench.scaleUsed, offsetUsed: d.bench.offsetUsed, points }
+        : null,
   };
 }
 
@@ -63,7 +74,10 @@ export function EvidencePreview({ family }: { family: FamilyOption | null }) {
   if (!s) return null;
   const lines: string[] = [];
   if (s.voltage) lines.push(`Your voltage readings imply a voltage scale of ${formatFigure(s.voltage.implied, 1)}.`);
-  if (s.cycles) lines.push(`Your cycles imply a current scale of ${formatFigure(s.cycles.implied, 1)} ${s.cycles.perCycle.length > 1 ? ` (the median of ${s.cycles.perCycle.length} cycles)` : ""}.`);
+  if (s.cycles)
+    lines.push(
+      `Your cycles imply a current scale of ${formatFigure(s.cycles.implied, 1)} ${s.cycles.perCycle.length > 1 ? ` (the median of ${s.cycles.perCycle.length} cycles)` : ""}.`,
+    );
   if (s.bench) {
     lines.push(
       `Your bench points imply a current scale of ${formatFigure(s.bench.impliedScale, 1)} and an offset of ${formatFigure(s.bench.impliedOffset, 1)}` +
@@ -84,8 +98,9 @@ export function EvidencePreview({ family }: { family: FamilyOption | null }) {
         ))}
       </ul>
       <p className="mt-2 text-small text-muted">
-        We flag a value more than {EVIDENCE_TOLERANCE * 100} % from what its evidence implies (for offsets, also more than {formatFigure(s.offsetToleranceFloorSteps, 0)} steps: 10, or what moves the display 0.1 A if that is more)
-        for a closer look. That threshold is our own rule, in line with common practice.
+        We flag a value more than {EVIDENCE_TOLERANCE * 100} % from what its evidence implies (for offsets, also more than{" "}
+        {formatFigure(s.offsetToleranceFloorSteps, 0)} steps: 10, or what moves the display 0.1 A if that is more) for a closer look. That threshold is our own
+        rule, in line with common practice.
       </p>
     </section>
   );

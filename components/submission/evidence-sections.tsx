@@ -29,7 +29,11 @@ export function settingHint(family: FamilyOption | null, which: "voltage" | "cur
 function Section({ id, title, intro, caution, children }: { id: string; title: string; intro: ReactNode; caution: ReactNode; children: ReactNode }) {
   const error = useFieldError(id);
   return (
-    <fieldset id={fieldId(id)} className="space-y-4 rounded-md border-3 border-rule bg-surface p-4 sm:p-5" aria-describedby={error ? `${fieldId(id)}-error` : undefined}>
+    <fieldset
+      id={fieldId(id)}
+      className="space-y-4 rounded-md border-3 border-rule bg-surface p-4 sm:p-5"
+      aria-describedby={error ? `${fieldId(id)}-error` : undefined}
+    >
       <legend className="px-1 font-display text-heading uppercase">{title}</legend>
       <div className="grid gap-4 lg:grid-cols-[1fr_20rem] lg:items-start">
         <div className="space-y-4">
@@ -111,9 +115,9 @@ export function CyclesSection({ family }: { family: FamilyOption | null }) {
       title="Fly-and-recharge cycles"
       intro={
         <>
-          For each flight: the mAh your display said you used, the mAh the charger put back, and the current scale that was set
-          during that flight. Three to five cycles are usual; after each, people move the scale and fly again. Rounding so the
-          display slightly over-reports use is the safe side (common practice).
+          For each flight: the mAh your display said you used, the mAh the charger put back, and the current scale that was set during that flight. Three to
+          five cycles are usual; after each, people move the scale and fly again. Rounding so the display slightly over-reports use is the safe side (common
+          practice).
         </>
       }
       caution={<ChargingCaution />}

@@ -132,7 +132,21 @@ export function SelectField({
   );
 }
 
-export function TextField({ name, label, hint, placeholder, multiline = false, maxLength }: { name: DraftPath; label: ReactNode; hint?: ReactNode; placeholder?: string; multiline?: boolean; maxLength?: number }) {
+export function TextField({
+  name,
+  label,
+  hint,
+  placeholder,
+  multiline = false,
+  maxLength,
+}: {
+  name: DraftPath;
+  label: ReactNode;
+  hint?: ReactNode;
+  placeholder?: string;
+  multiline?: boolean;
+  maxLength?: number;
+}) {
   const { register } = useFormContext<SubmissionDraft>();
   const error = useFieldError(name);
   const common = {

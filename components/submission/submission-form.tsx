@@ -218,7 +218,10 @@ export function SubmissionForm({
               <legend className="mb-2 font-semibold">Method</legend>
               <div className="grid gap-2 sm:grid-cols-2">
                 {METHODS.map((m) => (
-                  <label key={m} className="flex cursor-pointer gap-3 rounded-md border-2 border-rule-soft bg-paper p-3 has-[:checked]:border-copper has-[:checked]:bg-surface">
+                  <label
+                    key={m}
+                    className="flex cursor-pointer gap-3 rounded-md border-2 border-rule-soft bg-paper p-3 has-[:checked]:border-copper has-[:checked]:bg-surface"
+                  >
                     <input type="radio" value={m} className="mt-1 size-5 accent-[var(--sb-copper)]" {...register("method")} />
                     <span>
                       <strong className="block">{METHOD_LABELS[m]}</strong>
@@ -231,8 +234,8 @@ export function SubmissionForm({
             </fieldset>
             {shown.voltageCheckOptional && (
               <label className="flex items-center gap-3">
-                <input type="checkbox" className="size-5 accent-[var(--sb-copper)]" {...register("includeVoltageCheck")} />
-                I also checked the pack voltage with a multimeter
+                <input type="checkbox" className="size-5 accent-[var(--sb-copper)]" {...register("includeVoltageCheck")} />I also checked the pack voltage with
+                a multimeter
               </label>
             )}
           </div>

@@ -54,8 +54,7 @@ function NoValues({ slug, what }: { slug: string; what: string }) {
   return (
     <div className="rounded-md border-3 border-dashed border-rule bg-surface px-4 py-5" data-testid="no-values">
       <p className="text-lead font-semibold">
-        No published values yet for {what} &mdash;{" "}
-        <Link href={`/submit?board=${encodeURIComponent(slug)}`}>be the first to contribute</Link>.
+        No published values yet for {what} &mdash; <Link href={`/submit?board=${encodeURIComponent(slug)}`}>be the first to contribute</Link>.
       </p>
       <p className="mt-1 text-muted">Calibrate your own board with a multimeter and a charger, and share what you measured.</p>
     </div>
@@ -144,7 +143,11 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
       <ValuePicker selection={selection} revisions={revisionOptions} families={familyOptions} onChange={choose} />
 
       <p className="sr-only" aria-live="polite">
-        {loading ? `Loading ${selection.revision} with ${familyName(selection.family)}.` : current ? `Showing ${selection.revision} with ${familyName(selection.family)}.` : ""}
+        {loading
+          ? `Loading ${selection.revision} with ${familyName(selection.family)}.`
+          : current
+            ? `Showing ${selection.revision} with ${familyName(selection.family)}.`
+            : ""}
       </p>
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem] lg:items-start">
@@ -185,7 +188,8 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
                       <NoValues slug={slug} what="this revision and firmware family" />
                       {otherFamilies.length > 0 && (
                         <p className="mt-2">
-                          <span className="font-mono">{selection.revision}</span> has values under {new Intl.ListFormat("en", { type: "conjunction" }).format(otherFamilies)}.
+                          <span className="font-mono">{selection.revision}</span> has values under{" "}
+                          {new Intl.ListFormat("en", { type: "conjunction" }).format(otherFamilies)}.
                         </p>
                       )}
                     </div>

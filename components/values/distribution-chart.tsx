@@ -26,7 +26,12 @@ function subscribeHover(onChange: () => void) {
   mq.addEventListener("change", onChange);
   return () => mq.removeEventListener("change", onChange);
 }
-const useNoHover = () => useSyncExternalStore(subscribeHover, () => window.matchMedia(NO_HOVER).matches, () => false);
+const useNoHover = () =>
+  useSyncExternalStore(
+    subscribeHover,
+    () => window.matchMedia(NO_HOVER).matches,
+    () => false,
+  );
 
 function yAxis(q: QuantityValues, data: Datum[]) {
   const ys = [q.median, ...data.map((d) => d.v)];
@@ -131,7 +136,17 @@ export function DistributionChart({ quantity, values: q, units }: { quantity: Qu
           desc={summary}
         >
           <CartesianGrid stroke="var(--sb-rule-soft)" vertical={false} />
-          {hasCi && <ReferenceArea y1={q.ciLow!} y2={q.ciHigh!} fill="var(--sb-verdigris)" fillOpacity={0.22} stroke="var(--sb-verdigris)" strokeOpacity={0.5} ifOverflow="extendDomain" />}
+          {hasCi && (
+            <ReferenceArea
+              y1={q.ciLow!}
+              y2={q.ciHigh!}
+              fill="var(--sb-verdigris)"
+              fillOpacity={0.22}
+              stroke="var(--sb-verdigris)"
+              strokeOpacity={0.5}
+              ifOverflow="extendDomain"
+            />
+          )}
           <ReferenceLine y={q.median} stroke="var(--sb-ink)" strokeWidth={2} ifOverflow="extendDomain" />
           <XAxis
             type="number"

@@ -20,7 +20,12 @@ export function methodLabel(method: Method): string {
 export function chartSummary(quantity: QuantityKey, q: QuantityValues, units: FamilyUnits): string {
   const points = q.points ?? [];
   const parts: string[] = [];
-  const span = points.length > 1 ? `, from ${monthOf(points[0].date)} to ${monthOf(points[points.length - 1].date)}` : points.length === 1 ? `, from ${monthOf(points[0].date)}` : "";
+  const span =
+    points.length > 1
+      ? `, from ${monthOf(points[0].date)} to ${monthOf(points[points.length - 1].date)}`
+      : points.length === 1
+        ? `, from ${monthOf(points[0].date)}`
+        : "";
   parts.push(`${plural(q.n, "approved value")}${span}.`);
   const meaning = settingMeaning(quantity, q.median, units)[0];
   parts.push(`Median ${figureText(q.median)}${meaning ? ` (${meaning})` : ""}.`);

@@ -10,7 +10,12 @@ import type { Selection } from "./selection";
 export type PickerOption = { value: string; label: string; hint?: string };
 
 const noop = () => () => {};
-const useHydrated = () => useSyncExternalStore(noop, () => true, () => false);
+const useHydrated = () =>
+  useSyncExternalStore(
+    noop,
+    () => true,
+    () => false,
+  );
 
 function ChipGroup({
   legend,
@@ -69,7 +74,13 @@ export function ValuePicker({
       onSubmit={(e) => e.preventDefault()}
       className="flex flex-col gap-3 sm:flex-row sm:flex-wrap sm:items-end sm:gap-6"
     >
-      <ChipGroup legend="Revision" name="revision" options={revisions} value={selection.revision} onChange={(revision) => onChange({ ...selection, revision })} />
+      <ChipGroup
+        legend="Revision"
+        name="revision"
+        options={revisions}
+        value={selection.revision}
+        onChange={(revision) => onChange({ ...selection, revision })}
+      />
       <ChipGroup legend="Firmware family" name="family" options={families} value={selection.family} onChange={(family) => onChange({ ...selection, family })} />
       {!hydrated && (
         <button type="submit" className="sb-button sb-button-quiet self-start">

@@ -12,17 +12,21 @@ export function ValuesTable({ quantity, values: q }: { quantity: QuantityKey; va
   if (points.length === 0) return null;
   return (
     <details className="mt-3 border-t border-rule-soft pt-2">
-      <summary className="inline-flex min-h-11 cursor-pointer items-center font-semibold text-copper">
-        Show all {plural(points.length, "value")}
-      </summary>
+      <summary className="inline-flex min-h-11 cursor-pointer items-center font-semibold text-copper">Show all {plural(points.length, "value")}</summary>
       <div className="max-h-80 overflow-y-auto">
         <table className="w-full text-small">
           <caption className="sr-only">Approved values of the {QUANTITY_TITLES[quantity].toLowerCase()}, newest first</caption>
           <thead>
             <tr className="border-b-2 border-rule text-left">
-              <th scope="col" className="py-1 pr-2 font-display tracking-wide uppercase">Date</th>
-              <th scope="col" className="py-1 pr-2 font-display tracking-wide uppercase">Method</th>
-              <th scope="col" className="py-1 text-right font-display tracking-wide uppercase">Setting</th>
+              <th scope="col" className="py-1 pr-2 font-display tracking-wide uppercase">
+                Date
+              </th>
+              <th scope="col" className="py-1 pr-2 font-display tracking-wide uppercase">
+                Method
+              </th>
+              <th scope="col" className="py-1 text-right font-display tracking-wide uppercase">
+                Setting
+              </th>
             </tr>
           </thead>
           <tbody>

@@ -43,11 +43,22 @@ export function BenchWorksheet(props: { quadId: number; startingScale: number | 
         <h2 className="font-display text-lg font-bold tracking-wide uppercase">Start a bench check</h2>
         <FieldError messages={[...(errors.input ?? []), ...(errors.quadId ?? [])]} />
         <div className="grid gap-3 sm:grid-cols-2">
-          <NumberInput idPrefix="bs" field={form.register("scaleUsed")} label="Current scale in force" errors={errors}
-            hint={props.startingScale != null ? "The board's published recommended value; change it if your quad runs another." : "Nothing is published for this board yet: enter your quad's value."} />
+          <NumberInput
+            idPrefix="bs"
+            field={form.register("scaleUsed")}
+            label="Current scale in force"
+            errors={errors}
+            hint={
+              props.startingScale != null
+                ? "The board's published recommended value; change it if your quad runs another."
+                : "Nothing is published for this board yet: enter your quad's value."
+            }
+          />
           <NumberInput idPrefix="bs" field={form.register("offsetUsed")} label="Current offset in force" errors={errors} />
         </div>
-        <button type="submit" className="sb-button w-full sm:w-auto" disabled={start.isPending}>{start.isPending ? "Starting…" : "Start"}</button>
+        <button type="submit" className="sb-button w-full sm:w-auto" disabled={start.isPending}>
+          {start.isPending ? "Starting…" : "Start"}
+        </button>
       </form>
     </div>
   );
@@ -68,22 +79,43 @@ export function BenchSheet({ initial }: { initial: BenchSheetView }) {
         {sheet.startingSource === "published" ? "(the board's published recommended values)" : "(your own)"}. Firmware family: {sheet.familyName}.
       </p>
 
-      <SavedEntries id="b-points" title="Points" testId="bench-points" entries={sheet.points} removed={sheet.removed} open={open} busy={busy}
-        onRemove={(position) => remove.mutate(position)} removeErrors={errorsOf(remove.error)}
-        describe={(p) => <>clamp meter <span className="font-mono">{formatFigure(p.measuredAmps, 2)} A</span>, display <span className="font-mono">{formatFigure(p.reportedAmps, 2)} A</span></>} />
+      <SavedEntries
+        id="b-points"
+        title="Points"
+        testId="bench-points"
+        entries={sheet.points}
+        removed={sheet.removed}
+        open={open}
+        busy={busy}
+        onRemove={(position) => remove.mutate(position)}
+        removeErrors={errorsOf(remove.error)}
+        describe={(p) => (
+          <>
+            clamp meter <span className="font-mono">{formatFigure(p.measuredAmps, 2)} A</span>, display{" "}
+            <span className="font-mono">{formatFigure(p.reportedAmps, 2)} A</span>
+          </>
+        )}
+      />
 
       {v && (
         <section aria-labelledby="b-result" className="space-y-3 rounded-md border-3 border-rule bg-surface p-4" data-testid="bench-result">
-          <h2 id="b-result" className="font-display text-heading uppercase">Fit</h2>
+          <h2 id="b-result" className="font-display text-heading uppercase">
+            Fit
+          </h2>
           <p className="text-small">
-            Gain <span className="font-mono">{formatFigure(v.fit.gain, 4)}</span>, intercept <span className="font-mono">{formatFigure(v.fit.interceptAmps, 2)} A</span>,
-            r² <span className="font-mono">{formatFigure(v.fit.rSquared, 4)}</span> over {v.fit.n} points ({v.fit.method}).
+            Gain <span className="font-mono">{formatFigure(v.fit.gain, 4)}</span>, intercept{" "}
+            <span className="font-mono">{formatFigure(v.fit.interceptAmps, 2)} A</span>, r² <span className="font-mono">{formatFigure(v.fit.rSquared, 4)}</span>{" "}
+            over {v.fit.n} points ({v.fit.method}).
           </p>
           <p>
-            Current scale: exact <span className="font-mono">{formatFigure(v.scaleRounding.exact, 2)}</span>, down <span className="font-mono">{v.scaleRounding.down.setting}</span>, up{" "}
-            <span className="font-mono">{v.scaleRounding.up.setting}</span>; enter <strong className="font-mono">{v.scaleRounding.recommended.setting}</strong>. {v.scaleRounding.why}
+            Current scale: exact <span className="font-mono">{formatFigure(v.scaleRounding.exact, 2)}</span>, down{" "}
+            <span className="font-mono">{v.scaleRounding.down.setting}</span>, up <span className="font-mono">{v.scaleRounding.up.setting}</span>; enter{" "}
+            <strong className="font-mono">{v.scaleRounding.recommended.setting}</strong>. {v.scaleRounding.why}
           </p>
-          <p>Current offset: enter <strong className="font-mono">{v.offset.setting}</strong> (leaves {formatFigure(v.offset.displayedErrorAmpsAtZero, 3)} A at zero current).</p>
+          <p>
+            Current offset: enter <strong className="font-mono">{v.offset.setting}</strong> (leaves {formatFigure(v.offset.displayedErrorAmpsAtZero, 3)} A at
+            zero current).
+          </p>
           <figure aria-label="Residuals: display minus fitted current at each point" className="h-48 w-full select-none">
             <ScatterChart responsive style={{ width: "100%", height: "100%" }} margin={{ top: 8, right: 12, bottom: 0, left: 0 }}>
               <CartesianGrid stroke="var(--sb-rule-soft)" vertical={false} />
@@ -99,13 +131,29 @@ export function BenchSheet({ initial }: { initial: BenchSheetView }) {
 
       {open && <PointForm key={formKey} sheet={sheet} add={add} busy={busy} onSaved={() => setFormKey((k) => k + 1)} />}
 
-      <PublishPanel submissionId={sheet.submissionId} ready={v != null} busy={busy} errors={errorsOf(publish.error)} onPublish={() => publish.mutate()}
-        what="Sends the recommended current scale and offset with every point above as its bench evidence." />
+      <PublishPanel
+        submissionId={sheet.submissionId}
+        ready={v != null}
+        busy={busy}
+        errors={errorsOf(publish.error)}
+        onPublish={() => publish.mutate()}
+        what="Sends the recommended current scale and offset with every point above as its bench evidence."
+      />
     </div>
   );
 }
 
-function PointForm({ sheet, add, busy, onSaved }: { sheet: BenchSheetView; add: ReturnType<typeof useSavedWorksheet<BenchSheetView>>["add"]; busy: boolean; onSaved: () => void }) {
+function PointForm({
+  sheet,
+  add,
+  busy,
+  onSaved,
+}: {
+  sheet: BenchSheetView;
+  add: ReturnType<typeof useSavedWorksheet<BenchSheetView>>["add"];
+  busy: boolean;
+  onSaved: () => void;
+}) {
   const { form, errors } = useSchemaForm<{ measuredAmps: string; reportedAmps: string }>(benchPointInput, {
     defaultValues: { measuredAmps: "", reportedAmps: "" },
     toBody: (v) => ({ measuredAmps: numberOrUndefined(v.measuredAmps), reportedAmps: numberOrUndefined(v.reportedAmps) }),
@@ -123,7 +171,9 @@ function PointForm({ sheet, add, busy, onSaved }: { sheet: BenchSheetView; add: 
         <NumberInput idPrefix="b" field={form.register("measuredAmps")} label="Clamp meter (A)" errors={errors} />
         <NumberInput idPrefix="b" field={form.register("reportedAmps")} label="Display current (A)" errors={errors} />
       </div>
-      <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>{add.isPending ? "Saving…" : "Save point"}</button>
+      <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>
+        {add.isPending ? "Saving…" : "Save point"}
+      </button>
     </form>
   );
 }

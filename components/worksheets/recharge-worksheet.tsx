@@ -18,9 +18,14 @@ const pct = (e: number | null) => (e == null ? "—" : `${e >= 0 ? "+" : ""}${fo
 function Rounding({ name, r, recommended }: { name: string; r: RoundedSetting; recommended: boolean }) {
   return (
     <div className={`rounded-md border-2 p-3 ${recommended ? "border-signal" : "border-rule"}`} data-testid={`rounding-${name}`}>
-      <p className="text-small text-muted">Rounded {name}{recommended ? " — recommended" : ""}</p>
+      <p className="text-small text-muted">
+        Rounded {name}
+        {recommended ? " — recommended" : ""}
+      </p>
       <p className="font-mono text-lg">{r.setting}</p>
-      <p className="text-small">Display reads {r.reads === "true" || r.readingError == null ? "true" : `${r.reads} by ${formatFigure(Math.abs(r.readingError) * 100, 2)} %`}</p>
+      <p className="text-small">
+        Display reads {r.reads === "true" || r.readingError == null ? "true" : `${r.reads} by ${formatFigure(Math.abs(r.readingError) * 100, 2)} %`}
+      </p>
     </div>
   );
 }
@@ -71,12 +76,25 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
         <table className="block w-full text-small sm:table" data-testid="iterations">
           <caption className="mb-2 block text-left font-semibold sm:table-caption">Iterations</caption>
           <thead className="hidden sm:table-header-group">
-            <tr className="text-left text-muted"><th className="py-1 pr-3">#</th><th className="pr-3">Scale used</th><th className="pr-3">Reported mAh</th><th className="pr-3">Charged mAh</th><th className="pr-3">Display error</th><th>Implied scale</th></tr>
+            <tr className="text-left text-muted">
+              <th className="py-1 pr-3">#</th>
+              <th className="pr-3">Scale used</th>
+              <th className="pr-3">Reported mAh</th>
+              <th className="pr-3">Charged mAh</th>
+              <th className="pr-3">Display error</th>
+              <th>Implied scale</th>
+            </tr>
           </thead>
           <tbody className="block space-y-2 sm:table-row-group sm:space-y-0">
             {(r?.iterations ?? []).map((it) => (
-              <tr key={it.index} className="grid grid-cols-2 gap-x-3 gap-y-2 rounded-md border-2 border-rule bg-surface p-3 sm:table-row sm:rounded-none sm:border-0 sm:border-t sm:bg-transparent sm:p-0">
-                <td className="col-span-2 font-semibold sm:table-cell sm:py-1 sm:pr-3 sm:font-normal"><span className="sm:hidden">Iteration </span>{it.index + 1}</td>
+              <tr
+                key={it.index}
+                className="grid grid-cols-2 gap-x-3 gap-y-2 rounded-md border-2 border-rule bg-surface p-3 sm:table-row sm:rounded-none sm:border-0 sm:border-t sm:bg-transparent sm:p-0"
+              >
+                <td className="col-span-2 font-semibold sm:table-cell sm:py-1 sm:pr-3 sm:font-normal">
+                  <span className="sm:hidden">Iteration </span>
+                  {it.index + 1}
+                </td>
                 <Cell label="Scale used">{it.scaleUsed}</Cell>
                 <Cell label="Reported mAh">{formatFigure(it.reportedMah, 0)}</Cell>
                 <Cell label="Charged mAh">{formatFigure(it.chargedMah, 0)}</Cell>
@@ -99,18 +117,36 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
           <FieldError messages={errors.position} />
         </div>
       )}
-      <TakenBack removed={sheet.removed} describe={(x) => <>scale {x.scaleUsed}, reported {formatFigure(x.reportedMah, 0)} mAh, charged {formatFigure(x.chargedMah, 0)} mAh</>} />
+      <TakenBack
+        removed={sheet.removed}
+        describe={(x) => (
+          <>
+            scale {x.scaleUsed}, reported {formatFigure(x.reportedMah, 0)} mAh, charged {formatFigure(x.chargedMah, 0)} mAh
+          </>
+        )}
+      />
 
       {r && (
         <section aria-labelledby="next-title" className="space-y-3 rounded-md border-3 border-rule bg-surface p-4">
-          <h2 id="next-title" className="font-display text-heading uppercase">Next scale</h2>
-          <p>Exact: <span className="font-mono">{formatFigure(r.next.exact, 2)}</span> (from cycle {r.basedOn + 1}). Enter <strong className="font-mono" data-testid="recommended">{r.recommendedSetting}</strong>.</p>
+          <h2 id="next-title" className="font-display text-heading uppercase">
+            Next scale
+          </h2>
+          <p>
+            Exact: <span className="font-mono">{formatFigure(r.next.exact, 2)}</span> (from cycle {r.basedOn + 1}). Enter{" "}
+            <strong className="font-mono" data-testid="recommended">
+              {r.recommendedSetting}
+            </strong>
+            .
+          </p>
           <div className="grid gap-3 sm:grid-cols-2">
             <Rounding name="down" r={r.next.down} recommended={r.next.safeSide === "down"} />
             <Rounding name="up" r={r.next.up} recommended={r.next.safeSide === "up"} />
           </div>
           <p className="text-small">{r.next.why}</p>
-          <p className={`font-semibold ${r.stop.met ? "text-ink" : "text-muted"}`} data-testid="stop">{r.stop.met ? "✓ " : ""}{r.stop.message}</p>
+          <p className={`font-semibold ${r.stop.met ? "text-ink" : "text-muted"}`} data-testid="stop">
+            {r.stop.met ? "✓ " : ""}
+            {r.stop.message}
+          </p>
           <p className="text-small text-muted">{r.stop.rule}</p>
         </section>
       )}
@@ -121,27 +157,48 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
 
       {sheet.submissionId == null ? (
         <>
-          <StepForm key={formKey} number={sheet.steps.length + 1} nextScale={nextScale} add={add} busy={busy} requestErrors={errors} onSend={() => setErrors({})} onSaved={() => setFormKey((k) => k + 1)} />
+          <StepForm
+            key={formKey}
+            number={sheet.steps.length + 1}
+            nextScale={nextScale}
+            add={add}
+            busy={busy}
+            requestErrors={errors}
+            onSend={() => setErrors({})}
+            onSaved={() => setFormKey((k) => k + 1)}
+          />
           {r && (
             <div className="space-y-2">
               {errors.steps && <p className="font-semibold text-fault">⚠ {errors.steps.join(" ")}</p>}
               {errors.firmwareVersion && <p className="font-semibold text-fault">⚠ {errors.firmwareVersion.join(" ")}</p>}
-              <button type="button" className="sb-button" onClick={publishIt} disabled={busy} data-testid="publish">Publish to Shuntbook</button>
-              <p className="text-small text-muted">Sends the recommended scale and every fully recharged cycle as a contribution. A moderator reviews it like any other.</p>
+              <button type="button" className="sb-button" onClick={publishIt} disabled={busy} data-testid="publish">
+                Publish to Shuntbook
+              </button>
+              <p className="text-small text-muted">
+                Sends the recommended scale and every fully recharged cycle as a contribution. A moderator reviews it like any other.
+              </p>
             </div>
           )}
         </>
       ) : (
-        <p className="font-semibold" data-testid="published">Published as submission #{sheet.submissionId}: pending review.</p>
+        <p className="font-semibold" data-testid="published">
+          Published as submission #{sheet.submissionId}: pending review.
+        </p>
       )}
 
       {/* shown before the first cycle too: every iteration means charging a pack again */}
-      {(
+      {
         <details open={sheet.steps.length === 0} className="rounded-md border-2 border-caution-edge bg-caution p-3 text-small">
           <summary className="font-semibold">Charging cautions</summary>
-          <ul className="mt-2 list-disc space-y-1 pl-5">{(r?.cautions ?? CHARGING_CAUTIONS).map((c) => <li key={c.text}>{c.text} <span className="text-muted">({c.source})</span></li>)}</ul>
+          <ul className="mt-2 list-disc space-y-1 pl-5">
+            {(r?.cautions ?? CHARGING_CAUTIONS).map((c) => (
+              <li key={c.text}>
+                {c.text} <span className="text-muted">({c.source})</span>
+              </li>
+            ))}
+          </ul>
         </details>
-      )}
+      }
     </div>
   );
 }
@@ -160,37 +217,63 @@ function StepForm(props: {
 }) {
   const { form, errors: formErrors } = useSchemaForm<StepFields>(stepInput, {
     defaultValues: { scaleUsed: String(props.nextScale), reportedMah: "", chargedMah: "", fullyRecharged: true },
-    toBody: (v) => ({ scaleUsed: numberOrNull(v.scaleUsed), reportedMah: numberOrNull(v.reportedMah), chargedMah: numberOrNull(v.chargedMah), fullyRecharged: v.fullyRecharged === true }),
+    toBody: (v) => ({
+      scaleUsed: numberOrNull(v.scaleUsed),
+      reportedMah: numberOrNull(v.reportedMah),
+      chargedMah: numberOrNull(v.chargedMah),
+      fullyRecharged: v.fullyRecharged === true,
+    }),
   });
   const errors = { ...props.requestErrors, ...formErrors };
-  const submit = form.handleSubmit(
-    (step) => {
-      props.onSend();
-      props.add.mutate(step, { onSuccess: props.onSaved, onError: (e) => showServerErrors(form.setError, e) });
-    },
-    props.onSend,
-  );
+  const submit = form.handleSubmit((step) => {
+    props.onSend();
+    props.add.mutate(step, { onSuccess: props.onSaved, onError: (e) => showServerErrors(form.setError, e) });
+  }, props.onSend);
   const field = (name: "scaleUsed" | "reportedMah" | "chargedMah", label: string, hint?: string) => (
     <div>
-      <label htmlFor={`w-${name}`} className="mb-1 block font-semibold">{label}</label>
-      <input id={`w-${name}`} type="number" inputMode="decimal" className="sb-field" {...form.register(name)}
-        aria-invalid={errors[name] ? true : undefined} aria-describedby={errors[name] ? `w-${name}-error` : undefined} />
+      <label htmlFor={`w-${name}`} className="mb-1 block font-semibold">
+        {label}
+      </label>
+      <input
+        id={`w-${name}`}
+        type="number"
+        inputMode="decimal"
+        className="sb-field"
+        {...form.register(name)}
+        aria-invalid={errors[name] ? true : undefined}
+        aria-describedby={errors[name] ? `w-${name}-error` : undefined}
+      />
       {hint && <p className="mt-1 text-small text-muted">{hint}</p>}
-      {errors[name] && <p id={`w-${name}-error`} className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{errors[name].join(" ")}</p>}
+      {errors[name] && (
+        <p id={`w-${name}-error`} className="mt-1 font-semibold text-fault">
+          <span aria-hidden="true">⚠ </span>
+          {errors[name].join(" ")}
+        </p>
+      )}
     </div>
   );
   return (
     <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="step-form">
       <h2 className="font-display text-lg font-bold tracking-wide uppercase">Add iteration {props.number}</h2>
-      <p className="text-small">Fly a pack down to your usual landing voltage with this scale, note the mAh the OSD shows, then recharge fully and note what the charger put back.</p>
-      {errors.input && <p role="alert" className="font-semibold text-fault">⚠ {errors.input.join(" ")}</p>}
+      <p className="text-small">
+        Fly a pack down to your usual landing voltage with this scale, note the mAh the OSD shows, then recharge fully and note what the charger put back.
+      </p>
+      {errors.input && (
+        <p role="alert" className="font-semibold text-fault">
+          ⚠ {errors.input.join(" ")}
+        </p>
+      )}
       <div className="grid gap-3 sm:grid-cols-3">
         {field("scaleUsed", "Scale used")}
         {field("reportedMah", "Reported mAh", "What the OSD showed at landing")}
         {field("chargedMah", "Charged mAh", "What the charger put back")}
       </div>
-      <label className="flex items-center gap-2 font-semibold"><input type="checkbox" className="size-5" {...form.register("fullyRecharged")} /> The charger finished (pack fully recharged)</label>
-      <button type="submit" className="sb-button" disabled={props.busy}>{props.busy ? "Saving…" : "Save iteration"}</button>
+      <label className="flex items-center gap-2 font-semibold">
+        <input type="checkbox" className="size-5" {...form.register("fullyRecharged")} /> The charger finished (pack fully recharged)
+      </label>
+      <button type="submit" className="sb-button" disabled={props.busy}>
+        {props.busy ? "Saving…" : "Save iteration"}
+      </button>
     </form>
   );
 }

@@ -34,9 +34,19 @@ export function NumberInput(props: { idPrefix: string; field: UseFormRegisterRet
   const messages = props.errors[props.field.name];
   return (
     <div className="min-w-0">
-      <label htmlFor={id} className="mb-1 block font-semibold">{props.label}</label>
-      <input id={id} type="number" inputMode="decimal" step="any" className="sb-field" {...props.field}
-        aria-invalid={messages ? true : undefined} aria-describedby={messages ? `${id}-error` : undefined} />
+      <label htmlFor={id} className="mb-1 block font-semibold">
+        {props.label}
+      </label>
+      <input
+        id={id}
+        type="number"
+        inputMode="decimal"
+        step="any"
+        className="sb-field"
+        {...props.field}
+        aria-invalid={messages ? true : undefined}
+        aria-describedby={messages ? `${id}-error` : undefined}
+      />
       {props.hint && <p className="mt-1 text-small text-muted">{props.hint}</p>}
       <FieldError id={`${id}-error`} messages={messages} />
     </div>
@@ -47,20 +57,29 @@ export function Warnings({ items }: { items: Array<{ field: string; message: str
   if (!items.length) return null;
   return (
     <ul className="space-y-1 rounded-md border-2 border-caution-edge bg-caution p-3 text-small" data-testid="worksheet-warnings">
-      {items.map((w) => <li key={w.field + w.message}>⚠ {w.message}</li>)}
+      {items.map((w) => (
+        <li key={w.field + w.message}>⚠ {w.message}</li>
+      ))}
     </ul>
   );
 }
 
 /** Publish when finished; once published, which submission it became. */
 export function PublishPanel(props: { submissionId: number | null; ready: boolean; busy: boolean; errors: Errors; onPublish: () => void; what: ReactNode }) {
-  if (props.submissionId != null) return <p className="font-semibold" data-testid="published">Published as submission #{props.submissionId}: pending review.</p>;
+  if (props.submissionId != null)
+    return (
+      <p className="font-semibold" data-testid="published">
+        Published as submission #{props.submissionId}: pending review.
+      </p>
+    );
   if (!props.ready) return null;
   const messages = Object.values(props.errors).flat();
   return (
     <div className="space-y-2">
       <FieldError messages={messages} />
-      <button type="button" className="sb-button w-full sm:w-auto" onClick={props.onPublish} disabled={props.busy} data-testid="publish">Publish to Shuntbook</button>
+      <button type="button" className="sb-button w-full sm:w-auto" onClick={props.onPublish} disabled={props.busy} data-testid="publish">
+        Publish to Shuntbook
+      </button>
       <p className="text-small text-muted">{props.what} A moderator reviews it like any other contribution.</p>
     </div>
   );
@@ -87,7 +106,9 @@ export function SavedEntries<E extends { position: number }, R extends { removed
     <>
       {props.entries.length > 0 && (
         <section aria-labelledby={props.id} className="space-y-2">
-          <h2 id={props.id} className="font-display text-lg font-bold tracking-wide uppercase">{props.title}</h2>
+          <h2 id={props.id} className="font-display text-lg font-bold tracking-wide uppercase">
+            {props.title}
+          </h2>
           <ol className="space-y-2" data-testid={props.testId}>
             {props.entries.map((entry) => (
               <li key={entry.position} className="flex flex-wrap items-center justify-between gap-2 rounded-md border-2 border-rule bg-surface p-3">
@@ -95,7 +116,9 @@ export function SavedEntries<E extends { position: number }, R extends { removed
                   <span className="font-semibold">{entry.position + 1}.</span> {props.describe(entry)}
                 </span>
                 {props.open && entry === last && (
-                  <button type="button" className="sb-button sb-button-quiet" disabled={props.busy} onClick={() => props.onRemove(entry.position)}>Take back</button>
+                  <button type="button" className="sb-button sb-button-quiet" disabled={props.busy} onClick={() => props.onRemove(entry.position)}>
+                    Take back
+                  </button>
                 )}
               </li>
             ))}
@@ -115,7 +138,11 @@ export function TakenBack<R extends { removedAt: string }>({ removed, describe }
     <details className="text-small">
       <summary className="text-muted">{removed.length} taken back (kept here, not counted)</summary>
       <ul className="mt-1 space-y-1">
-        {removed.map((entry) => <li key={entry.removedAt}><del>{describe(entry)}</del></li>)}
+        {removed.map((entry) => (
+          <li key={entry.removedAt}>
+            <del>{describe(entry)}</del>
+          </li>
+        ))}
       </ul>
     </details>
   );

@@ -26,7 +26,10 @@ export function StartWorksheet({ quadId }: { quadId: number }) {
     toBody: (v) => ({ quadId, ratedMah: numberOrNull(v.ratedMah), cells: numberOrNull(v.cells), startingScale: numberOrNull(v.startingScale) }),
     raw: true,
   });
-  const start = useStartWorksheet<{ id: number }>((sheet) => router.push(`/garage/worksheets/${sheet.id}`), { unreachableMessage: NO_ANSWER, fallbackMessage: () => NO_ANSWER });
+  const start = useStartWorksheet<{ id: number }>((sheet) => router.push(`/garage/worksheets/${sheet.id}`), {
+    unreachableMessage: NO_ANSWER,
+    fallbackMessage: () => NO_ANSWER,
+  });
   const [cells, ratedMah] = form.watch(["cells", "ratedMah"]);
   const chosen = packs.data?.find((p) => String(p.id) === packId) ?? null;
   const edited = chosen != null && (cells !== String(chosen.cells) || ratedMah !== String(chosen.ratedMah));
@@ -45,29 +48,51 @@ export function StartWorksheet({ quadId }: { quadId: number }) {
 
   const field = (name: keyof StartFields, label: string, hint?: string) => (
     <div>
-      <label htmlFor={`s-${name}`} className="mb-1 block font-semibold">{label}</label>
-      <input id={`s-${name}`} type="number" inputMode="numeric" className="sb-field" aria-invalid={errors[name] ? true : undefined}
-        {...form.register(name)} />
+      <label htmlFor={`s-${name}`} className="mb-1 block font-semibold">
+        {label}
+      </label>
+      <input id={`s-${name}`} type="number" inputMode="numeric" className="sb-field" aria-invalid={errors[name] ? true : undefined} {...form.register(name)} />
       {hint && <p className="mt-1 text-small text-muted">{hint}</p>}
-      {errors[name] && <p className="mt-1 font-semibold text-fault"><span aria-hidden="true">⚠ </span>{errors[name].join(" ")}</p>}
+      {errors[name] && (
+        <p className="mt-1 font-semibold text-fault">
+          <span aria-hidden="true">⚠ </span>
+          {errors[name].join(" ")}
+        </p>
+      )}
     </div>
   );
   return (
     <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="start-worksheet">
       <h3 className="font-display text-lg font-bold tracking-wide uppercase">Start a fly-and-recharge worksheet</h3>
-      {errors.input && <p role="alert" className="font-semibold text-fault">⚠ {errors.input.join(" ")}</p>}
-      {errors.quadId && <p role="alert" className="font-semibold text-fault">⚠ {errors.quadId.join(" ")}</p>}
+      {errors.input && (
+        <p role="alert" className="font-semibold text-fault">
+          ⚠ {errors.input.join(" ")}
+        </p>
+      )}
+      {errors.quadId && (
+        <p role="alert" className="font-semibold text-fault">
+          ⚠ {errors.quadId.join(" ")}
+        </p>
+      )}
       {packs.data && packs.data.length > 0 && (
         <div>
-          <label htmlFor="s-pack" className="mb-1 block font-semibold">Pack</label>
+          <label htmlFor="s-pack" className="mb-1 block font-semibold">
+            Pack
+          </label>
           <select id="s-pack" className="sb-field" value={packId} onChange={(e) => choosePack(e.target.value)} aria-describedby="s-pack-hint">
             <option value="">Not one of my packs: type the figures</option>
             {packs.data.map((p) => (
-              <option key={p.id} value={p.id}>{p.label} · {p.cells}S {p.ratedMah} mAh {CHEMISTRY_LIMITS[p.chemistry].label}</option>
+              <option key={p.id} value={p.id}>
+                {p.label} · {p.cells}S {p.ratedMah} mAh {CHEMISTRY_LIMITS[p.chemistry].label}
+              </option>
             ))}
           </select>
           <p id="s-pack-hint" className="mt-1 text-small text-muted" data-testid="pack-hint">
-            {chosen ? (edited ? `Started from ${chosen.label}, then changed by you.` : `Cells and rated mAh filled in from ${chosen.label}; change them if your pack differs.`) : "Choose one from your garage to fill in its cells and rated mAh."}
+            {chosen
+              ? edited
+                ? `Started from ${chosen.label}, then changed by you.`
+                : `Cells and rated mAh filled in from ${chosen.label}; change them if your pack differs.`
+              : "Choose one from your garage to fill in its cells and rated mAh."}
           </p>
         </div>
       )}
@@ -77,7 +102,9 @@ export function StartWorksheet({ quadId }: { quadId: number }) {
         {field("ratedMah", "Pack rated mAh")}
         {field("startingScale", "Current scale flown now", "Only needed when nothing is published for this board yet")}
       </div>
-      <button type="submit" className="sb-button" disabled={busy}>{busy ? "Starting…" : "Start worksheet"}</button>
+      <button type="submit" className="sb-button" disabled={busy}>
+        {busy ? "Starting…" : "Start worksheet"}
+      </button>
     </form>
   );
 }

@@ -33,9 +33,20 @@ export function VoltageWorksheet({ quadId, startingScale, initial }: { quadId: n
       <form onSubmit={submit} noValidate className="space-y-3 rounded-md border-2 border-rule bg-surface p-4" data-testid="voltage-start">
         <h2 className="font-display text-lg font-bold tracking-wide uppercase">Start a voltage check</h2>
         <FieldError messages={[...(errors.input ?? []), ...(errors.quadId ?? [])]} />
-        <NumberInput idPrefix="vs" field={form.register("scaleUsed")} label="Voltage scale in force" errors={errors}
-          hint={startingScale != null ? "The board's published recommended value; change it if your quad runs another." : "Nothing is published for this board yet: enter the value your quad runs with."} />
-        <button type="submit" className="sb-button w-full sm:w-auto" disabled={start.isPending}>{start.isPending ? "Starting…" : "Start"}</button>
+        <NumberInput
+          idPrefix="vs"
+          field={form.register("scaleUsed")}
+          label="Voltage scale in force"
+          errors={errors}
+          hint={
+            startingScale != null
+              ? "The board's published recommended value; change it if your quad runs another."
+              : "Nothing is published for this board yet: enter the value your quad runs with."
+          }
+        />
+        <button type="submit" className="sb-button w-full sm:w-auto" disabled={start.isPending}>
+          {start.isPending ? "Starting…" : "Start"}
+        </button>
       </form>
     </div>
   );
@@ -56,43 +67,78 @@ export function VoltageSheet({ initial }: { initial: VoltageSheetView }) {
         {sheet.startingSource === "published" ? "(the board's published recommended value)" : "(your own)"}. Firmware family: {sheet.familyName}.
       </p>
 
-      <SavedEntries id="v-readings" title="Readings" testId="voltage-readings" entries={sheet.readings} removed={sheet.removed} open={open} busy={busy}
-        onRemove={(position) => remove.mutate(position)} removeErrors={errorsOf(remove.error)}
+      <SavedEntries
+        id="v-readings"
+        title="Readings"
+        testId="voltage-readings"
+        entries={sheet.readings}
+        removed={sheet.removed}
+        open={open}
+        busy={busy}
+        onRemove={(position) => remove.mutate(position)}
+        removeErrors={errorsOf(remove.error)}
         describe={(x) => (
           <>
             {x.cells}S — display <span className="font-mono">{volts(x.reportedVolts)}</span>, meter <span className="font-mono">{volts(x.measuredVolts)}</span>{" "}
             <span className="text-small text-muted">({PLACE[x.measuredAt]})</span>
           </>
-        )} />
+        )}
+      />
 
       {r && (
         <section aria-labelledby="v-result" className="space-y-2 rounded-md border-3 border-rule bg-surface p-4" data-testid="voltage-result">
-          <h2 id="v-result" className="font-display text-heading uppercase">{r.verdict === "keep" ? "Keep the scale" : "Change the scale"}</h2>
+          <h2 id="v-result" className="font-display text-heading uppercase">
+            {r.verdict === "keep" ? "Keep the scale" : "Change the scale"}
+          </h2>
           <p>{r.message}</p>
           <p className="text-small">
-            Exact scale <span className="font-mono">{formatFigure(r.impliedScale, 2)}</span> ({r.combination}); down <span className="font-mono">{r.rounding.down.setting}</span>, up{" "}
-            <span className="font-mono">{r.rounding.up.setting}</span>; recommended <strong className="font-mono">{r.rounding.recommended.setting}</strong>. {r.rounding.why}
+            Exact scale <span className="font-mono">{formatFigure(r.impliedScale, 2)}</span> ({r.combination}); down{" "}
+            <span className="font-mono">{r.rounding.down.setting}</span>, up <span className="font-mono">{r.rounding.up.setting}</span>; recommended{" "}
+            <strong className="font-mono">{r.rounding.recommended.setting}</strong>. {r.rounding.why}
           </p>
-          <p className="text-small text-muted">Tolerance ±{r.tolerance.relative * 100} % ({r.tolerance.source}).</p>
+          <p className="text-small text-muted">
+            Tolerance ±{r.tolerance.relative * 100} % ({r.tolerance.source}).
+          </p>
         </section>
       )}
       <Warnings items={sheet.warnings} />
 
       {open && <ReadingForm key={formKey} sheet={sheet} add={add} busy={busy} onSaved={() => setFormKey((k) => k + 1)} />}
 
-      <PublishPanel submissionId={sheet.submissionId} ready={r != null} busy={busy} errors={errorsOf(publish.error)} onPublish={() => publish.mutate()}
-        what="Sends the recommended voltage scale with every reading above as its multimeter evidence." />
+      <PublishPanel
+        submissionId={sheet.submissionId}
+        ready={r != null}
+        busy={busy}
+        errors={errorsOf(publish.error)}
+        onPublish={() => publish.mutate()}
+        what="Sends the recommended voltage scale with every reading above as its multimeter evidence."
+      />
     </div>
   );
 }
 
 type ReadingFields = { cells: string; reportedVolts: string; measuredVolts: string; measuredAt: MeasuredAt };
 
-function ReadingForm({ sheet, add, busy, onSaved }: { sheet: VoltageSheetView; add: ReturnType<typeof useSavedWorksheet<VoltageSheetView>>["add"]; busy: boolean; onSaved: () => void }) {
+function ReadingForm({
+  sheet,
+  add,
+  busy,
+  onSaved,
+}: {
+  sheet: VoltageSheetView;
+  add: ReturnType<typeof useSavedWorksheet<VoltageSheetView>>["add"];
+  busy: boolean;
+  onSaved: () => void;
+}) {
   const last = sheet.readings.at(-1);
   const { form, errors } = useSchemaForm<ReadingFields>(voltageReadingInput, {
     defaultValues: { cells: last ? String(last.cells) : "", reportedVolts: "", measuredVolts: "", measuredAt: last?.measuredAt ?? "main_lead" },
-    toBody: (v) => ({ cells: numberOrUndefined(v.cells), reportedVolts: numberOrUndefined(v.reportedVolts), measuredVolts: numberOrUndefined(v.measuredVolts), measuredAt: v.measuredAt ?? undefined }),
+    toBody: (v) => ({
+      cells: numberOrUndefined(v.cells),
+      reportedVolts: numberOrUndefined(v.reportedVolts),
+      measuredVolts: numberOrUndefined(v.measuredVolts),
+      measuredAt: v.measuredAt ?? undefined,
+    }),
   });
   const submit = form.handleSubmit(
     (body) => add.mutate(body, { onSuccess: onSaved, onError: (e) => showServerErrors(form.setError, e) }),
@@ -119,7 +165,9 @@ function ReadingForm({ sheet, add, busy, onSaved }: { sheet: VoltageSheetView; a
         </div>
         <FieldError id="v-measuredAt-error" messages={errors.measuredAt} />
       </fieldset>
-      <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>{add.isPending ? "Saving…" : "Save reading"}</button>
+      <button type="submit" className="sb-button w-full sm:w-auto" disabled={busy}>
+        {add.isPending ? "Saving…" : "Save reading"}
+      </button>
     </form>
   );
 }

@@ -15,7 +15,11 @@ import { byEmail } from "./accounts";
 const plain = (u: User | null): AdapterUser | null => (u ? (u.get({ plain: true }) as unknown as AdapterUser) : null);
 
 export function nameFromEmail(email: string): string {
-  const local = email.split("@")[0]?.replace(/[._+-]+/g, " ").trim() ?? "";
+  const local =
+    email
+      .split("@")[0]
+      ?.replace(/[._+-]+/g, " ")
+      .trim() ?? "";
   return (local || "New member").slice(0, 80);
 }
 

@@ -1,10 +1,2 @@
-export {
-  currentUser,
-  requirePageRole,
-  requirePageUser,
-  requireRole,
-  requireUser,
-  userFromRequest,
-  type SessionUser,
-} from "./guard";
+export { currentUser, requirePageRole, requirePageUser, requireRole, requireUser, userFromRequest, type SessionUser } from "./guard";
 export { roleSatisfies } from "./roles";

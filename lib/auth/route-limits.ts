@@ -26,7 +26,13 @@ async function emailOf(request: Request): Promise<string> {
 async function succeeded(response: Response): Promise<boolean> {
   let target = response.headers.get("location");
   if (!target && response.headers.get("content-type")?.includes("application/json")) {
-    target = ((await response.clone().json().catch(() => ({}))) as { url?: string }).url ?? null;
+    target =
+      (
+        (await response
+          .clone()
+          .json()
+          .catch(() => ({}))) as { url?: string }
+      ).url ?? null;
   }
   return Boolean(target) && !/[?&]error=/.test(target!) && response.headers.get("set-cookie")?.includes("session-token") === true;
 }

@@ -57,21 +57,15 @@ function sameAs<K extends string>(field: K): [(v: Record<K | "confirm", string>)
 
 export const SignInSchema = z.object({ email: emailField, password: existingPasswordField });
 export const MagicLinkSchema = z.object({ email: emailField });
-export const SignUpSchema = z
-  .object({ name: nameField, email: emailField, password: newPasswordField, confirm: confirmField })
-  .refine(...sameAs("password"));
+export const SignUpSchema = z.object({ name: nameField, email: emailField, password: newPasswordField, confirm: confirmField }).refine(...sameAs("password"));
 export const ResetRequestSchema = z.object({ email: emailField });
-export const ResetConfirmSchema = z
-  .object({ token: resetTokenField, password: newPasswordField, confirm: confirmField })
-  .refine(...sameAs("password"));
+export const ResetConfirmSchema = z.object({ token: resetTokenField, password: newPasswordField, confirm: confirmField }).refine(...sameAs("password"));
 export const ProfileNameSchema = z.object({ name: nameField });
 export const ChangePasswordSchema = z
   .object({ currentPassword: existingPasswordField, newPassword: newPasswordField, confirm: confirmField })
   .refine(...sameAs("newPassword"));
 /** For an account that has no password yet (made by magic link): nothing to confirm it with. */
-export const SetPasswordSchema = z
-  .object({ newPassword: newPasswordField, confirm: confirmField })
-  .refine(...sameAs("newPassword"));
+export const SetPasswordSchema = z.object({ newPassword: newPasswordField, confirm: confirmField }).refine(...sameAs("newPassword"));
 
 export type SignInInput = z.input<typeof SignInSchema>;
 export type MagicLinkInput = z.input<typeof MagicLinkSchema>;

@@ -13,7 +13,10 @@ export const MAX_ADC_BITS = 24;
 
 const adcSchema = z.object({
   vrefVolts: positiveNumber("The ADC reference", "V", 10),
-  bits: numberField("The ADC resolution").int("The ADC resolution is a whole number of bits, like 12").min(1, "The ADC resolution is at least 1 bit").max(MAX_ADC_BITS, `The ADC resolution is at most ${MAX_ADC_BITS} bits`),
+  bits: numberField("The ADC resolution")
+    .int("The ADC resolution is a whole number of bits, like 12")
+    .min(1, "The ADC resolution is at least 1 bit")
+    .max(MAX_ADC_BITS, `The ADC resolution is at most ${MAX_ADC_BITS} bits`),
 });
 
 export type AdcSpec = { vrefVolts: number; bits: number };

@@ -80,12 +80,24 @@ export function benchWorksheet(input: BenchWorksheetInput, family: WorksheetFami
   }
 
   const line = (x: number) => implied.gain * x + implied.interceptAmps;
-  const residuals = bench.points.map((p, index) => ({ index, measuredAmps: p.measuredAmps, reportedAmps: p.reportedAmps, fittedAmps: line(p.measuredAmps), residualAmps: p.reportedAmps - line(p.measuredAmps) }));
-  const r2 = rSquared(bench.points.map((p) => [p.measuredAmps, p.reportedAmps]), line);
+  const residuals = bench.points.map((p, index) => ({
+    index,
+    measuredAmps: p.measuredAmps,
+    reportedAmps: p.reportedAmps,
+    fittedAmps: line(p.measuredAmps),
+    residualAmps: p.reportedAmps - line(p.measuredAmps),
+  }));
+  const r2 = rSquared(
+    bench.points.map((p) => [p.measuredAmps, p.reportedAmps]),
+    line,
+  );
 
   const warnings: FieldIssue[] = [];
   if (bench.points.length === 2) {
-    warnings.push({ field: "points", message: "Two points fit any line exactly, so nothing shows whether the sensor is linear: add a third at another throttle" });
+    warnings.push({
+      field: "points",
+      message: "Two points fit any line exactly, so nothing shows whether the sensor is linear: add a third at another throttle",
+    });
   } else if (r2 < BENCH_MIN_R_SQUARED) {
     warnings.push({
       field: "points",
@@ -93,9 +105,15 @@ export function benchWorksheet(input: BenchWorksheetInput, family: WorksheetFami
     });
   }
 
-  const scaleRounding = { ...roundBothWays(implied.impliedScale, family.currentScaleResponse, "high", settingRange(family, "currentScale")), why: CURRENT_ROUNDING_WHY };
+  const scaleRounding = {
+    ...roundBothWays(implied.impliedScale, family.currentScaleResponse, "high", settingRange(family, "currentScale")),
+    why: CURRENT_ROUNDING_WHY,
+  };
   if (!scaleRounding.recommended.withinRange) {
-    warnings.push({ field: "scaleUsed", message: `The implied current scale ${scaleRounding.recommended.setting} is outside ${family.name}'s range ${family.currentScaleMin}–${family.currentScaleMax}: check the points` });
+    warnings.push({
+      field: "scaleUsed",
+      message: `The implied current scale ${scaleRounding.recommended.setting} is outside ${family.name}'s range ${family.currentScaleMin}–${family.currentScaleMax}: check the points`,
+    });
   }
   const offsetSetting = roundSetting(implied.impliedOffset);
   // The displayed current falls as the offset rises: by step ÷ sensitivity (mV offsets, through the
@@ -105,7 +123,10 @@ export function benchWorksheet(input: BenchWorksheetInput, family: WorksheetFami
   const perStepAmps = family.currentOffsetUnit === "mV" ? family.currentOffsetStep / newSensitivity : family.currentOffsetStep / 1000;
   const offsetWithinRange = offsetSetting >= family.currentOffsetMin && offsetSetting <= family.currentOffsetMax;
   if (!offsetWithinRange) {
-    warnings.push({ field: "offsetUsed", message: `The implied offset ${offsetSetting} is outside ${family.name}'s range ${family.currentOffsetMin}–${family.currentOffsetMax}: check the points near zero current` });
+    warnings.push({
+      field: "offsetUsed",
+      message: `The implied offset ${offsetSetting} is outside ${family.name}'s range ${family.currentOffsetMin}–${family.currentOffsetMax}: check the points near zero current`,
+    });
   }
 
   return ok(

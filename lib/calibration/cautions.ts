@@ -22,7 +22,10 @@ export const BENCH_CAUTIONS: readonly Caution[] = [
 /** Fly-and-recharge cycles and charge logs mean charging packs again and again. */
 export const CHARGING_CAUTIONS: readonly Caution[] = [
   { text: "Never leave a pack charging unattended.", source: `${SOURCES.bmfa}; ${SOURCES.uwEhs}` },
-  { text: "Charge on a non-flammable surface or in a fire-retardant bag, at no more than 1C unless the maker allows more.", source: `${SOURCES.bmfa}; ${SOURCES.uwEhs}` },
+  {
+    text: "Charge on a non-flammable surface or in a fire-retardant bag, at no more than 1C unless the maker allows more.",
+    source: `${SOURCES.bmfa}; ${SOURCES.uwEhs}`,
+  },
   { text: "Stop using a swollen pack.", source: `${SOURCES.bmfa}; ${SOURCES.uwEhs}` },
   { text: "Do not charge a standard LiPo cell above 4.20 V or discharge it below 3.0 V.", source: SOURCES.uwEhs },
   DEFER,

@@ -32,8 +32,10 @@ export const cellsField = () =>
 export type SettingKind = "voltageScale" | "currentScale" | "currentOffset";
 
 function rangeOf(family: WorksheetFamily, kind: SettingKind) {
-  if (kind === "voltageScale") return { min: family.voltageScaleMin, max: family.voltageScaleMax, step: family.voltageScaleStep, unit: family.voltageScaleUnit };
-  if (kind === "currentScale") return { min: family.currentScaleMin, max: family.currentScaleMax, step: family.currentScaleStep, unit: family.currentScaleUnit };
+  if (kind === "voltageScale")
+    return { min: family.voltageScaleMin, max: family.voltageScaleMax, step: family.voltageScaleStep, unit: family.voltageScaleUnit };
+  if (kind === "currentScale")
+    return { min: family.currentScaleMin, max: family.currentScaleMax, step: family.currentScaleStep, unit: family.currentScaleUnit };
   return { min: family.currentOffsetMin, max: family.currentOffsetMax, step: family.currentOffsetStep, unit: family.currentOffsetUnit };
 }
 

@@ -114,10 +114,16 @@ export function comparisonVerdict(
     return { verdict: "same-setting", message: `The parts and the published value give the same setting: ${parts} are what the record says.` };
   }
   if (d <= PARTS_TOLERANCE_PERCENT) {
-    return { verdict: "within-tolerance", message: `Within the usual spread of parts tolerance (±${PARTS_TOLERANCE_PERCENT} %): boards built from the same ${parts} differ this much, and builders' calibrations absorb it.` };
+    return {
+      verdict: "within-tolerance",
+      message: `Within the usual spread of parts tolerance (±${PARTS_TOLERANCE_PERCENT} %): boards built from the same ${parts} differ this much, and builders' calibrations absorb it.`,
+    };
   }
   if (d <= DIFFERENT_PART_PERCENT) {
-    return { verdict: "beyond-tolerance", message: `More than parts tolerance explains. Check the markings on ${parts}, that the quad's board revision is right, and that builders calibrated the same way (with the same stacked ESC, for current).` };
+    return {
+      verdict: "beyond-tolerance",
+      message: `More than parts tolerance explains. Check the markings on ${parts}, that the quad's board revision is right, and that builders calibrated the same way (with the same stacked ESC, for current).`,
+    };
   }
   return {
     verdict: "different-part",

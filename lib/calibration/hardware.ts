@@ -1,11 +1,5 @@
 import { z } from "zod";
-import {
-  currentScaleSettingFromSensitivity,
-  dividerRatio,
-  roundSetting,
-  shuntSensitivityMvPerAmp,
-  voltageScaleSettingFromRatio,
-} from "./units";
+import { currentScaleSettingFromSensitivity, dividerRatio, roundSetting, shuntSensitivityMvPerAmp, voltageScaleSettingFromRatio } from "./units";
 import { formatFigure } from "@/lib/catalogue/format";
 import { CELL_VOLTS_CEILING } from "@/lib/submissions/limits";
 import { adcLsbVolts, adcSpecSchema } from "./adc";
@@ -69,7 +63,11 @@ export type HardwareWorksheet = {
 const sensorSchema = z.discriminatedUnion(
   "kind",
   [
-    z.object({ kind: z.literal("shunt"), shuntMilliohms: positiveNumber("The shunt resistance", "mΩ", 1000), amplifierGain: positiveNumber("The amplifier gain", "V/V", 10_000) }),
+    z.object({
+      kind: z.literal("shunt"),
+      shuntMilliohms: positiveNumber("The shunt resistance", "mΩ", 1000),
+      amplifierGain: positiveNumber("The amplifier gain", "V/V", 10_000),
+    }),
     z.object({ kind: z.literal("hall"), mvPerAmp: positiveNumber("The Hall sensor's sensitivity", "mV/A", 10_000) }),
   ],
   { error: 'Say which current sensor: "shunt" or "hall"' },
@@ -78,10 +76,18 @@ const sensorSchema = z.discriminatedUnion(
 const schema = z.object({
   divider: z.object({ topOhms: positiveNumber("The top resistor", "Ω", 1e8), bottomOhms: positiveNumber("The bottom resistor", "Ω", 1e8) }).nullish(),
   currentSensor: sensorSchema.nullish(),
-  published: z.object({ voltageScale: positiveNumber("The published voltage scale", "").nullish(), currentScale: positiveNumber("The published current scale", "").nullish() }).nullish(),
+  published: z
+    .object({
+      voltageScale: positiveNumber("The published voltage scale", "").nullish(),
+      currentScale: positiveNumber("The published current scale", "").nullish(),
+    })
+    .nullish(),
   adc: adcSpecSchema.nullish(),
   maxCells: cellsField().nullish(),
-  atAmps: numberField("The current to check at").min(0, "The current to check at cannot be negative").max(1000, "The current to check at must be at most 1000 A").nullish(),
+  atAmps: numberField("The current to check at")
+    .min(0, "The current to check at cannot be negative")
+    .max(1000, "The current to check at must be at most 1000 A")
+    .nullish(),
 });
 
 const compare = (published: number | null | undefined, exact: number): Comparison =>
@@ -116,12 +122,20 @@ export function hardwareWorksheet(input: HardwareWorksheetInput, family: Workshe
         });
       }
     }
-    voltage = { dividerRatio: ratio, exactSetting: exact, nearestSetting: roundSetting(exact), comparison: compare(published?.voltageScale, exact), headroom, source: SOURCES.divider };
+    voltage = {
+      dividerRatio: ratio,
+      exactSetting: exact,
+      nearestSetting: roundSetting(exact),
+      comparison: compare(published?.voltageScale, exact),
+      headroom,
+      source: SOURCES.divider,
+    };
   }
 
   let current: HardwareWorksheet["current"] = null;
   if (currentSensor) {
-    const sensitivity = currentSensor.kind === "shunt" ? shuntSensitivityMvPerAmp(currentSensor.shuntMilliohms, currentSensor.amplifierGain) : currentSensor.mvPerAmp;
+    const sensitivity =
+      currentSensor.kind === "shunt" ? shuntSensitivityMvPerAmp(currentSensor.shuntMilliohms, currentSensor.amplifierGain) : currentSensor.mvPerAmp;
     const exact = currentScaleSettingFromSensitivity(sensitivity, family);
     const at =
       atAmps == null
@@ -133,7 +147,10 @@ export function hardwareWorksheet(input: HardwareWorksheetInput, family: Workshe
           };
     // A shunt amplifier starts at 0 V; a bidirectional Hall sensor rests at Vcc/2, so its swing is judged elsewhere.
     if (at && adc && currentSensor.kind === "shunt" && at.outputVolts > adc.vrefVolts) {
-      warnings.push({ field: "atAmps", message: `At ${atAmps} A the amplifier would put out ${formatFigure(at.outputVolts, 3)} V, above the ${adc.vrefVolts} V ADC reference: readings above ${formatFigure((adc.vrefVolts * 1000) / sensitivity, 1)} A stick at the top` });
+      warnings.push({
+        field: "atAmps",
+        message: `At ${atAmps} A the amplifier would put out ${formatFigure(at.outputVolts, 3)} V, above the ${adc.vrefVolts} V ADC reference: readings above ${formatFigure((adc.vrefVolts * 1000) / sensitivity, 1)} A stick at the top`,
+      });
     }
     current = {
       sensitivityMvPerAmp: sensitivity,
@@ -144,7 +161,10 @@ export function hardwareWorksheet(input: HardwareWorksheetInput, family: Workshe
       source: currentSensor.kind === "shunt" ? SOURCES.ohm : "Hall sensor datasheet sensitivity (mV/A)",
     };
     if (sensitivity < 2 || sensitivity > 200) {
-      warnings.push({ field: "currentSensor", message: `${formatFigure(sensitivity, 3)} mV/A is outside the 2–200 mV/A usual for hobby boards (${SOURCES.commonPractice}): check the figures` });
+      warnings.push({
+        field: "currentSensor",
+        message: `${formatFigure(sensitivity, 3)} mV/A is outside the 2–200 mV/A usual for hobby boards (${SOURCES.commonPractice}): check the figures`,
+      });
     }
   }
   return ok({ voltage, current }, warnings);

@@ -60,7 +60,12 @@ const schema = z.object({
   cells: cellsField(),
   ratedMah: mahField("The pack's rated mAh"),
   chargeLog: z
-    .array(z.object({ chargedMah: mahField("The charged mAh"), afterFullFlight: z.boolean({ error: "Say whether the flight before this charge went to the landing voltage" }) }))
+    .array(
+      z.object({
+        chargedMah: mahField("The charged mAh"),
+        afterFullFlight: z.boolean({ error: "Say whether the flight before this charge went to the landing voltage" }),
+      }),
+    )
     .max(1000, "At most 1000 charges")
     .nullish(),
   cycleCount: numberField("The cycle count").int("The cycle count is a whole number").min(0, "The cycle count cannot be negative").nullish(),
@@ -75,7 +80,10 @@ export function packWarnings(input: PackWarningsInput): WorksheetResult<PackWarn
   const log = chargeLog ?? [];
   const warnings: FieldIssue[] = [];
 
-  const recent = log.filter((c) => c.afterFullFlight).slice(-RECENT_CHARGES).map((c) => c.chargedMah);
+  const recent = log
+    .filter((c) => c.afterFullFlight)
+    .slice(-RECENT_CHARGES)
+    .map((c) => c.chargedMah);
   const estimate = recent.length >= MIN_CHARGES_FOR_ESTIMATE ? medianOfSorted(sortedCopy(recent))! : null;
   if (log.length > 0 && estimate == null) {
     warnings.push({ field: "chargeLog", message: `Fewer than ${MIN_CHARGES_FOR_ESTIMATE} charges after full flights, so the rating is used` });
@@ -87,7 +95,10 @@ export function packWarnings(input: PackWarningsInput): WorksheetResult<PackWarn
     });
   }
   if (cycleCount != null && cycleCount < log.length) {
-    warnings.push({ field: "cycleCount", message: `The log already has ${log.length} charges, more than the ${cycleCount} cycles given: the log's count is used` });
+    warnings.push({
+      field: "cycleCount",
+      message: `The log already has ${log.length} charges, more than the ${cycleCount} cycles given: the log's count is used`,
+    });
   }
   const basisMah = estimate == null ? ratedMah : Math.min(estimate, ratedMah);
   const limits = CHEMISTRY_LIMITS[chemistry];

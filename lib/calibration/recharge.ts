@@ -90,7 +90,10 @@ function schemaFor(family: WorksheetFamily) {
   return z
     .object({
       ratedMah: mahField("The pack's rated mAh").nullish(),
-      cycles: z.array(cycle).min(1, "Add at least one cycle: fly, note the OSD's mAh, recharge fully, note the charger's").max(MAX_CYCLES, `At most ${MAX_CYCLES} cycles`),
+      cycles: z
+        .array(cycle)
+        .min(1, "Add at least one cycle: fly, note the OSD's mAh, recharge fully, note the charger's")
+        .max(MAX_CYCLES, `At most ${MAX_CYCLES} cycles`),
     })
     .superRefine((v, ctx) => {
       // zod still runs this after a field failed its own check; judge only figures above 0
@@ -126,7 +129,11 @@ export function rechargeWorksheet(input: RechargeWorksheetInput, family: Workshe
   const iterations: RechargeIteration[] = cycles.map((c, index) => {
     const ratio = c.reportedMah / c.chargedMah;
     const marked = c.fullyRecharged === false;
-    if (marked) warnings.push({ field: `cycles.${index}.fullyRecharged`, message: `Cycle ${index + 1} is marked as not fully recharged, so it is left out of the next scale` });
+    if (marked)
+      warnings.push({
+        field: `cycles.${index}.fullyRecharged`,
+        message: `Cycle ${index + 1} is marked as not fully recharged, so it is left out of the next scale`,
+      });
     const rated = c.ratedMah ?? ratedMah;
     if (rated != null && c.chargedMah > (1 + CHARGED_OVER_RATED_WARNING) * rated) {
       warnings.push({
@@ -174,7 +181,10 @@ export function rechargeWorksheet(input: RechargeWorksheetInput, family: Workshe
   const latest = usable[usable.length - 1];
   const next = { ...roundBothWays(latest.impliedScale, response, "high", settingRange(family, "currentScale")), why: CURRENT_ROUNDING_WHY };
   if (!next.recommended.withinRange) {
-    warnings.push({ field: `cycles.${latest.index}.scaleUsed`, message: `The next scale ${next.recommended.setting} is outside ${family.name}'s range ${family.currentScaleMin}–${family.currentScaleMax}: check the figures` });
+    warnings.push({
+      field: `cycles.${latest.index}.scaleUsed`,
+      message: `The next scale ${next.recommended.setting} is outside ${family.name}'s range ${family.currentScaleMin}–${family.currentScaleMax}: check the figures`,
+    });
   }
   if (1 / latest.impliedScale > STOP_TOLERANCE) {
     warnings.push({

@@ -7,9 +7,7 @@ import type { z } from "zod";
 /** One problem with one input, or one caution about it. `field` is a dotted path into the input. */
 export type FieldIssue = { field: string; message: string };
 
-export type WorksheetResult<T> =
-  | { ok: true; value: T; warnings: FieldIssue[] }
-  | { ok: false; errors: FieldIssue[]; warnings: FieldIssue[] };
+export type WorksheetResult<T> = { ok: true; value: T; warnings: FieldIssue[] } | { ok: false; errors: FieldIssue[]; warnings: FieldIssue[] };
 
 /** Thrown by unwrapWorksheet and by the small hardware helpers, carrying the field-level errors. */
 export class WorksheetInputError extends RangeError {

@@ -78,11 +78,19 @@ function readingSchema() {
       const span = `${formatFigure(lo, 2)}–${formatFigure(hi, 2)} V`;
       const limits = `${CELL_VOLTS_FLOOR}–${CELL_VOLTS_CEILING} V a cell: ${SOURCES.bmfa} for the floor under load, 4.35 V full HV cells (${SOURCES.vendorsOnly})`;
       if (v.measuredVolts > 0 && (v.measuredVolts < lo || v.measuredVolts > hi)) {
-        ctx.addIssue({ code: "custom", path: ["measuredVolts"], message: `A ${v.cells}S pack measures ${span} (${limits}); ${v.measuredVolts} V cannot be right — check the cell count and the multimeter's range` });
+        ctx.addIssue({
+          code: "custom",
+          path: ["measuredVolts"],
+          message: `A ${v.cells}S pack measures ${span} (${limits}); ${v.measuredVolts} V cannot be right — check the cell count and the multimeter's range`,
+        });
       }
       // A display may be badly off before calibration, so it gets the submissions' slack (limits.ts).
       if (v.reportedVolts > 0 && (v.reportedVolts < lo / REPORTED_VOLTS_SLACK || v.reportedVolts > hi * REPORTED_VOLTS_SLACK)) {
-        ctx.addIssue({ code: "custom", path: ["reportedVolts"], message: `${v.reportedVolts} V is impossible for a ${v.cells}S pack (${span}), even on a badly set display — check the cell count, or start from the scale the hardware implies` });
+        ctx.addIssue({
+          code: "custom",
+          path: ["reportedVolts"],
+          message: `${v.reportedVolts} V is impossible for a ${v.cells}S pack (${span}), even on a badly set display — check the cell count, or start from the scale the hardware implies`,
+        });
       }
     });
 }
@@ -123,7 +131,10 @@ export function voltageWorksheet(input: VoltageWorksheetInput, family: Worksheet
   }
   const rounding = { ...roundBothWays(implied, response, "low", settingRange(family, "voltageScale")), why: VOLTAGE_ROUNDING_WHY };
   if (!rounding.recommended.withinRange) {
-    warnings.push({ field: "scaleUsed", message: `The implied setting ${rounding.recommended.setting} is outside ${family.name}'s range ${family.voltageScaleMin}–${family.voltageScaleMax}: check the readings and that the board's divider suits this family` });
+    warnings.push({
+      field: "scaleUsed",
+      message: `The implied setting ${rounding.recommended.setting} is outside ${family.name}'s range ${family.voltageScaleMin}–${family.voltageScaleMax}: check the readings and that the board's divider suits this family`,
+    });
   }
   const left = rounding.recommended.readingError;
   if (left != null && Math.abs(left) > tolerance) {

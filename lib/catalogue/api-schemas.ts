@@ -6,7 +6,10 @@ import { BOARD_KINDS } from "@/lib/vocabulary";
 // typed by these schemas (lib/catalogue/api-response.ts) and the OpenAPI document is generated from
 // them, so the document cannot drift from what is sent.
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/).meta({ description: "A calendar date, YYYY-MM-DD." });
+const isoDate = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/)
+  .meta({ description: "A calendar date, YYYY-MM-DD." });
 
 export const BoardLinksSchema = z.object({
   self: z.string().meta({ example: "/api/v1/boards/example-f7" }),

@@ -1,8 +1,7 @@
 // How catalogue numbers are written on the pages. Kept here (not in components) so that the
 // JSON API and any export can render the same strings, and tests can pin them.
 
-const trim = (n: number, maxDigits: number) =>
-  new Intl.NumberFormat("en", { maximumFractionDigits: maxDigits, useGrouping: false }).format(n);
+const trim = (n: number, maxDigits: number) => new Intl.NumberFormat("en", { maximumFractionDigits: maxDigits, useGrouping: false }).format(n);
 
 /** Resistance with an SI prefix, as printed on schematics: 10000 → "10 kΩ", 4700 → "4.7 kΩ". */
 export function formatOhms(ohms: number): string {
@@ -29,9 +28,7 @@ export function formatCells(min: number, max: number): string {
 /** A stored YYYY-MM-DD date as "15 Nov 2025"; read as a calendar date, never shifted by time zone. */
 export function formatDate(isoDate: string): string {
   const [y, m, d] = isoDate.split("-").map(Number);
-  return new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(
-    new Date(Date.UTC(y, m - 1, d)),
-  );
+  return new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(new Date(Date.UTC(y, m - 1, d)));
 }
 
 /** "1 value" / "3 values" — counts read as words on the page. */

@@ -131,10 +131,11 @@ export async function listBoards(params: CatalogueParams): Promise<CataloguePage
   return sequelize.transaction(async (transaction) => {
     if (searching) {
       // set_config(..., true) is SET LOCAL: it ends with this transaction and leaks into no other query
-      await sequelize.query(
-        "SELECT set_config('pg_trgm.word_similarity_threshold', $w, true), set_config('pg_trgm.similarity_threshold', $s, true)",
-        { bind: { w: String(WORD_SIMILARITY_THRESHOLD), s: String(SIMILARITY_THRESHOLD) }, transaction, type: QueryTypes.SELECT },
-      );
+      await sequelize.query("SELECT set_config('pg_trgm.word_similarity_threshold', $w, true), set_config('pg_trgm.similarity_threshold', $s, true)", {
+        bind: { w: String(WORD_SIMILARITY_THRESHOLD), s: String(SIMILARITY_THRESHOLD) },
+        transaction,
+        type: QueryTypes.SELECT,
+      });
     }
     const [{ total }] = await sequelize.query<{ total: number }>(countSql, { bind, transaction, type: QueryTypes.SELECT });
     const rows = await sequelize.query<CatalogueRow>(pageSql, {

@@ -29,32 +29,13 @@ const positiveInt = (field: string, max: number) =>
     .string()
     .regex(/^[0-9]+$/, `${field} must be a whole number, 1 or more`)
     .transform(Number)
-    .pipe(
-      z
-        .number()
-        .int()
-        .min(1, `${field} must be 1 or more`)
-        .max(max, `${field} must be at most ${max}`),
-    );
+    .pipe(z.number().int().min(1, `${field} must be 1 or more`).max(max, `${field} must be at most ${max}`));
 
 export const CatalogueParamsSchema = z.object({
-  q: z
-    .string()
-    .trim()
-    .max(QUERY_MAX_LENGTH, `q (the search text) must be at most ${QUERY_MAX_LENGTH} characters`)
-    .optional(),
-  kind: z
-    .enum(BOARD_KINDS, { error: `kind must be one of: ${BOARD_KINDS.join(", ")}` })
-    .optional(),
-  mounting: z
-    .string()
-    .trim()
-    .toLowerCase()
-    .regex(MOUNTING_PATTERN_RE, "mounting must be hole spacing in millimetres, like 20x20 or 30.5x30.5")
-    .optional(),
-  sort: z
-    .enum(CATALOGUE_SORTS, { error: `sort must be one of: ${CATALOGUE_SORTS.join(", ")}` })
-    .optional(),
+  q: z.string().trim().max(QUERY_MAX_LENGTH, `q (the search text) must be at most ${QUERY_MAX_LENGTH} characters`).optional(),
+  kind: z.enum(BOARD_KINDS, { error: `kind must be one of: ${BOARD_KINDS.join(", ")}` }).optional(),
+  mounting: z.string().trim().toLowerCase().regex(MOUNTING_PATTERN_RE, "mounting must be hole spacing in millimetres, like 20x20 or 30.5x30.5").optional(),
+  sort: z.enum(CATALOGUE_SORTS, { error: `sort must be one of: ${CATALOGUE_SORTS.join(", ")}` }).optional(),
   page: positiveInt("page", MAX_PAGE).optional(),
   pageSize: positiveInt("pageSize", MAX_PAGE_SIZE).optional(),
 });
@@ -70,9 +51,7 @@ export type CatalogueParams = {
   pageSize: number;
 };
 
-export type CatalogueParamsResult =
-  | { ok: true; params: CatalogueParams }
-  | { ok: false; fieldErrors: Record<string, string[]> };
+export type CatalogueParamsResult = { ok: true; params: CatalogueParams } | { ok: false; fieldErrors: Record<string, string[]> };
 
 const KNOWN_FIELDS = Object.keys(CatalogueParamsSchema.shape) as (keyof typeof CatalogueParamsSchema.shape)[];
 

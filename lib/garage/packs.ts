@@ -49,7 +49,14 @@ function view(pack: Pack, charges: PackCharge[]): PackView {
   };
 }
 
-const chargesOf = (packId: number) => PackCharge.findAll({ where: { packId }, order: [["chargedOn", "ASC"], ["id", "ASC"]] });
+const chargesOf = (packId: number) =>
+  PackCharge.findAll({
+    where: { packId },
+    order: [
+      ["chargedOn", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
 
 async function ownPack(ownerId: string, id: number): Promise<Pack> {
   db();
@@ -60,7 +67,13 @@ async function ownPack(ownerId: string, id: number): Promise<Pack> {
 
 export async function listPacks(ownerId: string): Promise<PackView[]> {
   db();
-  const packs = await Pack.findAll({ where: { ownerId }, order: [["createdAt", "DESC"], ["id", "DESC"]] });
+  const packs = await Pack.findAll({
+    where: { ownerId },
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "DESC"],
+    ],
+  });
   return Promise.all(packs.map(async (p) => view(p, await chargesOf(p.id))));
 }
 

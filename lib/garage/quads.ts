@@ -28,7 +28,15 @@ const view = (q: Quad): QuadView => ({
 
 export async function listQuads(ownerId: string): Promise<QuadView[]> {
   db();
-  return (await Quad.findAll({ where: { ownerId }, order: [["createdAt", "DESC"], ["id", "DESC"]] })).map(view);
+  return (
+    await Quad.findAll({
+      where: { ownerId },
+      order: [
+        ["createdAt", "DESC"],
+        ["id", "DESC"],
+      ],
+    })
+  ).map(view);
 }
 
 async function ownQuad(ownerId: string, id: number): Promise<Quad> {

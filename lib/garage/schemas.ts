@@ -6,7 +6,11 @@ import { cellsField, mahField, numberField } from "@/lib/calibration/fields";
 // match the CHECKs of migrations/20261209000100…300; messages name the field in plain words.
 
 const text = (label: string, max: number) =>
-  z.string({ error: `Enter ${label}` }).trim().min(1, `Enter ${label}`).max(max, `Keep ${label} to ${max} characters`);
+  z
+    .string({ error: `Enter ${label}` })
+    .trim()
+    .min(1, `Enter ${label}`)
+    .max(max, `Keep ${label} to ${max} characters`);
 const optionalText = (label: string, max: number) =>
   z
     .string({ error: `${label} must be text` })
@@ -15,9 +19,16 @@ const optionalText = (label: string, max: number) =>
     .nullish()
     .transform((v) => (v ? v : null));
 const optionalId = (label: string) =>
-  z.number({ error: `${label} must be chosen from the list` }).int().positive(`${label} must be chosen from the list`).nullish().transform((v) => v ?? null);
+  z
+    .number({ error: `${label} must be chosen from the list` })
+    .int()
+    .positive(`${label} must be chosen from the list`)
+    .nullish()
+    .transform((v) => v ?? null);
 const isoDate = (label: string) =>
-  z.iso.date({ error: `${label} must be a date like 2026-11-30` }).refine((d) => d <= new Date().toISOString().slice(0, 10), `${label} cannot be in the future`);
+  z.iso
+    .date({ error: `${label} must be a date like 2026-11-30` })
+    .refine((d) => d <= new Date().toISOString().slice(0, 10), `${label} cannot be in the future`);
 
 export const quadInput = z.object({
   name: text("the quad's name", 80),
@@ -34,7 +45,9 @@ export const packInput = z.object({
   chemistry: z.enum(CHEMISTRIES, { error: `Choose the pack chemistry: ${CHEMISTRIES.map((c) => CHEMISTRY_LIMITS[c].label).join(", ")}` }),
   cells: cellsField(),
   ratedMah: mahField("The pack's rated mAh").int("The rated mAh is a whole number, as printed on the label"),
-  purchasedOn: isoDate("The purchase date").nullish().transform((v) => v ?? null),
+  purchasedOn: isoDate("The purchase date")
+    .nullish()
+    .transform((v) => v ?? null),
 });
 export type PackInput = z.input<typeof packInput>;
 
@@ -45,8 +58,14 @@ export const chargeInput = z.object({
   chargedOn: isoDate("The charge date"),
   chargedMah: mahField("The charged mAh"),
   restingVoltsPerCell: numberField("The resting voltage per cell")
-    .min(RESTING_VOLTS.min, `A resting cell reads ${RESTING_VOLTS.min}–${RESTING_VOLTS.max} V; below that the reading or the pack is bad — check the probe and stop using a pack that reads this low`)
-    .max(RESTING_VOLTS.max, `A resting cell reads ${RESTING_VOLTS.min}–${RESTING_VOLTS.max} V; did you enter the whole pack's voltage? Divide it by the cell count`)
+    .min(
+      RESTING_VOLTS.min,
+      `A resting cell reads ${RESTING_VOLTS.min}–${RESTING_VOLTS.max} V; below that the reading or the pack is bad — check the probe and stop using a pack that reads this low`,
+    )
+    .max(
+      RESTING_VOLTS.max,
+      `A resting cell reads ${RESTING_VOLTS.min}–${RESTING_VOLTS.max} V; did you enter the whole pack's voltage? Divide it by the cell count`,
+    )
     .nullish()
     .transform((v) => v ?? null),
   afterFullFlight: z.boolean({ error: "Say whether the flight before this charge went to the landing voltage" }).default(true),

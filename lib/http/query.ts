@@ -40,4 +40,3 @@ export function parseQuery<S extends z.ZodObject>(schema: S, input: Record<strin
   if (!parsed.success || Object.keys(fieldErrors).length > 0) return { ok: false, fieldErrors };
   return { ok: true, params: parsed.data };
 }
-

@@ -45,11 +45,7 @@ export const MAX_JSON_BODY_BYTES = 256 * 1024;
 
 type UserOf<A extends Auth> = A extends "public" ? null : A extends "optional" ? SessionUser | null : SessionUser;
 type ParamsOf<S extends RouteSpec> = S["params"] extends z.ZodType ? z.output<S["params"]> : undefined;
-type QueryOf<S extends RouteSpec> = S["query"] extends z.ZodObject
-  ? z.output<S["query"]>
-  : S["query"] extends (record: never) => infer T
-    ? T
-    : undefined;
+type QueryOf<S extends RouteSpec> = S["query"] extends z.ZodObject ? z.output<S["query"]> : S["query"] extends (record: never) => infer T ? T : undefined;
 type BodyOf<S extends RouteSpec> = S["body"] extends z.ZodType ? z.output<S["body"]> : S["body"] extends "json" ? unknown : undefined;
 
 export type RouteInput<S extends RouteSpec> = {

@@ -4,8 +4,7 @@
 
 export type MailContent = { subject: string; text: string; html: string };
 
-const escape = (s: string) =>
-  s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
+const escape = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
 
 function layout(opts: { heading: string; paragraphs: string[]; action?: { label: string; url: string }; footer: string }): string {
   const body = opts.paragraphs.map((p) => `<p style="margin:0 0 14px">${escape(p)}</p>`).join("");

@@ -61,11 +61,13 @@ function plan(decision: Decision, body: unknown): DecisionPlan {
 export async function decide(actor: Actor, submissionId: number, decision: Decision, body: unknown): Promise<DecisionResult> {
   const p = plan(decision, body);
   const sequelize = db();
-  const result = await sequelize.transaction((transaction) =>
-    applyTransition({ ...p, submissionId, allowedFrom: UNDECIDED, actorId: actor.id }, transaction),
-  );
+  const result = await sequelize.transaction((transaction) => applyTransition({ ...p, submissionId, allowedFrom: UNDECIDED, actorId: actor.id }, transaction));
   const event = (await getAuditEvent(result.eventId))!;
-  return { submission: { id: submissionId, status: result.after.status, version: result.after.version, moderatorNote: result.after.moderatorNote }, event, changed: result.changed };
+  return {
+    submission: { id: submissionId, status: result.after.status, version: result.after.version, moderatorNote: result.after.moderatorNote },
+    event,
+    changed: result.changed,
+  };
 }
 
 export const approveSubmission = (actor: Actor, id: number, body: { version: number; note?: string | null }) => decide(actor, id, "approve", body);
@@ -111,7 +113,11 @@ export async function bulkApprove(actor: Actor, body: unknown): Promise<BulkResu
               const scored = await scoredSubmission(row.id, t);
               const raised = scored ? flagsOfRow(scored).raised : [];
               if (raised.length > 0) {
-                throw new ModerationRefusal(409, "flagged", `Submission ${row.id} is flagged (${raised.map((f) => QUEUE_FLAG_LABELS[f].toLowerCase()).join(", ")}): review it on its own.`);
+                throw new ModerationRefusal(
+                  409,
+                  "flagged",
+                  `Submission ${row.id} is flagged (${raised.map((f) => QUEUE_FLAG_LABELS[f].toLowerCase()).join(", ")}): review it on its own.`,
+                );
               }
             },
           },

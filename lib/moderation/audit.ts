@@ -115,7 +115,12 @@ export async function getAuditEvent(id: number, transaction?: Transaction): Prom
 export const AUDIT_MAX_PAGE_SIZE = 100;
 
 export const AuditQuerySchema = z.object({
-  page: z.coerce.number({ error: "page is a whole number from 1" }).int("page is a whole number from 1").min(1, "page is a whole number from 1").max(10_000, "page is at most 10000").default(1),
+  page: z.coerce
+    .number({ error: "page is a whole number from 1" })
+    .int("page is a whole number from 1")
+    .min(1, "page is a whole number from 1")
+    .max(10_000, "page is at most 10000")
+    .default(1),
   pageSize: z.coerce
     .number({ error: `pageSize is a whole number from 1 to ${AUDIT_MAX_PAGE_SIZE}` })
     .int(`pageSize is a whole number from 1 to ${AUDIT_MAX_PAGE_SIZE}`)
@@ -123,7 +128,12 @@ export const AuditQuerySchema = z.object({
     .max(AUDIT_MAX_PAGE_SIZE, `pageSize is a whole number from 1 to ${AUDIT_MAX_PAGE_SIZE}`)
     .default(50),
   action: z.enum(AUDIT_ACTIONS, { error: `action is one of: ${AUDIT_ACTIONS.join(", ")}` }).optional(),
-  submission: z.coerce.number({ error: "submission is a submission id" }).int("submission is a submission id").min(1, "submission is a submission id").max(2_147_483_647, "submission is a submission id").optional(),
+  submission: z.coerce
+    .number({ error: "submission is a submission id" })
+    .int("submission is a submission id")
+    .min(1, "submission is a submission id")
+    .max(2_147_483_647, "submission is a submission id")
+    .optional(),
   user: z.uuid("user is a user id (a UUID)").optional(),
 });
 export type AuditQuery = z.output<typeof AuditQuerySchema>;
@@ -160,7 +170,10 @@ export async function listAuditEvents(query: Partial<AuditQuery> = {}): Promise<
   const whereSql = where.length ? `WHERE ${where.join(" AND ")}` : "";
   const sequelize = db();
   const [rows, [{ total }]] = await Promise.all([
-    sequelize.query<EventRow>(`${EVENT_SELECT} ${whereSql} ORDER BY e.at DESC, e.id DESC LIMIT :limit OFFSET :offset`, { replacements, type: QueryTypes.SELECT }),
+    sequelize.query<EventRow>(`${EVENT_SELECT} ${whereSql} ORDER BY e.at DESC, e.id DESC LIMIT :limit OFFSET :offset`, {
+      replacements,
+      type: QueryTypes.SELECT,
+    }),
     sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM audit_events e ${whereSql}`, { replacements, type: QueryTypes.SELECT }),
   ]);
   return { events: rows.map(toView), page: q.page, pageSize: q.pageSize, total, pageCount: Math.max(1, Math.ceil(total / q.pageSize)) };

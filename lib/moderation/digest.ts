@@ -35,13 +35,16 @@ export async function sendModeratorDigest(): Promise<DigestResult> {
   const sequelize = db();
   const counts = await digestCounts();
   if (counts.all === 0) return { counts, recipients: [] };
-  const staff = await sequelize.query<{ email: string; name: string }>(
-    "SELECT email, name FROM users WHERE role IN ('moderator', 'admin') ORDER BY email",
-    { type: QueryTypes.SELECT },
-  );
+  const staff = await sequelize.query<{ email: string; name: string }>("SELECT email, name FROM users WHERE role IN ('moderator', 'admin') ORDER BY email", {
+    type: QueryTypes.SELECT,
+  });
   await sequelize.transaction(async (transaction) => {
     for (const person of staff) {
-      await enqueue("mail.send", digestMail({ to: person.email, name: person.name, counts, flagged: counts.flagged, oldestPendingAt: counts.oldestPendingAt }), { transaction });
+      await enqueue(
+        "mail.send",
+        digestMail({ to: person.email, name: person.name, counts, flagged: counts.flagged, oldestPendingAt: counts.oldestPendingAt }),
+        { transaction },
+      );
     }
   });
   return { counts, recipients: staff.map((s) => s.email) };

@@ -4,7 +4,17 @@ import { badRequest } from "@/lib/http/errors";
 import { parseQuery } from "@/lib/http/query";
 import type { QuantityKey } from "@/lib/published/board-values-types";
 import { db } from "@/models";
-import { type Method, QUEUE_AGES, QUEUE_DEFAULT_PAGE_SIZE, QUEUE_FLAGS, QUEUE_MAX_PAGE_SIZE, QUEUE_SORTS, type QueueAge, type QueueFlag, type QueueSort } from "@/lib/vocabulary";
+import {
+  type Method,
+  QUEUE_AGES,
+  QUEUE_DEFAULT_PAGE_SIZE,
+  QUEUE_FLAGS,
+  QUEUE_MAX_PAGE_SIZE,
+  QUEUE_SORTS,
+  type QueueAge,
+  type QueueFlag,
+  type QueueSort,
+} from "@/lib/vocabulary";
 import { FLAG_CONDITIONS, flaggedSql, flagsOfRow, type ScoredRow, type SubmissionFlags } from "./flags";
 
 // The review queue: pending submissions, filtered, ordered and paged in PostgreSQL (flags.ts
@@ -19,7 +29,12 @@ const MAX_PAGE = 10_000;
 
 /** The query string's parameters; field-level messages for anything that is not one of them. */
 export const QueueParamsSchema = z.object({
-  page: z.coerce.number({ error: "page is a whole number from 1" }).int("page is a whole number from 1").min(1, "page is a whole number from 1").max(MAX_PAGE, `page is at most ${MAX_PAGE}`).default(1),
+  page: z.coerce
+    .number({ error: "page is a whole number from 1" })
+    .int("page is a whole number from 1")
+    .min(1, "page is a whole number from 1")
+    .max(MAX_PAGE, `page is at most ${MAX_PAGE}`)
+    .default(1),
   pageSize: z.coerce
     .number({ error: `pageSize is a whole number from 1 to ${QUEUE_MAX_PAGE_SIZE}` })
     .int(`pageSize is a whole number from 1 to ${QUEUE_MAX_PAGE_SIZE}`)
@@ -27,9 +42,21 @@ export const QueueParamsSchema = z.object({
     .max(QUEUE_MAX_PAGE_SIZE, `pageSize is a whole number from 1 to ${QUEUE_MAX_PAGE_SIZE}`)
     .default(QUEUE_DEFAULT_PAGE_SIZE),
   sort: z.enum(QUEUE_SORTS, { error: `sort is one of: ${QUEUE_SORTS.join(", ")}` }).default("severity"),
-  board: z.string().trim().max(120, "board is a board's slug (at most 120 characters)").regex(/^[a-z0-9-]+$/, "board is a board's slug, like example-f7").nullable().default(null),
-  flag: z.enum(QUEUE_FLAGS, { error: `flag is one of: ${QUEUE_FLAGS.join(", ")}` }).nullable().default(null),
-  age: z.enum(QUEUE_AGES, { error: `age is one of: ${QUEUE_AGES.join(", ")}` }).nullable().default(null),
+  board: z
+    .string()
+    .trim()
+    .max(120, "board is a board's slug (at most 120 characters)")
+    .regex(/^[a-z0-9-]+$/, "board is a board's slug, like example-f7")
+    .nullable()
+    .default(null),
+  flag: z
+    .enum(QUEUE_FLAGS, { error: `flag is one of: ${QUEUE_FLAGS.join(", ")}` })
+    .nullable()
+    .default(null),
+  age: z
+    .enum(QUEUE_AGES, { error: `age is one of: ${QUEUE_AGES.join(", ")}` })
+    .nullable()
+    .default(null),
 });
 
 /** Query-string parameters (as lib/http/query's queryRecord gives them) to QueueParams, or ApiError 400 naming each bad one. */
@@ -121,7 +148,10 @@ export async function listQueue(input: Partial<QueueParams> = {}): Promise<Queue
   if (params.age) common.push(AGE_CONDITIONS[params.age]);
   const ageOnly = common.length ? common.join(" AND ") : "TRUE";
   if (params.board) {
-    const [board] = await sequelize.query<{ id: number }>("SELECT id FROM board_models WHERE slug = :slug", { replacements: { slug: params.board }, type: QueryTypes.SELECT });
+    const [board] = await sequelize.query<{ id: number }>("SELECT id FROM board_models WHERE slug = :slug", {
+      replacements: { slug: params.board },
+      type: QueryTypes.SELECT,
+    });
     if (!board) throw badRequest({ board: [`No board has the slug "${params.board}".`] });
     common.push("bm.id = :boardId");
     replacements.boardId = board.id;

@@ -16,7 +16,8 @@ import type { Actor, DecisionResult } from "./actions";
 // overwrites a later decision; undo the later one first. An event is reverted at most once
 // (UNIQUE reverts_event_id); to redo, revert the revert.
 
-const missingEvent = (id: number) => new ModerationRefusal(404, "not_found", `There is no audit event with id ${id}.`, { id: [`There is no audit event with id ${id}.`] });
+const missingEvent = (id: number) =>
+  new ModerationRefusal(404, "not_found", `There is no audit event with id ${id}.`, { id: [`There is no audit event with id ${id}.`] });
 
 function submissionState(value: Record<string, unknown>): SubmissionState | null {
   const { status, moderatorNote, version } = value as Partial<SubmissionState>;
@@ -32,14 +33,19 @@ export async function revertEvent(actor: Actor, eventId: number, body: unknown):
   const event = await getAuditEvent(eventId);
   if (!event) throw missingEvent(eventId);
   if (event.entity.type !== "submission") {
-    throw new ModerationRefusal(409, "not_revertable", "Only decisions on submissions can be reverted; change a user's role or trust back with another change.");
+    throw new ModerationRefusal(
+      409,
+      "not_revertable",
+      "Only decisions on submissions can be reverted; change a user's role or trust back with another change.",
+    );
   }
   if (event.revertedByEventId !== null) {
     throw new ModerationRefusal(409, "already_reverted", `This action was already reverted by event ${event.revertedByEventId}; revert that one to redo it.`);
   }
   const before = submissionState(event.before);
   const after = submissionState(event.after);
-  if (!before || !after) throw new ModerationRefusal(409, "not_revertable", "This event does not record a submission's status, so there is nothing to restore.");
+  if (!before || !after)
+    throw new ModerationRefusal(409, "not_revertable", "This event does not record a submission's status, so there is nothing to restore.");
 
   const submissionId = event.entity.id;
   const sequelize = db();
@@ -74,5 +80,9 @@ export async function revertEvent(actor: Actor, eventId: number, body: unknown):
     throw error;
   }
   const view = (await getAuditEvent(result.eventId))!;
-  return { submission: { id: submissionId, status: result.after.status, version: result.after.version, moderatorNote: result.after.moderatorNote }, event: view, changed: result.changed };
+  return {
+    submission: { id: submissionId, status: result.after.status, version: result.after.version, moderatorNote: result.after.moderatorNote },
+    event: view,
+    changed: result.changed,
+  };
 }

@@ -54,7 +54,16 @@ export type QuantityReview = {
   moves: { median: number | null; ciLow: number | null; ciHigh: number | null; recommendedValue: number | null; n: number } | null;
 };
 
-export type ReviewPhoto = { id: string; url: string; contentType: string; width: number; height: number; byteSize: number; createdAt: string; removedAt: string | null };
+export type ReviewPhoto = {
+  id: string;
+  url: string;
+  contentType: string;
+  width: number;
+  height: number;
+  byteSize: number;
+  createdAt: string;
+  removedAt: string | null;
+};
 
 export type OtherSubmission = {
   id: number;

@@ -11,11 +11,7 @@ const version = z
 
 /** A text a person reads later (the contributor, or an admin reading the log): trimmed, 1–4000 characters. */
 const text = (what: string, missing: string) =>
-  z
-    .string({ error: missing })
-    .trim()
-    .min(1, missing)
-    .max(NOTE_MAX_LENGTH, `${what} is at most ${NOTE_MAX_LENGTH} characters`);
+  z.string({ error: missing }).trim().min(1, missing).max(NOTE_MAX_LENGTH, `${what} is at most ${NOTE_MAX_LENGTH} characters`);
 
 export const ApproveBodySchema = z.object({
   version,
@@ -38,7 +34,11 @@ export const BulkApproveBodySchema = z
     items: z
       .array(
         z.object({
-          id: z.number({ error: "id is a submission id" }).int("id is a submission id").min(1, "id is a submission id").max(2_147_483_647, "id is a submission id"),
+          id: z
+            .number({ error: "id is a submission id" })
+            .int("id is a submission id")
+            .min(1, "id is a submission id")
+            .max(2_147_483_647, "id is a submission id"),
           version,
         }),
         { error: "Send items: a list of { id, version } from the queue" },

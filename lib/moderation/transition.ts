@@ -38,12 +38,18 @@ export class ModerationRefusal extends ApiError {
   }
 }
 
-export const missingSubmission = (id: number) => new ModerationRefusal(404, "not_found", `There is no submission with id ${id}.`, { id: [`There is no submission with id ${id}.`] });
+export const missingSubmission = (id: number) =>
+  new ModerationRefusal(404, "not_found", `There is no submission with id ${id}.`, { id: [`There is no submission with id ${id}.`] });
 
 export const staleVersion = (sent: number, current: number) =>
-  new ModerationRefusal(409, "conflict", `${CONFLICT_MESSAGE}: this submission is now at version ${current} (you saw version ${sent}). Reload it to see what changed.`, {
-    version: [`stale: the current version is ${current}`],
-  });
+  new ModerationRefusal(
+    409,
+    "conflict",
+    `${CONFLICT_MESSAGE}: this submission is now at version ${current} (you saw version ${sent}). Reload it to see what changed.`,
+    {
+      version: [`stale: the current version is ${current}`],
+    },
+  );
 
 export type LockedSubmission = SubmissionState & {
   id: number;
@@ -131,7 +137,16 @@ export async function applyTransition(input: TransitionInput, transaction: Trans
   const after: SubmissionState = { status: input.to.status, moderatorNote: input.to.moderatorNote, version: updated.version };
 
   const event = await writeAuditEvent(
-    { entityType: "submission", submissionId: row.id, actorId: input.actorId, action: input.action, reason: input.reason, revertsEventId: input.revertsEventId, before, after },
+    {
+      entityType: "submission",
+      submissionId: row.id,
+      actorId: input.actorId,
+      action: input.action,
+      reason: input.reason,
+      revertsEventId: input.revertsEventId,
+      before,
+      after,
+    },
     transaction,
   );
 
@@ -163,4 +178,3 @@ async function queueRevertMail(submissionId: number, previous: SubmissionStatus,
     { transaction },
   );
 }
-

@@ -69,7 +69,12 @@ export async function getUserSummary(id: string): Promise<UserSummary | null> {
 export const USERS_PAGE_SIZE = 50;
 
 export const UsersQuerySchema = z.object({
-  page: z.coerce.number({ error: "page is a whole number from 1" }).int("page is a whole number from 1").min(1, "page is a whole number from 1").max(10_000, "page is at most 10000").default(1),
+  page: z.coerce
+    .number({ error: "page is a whole number from 1" })
+    .int("page is a whole number from 1")
+    .min(1, "page is a whole number from 1")
+    .max(10_000, "page is at most 10000")
+    .default(1),
   role: z.enum(ROLE_CHOICES, { error: `role is one of: ${ROLE_CHOICES.join(", ")}` }).optional(),
 });
 export type UsersQuery = z.output<typeof UsersQuerySchema>;
@@ -96,7 +101,13 @@ export async function listUsers(query: Partial<UsersQuery> = {}): Promise<UsersP
     sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM users u ${where}`, { replacements, type: QueryTypes.SELECT }),
   ]);
   const threshold = trustThreshold();
-  return { users: rows.map((r) => toSummary(r, threshold)), page: q.page, pageSize: USERS_PAGE_SIZE, total, pageCount: Math.max(1, Math.ceil(total / USERS_PAGE_SIZE)) };
+  return {
+    users: rows.map((r) => toSummary(r, threshold)),
+    page: q.page,
+    pageSize: USERS_PAGE_SIZE,
+    total,
+    pageCount: Math.max(1, Math.ceil(total / USERS_PAGE_SIZE)),
+  };
 }
 
 export type UserUpdateResult = { user: UserSummary; event: AuditEventView | null };
@@ -145,7 +156,10 @@ export async function updateUser(actor: Actor, userId: string, body: unknown): P
       replacements: { id: userId, role: after.role ?? current.role, trusted: "trusted" in after ? after.trusted : current.trusted },
       transaction,
     });
-    const event = await writeAuditEvent({ entityType: "user", targetUserId: userId, actorId: actor.id, action: "user_update", reason: change.reason ?? null, before, after }, transaction);
+    const event = await writeAuditEvent(
+      { entityType: "user", targetUserId: userId, actorId: actor.id, action: "user_update", reason: change.reason ?? null, before, after },
+      transaction,
+    );
     return event.id;
   });
   const user = (await getUserSummary(userId))!;

@@ -33,7 +33,10 @@ const CATALOGUE_PARAM_DOCS: Record<keyof typeof CatalogueParamsSchema.shape, str
 
 const documentedCatalogueParams = CatalogueParamsSchema.extend(
   Object.fromEntries(
-    Object.entries(CatalogueParamsSchema.shape).map(([name, field]) => [name, field.meta({ description: CATALOGUE_PARAM_DOCS[name as keyof typeof CATALOGUE_PARAM_DOCS] })]),
+    Object.entries(CatalogueParamsSchema.shape).map(([name, field]) => [
+      name,
+      field.meta({ description: CATALOGUE_PARAM_DOCS[name as keyof typeof CATALOGUE_PARAM_DOCS] }),
+    ]),
   ) as typeof CatalogueParamsSchema.shape,
 );
 
@@ -56,11 +59,17 @@ const unavailable = { 500: error("Unexpected server error (logged)."), 503: erro
 const signedIn = {
   401: error("Not signed in: send the session cookie the site sets at sign-in."),
 };
-const submissionIdParam = z.object({ id: z.string().regex(/^[1-9][0-9]*$/).meta({ description: "The submission's id.", example: "42" }) });
+const submissionIdParam = z.object({
+  id: z
+    .string()
+    .regex(/^[1-9][0-9]*$/)
+    .meta({ description: "The submission's id.", example: "42" }),
+});
 const privateHeaders = z.object({ "Cache-Control": z.string().meta({ example: "private, no-store" }) });
 const submissionBody = submissionSchema().meta({
   id: "SubmissionInput",
-  description: "A contribution: the board revision and family (by id, as in the values response), the values in steps of the family's unit, how they were measured, and the evidence that method needs. The same schema checks the site's form.",
+  description:
+    "A contribution: the board revision and family (by id, as in the values response), the values in steps of the family's unit, how they were measured, and the evidence that method needs. The same schema checks the site's form.",
 });
 
 const notModified = { description: "Not modified: the ETag sent in If-None-Match is still current. No body.", headers: readHeaders };
@@ -73,7 +82,8 @@ function buildDocument(): OpenAPIObject {
     path: "/boards",
     operationId: "listBoards",
     summary: "Search and list boards",
-    description: "The catalogue, one page at a time. The same parameters as the /boards page; unknown parameters are ignored, and an empty value counts as absent.",
+    description:
+      "The catalogue, one page at a time. The same parameters as the /boards page; unknown parameters are ignored, and an empty value counts as absent.",
     request: { query: documentedCatalogueParams, headers: conditional },
     responses: {
       200: { description: "One page of boards.", headers: readHeaders, content: json(BoardListResponseSchema) },
@@ -158,7 +168,11 @@ function buildDocument(): OpenAPIObject {
     operationId: "listOwnSubmissions",
     summary: "The caller's own submissions, newest first",
     security: session,
-    responses: { 200: { description: "The caller's submissions.", headers: privateHeaders, content: json(SubmissionListResponseSchema) }, ...signedIn, ...unavailable },
+    responses: {
+      200: { description: "The caller's submissions.", headers: privateHeaders, content: json(SubmissionListResponseSchema) },
+      ...signedIn,
+      ...unavailable,
+    },
   });
 
   registry.registerPath({
@@ -181,7 +195,8 @@ function buildDocument(): OpenAPIObject {
     path: "/submissions/{id}",
     operationId: "editOwnSubmission",
     summary: "Edit a submission that waits for moderation",
-    description: "The whole submission again, plus the version it was edited from. Allowed while it is pending or sent back for changes; an edit of a submission sent back for changes returns it to the queue.",
+    description:
+      "The whole submission again, plus the version it was edited from. Allowed while it is pending or sent back for changes; an edit of a submission sent back for changes returns it to the queue.",
     security: session,
     request: { params: submissionIdParam, body: { required: true, content: json(z.intersection(VersionSchema, submissionBody)) } },
     responses: {

@@ -16,18 +16,23 @@ function nodeBin(root: string, relative: string): string {
   return path.join(root, "node_modules", relative);
 }
 
-export async function startMailCatcher(
-  root: string,
-  opts: { smtpPort: number; webPort: number; mailDir: string; lifecycle: Lifecycle },
-): Promise<MailCatcher> {
+export async function startMailCatcher(root: string, opts: { smtpPort: number; webPort: number; mailDir: string; lifecycle: Lifecycle }): Promise<MailCatcher> {
   mkdirSync(opts.mailDir, { recursive: true });
   const child = spawnGroup(
     process.execPath,
     [
       nodeBin(root, "maildev/dist/bin/maildev.js"),
-      "--ip", "127.0.0.1", "--web-ip", "127.0.0.1",
-      "--smtp", String(opts.smtpPort), "--web", String(opts.webPort),
-      "--mail-directory", opts.mailDir, "--silent",
+      "--ip",
+      "127.0.0.1",
+      "--web-ip",
+      "127.0.0.1",
+      "--smtp",
+      String(opts.smtpPort),
+      "--web",
+      String(opts.webPort),
+      "--mail-directory",
+      opts.mailDir,
+      "--silent",
     ],
     // maildev warns that some of its dependencies prefer Node 22; it works on 20, where our tests run it
     { cwd: root, stdio: ["ignore", "ignore", "ignore"] },
@@ -39,17 +44,21 @@ export async function startMailCatcher(
   return { smtpUrl: `smtp://127.0.0.1:${opts.smtpPort}`, inboxUrl };
 }
 
-export async function startObjectStore(
-  root: string,
-  opts: { port: number; dataDir: string; bucket: string; lifecycle: Lifecycle },
-): Promise<ObjectStore> {
+export async function startObjectStore(root: string, opts: { port: number; dataDir: string; bucket: string; lifecycle: Lifecycle }): Promise<ObjectStore> {
   mkdirSync(opts.dataDir, { recursive: true });
   const child = spawnGroup(
     process.execPath,
     [
       nodeBin(root, "s3rver/bin/s3rver.js"),
-      "--address", "127.0.0.1", "--port", String(opts.port), "--directory", opts.dataDir,
-      "--configure-bucket", opts.bucket, "--silent",
+      "--address",
+      "127.0.0.1",
+      "--port",
+      String(opts.port),
+      "--directory",
+      opts.dataDir,
+      "--configure-bucket",
+      opts.bucket,
+      "--silent",
     ],
     { cwd: root, stdio: ["ignore", "ignore", "inherit"] },
   );
@@ -80,7 +89,10 @@ export async function startFakes(
   const out: Record<string, string> = {};
   if (!opts.env.SMTP_URL) {
     const mail = await startMailCatcher(root, {
-      smtpPort: opts.smtpPort, webPort: opts.webPort, mailDir: path.join(opts.stateDir, "mail"), lifecycle,
+      smtpPort: opts.smtpPort,
+      webPort: opts.webPort,
+      mailDir: path.join(opts.stateDir, "mail"),
+      lifecycle,
     });
     out.SMTP_URL = mail.smtpUrl;
     out.MAIL_INBOX_URL = mail.inboxUrl;

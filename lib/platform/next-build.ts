@@ -5,7 +5,19 @@ import { env } from "@/lib/env";
 import { log } from "./log";
 
 // What a production build depends on; a newer file in any of these means the build is stale.
-const BUILD_INPUTS = ["app", "components", "lib", "models", "public", "proxy.ts", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json", "package-lock.json"];
+const BUILD_INPUTS = [
+  "app",
+  "components",
+  "lib",
+  "models",
+  "public",
+  "proxy.ts",
+  "next.config.mjs",
+  "tailwind.config.ts",
+  "postcss.config.mjs",
+  "tsconfig.json",
+  "package-lock.json",
+];
 
 function newestMtime(target: string): number {
   if (!existsSync(target)) return 0;

@@ -57,9 +57,7 @@ export function initCluster(cluster: Cluster): void {
   log(`creating a PostgreSQL cluster in ${cluster.dataDir}`);
   ownDirectory(cluster.dataDir);
   // trust on loopback only: the server listens on 127.0.0.1 and a socket inside the project.
-  const r = asServiceUser(cluster.binDir, "initdb", [
-    "-D", cluster.dataDir, "-U", CLUSTER_SUPERUSER, "--auth=trust", "--encoding=UTF8", "--locale=C.UTF-8",
-  ]);
+  const r = asServiceUser(cluster.binDir, "initdb", ["-D", cluster.dataDir, "-U", CLUSTER_SUPERUSER, "--auth=trust", "--encoding=UTF8", "--locale=C.UTF-8"]);
   if (r.status !== 0) throw new Error(`initdb failed:\n${r.output}`);
 }
 

@@ -99,7 +99,9 @@ const scaleUnits = <U extends readonly [string, ...string[]]>(units: U) =>
   z.object({
     unit: z.enum(units),
     step: z.number().meta({ description: "What one setting step is worth in unit." }),
-    response: z.enum(["proportional", "inverse"]).meta({ description: "Whether the displayed reading grows (proportional) or shrinks (inverse) as the setting grows." }),
+    response: z
+      .enum(["proportional", "inverse"])
+      .meta({ description: "Whether the displayed reading grows (proportional) or shrinks (inverse) as the setting grows." }),
     min: z.number().meta({ description: "Smallest setting the firmware accepts, in steps." }),
     max: z.number(),
   });

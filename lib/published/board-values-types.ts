@@ -47,7 +47,10 @@ export type QuantityValues = {
 };
 
 /** API names of the three settings, in the order they are shown. */
-export const QUANTITY_KEYS = { voltage_scale: "voltageScale", current_scale: "currentScale", current_offset: "currentOffset" } as const satisfies Record<Quantity, string>;
+export const QUANTITY_KEYS = { voltage_scale: "voltageScale", current_scale: "currentScale", current_offset: "currentOffset" } as const satisfies Record<
+  Quantity,
+  string
+>;
 export type QuantityKey = (typeof QUANTITY_KEYS)[Quantity];
 
 /** One (revision, firmware family) group; a quantity nobody has calibrated yet is null. */

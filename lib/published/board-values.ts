@@ -89,9 +89,7 @@ function selectBoardValues(entry: CachedBoard, filter: BoardValuesFilter): Selec
     const shown = new Set(revisions.flatMap((r) => r.families.map((g) => g.family)));
     families = families.filter((f) => shown.has(f.slug));
   }
-  const lastChangeAt = revisions
-    .flatMap((r) => r.families.map((g) => g.lastChangeAt))
-    .reduce<string | null>((a, b) => (a === null || b > a ? b : a), null);
+  const lastChangeAt = revisions.flatMap((r) => r.families.map((g) => g.lastChangeAt)).reduce<string | null>((a, b) => (a === null || b > a ? b : a), null);
   return { ok: true, values: { ...values, families, revisions, lastChangeAt } };
 }
 
@@ -101,7 +99,10 @@ function selectBoardValues(entry: CachedBoard, filter: BoardValuesFilter): Selec
  * cached entry only the board's stamp is read, not the board (one index lookup); null for an
  * unknown board.
  */
-export async function boardValuesStamp(slug: string, { points = false }: { points?: boolean } = {}): Promise<{ stamp: string; snapshot: BoardValuesSnapshot | null } | null> {
+export async function boardValuesStamp(
+  slug: string,
+  { points = false }: { points?: boolean } = {},
+): Promise<{ stamp: string; snapshot: BoardValuesSnapshot | null } | null> {
   const found = await cachedStamp(slug, points);
   return found ? { stamp: found.stamp, snapshot: found.entry ? snapshotOf(found.entry) : null } : null;
 }

@@ -150,7 +150,12 @@ export async function getValueHistory(boardSlug: string): Promise<ValueHistory |
   for (const r of rows) {
     let last = series.at(-1);
     if (!last || last.revision.id !== r.revisionId || last.family.id !== r.familyId || last.quantity !== QUANTITY_KEYS[r.quantity]) {
-      last = { revision: { id: r.revisionId, label: r.revisionLabel }, family: { id: r.familyId, slug: r.familySlug, name: r.familyName }, quantity: QUANTITY_KEYS[r.quantity], points: [] };
+      last = {
+        revision: { id: r.revisionId, label: r.revisionLabel },
+        family: { id: r.familyId, slug: r.familySlug, name: r.familyName },
+        quantity: QUANTITY_KEYS[r.quantity],
+        points: [],
+      };
       series.push(last);
     }
     last.points.push({

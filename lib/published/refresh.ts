@@ -52,12 +52,28 @@ export async function computeAggregates(sequelize: Sequelize, groups: GroupKey[]
 }
 
 const COLUMNS = [
-  ["board_revision_id", "boardRevisionId"], ["firmware_family_id", "firmwareFamilyId"], ["quantity", "quantity"],
-  ["n", "n"], ["median", "median"], ["q1", "q1"], ["q3", "q3"], ["iqr", "iqr"], ["mad", "mad"],
-  ["scaled_mad", "scaledMad"], ["mean_abs_dev", "meanAbsDev"], ["ci_low", "ciLow"], ["ci_high", "ciHigh"],
-  ["ci_coverage", "ciCoverage"], ["ci_lower_rank", "ciLowerRank"], ["ci_upper_rank", "ciUpperRank"],
-  ["z_scale_rule", "zScaleRule"], ["outlier_count", "outlierCount"], ["tukey_count", "tukeyCount"],
-  ["method_counts", "methodCounts"], ["recommended_value", "recommendedValue"], ["confidence", "confidence"],
+  ["board_revision_id", "boardRevisionId"],
+  ["firmware_family_id", "firmwareFamilyId"],
+  ["quantity", "quantity"],
+  ["n", "n"],
+  ["median", "median"],
+  ["q1", "q1"],
+  ["q3", "q3"],
+  ["iqr", "iqr"],
+  ["mad", "mad"],
+  ["scaled_mad", "scaledMad"],
+  ["mean_abs_dev", "meanAbsDev"],
+  ["ci_low", "ciLow"],
+  ["ci_high", "ciHigh"],
+  ["ci_coverage", "ciCoverage"],
+  ["ci_lower_rank", "ciLowerRank"],
+  ["ci_upper_rank", "ciUpperRank"],
+  ["z_scale_rule", "zScaleRule"],
+  ["outlier_count", "outlierCount"],
+  ["tukey_count", "tukeyCount"],
+  ["method_counts", "methodCounts"],
+  ["recommended_value", "recommendedValue"],
+  ["confidence", "confidence"],
   ["last_value_at", "lastValueAt"],
 ] as const satisfies readonly (readonly [string, keyof PublishedStats])[];
 
@@ -105,8 +121,9 @@ async function bumpValuesVersion(sequelize: Sequelize, groups: GroupKey[] | null
 export async function refreshGroups(sequelize: Sequelize, groups: GroupKey[] | null, transaction?: Transaction): Promise<PublishedStats[]> {
   if (!transaction) return sequelize.transaction((t) => refreshGroups(sequelize, groups, t));
   if (groups) {
-    const unique = [...new Map(groups.map((g) => [`${g.boardRevisionId}:${g.firmwareFamilyId}`, g])).values()]
-      .sort((a, b) => a.boardRevisionId - b.boardRevisionId || a.firmwareFamilyId - b.firmwareFamilyId);
+    const unique = [...new Map(groups.map((g) => [`${g.boardRevisionId}:${g.firmwareFamilyId}`, g])).values()].sort(
+      (a, b) => a.boardRevisionId - b.boardRevisionId || a.firmwareFamilyId - b.firmwareFamilyId,
+    );
     if (unique.length === 0) return [];
     for (const g of unique) {
       await sequelize.query("SELECT pg_advisory_xact_lock(:r, :f)", { replacements: { r: g.boardRevisionId, f: g.firmwareFamilyId }, transaction });

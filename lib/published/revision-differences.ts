@@ -160,7 +160,17 @@ function comparePair(a: RevisionFacts, b: RevisionFacts, family: FamilyResponse)
         (hardware.length > 0 ? hardwareRatio(quantity, a, b) : null) ??
         (valuesDisagree ? valuesRatio(family[quantity].response, qa!.median, qb!.median) : null);
     }
-    out.push({ quantity, a: a.label, b: b.label, hardware, valuesDisagree, readingRatio, offsetShift, offsetUnit, published: { a: qa !== null, b: qb !== null } });
+    out.push({
+      quantity,
+      a: a.label,
+      b: b.label,
+      hardware,
+      valuesDisagree,
+      readingRatio,
+      offsetShift,
+      offsetUnit,
+      published: { a: qa !== null, b: qb !== null },
+    });
   }
   return out;
 }
@@ -223,7 +233,8 @@ export function describeDifference(d: RevisionDifference, viewing: string): stri
   const words = QUANTITY_WORDS[d.quantity];
   const reasons: string[] = [];
   if (d.hardware.length > 0) reasons.push(hardwareClause(d.hardware, mine, other));
-  if (d.valuesDisagree) reasons.push(d.hardware.length > 0 ? "the published values differ too" : "their published values differ by more than their spread allows");
+  if (d.valuesDisagree)
+    reasons.push(d.hardware.length > 0 ? "the published values differ too" : "their published values differ by more than their spread allows");
   const because = reasons.length > 0 ? ` (${reasons.join("; ")})` : "";
   const advice = d.published[mine]
     ? `use ${viewing}'s values for a ${viewing} board.`

@@ -34,12 +34,9 @@ export const CONFIDENCE_THRESHOLDS = {
 export const CONFIDENCE_EXPLANATIONS: Record<ConfidenceLabel, string> = {
   strong:
     "At least 10 values that agree closely (the 95 % range for the middle value is within 2 % of it), mostly measured against a clamp meter or checked over charge cycles.",
-  fair:
-    "Enough values for a 95 % range that lies within 5 % of the middle value, with reasonable evidence behind them. A good starting point; check it on your own board.",
-  weak:
-    "The values are few, spread widely, or mostly unchecked. Use the middle value only as a first guess and calibrate your own board.",
-  too_few:
-    "Fewer than 3 values so far, which is not enough to judge. Calibrate your own board, and consider sharing the result.",
+  fair: "Enough values for a 95 % range that lies within 5 % of the middle value, with reasonable evidence behind them. A good starting point; check it on your own board.",
+  weak: "The values are few, spread widely, or mostly unchecked. Use the middle value only as a first guess and calibrate your own board.",
+  too_few: "Fewer than 3 values so far, which is not enough to judge. Calibrate your own board, and consider sharing the result.",
 };
 
 /** Weighted share of evidence-backed methods, 0–1; null for no submissions. */

@@ -36,11 +36,7 @@ function roundTo(x: number, rounding: StepRounding): number {
  * decimal midpoint such as 11.35 / 0.1 into 113.49999999999999, and a person expects 114. Real
  * differences at the 12th digit are far below any setting step.
  */
-export function recommendValue(
-  median: number | null,
-  step: number,
-  rounding: StepRounding = "nearest",
-): RecommendedValue | null {
+export function recommendValue(median: number | null, step: number, rounding: StepRounding = "nearest"): RecommendedValue | null {
   checkFiniteNumber(step, "step");
   if (!(step > 0)) throw new StatsInputError("step", "must be greater than 0");
   if (!["nearest", "up", "down"].includes(rounding)) {

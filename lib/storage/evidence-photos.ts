@@ -61,8 +61,15 @@ export async function storeEvidencePhoto(uploaderId: string, bytes: Uint8Array):
   await putObject(objectKey, image.data, image.contentType);
   try {
     const photo = await EvidencePhoto.create({
-      id, uploaderId, submissionId: null, objectKey, contentType: image.contentType,
-      byteSize: image.byteSize, width: image.width, height: image.height, sha256: image.sha256,
+      id,
+      uploaderId,
+      submissionId: null,
+      objectKey,
+      contentType: image.contentType,
+      byteSize: image.byteSize,
+      width: image.width,
+      height: image.height,
+      sha256: image.sha256,
     });
     return summary(photo);
   } catch (error) {
@@ -157,13 +164,12 @@ export async function attachPhotosToSubmission(
   }
   const others = await EvidencePhoto.count({ where: { submissionId, id: { [Op.notIn]: ids } }, transaction });
   if (others + ids.length > MAX_PHOTOS_PER_SUBMISSION) {
-    throw badRequest({ [PHOTO_IDS_FIELD]: [`A submission can have at most ${MAX_PHOTOS_PER_SUBMISSION} photos; remove ${others + ids.length - MAX_PHOTOS_PER_SUBMISSION}.`] });
+    throw badRequest({
+      [PHOTO_IDS_FIELD]: [`A submission can have at most ${MAX_PHOTOS_PER_SUBMISSION} photos; remove ${others + ids.length - MAX_PHOTOS_PER_SUBMISSION}.`],
+    });
   }
   // the WHERE is the rule; a photo that another transaction attaches first no longer matches
-  await EvidencePhoto.update(
-    { submissionId },
-    { where: { id: { [Op.in]: ids }, uploaderId: userId, submissionId: null, deletedAt: null }, transaction },
-  );
+  await EvidencePhoto.update({ submissionId }, { where: { id: { [Op.in]: ids }, uploaderId: userId, submissionId: null, deletedAt: null }, transaction });
   const attached = await EvidencePhoto.findAll({ where: { id: { [Op.in]: ids }, uploaderId: userId, submissionId }, transaction });
   if (attached.length !== ids.length) {
     const missing = ids.length - attached.length;
@@ -179,6 +185,13 @@ export async function attachPhotosToSubmission(
 /** A submission's photos (not removed), oldest first, for its page and the review queue. */
 export async function listSubmissionPhotos(submissionId: number, transaction?: Transaction): Promise<PhotoSummary[]> {
   db();
-  const photos = await EvidencePhoto.findAll({ where: { submissionId }, order: [["createdAt", "ASC"], ["id", "ASC"]], transaction });
+  const photos = await EvidencePhoto.findAll({
+    where: { submissionId },
+    order: [
+      ["createdAt", "ASC"],
+      ["id", "ASC"],
+    ],
+    transaction,
+  });
   return photos.map(summary);
 }

@@ -58,7 +58,10 @@ export const SubmissionSchema = z
     bench: BenchSchema.nullable(),
     evidence: z.object({
       mismatch: z.boolean().meta({ description: "The evidence implies values further from the claimed ones than the stated tolerance." }),
-      summary: z.record(z.string(), z.unknown()).nullable().meta({ description: "What the server worked out from the evidence: the implied values and each check against the tolerance." }),
+      summary: z
+        .record(z.string(), z.unknown())
+        .nullable()
+        .meta({ description: "What the server worked out from the evidence: the implied values and each check against the tolerance." }),
     }),
     moderatorNote: z.string().nullable().meta({ description: "The moderator's reason or request, once there is one." }),
     links: z.object({ self: z.string(), edit: z.string().nullable(), list: z.string(), board: z.string() }),
@@ -66,7 +69,9 @@ export const SubmissionSchema = z
   .meta({ id: "Submission", description: "One contribution as its contributor sees it." });
 
 export const SubmissionResponseSchema = z.object({ submission: SubmissionSchema }).meta({ id: "SubmissionResponse", description: "One submission." });
-export const SubmissionListResponseSchema = z.object({ submissions: z.array(SubmissionSchema) }).meta({ id: "SubmissionList", description: "The caller's submissions, newest first." });
+export const SubmissionListResponseSchema = z
+  .object({ submissions: z.array(SubmissionSchema) })
+  .meta({ id: "SubmissionList", description: "The caller's submissions, newest first." });
 
 // Compile-time proof that what lib/submissions returns is what the schema describes.
 const fits = (view: SubmissionView): z.infer<typeof SubmissionSchema> => view;

@@ -52,7 +52,10 @@ export async function writeEvidence(submissionId: number, evidence: Evidence, tr
     );
   }
   if (evidence.cycles.length) {
-    await SubmissionCycle.bulkCreate(evidence.cycles.map((c, position) => ({ submissionId, position, ...c })), { transaction });
+    await SubmissionCycle.bulkCreate(
+      evidence.cycles.map((c, position) => ({ submissionId, position, ...c })),
+      { transaction },
+    );
   }
   const bench = evidence.bench;
   if (bench) {

@@ -47,11 +47,15 @@ function setting(label: string, opts: { positive: boolean; range?: Range }) {
   return numberField(label.toLowerCase()).superRefine((value, ctx) => {
     const fail = (message: string) => ctx.addIssue({ code: "custom", message });
     if (!Number.isInteger(value)) {
-      fail(`${label} is a whole number of setting steps${opts.range ? ` (1 step = ${formatFigure(opts.range.step, 6)} ${opts.range.unit})` : ""}: the firmware stores integers`);
+      fail(
+        `${label} is a whole number of setting steps${opts.range ? ` (1 step = ${formatFigure(opts.range.step, 6)} ${opts.range.unit})` : ""}: the firmware stores integers`,
+      );
     } else if (opts.positive && value <= 0) {
       fail(`${label} must be more than 0: a scale of ${value} cannot turn a sensor reading into volts or amps`);
     } else if (opts.range && (value < opts.range.min || value > opts.range.max)) {
-      fail(`${label} must be between ${opts.range.min} and ${opts.range.max} in ${opts.range.familyName} (1 step = ${formatFigure(opts.range.step, 6)} ${opts.range.unit})`);
+      fail(
+        `${label} must be between ${opts.range.min} and ${opts.range.max} in ${opts.range.familyName} (1 step = ${formatFigure(opts.range.step, 6)} ${opts.range.unit})`,
+      );
     }
   });
 }
@@ -59,9 +63,27 @@ function setting(label: string, opts: { positive: boolean; range?: Range }) {
 function ranges(family: FamilyRules | null | undefined) {
   if (!family) return {};
   return {
-    voltage: { min: family.voltageScaleMin, max: family.voltageScaleMax, unit: family.voltageScaleUnit, step: family.voltageScaleStep, familyName: family.name },
-    current: { min: family.currentScaleMin, max: family.currentScaleMax, unit: family.currentScaleUnit, step: family.currentScaleStep, familyName: family.name },
-    offset: { min: family.currentOffsetMin, max: family.currentOffsetMax, unit: family.currentOffsetUnit, step: family.currentOffsetStep, familyName: family.name },
+    voltage: {
+      min: family.voltageScaleMin,
+      max: family.voltageScaleMax,
+      unit: family.voltageScaleUnit,
+      step: family.voltageScaleStep,
+      familyName: family.name,
+    },
+    current: {
+      min: family.currentScaleMin,
+      max: family.currentScaleMax,
+      unit: family.currentScaleUnit,
+      step: family.currentScaleStep,
+      familyName: family.name,
+    },
+    offset: {
+      min: family.currentOffsetMin,
+      max: family.currentOffsetMax,
+      unit: family.currentOffsetUnit,
+      step: family.currentOffsetStep,
+      familyName: family.name,
+    },
   } satisfies Record<string, Range>;
 }
 
@@ -69,8 +91,10 @@ function cells(board: BoardRules | null | undefined) {
   const [min, max] = board ? [board.minCells, board.maxCells] : [MIN_CELLS, MAX_CELLS];
   return numberField("the pack's cell count").superRefine((value, ctx) => {
     if (!Number.isInteger(value)) ctx.addIssue({ code: "custom", message: "A cell count is a whole number, like 4 for a 4S pack" });
-    else if (value < MIN_CELLS || value > MAX_CELLS) ctx.addIssue({ code: "custom", message: `A pack has ${MIN_CELLS} to ${MAX_CELLS} cells; ${value} is not possible` });
-    else if (value < min || value > max) ctx.addIssue({ code: "custom", message: `This board takes ${formatCells(min, max)} packs; ${value}S is outside that` });
+    else if (value < MIN_CELLS || value > MAX_CELLS)
+      ctx.addIssue({ code: "custom", message: `A pack has ${MIN_CELLS} to ${MAX_CELLS} cells; ${value} is not possible` });
+    else if (value < min || value > max)
+      ctx.addIssue({ code: "custom", message: `This board takes ${formatCells(min, max)} packs; ${value}S is outside that` });
   });
 }
 
@@ -90,9 +114,7 @@ function volts(label: string) {
 }
 
 function amps(label: string, min: number) {
-  return numberField(label.toLowerCase())
-    .min(min, `${label} must be at least ${min} A`)
-    .max(MAX_BENCH_AMPS, `${label} must be at most ${MAX_BENCH_AMPS} A`);
+  return numberField(label.toLowerCase()).min(min, `${label} must be at least ${min} A`).max(MAX_BENCH_AMPS, `${label} must be at most ${MAX_BENCH_AMPS} A`);
 }
 
 const ratioText = (r: number) => formatFigure(r, 2);
@@ -111,10 +133,18 @@ export function submissionSchema(context: SchemaContext = {}) {
       const [lo, hi] = packVoltsRange(v.cells);
       const span = `${formatFigure(lo, 2)}–${formatFigure(hi, 2)} V`;
       if (v.measuredVolts < lo || v.measuredVolts > hi) {
-        ctx.addIssue({ code: "custom", path: ["measuredVolts"], message: `A ${v.cells}S pack measures ${span} (2.5–4.35 V a cell); ${v.measuredVolts} V is not possible — check the cell count and the reading` });
+        ctx.addIssue({
+          code: "custom",
+          path: ["measuredVolts"],
+          message: `A ${v.cells}S pack measures ${span} (2.5–4.35 V a cell); ${v.measuredVolts} V is not possible — check the cell count and the reading`,
+        });
       }
       if (v.reportedVolts < lo / REPORTED_VOLTS_SLACK || v.reportedVolts > hi * REPORTED_VOLTS_SLACK) {
-        ctx.addIssue({ code: "custom", path: ["reportedVolts"], message: `${v.reportedVolts} V is impossible for a ${v.cells}S pack (${span}), even on a badly set display — check the cell count and the reading` });
+        ctx.addIssue({
+          code: "custom",
+          path: ["reportedVolts"],
+          message: `${v.reportedVolts} V is impossible for a ${v.cells}S pack (${span}), even on a badly set display — check the cell count and the reading`,
+        });
       }
     });
 
@@ -179,40 +209,52 @@ export function submissionSchema(context: SchemaContext = {}) {
       }
     });
 
-  return z
-    .object({
-      boardRevisionId: z.number({ error: "Choose the board and its revision" }).int().positive("Choose the board and its revision"),
-      firmwareFamilyId: z.number({ error: "Choose the firmware family" }).int().positive("Choose the firmware family"),
-      firmwareVersion: z
-        .string({ error: "Enter the firmware version" })
-        .trim()
-        .min(1, "Enter the firmware version, like 4.5.0")
-        .regex(FIRMWARE_VERSION_RE, "A firmware version is up to 32 letters, digits, dots, plus or minus signs, starting with a letter or digit, like 4.5.0"),
-      sensingSource: z.enum(SENSING_SOURCES, { error: "Choose where the readings come from" }),
-      method: z.enum(METHODS, { error: "Choose how you checked the values" }),
-      voltageScale: setting("Voltage scale", { positive: true, range: r.voltage }).nullable(),
-      currentScale: setting("Current scale", { positive: true, range: r.current }).nullable(),
-      currentOffset: setting("Current offset", { positive: false, range: r.offset }).nullable(),
-      notes: z
-        .string()
-        .max(NOTES_MAX_LENGTH, `Notes are limited to ${NOTES_MAX_LENGTH.toLocaleString("en")} characters`)
-        .nullish()
-        .transform((v) => (v && v.trim() !== "" ? v : null)),
-      voltageCheck: voltageCheck.nullish().transform((v) => v ?? null),
-      cycles: z.array(cycle).max(MAX_CYCLES, `At most ${MAX_CYCLES} cycles`).nullish().transform((v) => v ?? []),
-      bench: bench.nullish().transform((v) => v ?? null),
-      // evidence photos uploaded beforehand (POST /api/v1/photos); lib/storage checks whose they are
-      photoIds: z
-        .array(z.string({ error: "A photo id is text" }), { error: "photoIds is a list of photo ids" })
-        .max(MAX_PHOTOS_PER_SUBMISSION, `A submission can have at most ${MAX_PHOTOS_PER_SUBMISSION} photos`)
-        .nullish()
-        .transform((v) => v ?? []),
-    }, { error: "Send the submission as one JSON object of its fields" })
-    // `when` makes these run even after a field failed, so every message shows on the first submit;
-    // but only on an object: a body of null, a number or a list has nothing to cross-check
-    .superRefine((value, ctx) => crossFieldChecks(value as unknown as Loose, (path, message) => ctx.addIssue({ code: "custom", path, message })), {
-      when: ({ value }) => value !== null && typeof value === "object" && !Array.isArray(value),
-    });
+  return (
+    z
+      .object(
+        {
+          boardRevisionId: z.number({ error: "Choose the board and its revision" }).int().positive("Choose the board and its revision"),
+          firmwareFamilyId: z.number({ error: "Choose the firmware family" }).int().positive("Choose the firmware family"),
+          firmwareVersion: z
+            .string({ error: "Enter the firmware version" })
+            .trim()
+            .min(1, "Enter the firmware version, like 4.5.0")
+            .regex(
+              FIRMWARE_VERSION_RE,
+              "A firmware version is up to 32 letters, digits, dots, plus or minus signs, starting with a letter or digit, like 4.5.0",
+            ),
+          sensingSource: z.enum(SENSING_SOURCES, { error: "Choose where the readings come from" }),
+          method: z.enum(METHODS, { error: "Choose how you checked the values" }),
+          voltageScale: setting("Voltage scale", { positive: true, range: r.voltage }).nullable(),
+          currentScale: setting("Current scale", { positive: true, range: r.current }).nullable(),
+          currentOffset: setting("Current offset", { positive: false, range: r.offset }).nullable(),
+          notes: z
+            .string()
+            .max(NOTES_MAX_LENGTH, `Notes are limited to ${NOTES_MAX_LENGTH.toLocaleString("en")} characters`)
+            .nullish()
+            .transform((v) => (v && v.trim() !== "" ? v : null)),
+          voltageCheck: voltageCheck.nullish().transform((v) => v ?? null),
+          cycles: z
+            .array(cycle)
+            .max(MAX_CYCLES, `At most ${MAX_CYCLES} cycles`)
+            .nullish()
+            .transform((v) => v ?? []),
+          bench: bench.nullish().transform((v) => v ?? null),
+          // evidence photos uploaded beforehand (POST /api/v1/photos); lib/storage checks whose they are
+          photoIds: z
+            .array(z.string({ error: "A photo id is text" }), { error: "photoIds is a list of photo ids" })
+            .max(MAX_PHOTOS_PER_SUBMISSION, `A submission can have at most ${MAX_PHOTOS_PER_SUBMISSION} photos`)
+            .nullish()
+            .transform((v) => v ?? []),
+        },
+        { error: "Send the submission as one JSON object of its fields" },
+      )
+      // `when` makes these run even after a field failed, so every message shows on the first submit;
+      // but only on an object: a body of null, a number or a list has nothing to cross-check
+      .superRefine((value, ctx) => crossFieldChecks(value as unknown as Loose, (path, message) => ctx.addIssue({ code: "custom", path, message })), {
+        when: ({ value }) => value !== null && typeof value === "object" && !Array.isArray(value),
+      })
+  );
 }
 
 export type SubmissionSchema = ReturnType<typeof submissionSchema>;
@@ -246,7 +288,8 @@ function crossFieldChecks(v: Loose, add: (path: (string | number)[], message: st
   const hasCycles = listed(v.cycles);
   const hasBench = present(v.bench);
   if (needs.voltageCheck === "required" && !hasVoltage) add(["voltageCheck"], "A multimeter submission needs its voltage check: at least one reading");
-  if (needs.voltageCheck === "none" && hasVoltage) add(["voltageCheck"], "An unverified submission has no voltage check; if you measured, choose the method you used");
+  if (needs.voltageCheck === "none" && hasVoltage)
+    add(["voltageCheck"], "An unverified submission has no voltage check; if you measured, choose the method you used");
   if (needs.cycles && !hasCycles) add(["cycles"], "Add at least one fly-and-recharge cycle (3–5 are usual)");
   if (!needs.cycles && hasCycles) add(["cycles"], "Recharge cycles go with the fly-and-recharge method; choose that method or remove them");
   if (needs.bench && !hasBench) add(["bench"], "A bench submission needs its bench points: two or more");

@@ -37,8 +37,14 @@ export function statusMail(to: string, name: string, f: Facts, change: StatusCha
   const lines: Record<SubmissionStatus, { subject: string; body: string }> = {
     pending:
       change === "resubmitted"
-        ? { subject: `Submission #${f.id} updated: back in the review queue`, body: `You updated ${what}. It is pending review again.\n\nYou can still change it while it waits:\n${edit}` }
-        : { subject: `Submission #${f.id} received: pending review`, body: `Thank you: we received ${what}. It is pending review; a moderator will check the values against the evidence.\n\nYou can change it while it waits:\n${edit}` },
+        ? {
+            subject: `Submission #${f.id} updated: back in the review queue`,
+            body: `You updated ${what}. It is pending review again.\n\nYou can still change it while it waits:\n${edit}`,
+          }
+        : {
+            subject: `Submission #${f.id} received: pending review`,
+            body: `Thank you: we received ${what}. It is pending review; a moderator will check the values against the evidence.\n\nYou can change it while it waits:\n${edit}`,
+          },
     approved: { subject: `Submission #${f.id} approved`, body: `A moderator approved ${what}. Its values now count in the board's published figures.` },
     rejected: { subject: `Submission #${f.id} not accepted`, body: `A moderator did not accept ${what}.` },
     changes_requested: {
@@ -63,14 +69,19 @@ export async function queueStatusMail(submissionId: number, transaction: Transac
     transaction,
   });
   if (!s?.contributor || !s.boardRevision?.boardModel || !s.firmwareFamily) throw new Error(`queueStatusMail: submission ${submissionId} not found`);
-  const message = statusMail(s.contributor.email, s.contributor.name, {
-    id: s.id,
-    status: s.status,
-    board: s.boardRevision.boardModel.name,
-    revision: s.boardRevision.label,
-    family: s.firmwareFamily.name,
-    moderatorNote: s.moderatorNote,
-  }, change);
+  const message = statusMail(
+    s.contributor.email,
+    s.contributor.name,
+    {
+      id: s.id,
+      status: s.status,
+      board: s.boardRevision.boardModel.name,
+      revision: s.boardRevision.label,
+      family: s.firmwareFamily.name,
+      moderatorNote: s.moderatorNote,
+    },
+    change,
+  );
   await enqueue("mail.send", message, { transaction });
   return message;
 }

@@ -21,14 +21,21 @@ export const VersionSchema = z.object({
 const missing = (id: unknown) => notFound(`There is no submission with id ${String(id)}.`, "id");
 
 const stale = (sent: number, current: number) =>
-  new ApiError(409, `This submission changed since you loaded it (you edited version ${sent}; it is now at version ${current}). Reload it and make your change again.`, {
-    version: [`stale: the current version is ${current}`],
-  });
+  new ApiError(
+    409,
+    `This submission changed since you loaded it (you edited version ${sent}; it is now at version ${current}). Reload it and make your change again.`,
+    {
+      version: [`stale: the current version is ${current}`],
+    },
+  );
 
 function checkEditable(s: Submission, user: Pick<SessionUser, "id">, version: number): void {
   if (s.contributorId !== user.id) throw new ApiError(403, "Only the contributor who sent a submission can edit it.");
   if (!EDITABLE_STATUSES.includes(s.status)) {
-    throw new ApiError(409, `This submission is ${STATUS_LABELS[s.status as SubmissionStatus].toLowerCase()}, so it can no longer be edited. Send a new one instead.`);
+    throw new ApiError(
+      409,
+      `This submission is ${STATUS_LABELS[s.status as SubmissionStatus].toLowerCase()}, so it can no longer be edited. Send a new one instead.`,
+    );
   }
   if (s.version !== version) throw stale(version, s.version);
 }

@@ -19,7 +19,14 @@ const fittable = (points: ReadonlyArray<{ measuredAmps: number }>) => new Set(po
 const NEEDS_ANOTHER: FieldIssue = { field: "points", message: "Add a point at another steady throttle: a line needs two different clamp-meter currents" };
 
 const compute = (sheet: Worksheet, points: ReadonlyArray<{ measuredAmps: number; reportedAmps: number }>, family: FirmwareFamily) =>
-  benchWorksheet({ scaleUsed: sheet.startingScale, offsetUsed: sheet.startingOffset!, points: points.map((p) => ({ measuredAmps: p.measuredAmps, reportedAmps: p.reportedAmps })) }, family);
+  benchWorksheet(
+    {
+      scaleUsed: sheet.startingScale,
+      offsetUsed: sheet.startingOffset!,
+      points: points.map((p) => ({ measuredAmps: p.measuredAmps, reportedAmps: p.reportedAmps })),
+    },
+    family,
+  );
 
 async function ownBenchSheet(ownerId: string, id: number, transaction?: Transaction) {
   const sheet = await ownSheet(ownerId, id, transaction);
@@ -44,8 +51,14 @@ export async function startBenchWorksheet(ownerId: string, input: unknown): Prom
   checkSetting(scale, "The current scale in force", family, "currentScale", "scaleUsed");
   checkSetting(offset, "The current offset in force", family, "currentOffset", "offsetUsed");
   const sheet = await Worksheet.create({
-    ownerId, quadId: quad.id, kind: "bench", firmwareFamilyId: family.id, ratedMah: null, cells: null,
-    startingScale: scale, startingOffset: offset,
+    ownerId,
+    quadId: quad.id,
+    kind: "bench",
+    firmwareFamilyId: family.id,
+    ratedMah: null,
+    cells: null,
+    startingScale: scale,
+    startingOffset: offset,
     startingSource: publishedScale != null && scale === publishedScale && offset === publishedOffset ? "published" : "own",
   });
   return getBenchWorksheet(ownerId, sheet.id);
@@ -60,13 +73,20 @@ export async function getBenchWorksheet(ownerId: string, id: number, transaction
   ]);
   const result = fittable(live) ? compute(sheet, live, family!) : null;
   return {
-    kind: "bench", id: sheet.id, quadId: sheet.quadId, quadName: quad!.name, familyName: family!.name,
-    scaleUsed: sheet.startingScale, offsetUsed: sheet.startingOffset!, startingSource: sheet.startingSource,
+    kind: "bench",
+    id: sheet.id,
+    quadId: sheet.quadId,
+    quadName: quad!.name,
+    familyName: family!.name,
+    scaleUsed: sheet.startingScale,
+    offsetUsed: sheet.startingOffset!,
+    startingSource: sheet.startingSource,
     points: live.map(rowOf),
     removed: removed.map((p) => ({ ...rowOf(p), removedAt: p.removedAt!.toISOString() })),
     result: result?.ok ? result.value : null,
     warnings: result ? (result.ok ? result.warnings : result.errors) : live.length ? [NEEDS_ANOTHER] : [],
-    submissionId: sheet.submissionId, createdAt: sheet.createdAt.toISOString(),
+    submissionId: sheet.submissionId,
+    createdAt: sheet.createdAt.toISOString(),
   };
 }
 
@@ -109,6 +129,10 @@ export function benchSubmissionBody(view: BenchSheetView, quad: Quad, firmwareFa
     currentScale: r.scaleRounding.recommended.setting,
     currentOffset: r.offset.setting,
     notes: opts.notes ?? `From a bench worksheet in the garage: ${view.points.length} clamp-meter points, r² ${r.fit.rSquared.toFixed(4)}.`,
-    bench: { scaleUsed: view.scaleUsed, offsetUsed: view.offsetUsed, points: view.points.map((p) => ({ measuredAmps: p.measuredAmps, reportedAmps: p.reportedAmps })) },
+    bench: {
+      scaleUsed: view.scaleUsed,
+      offsetUsed: view.offsetUsed,
+      points: view.points.map((p) => ({ measuredAmps: p.measuredAmps, reportedAmps: p.reportedAmps })),
+    },
   });
 }

@@ -14,7 +14,8 @@ export async function quadHardware(quad: Pick<QuadView, "boardRevisionId">): Pro
   db();
   // By primary key, with the board model by its primary key: both indexed.
   const revision = quad.boardRevisionId
-    ? ((await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as (BoardRevision & { boardModel: BoardModel }) | null)
+    ? ((await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as
+        (BoardRevision & { boardModel: BoardModel }) | null)
     : null;
   return {
     board: revision ? { name: revision.boardModel.name, revisionLabel: revision.label } : null,

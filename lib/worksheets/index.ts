@@ -12,9 +12,7 @@ import { addVoltageReading, getVoltageWorksheet, removeVoltageReading, startVolt
 export { publishWorksheet, type PublishOptions } from "./publish";
 
 export type AnyWorksheetView =
-  | Awaited<ReturnType<typeof getRechargeWorksheet>>
-  | Awaited<ReturnType<typeof getVoltageWorksheet>>
-  | Awaited<ReturnType<typeof getBenchWorksheet>>;
+  Awaited<ReturnType<typeof getRechargeWorksheet>> | Awaited<ReturnType<typeof getVoltageWorksheet>> | Awaited<ReturnType<typeof getBenchWorksheet>>;
 
 const isKind = (v: unknown): v is WorksheetKind => typeof v === "string" && (WORKSHEET_KINDS as readonly string[]).includes(v);
 

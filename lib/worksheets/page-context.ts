@@ -17,13 +17,13 @@ export async function quadWorksheetContext(ownerId: string, quadId: number): Pro
   db();
   const row = quad.firmwareFamilyId ? await FirmwareFamily.findByPk(quad.firmwareFamilyId) : null;
   const revision = quad.boardRevisionId
-    ? ((await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as BoardRevision & { boardModel: BoardModel })
+    ? ((await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as BoardRevision & {
+        boardModel: BoardModel;
+      })
     : null;
   const lookup = (key: "voltageScale" | "currentScale" | "currentOffset") =>
     row && revision ? publishedSetting(revision.boardModel.slug, revision.label, row.slug, key) : Promise.resolve(null);
   const [voltageScale, currentScale, currentOffset] = await Promise.all([lookup("voltageScale"), lookup("currentScale"), lookup("currentOffset")]);
-  const family: WorksheetFamily | null = row
-    ? { name: row.name, ...familyUnitFieldsOf(row) }
-    : null;
+  const family: WorksheetFamily | null = row ? { name: row.name, ...familyUnitFieldsOf(row) } : null;
   return { quad, family, published: { voltageScale, currentScale, currentOffset } };
 }

@@ -10,7 +10,10 @@ export const startInput = z.object({
   quadId: quadIdField,
   ratedMah: mahField("The pack's rated mAh").int("The rated mAh is a whole number, as printed on the label"),
   cells: cellsField(),
-  startingScale: numberField("The starting current scale").int("A setting is a whole number").positive("The starting current scale must be more than 0").nullish(),
+  startingScale: numberField("The starting current scale")
+    .int("A setting is a whole number")
+    .positive("The starting current scale must be more than 0")
+    .nullish(),
 });
 
 export const stepInput = z.object({
@@ -39,4 +42,3 @@ export type WorksheetView = {
   warnings: FieldIssue[];
   submissionId: number | null;
 };
-

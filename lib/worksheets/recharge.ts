@@ -19,8 +19,14 @@ export async function startRechargeWorksheet(ownerId: string, input: unknown): P
     throw badRequest({ startingScale: ["Nothing is published for this board and family yet: enter the current scale the quad flies with now"] });
   }
   const sheet = await Worksheet.create({
-    ownerId, quadId: quad.id, kind: "fly_recharge", firmwareFamilyId: family.id, ratedMah: data.ratedMah, cells: data.cells,
-    startingScale, startingSource: published != null ? "published" : "own",
+    ownerId,
+    quadId: quad.id,
+    kind: "fly_recharge",
+    firmwareFamilyId: family.id,
+    ratedMah: data.ratedMah,
+    cells: data.cells,
+    startingScale,
+    startingSource: published != null ? "published" : "own",
   });
   return getRechargeWorksheet(ownerId, sheet.id);
 }
@@ -31,22 +37,48 @@ async function ownRechargeSheet(ownerId: string, id: number, transaction?: impor
   return sheet;
 }
 
-const stepRow = (s: WorksheetStep): RechargeStepRow => ({ position: s.position, scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged });
+const stepRow = (s: WorksheetStep): RechargeStepRow => ({
+  position: s.position,
+  scaleUsed: s.scaleUsed,
+  reportedMah: s.reportedMah,
+  chargedMah: s.chargedMah,
+  fullyRecharged: s.fullyRecharged,
+});
 
 /** The worksheet's iterations in order: the live ones it counts, and the ones taken back. */
 const stepsOf = (worksheetId: number, transaction?: import("sequelize").Transaction) => entriesOf<WorksheetStep>(WorksheetStep, worksheetId, transaction);
 
-const compute = (sheet: Worksheet, steps: Array<{ scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean }>, family: FirmwareFamily) =>
-  rechargeWorksheet({ ratedMah: sheet.ratedMah!, cycles: steps.map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged })) }, family);
+const compute = (
+  sheet: Worksheet,
+  steps: Array<{ scaleUsed: number; reportedMah: number; chargedMah: number; fullyRecharged: boolean }>,
+  family: FirmwareFamily,
+) =>
+  rechargeWorksheet(
+    {
+      ratedMah: sheet.ratedMah!,
+      cycles: steps.map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, fullyRecharged: s.fullyRecharged })),
+    },
+    family,
+  );
 
 export async function getRechargeWorksheet(ownerId: string, id: number, transaction?: import("sequelize").Transaction): Promise<WorksheetView> {
   const sheet = await ownRechargeSheet(ownerId, id, transaction);
-  const [{ live: steps, removed }, family, quad] = await Promise.all([stepsOf(sheet.id, transaction), FirmwareFamily.findByPk(sheet.firmwareFamilyId, { transaction }), Quad.findByPk(sheet.quadId, { transaction })]);
+  const [{ live: steps, removed }, family, quad] = await Promise.all([
+    stepsOf(sheet.id, transaction),
+    FirmwareFamily.findByPk(sheet.firmwareFamilyId, { transaction }),
+    Quad.findByPk(sheet.quadId, { transaction }),
+  ]);
   const result = steps.length ? compute(sheet, steps, family!) : null;
   return {
     kind: "fly_recharge",
-    id: sheet.id, quadId: sheet.quadId, quadName: quad!.name, familyName: family!.name, ratedMah: sheet.ratedMah!, cells: sheet.cells!,
-    startingScale: sheet.startingScale, startingSource: sheet.startingSource,
+    id: sheet.id,
+    quadId: sheet.quadId,
+    quadName: quad!.name,
+    familyName: family!.name,
+    ratedMah: sheet.ratedMah!,
+    cells: sheet.cells!,
+    startingScale: sheet.startingScale,
+    startingSource: sheet.startingSource,
     steps: steps.map(stepRow),
     removed: removed.map((s) => ({ ...stepRow(s), removedAt: s.removedAt!.toISOString() })),
     result: result?.ok ? result.value : null,
@@ -96,6 +128,8 @@ export function rechargeSubmissionBody(view: WorksheetView, quad: Quad, firmware
     currentOffset: null,
     notes: opts.notes ?? `From a fly-and-recharge worksheet in the garage: ${view.steps.length} cycles.`,
     // a cycle the builder marked as not fully recharged is not evidence
-    cycles: view.steps.filter((s) => s.fullyRecharged).map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, ratedMah: view.ratedMah, cells: view.cells })),
+    cycles: view.steps
+      .filter((s) => s.fullyRecharged)
+      .map((s) => ({ scaleUsed: s.scaleUsed, reportedMah: s.reportedMah, chargedMah: s.chargedMah, ratedMah: view.ratedMah, cells: view.cells })),
   });
 }

@@ -18,14 +18,24 @@ export async function quadContext(ownerId: string, quadId: number, setting = "cu
   const quad = await Quad.findOne({ where: { id: quadId, ownerId } });
   if (!quad) throw notYours("quad");
   if (!quad.firmwareFamilyId) throw badRequest({ quadId: [`Give this quad its firmware family first: the worksheet follows that family's ${setting} rules`] });
-  if (!quad.boardRevisionId) throw badRequest({ quadId: ["Give this quad its board revision first: its published value is the worksheet's starting point and the result is filed under it"] });
+  if (!quad.boardRevisionId)
+    throw badRequest({
+      quadId: ["Give this quad its board revision first: its published value is the worksheet's starting point and the result is filed under it"],
+    });
   const family = (await FirmwareFamily.findByPk(quad.firmwareFamilyId))!;
-  const revision = (await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as BoardRevision & { boardModel: BoardModel };
+  const revision = (await BoardRevision.findByPk(quad.boardRevisionId, { include: [{ model: BoardModel, as: "boardModel" }] })) as BoardRevision & {
+    boardModel: BoardModel;
+  };
   return { quad, family, revision };
 }
 
 /** The board's published recommended setting for this revision and family, or null. */
-export async function publishedSetting(boardSlug: string, revisionLabel: string, familySlug: string, key: "currentScale" | "voltageScale" | "currentOffset"): Promise<number | null> {
+export async function publishedSetting(
+  boardSlug: string,
+  revisionLabel: string,
+  familySlug: string,
+  key: "currentScale" | "voltageScale" | "currentOffset",
+): Promise<number | null> {
   const selected = await getBoardValues(boardSlug, { revision: revisionLabel, family: familySlug });
   if (!selected?.ok) return null;
   return selected.values.revisions[0]?.families[0]?.[key]?.recommended.setting ?? null;
@@ -44,13 +54,21 @@ type Entry = WorksheetVoltageReading | WorksheetBenchPoint | WorksheetStep;
 
 /** Every row of the worksheet in position order: the live ones, and the ones taken back. */
 export async function entriesOf<R extends Entry>(model: EntryModel, worksheetId: number, transaction?: Transaction): Promise<{ live: R[]; removed: R[] }> {
-  const rows = (await (model as typeof WorksheetVoltageReading).findAll({ where: { worksheetId }, order: [["position", "ASC"], ["id", "ASC"]], transaction })) as unknown as R[];
+  const rows = (await (model as typeof WorksheetVoltageReading).findAll({
+    where: { worksheetId },
+    order: [
+      ["position", "ASC"],
+      ["id", "ASC"],
+    ],
+    transaction,
+  })) as unknown as R[];
   return { live: rows.filter((r) => r.removedAt == null), removed: rows.filter((r) => r.removedAt != null) };
 }
 
 /** Refuses a change to a published worksheet: its readings are a submission's evidence now. */
 export function assertOpen(sheet: Worksheet, what: string): void {
-  if (sheet.submissionId != null) throw new ApiError(409, `This worksheet is published; its ${what} are the submission's evidence. Start a new worksheet to measure again.`);
+  if (sheet.submissionId != null)
+    throw new ApiError(409, `This worksheet is published; its ${what} are the submission's evidence. Start a new worksheet to measure again.`);
 }
 
 /**
@@ -58,12 +76,20 @@ export function assertOpen(sheet: Worksheet, what: string): void {
  * counted or published), so a mistyped reading is never silently lost. The caller names the
  * position it means, so a double tap cannot take back two.
  */
-export async function removeLastEntry<R extends Entry>(model: EntryModel, sheet: Worksheet, position: number, noun: string, transaction: Transaction): Promise<R> {
+export async function removeLastEntry<R extends Entry>(
+  model: EntryModel,
+  sheet: Worksheet,
+  position: number,
+  noun: string,
+  transaction: Transaction,
+): Promise<R> {
   const { live } = await entriesOf<R>(model, sheet.id, transaction);
   const last = live.at(-1);
   if (!last) throw new ApiError(409, `This worksheet has no ${noun} to take back.`);
   if (last.position !== position) {
-    throw new ApiError(409, `Only the last ${noun} can be taken back: that is ${noun} ${last.position + 1}.`, { position: [`Take back ${noun} ${last.position + 1} first`] });
+    throw new ApiError(409, `Only the last ${noun} can be taken back: that is ${noun} ${last.position + 1}.`, {
+      position: [`Take back ${noun} ${last.position + 1} first`],
+    });
   }
   await (last as WorksheetVoltageReading).update({ removedAt: new Date() }, { transaction });
   return last;
@@ -74,7 +100,12 @@ export async function removeLastEntry<R extends Entry>(model: EntryModel, sheet:
  * caller's worksheet of that kind, which must still be open; its last live row is taken back and
  * the worksheet marked as changed. Returns the row taken back.
  */
-export function takeBackLast<R extends Entry>(own: (transaction: Transaction) => Promise<Worksheet>, model: EntryModel, position: number, noun: string): Promise<R> {
+export function takeBackLast<R extends Entry>(
+  own: (transaction: Transaction) => Promise<Worksheet>,
+  model: EntryModel,
+  position: number,
+  noun: string,
+): Promise<R> {
   return db().transaction(async (transaction) => {
     const sheet = await own(transaction);
     assertOpen(sheet, `${noun}s`);

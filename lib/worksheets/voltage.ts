@@ -12,7 +12,13 @@ import { assertOpen, checkSetting, entriesOf, newEntryErrors, ownSheet, publishe
 // field-level errors and nothing stored), take back the last pair, read it back computed.
 // Publishing is lib/worksheets/publish.ts.
 
-const rowOf = (r: WorksheetVoltageReading): VoltageReadingRow => ({ position: r.position, cells: r.cells, reportedVolts: r.reportedVolts, measuredVolts: r.measuredVolts, measuredAt: r.measuredAt });
+const rowOf = (r: WorksheetVoltageReading): VoltageReadingRow => ({
+  position: r.position,
+  cells: r.cells,
+  reportedVolts: r.reportedVolts,
+  measuredVolts: r.measuredVolts,
+  measuredAt: r.measuredAt,
+});
 
 const compute = (scaleUsed: number, readings: ReadonlyArray<{ cells: number; reportedVolts: number; measuredVolts: number }>, family: FirmwareFamily) =>
   voltageWorksheet({ scaleUsed, readings: readings.map((r) => ({ cells: r.cells, reportedVolts: r.reportedVolts, measuredVolts: r.measuredVolts })) }, family);
@@ -32,8 +38,15 @@ export async function startVoltageWorksheet(ownerId: string, input: unknown): Pr
   if (scale == null) throw badRequest({ scaleUsed: ["Nothing is published for this board and family yet: enter the voltage scale the quad runs with now"] });
   checkSetting(scale, "The voltage scale in force", family, "voltageScale", "scaleUsed");
   const sheet = await Worksheet.create({
-    ownerId, quadId: quad.id, kind: "voltage", firmwareFamilyId: family.id, ratedMah: null, cells: null,
-    startingScale: scale, startingOffset: null, startingSource: published != null && scale === published ? "published" : "own",
+    ownerId,
+    quadId: quad.id,
+    kind: "voltage",
+    firmwareFamilyId: family.id,
+    ratedMah: null,
+    cells: null,
+    startingScale: scale,
+    startingOffset: null,
+    startingSource: published != null && scale === published ? "published" : "own",
   });
   return getVoltageWorksheet(ownerId, sheet.id);
 }
@@ -47,13 +60,19 @@ export async function getVoltageWorksheet(ownerId: string, id: number, transacti
   ]);
   const result = live.length ? compute(sheet.startingScale, live, family!) : null;
   return {
-    kind: "voltage", id: sheet.id, quadId: sheet.quadId, quadName: quad!.name, familyName: family!.name,
-    scaleUsed: sheet.startingScale, startingSource: sheet.startingSource,
+    kind: "voltage",
+    id: sheet.id,
+    quadId: sheet.quadId,
+    quadName: quad!.name,
+    familyName: family!.name,
+    scaleUsed: sheet.startingScale,
+    startingSource: sheet.startingSource,
     readings: live.map(rowOf),
     removed: removed.map((r) => ({ ...rowOf(r), removedAt: r.removedAt!.toISOString() })),
     result: result?.ok ? result.value : null,
     warnings: result ? (result.ok ? result.warnings : result.errors) : [],
-    submissionId: sheet.submissionId, createdAt: sheet.createdAt.toISOString(),
+    submissionId: sheet.submissionId,
+    createdAt: sheet.createdAt.toISOString(),
   };
 }
 
@@ -74,7 +93,11 @@ export async function addVoltageReading(ownerId: string, id: number, input: unkn
 }
 
 /** Takes back the last pair (kept, struck out); `position` must name it. */
-export async function removeVoltageReading(ownerId: string, id: number, position: number): Promise<{ worksheet: VoltageSheetView; removed: VoltageReadingRow }> {
+export async function removeVoltageReading(
+  ownerId: string,
+  id: number,
+  position: number,
+): Promise<{ worksheet: VoltageSheetView; removed: VoltageReadingRow }> {
   const row = await takeBackLast<WorksheetVoltageReading>((t) => ownVoltageSheet(ownerId, id, t), WorksheetVoltageReading, position, "reading");
   return { worksheet: await getVoltageWorksheet(ownerId, id), removed: rowOf(row) };
 }

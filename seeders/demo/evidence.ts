@@ -113,7 +113,8 @@ function cycles(rng: Rng, fam: DemoFirmwareFamily, board: DemoBoardModel, target
     let reportedMah = Math.round(chargedMah * displayFactor(response, scaleUsed, truth));
     if (leadsToFinal) [chargedMah, reportedMah] = closestFigures(response, scaleUsed, final, ratedMah, chargedMah);
     out.push({ scaleUsed, reportedMah, chargedMah, ratedMah, cells });
-    if (!last) scaleUsed = leadsToFinal ? final : clamp(roundSetting(next(response, scaleUsed, reportedMah, chargedMah)), fam.currentScaleMin, fam.currentScaleMax);
+    if (!last)
+      scaleUsed = leadsToFinal ? final : clamp(roundSetting(next(response, scaleUsed, reportedMah, chargedMah)), fam.currentScaleMin, fam.currentScaleMax);
   }
   return out;
 }

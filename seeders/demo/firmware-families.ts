@@ -70,7 +70,8 @@ export const DEMO_FIRMWARE_FAMILIES: readonly DemoFirmwareFamily[] = [
   {
     slug: "quaysel",
     name: "Quaysel",
-    description: "Stores the attenuation as tenths of a millivolt at the ADC pin per pack volt and the sensitivity in hundredths of a millivolt per amp; current offset in millivolts.",
+    description:
+      "Stores the attenuation as tenths of a millivolt at the ADC pin per pack volt and the sensitivity in hundredths of a millivolt per amp; current offset in millivolts.",
     voltageScaleUnit: "mV/V",
     voltageScaleStep: 0.1,
     voltageScaleResponse: "inverse",

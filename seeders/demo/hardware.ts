@@ -6,14 +6,7 @@ import type { Rng } from "./random";
 /** The sensor columns of board_revisions as the maker published them (null = unknown). */
 export type PublishedHardware = Pick<
   BoardRevision,
-  | "dividerTopOhms"
-  | "dividerBottomOhms"
-  | "currentSensor"
-  | "shuntMilliohms"
-  | "amplifierGain"
-  | "hallMvPerAmp"
-  | "adcBits"
-  | "adcReferenceVolts"
+  "dividerTopOhms" | "dividerBottomOhms" | "currentSensor" | "shuntMilliohms" | "amplifierGain" | "hallMvPerAmp" | "adcBits" | "adcReferenceVolts"
 >;
 
 /**

@@ -26,9 +26,7 @@ async function insertReturningIds(
   transaction: Transaction,
 ): Promise<Map<string, number>> {
   if (rows.length === 0) return new Map();
-  const inserted = (await qi.bulkInsert(table, rows.map(toColumns), returning(transaction, ["id", keyColumn]))) as unknown as Array<
-    Record<string, unknown>
-  >;
+  const inserted = (await qi.bulkInsert(table, rows.map(toColumns), returning(transaction, ["id", keyColumn]))) as unknown as Array<Record<string, unknown>>;
   if (!Array.isArray(inserted) || inserted.length !== rows.length) {
     throw new Error(`demo seed: expected ${rows.length} ids back from ${table}, got ${Array.isArray(inserted) ? inserted.length : typeof inserted}`);
   }
@@ -42,7 +40,16 @@ function idOf(map: Map<string, number>, key: string, what: string): number {
 }
 
 export type InsertCounts = Record<
-  "manufacturers" | "boardModels" | "boardRevisions" | "boardAliases" | "firmwareFamilies" | "users" | "submissions" | "evidenceRows" | "auditEvents" | "valueHistory",
+  | "manufacturers"
+  | "boardModels"
+  | "boardRevisions"
+  | "boardAliases"
+  | "firmwareFamilies"
+  | "users"
+  | "submissions"
+  | "evidenceRows"
+  | "auditEvents"
+  | "valueHistory",
   number
 >;
 
@@ -66,7 +73,11 @@ export async function insertDemoScenario(qi: QueryInterface, s: DemoScenario, tr
     boardModelId: idOf(boardIds, boardSlug, "board model"),
   }));
   // revisions have no slug: read back (board id, label) and rebuild the scenario's keys from it
-  const revisionReturned = (await qi.bulkInsert("board_revisions", revisionRows.map(toColumns), returning(transaction, ["id", "board_model_id", "label"]))) as unknown as Array<{ id: number; board_model_id: number; label: string }>;
+  const revisionReturned = (await qi.bulkInsert(
+    "board_revisions",
+    revisionRows.map(toColumns),
+    returning(transaction, ["id", "board_model_id", "label"]),
+  )) as unknown as Array<{ id: number; board_model_id: number; label: string }>;
   const slugByBoardId = new Map([...boardIds].map(([slug, id]) => [id, slug]));
   const revisionIds = new Map(revisionReturned.map((r) => [`${slugByBoardId.get(Number(r.board_model_id))}@${r.label}`, Number(r.id)]));
 
@@ -107,7 +118,10 @@ export async function insertDemoScenario(qi: QueryInterface, s: DemoScenario, tr
   const submissionIds: number[] = [];
   for (let i = 0; i < submissionRows.length; i += SUBMISSION_CHUNK) {
     const chunk = submissionRows.slice(i, i + SUBMISSION_CHUNK);
-    const back = (await qi.bulkInsert("submissions", chunk, returning(transaction, ["id", "created_at"]))) as unknown as Array<{ id: number; created_at: Date }>;
+    const back = (await qi.bulkInsert("submissions", chunk, returning(transaction, ["id", "created_at"]))) as unknown as Array<{
+      id: number;
+      created_at: Date;
+    }>;
     // a multi-row INSERT … RETURNING gives its rows back in VALUES order; check rather than trust it
     back.forEach((r, k) => {
       if (new Date(r.created_at).getTime() !== (chunk[k].created_at as Date).getTime()) throw new Error("demo seed: submission ids came back out of order");
@@ -176,7 +190,10 @@ async function insertModerationPast(
       reason: null,
       at: a.at,
     }));
-    const back = (await qi.bulkInsert("audit_events", rows, returning(transaction, ["id", "submission_id"]))) as unknown as Array<{ id: number; submission_id: number }>;
+    const back = (await qi.bulkInsert("audit_events", rows, returning(transaction, ["id", "submission_id"]))) as unknown as Array<{
+      id: number;
+      submission_id: number;
+    }>;
     back.forEach((r, k) => {
       if (Number(r.submission_id) !== rows[k].submission_id) throw new Error("demo seed: audit event ids came back out of order");
     });

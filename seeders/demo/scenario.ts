@@ -78,9 +78,18 @@ export const DEMO_LANDMARKS = {
   hardwareChange: { boardSlug: "brackenwell-tinsel-25-aio", before: "v1", after: "v2" },
   /** revisions with exactly this many submissions */
   sparseRevisions: {
-    none: [{ boardSlug: "brackenwell-f7-mini", label: "v2" }, { boardSlug: "copperlode-bus-200-pdb", label: "rev A" }],
-    one: [{ boardSlug: "duskwren-hush-45-mini-4in1", label: "v1" }, { boardSlug: "ivelmoor-tussock-30-4in1", label: "v1.1" }],
-    two: [{ boardSlug: "kestrune-vantle-h7", label: "rev B" }, { boardSlug: "ivelmoor-quern-pm", label: "v1" }],
+    none: [
+      { boardSlug: "brackenwell-f7-mini", label: "v2" },
+      { boardSlug: "copperlode-bus-200-pdb", label: "rev A" },
+    ],
+    one: [
+      { boardSlug: "duskwren-hush-45-mini-4in1", label: "v1" },
+      { boardSlug: "ivelmoor-tussock-30-4in1", label: "v1.1" },
+    ],
+    two: [
+      { boardSlug: "kestrune-vantle-h7", label: "rev B" },
+      { boardSlug: "ivelmoor-quern-pm", label: "v1" },
+    ],
   },
   /** aliases unlike the board's own name, for search by alias */
   distinctiveAliases: [

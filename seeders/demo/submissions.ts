@@ -64,11 +64,30 @@ const OFFSET_SPREAD_MV: Record<Method, number> = { multimeter: 1, bench_clamp: 1
 const SOURCE_CURRENT_FACTOR: Record<SensingSource, number> = { board_adc: 1, power_module: 1, esc_telemetry: 1.4, estimate: 2.5 };
 
 const SOURCES_BY_KIND: Record<BoardKind, ReadonlyArray<readonly [SensingSource, number]>> = {
-  flight_controller: [["board_adc", 82], ["esc_telemetry", 10], ["power_module", 4], ["estimate", 4]],
-  aio: [["board_adc", 86], ["esc_telemetry", 8], ["estimate", 6]],
-  esc_4in1: [["board_adc", 62], ["esc_telemetry", 35], ["estimate", 3]],
-  pdb: [["board_adc", 92], ["estimate", 8]],
-  power_module: [["power_module", 92], ["board_adc", 8]],
+  flight_controller: [
+    ["board_adc", 82],
+    ["esc_telemetry", 10],
+    ["power_module", 4],
+    ["estimate", 4],
+  ],
+  aio: [
+    ["board_adc", 86],
+    ["esc_telemetry", 8],
+    ["estimate", 6],
+  ],
+  esc_4in1: [
+    ["board_adc", 62],
+    ["esc_telemetry", 35],
+    ["estimate", 3],
+  ],
+  pdb: [
+    ["board_adc", 92],
+    ["estimate", 8],
+  ],
+  power_module: [
+    ["power_module", 92],
+    ["board_adc", 8],
+  ],
 };
 
 /** Probability that a submission for this kind of board includes each value. */
@@ -187,8 +206,7 @@ function drawSubmission(ctx: Context, d: Draw): DemoSubmission {
   // a flight controller's current comes from whatever ESC it is stacked with: noisier
   const stackFactor = d.kind === "flight_controller" ? 1.5 : 1;
   const currentSd = CURRENT_SPREAD[method] * SOURCE_CURRENT_FACTOR[sensingSource] * stackFactor;
-  const scatter = (exact: number, sd: number, field: ValueField) =>
-    clampToRange(roundSetting(exact * (1 + sd * rng.normal())), ...rangeOf(fam, field));
+  const scatter = (exact: number, sd: number, field: ValueField) => clampToRange(roundSetting(exact * (1 + sd * rng.normal())), ...rangeOf(fam, field));
 
   let voltageScale = hasVoltage ? scatter(truth.voltageScale, VOLTAGE_SPREAD[method], "voltageScale") : null;
   let currentScale = hasCurrentValue ? scatter(truth.currentScale, currentSd, "currentScale") : null;
@@ -382,7 +400,11 @@ export function buildDemoSubmissions({ catalogue, families, users, anchor, seed 
   }
 
   plantOutliers(ctx, outlierCandidates, truths);
-  assignDemoAccounts(ctx, accountCandidates.filter((s) => s.anomaly == null), users);
+  assignDemoAccounts(
+    ctx,
+    accountCandidates.filter((s) => s.anomaly == null),
+    users,
+  );
   all.forEach(fitMethodToValues);
   for (const s of all) if (s.status === "approved") s.version = 1;
   // ids follow time, as they would in a real database

@@ -99,7 +99,13 @@ export function ratio(x: number | undefined, y: number | undefined): number | nu
   return x / y;
 }
 
-export type Ratios = { size: number; connections: number; lookupOverFramework: number | null; revalidateOverFramework: number | null; lookupOverMachine: number | null };
+export type Ratios = {
+  size: number;
+  connections: number;
+  lookupOverFramework: number | null;
+  revalidateOverFramework: number | null;
+  lookupOverMachine: number | null;
+};
 
 /** A run counts only when every response had the status its target should give. */
 export function isValid(run: RunFigures): boolean {
@@ -174,7 +180,10 @@ export function verdicts(runs: RunFigures[]): Verdict[] {
     const shares = connections.map((c) => ({ c, share: ratio(find(runs, "lookup", large, c)?.reqPerSec, find(runs, "lookup", small, c)?.reqPerSec) }));
     out.push({
       goal: `lookup flat: req/s at ${large.toLocaleString("en")} ≥ ${GOALS.flatShare} × req/s at ${small.toLocaleString("en")} submissions`,
-      met: atLeast(shares.map((s) => s.share), GOALS.flatShare),
+      met: atLeast(
+        shares.map((s) => s.share),
+        GOALS.flatShare,
+      ),
       detail: shares.map((s) => `@${s.c}: ${fmt(s.share)}`).join("; "),
     });
   }

@@ -80,7 +80,12 @@ const Schema = z
     docs: z.string().min(1, "--docs needs a file path").default("docs/benchmarks.md"),
     "no-docs": z.boolean().default(false),
     "stock-rebuild": z.boolean().default(false),
-    "accept-encoding": z.string().trim().min(1, "--accept-encoding needs a value, e.g. \"gzip, deflate, br\"").max(200, "--accept-encoding must be at most 200 characters").optional(),
+    "accept-encoding": z
+      .string()
+      .trim()
+      .min(1, '--accept-encoding needs a value, e.g. "gzip, deflate, br"')
+      .max(200, "--accept-encoding must be at most 200 characters")
+      .optional(),
     help: z.boolean().default(false),
   })
   .refine((o) => !(o.sizes && o.submissions), { message: "give either --sizes or --submissions, not both", path: ["submissions"] })
@@ -88,7 +93,11 @@ const Schema = z
 
 export class BenchmarkArgsError extends Error {
   constructor(readonly fieldErrors: Record<string, string[]>) {
-    super(Object.entries(fieldErrors).map(([flag, messages]) => `--${flag}: ${messages.join("; ")}`).join("\n"));
+    super(
+      Object.entries(fieldErrors)
+        .map(([flag, messages]) => `--${flag}: ${messages.join("; ")}`)
+        .join("\n"),
+    );
     this.name = "BenchmarkArgsError";
   }
 }

@@ -116,7 +116,15 @@ export function markdownSection(report: BenchmarkReport): string {
     "",
     ...mdTable(
       ["submissions", "boards", "revisions", "contributors", "board_stats rows", "seed (incl. VACUUM ANALYZE)", "rebuild (refreshGroups)"],
-      report.sizes.map((s) => [n(s.counts.submissions), n(s.counts.boards), n(s.counts.revisions), n(s.counts.users), n(s.statsRows), ms(s.seedMs), `${ms(s.rebuildMs)} (${s.rebuildMode})`]),
+      report.sizes.map((s) => [
+        n(s.counts.submissions),
+        n(s.counts.boards),
+        n(s.counts.revisions),
+        n(s.counts.users),
+        n(s.statsRows),
+        ms(s.seedMs),
+        `${ms(s.rebuildMs)} (${s.rebuildMode})`,
+      ]),
     ),
     "",
     "### Runs",
@@ -138,7 +146,10 @@ export function markdownSection(report: BenchmarkReport): string {
   for (const size of report.sizes) {
     for (const board of size.plans) {
       const total = board.queries.reduce((sum, q) => sum + (q.executionMs ?? 0), 0);
-      out.push("", `#### ${n(size.submissions)} submissions: ${board.slug} (${board.why}, ${n(board.approvedSubmissions)} approved), ${total.toFixed(2)} ms of execution in all`);
+      out.push(
+        "",
+        `#### ${n(size.submissions)} submissions: ${board.slug} (${board.why}, ${n(board.approvedSubmissions)} approved), ${total.toFixed(2)} ms of execution in all`,
+      );
       for (const q of board.queries) {
         out.push("", "```sql", q.sql, "```", "", "```text", q.plan, "```");
       }
@@ -157,9 +168,7 @@ export function writeReport(file: string, report: BenchmarkReport): void {
   const start = current.indexOf(START_MARKER);
   const end = current.indexOf(END_MARKER);
   const next =
-    start >= 0 && end > start
-      ? current.slice(0, start) + section + current.slice(end + END_MARKER.length)
-      : `${current.replace(/\s*$/, "\n\n")}${section}\n`;
+    start >= 0 && end > start ? current.slice(0, start) + section + current.slice(end + END_MARKER.length) : `${current.replace(/\s*$/, "\n\n")}${section}\n`;
   mkdirSync(path.dirname(file), { recursive: true });
   writeFileSync(file, next);
 }

@@ -97,7 +97,12 @@ async function measureSize(
   const started = Date.now();
   const recorded = await recordResponses(app.url, paths);
   log(`warmed in ${Date.now() - started} ms`);
-  const bare = await startBareServerProcess(root, Object.fromEntries([...recorded].map(([p, r]) => [p, { headers: r.headers, body: r.body }])), scratch, lifecycle);
+  const bare = await startBareServerProcess(
+    root,
+    Object.fromEntries([...recorded].map(([p, r]) => [p, { headers: r.headers, body: r.body }])),
+    scratch,
+    lifecycle,
+  );
 
   const drawPath = uniformPicker(paths);
   const drawRecorded = uniformPicker([...recorded]);

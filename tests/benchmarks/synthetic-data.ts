@@ -26,7 +26,12 @@ export type SyntheticCatalogue = { manufacturers: SyntheticManufacturer[]; board
 /** Boards per invented maker: a long list of makers each with a few dozen boards. */
 const BOARDS_PER_MAKER = 40;
 const MOUNTING_PATTERNS = ["30.5x30.5", "20x20", "25.5x25.5", "16x16"] as const;
-const CELL_RANGES = [[2, 6], [1, 4], [3, 8], [2, 12]] as const;
+const CELL_RANGES = [
+  [2, 6],
+  [1, 4],
+  [3, 8],
+  [2, 12],
+] as const;
 
 const pad = (n: number, width: number) => String(n).padStart(width, "0");
 
@@ -175,10 +180,9 @@ export async function seedSyntheticData(sequelize: Sequelize, size: { boards: nu
        SELECT ${FAMILY_COLUMNS.join(", ")} FROM jsonb_populate_recordset(NULL::firmware_families, CAST(:rows AS jsonb))`,
       { rows: JSON.stringify(families) },
     );
-    await run(
-      `INSERT INTO manufacturers (slug, name) SELECT slug, name FROM jsonb_to_recordset(CAST(:rows AS jsonb)) AS x(slug text, name text)`,
-      { rows: JSON.stringify(catalogue.manufacturers) },
-    );
+    await run(`INSERT INTO manufacturers (slug, name) SELECT slug, name FROM jsonb_to_recordset(CAST(:rows AS jsonb)) AS x(slug text, name text)`, {
+      rows: JSON.stringify(catalogue.manufacturers),
+    });
     await run(
       `INSERT INTO board_models (manufacturer_id, slug, name, kind, mounting_pattern, min_cells, max_cells)
        SELECT m.id, x.slug, x.name, x.kind, x."mountingPattern", x."minCells", x."maxCells"

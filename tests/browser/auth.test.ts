@@ -80,7 +80,12 @@ describe.skipIf(!appUrl || !inboxUrl)("auth in Chromium: magic link, password, s
     await passwordForm.getByLabel("Password").fill(DEMO_ACCOUNTS.contributor.password);
     await Promise.all([page.waitForURL(/\/profile$/), passwordForm.getByRole("button", { name: "Sign in" }).click()]);
     expect(await page.getByTestId("profile-name").textContent()).toBe(DEMO_ACCOUNTS.contributor.name);
-    expect(await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: /Your profile/ }).isVisible()).toBe(true);
+    expect(
+      await page
+        .getByRole("navigation", { name: "Main" })
+        .getByRole("link", { name: /Your profile/ })
+        .isVisible(),
+    ).toBe(true);
     await shot(page, "auth-profile-desktop-dark");
 
     await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Sign out" }).click();

@@ -16,7 +16,11 @@ const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
 // Tinsel 25 AIO: v2 halved the shunt, so v1's current scale is wrong for v2
 const { boardSlug, before, after } = DEMO_LANDMARKS.hardwareChange;
 const KEYS: QuantityKey[] = ["voltageScale", "currentScale", "currentOffset"];
-const METHOD_RE = new RegExp(Object.values(METHOD_LABELS).map((l) => l.replace(/[()]/g, "\\$&")).join("|"));
+const METHOD_RE = new RegExp(
+  Object.values(METHOD_LABELS)
+    .map((l) => l.replace(/[()]/g, "\\$&"))
+    .join("|"),
+);
 const DATE_RE = /\b\d{1,2} [A-Z][a-z]{2} \d{4}\b/;
 
 async function apiGroup(revision: string, family: string) {

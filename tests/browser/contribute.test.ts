@@ -75,7 +75,10 @@ describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () =
 
   it("fills in board, firmware, method, a voltage check and a recharge cycle, and sees what they imply", async () => {
     await page.getByLabel("Board", { exact: true }).fill(board.name);
-    await page.getByRole("button", { name: new RegExp(board.name) }).first().click();
+    await page
+      .getByRole("button", { name: new RegExp(board.name) })
+      .first()
+      .click();
     await page.getByLabel("Revision").selectOption({ label: revision.label });
     await page.getByLabel("Firmware family").selectOption({ label: family.name });
     await page.getByLabel("Firmware version").fill(family.versions.at(-1)!.version);
@@ -97,7 +100,10 @@ describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () =
     await page.locator("#f-cycles-0-chargedMah").fill("2500");
     await page.locator("#f-cycles-0-chargedMah").blur();
     // 2500 mAh cannot go back into a 1500 mAh pack: refused beside the field before anything is sent
-    await page.locator("#f-cycles-0-chargedMah-error").getByText(/cannot have put 2500 mAh into a 1500 mAh pack/).waitFor();
+    await page
+      .locator("#f-cycles-0-chargedMah-error")
+      .getByText(/cannot have put 2500 mAh into a 1500 mAh pack/)
+      .waitFor();
     await page.locator("#f-cycles-0-chargedMah").fill("1290");
     await page.getByLabel("Voltage scale", { exact: true }).fill("110");
     await page.getByLabel("Current scale", { exact: true }).fill("102");
@@ -108,7 +114,10 @@ describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () =
     await implied.getByText("a current scale of 102.3").waitFor();
     expect(await implied.innerText()).toMatch(/voltage scale of 110/);
     const compare = page.getByRole("region", { name: "How your values compare" });
-    await compare.getByText(/approved value/).first().waitFor();
+    await compare
+      .getByText(/approved value/)
+      .first()
+      .waitFor();
     expect(await compare.innerText()).toMatch(/modified z-score/);
     await shot("contribute-form-phone-light");
   });
@@ -138,7 +147,12 @@ describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () =
   });
 
   it("the same pages on a desktop in dark mode, signed in as the same person", async () => {
-    const desktop = await browser.newContext({ baseURL: appUrl, viewport: { width: 1280, height: 800 }, colorScheme: "dark", storageState: await page.context().storageState() });
+    const desktop = await browser.newContext({
+      baseURL: appUrl,
+      viewport: { width: 1280, height: 800 },
+      colorScheme: "dark",
+      storageState: await page.context().storageState(),
+    });
     const wide = await desktop.newPage();
     await wide.goto("/my/submissions");
     expect(await wide.getByRole("heading", { level: 1 }).innerText()).toMatch(/my submissions/i);

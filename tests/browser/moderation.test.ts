@@ -57,11 +57,19 @@ describe.skipIf(!appUrl || !inboxUrl)("moderation in Chromium: an outlier first,
   }, 60_000);
 
   it("opens the first row, is refused without a reason, rejects with one and the contributor gets the mail", async () => {
-    const link = page.getByTestId("queue-row").first().getByRole("link", { name: /^Review submission #\d+$/ });
+    const link = page
+      .getByTestId("queue-row")
+      .first()
+      .getByRole("link", { name: /^Review submission #\d+$/ });
     const id = Number((await link.getAttribute("aria-label"))!.match(/#(\d+)/)![1]);
     await Promise.all([page.waitForURL(new RegExp(`/moderation/${id}$`)), link.click()]);
     expect(await page.getByRole("heading", { name: "Where the values fall" }).isVisible()).toBe(true);
-    expect(await page.getByText(/beyond ±3\.5/).first().isVisible()).toBe(true);
+    expect(
+      await page
+        .getByText(/beyond ±3\.5/)
+        .first()
+        .isVisible(),
+    ).toBe(true);
     await shot("moderation-review-phone");
 
     await page.getByRole("radio", { name: "Reject" }).check();

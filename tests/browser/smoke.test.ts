@@ -66,7 +66,9 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
     const { boardSlug } = DEMO_LANDMARKS.hardwareChange;
     const res = await page.goto(`/boards/${boardSlug}`);
     expect(res?.status()).toBe(200);
-    expect(await page.getByRole("heading", { level: 3, name: /^Revision / }).count()).toBe(scenario.boardRevisions.filter((r) => r.boardSlug === boardSlug).length);
+    expect(await page.getByRole("heading", { level: 3, name: /^Revision / }).count()).toBe(
+      scenario.boardRevisions.filter((r) => r.boardSlug === boardSlug).length,
+    );
     // 0.5 mΩ × 50 = 25 mV/A (Ohm's law; check-values.md), computed by lib/calibration/units.ts
     expect(await page.getByText("25 mV/A").first().isVisible()).toBe(true);
     await shot(page, "board-desktop-dark");
@@ -102,7 +104,12 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
     expect(res?.status()).toBe(200);
     const alert = page.getByRole("alert");
     for (const field of ["page", "kind", "sort", "q"]) {
-      expect(await alert.getByRole("term").filter({ hasText: new RegExp(`^${field}$`) }).count()).toBe(1);
+      expect(
+        await alert
+          .getByRole("term")
+          .filter({ hasText: new RegExp(`^${field}$`) })
+          .count(),
+      ).toBe(1);
     }
     await shot(page, "bad-params-phone-light");
     await page.close();

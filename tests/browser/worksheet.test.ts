@@ -24,7 +24,12 @@ async function publishedGroup(): Promise<{ revisionOption: string; familyName: s
     const v = (await (await fetch(new URL(`/api/v1/boards/${b.slug}/values`, appUrl))).json()) as Values;
     for (const r of v.revisions ?? []) {
       const g = r.families.find((f) => f.currentScale);
-      if (g) return { revisionOption: `${v.board.name} ${r.label}`, familyName: v.families.find((f) => f.slug === g.family)!.name, setting: g.currentScale!.recommended.setting };
+      if (g)
+        return {
+          revisionOption: `${v.board.name} ${r.label}`,
+          familyName: v.families.find((f) => f.slug === g.family)!.name,
+          setting: g.currentScale!.recommended.setting,
+        };
     }
   }
   throw new Error("the seeded scenario has no published current scale");
@@ -81,7 +86,11 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
     await page.getByText(/cannot be the same flight/).waitFor();
     await shot(page, "worksheet-bad-reading-phone");
 
-    for (const [reported, charged] of [[1200, 1300], [1290, 1300], [1299, 1300]]) {
+    for (const [reported, charged] of [
+      [1200, 1300],
+      [1290, 1300],
+      [1299, 1300],
+    ]) {
       const form = page.getByTestId("step-form");
       const n = await page.locator("[data-testid=iterations] tbody tr").count();
       await form.getByLabel("Reported mAh").fill(String(reported));
@@ -121,7 +130,10 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
     await form.getByLabel("Display voltage (V)").fill("16.40");
     await form.getByLabel("Multimeter (V)").fill("30");
     await form.getByRole("button", { name: "Save reading" }).click();
-    await page.getByText(/30 V cannot be right/).first().waitFor();
+    await page
+      .getByText(/30 V cannot be right/)
+      .first()
+      .waitFor();
     expect(await page.getByTestId("voltage-readings").count()).toBe(0);
     await form.getByLabel("Multimeter (V)").fill("16.80");
     await form.getByRole("button", { name: "Save reading" }).click();
@@ -136,7 +148,11 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
     await page.goto(`${quadUrl}/bench`);
     expect(await page.getByText("Bench tests are dangerous with props on").isVisible()).toBe(true);
     await page.getByTestId("bench-start").getByRole("button", { name: "Start" }).click();
-    for (const [measured, reported] of [[5, 5.2], [20, 20.9], [40, 41.5]]) {
+    for (const [measured, reported] of [
+      [5, 5.2],
+      [20, 20.9],
+      [40, 41.5],
+    ]) {
       const bench = page.getByTestId("bench-form");
       const saved = await page.getByTestId("bench-points").locator("li").count();
       await bench.getByLabel("Clamp meter (A)").fill(String(measured));

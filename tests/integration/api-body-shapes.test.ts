@@ -38,7 +38,10 @@ const routes = routeFiles(path.join(APP_DIR, "api"))
 
 /** Every table's row count, to prove a refused call wrote nothing. */
 async function tableCounts(): Promise<Record<string, number>> {
-  const tables = await db().query<{ t: string }>("SELECT tablename AS t FROM pg_tables WHERE schemaname = 'public' AND tablename NOT IN ('SequelizeMeta', 'rate_limits') ORDER BY 1", { type: QueryTypes.SELECT });
+  const tables = await db().query<{ t: string }>(
+    "SELECT tablename AS t FROM pg_tables WHERE schemaname = 'public' AND tablename NOT IN ('SequelizeMeta', 'rate_limits') ORDER BY 1",
+    { type: QueryTypes.SELECT },
+  );
   const out: Record<string, number> = {};
   for (const { t } of tables) out[t] = (await db().query<{ n: number }>(`SELECT count(*)::int AS n FROM "${t}"`, { type: QueryTypes.SELECT }))[0].n;
   return out;

@@ -43,7 +43,10 @@ describe("unsupported methods", () => {
 
   it.each(files.filter((file) => !EVERY_METHOD.has(file)))("%s answers the JSON 405 with Allow", async (file) => {
     vi.spyOn(console, "error").mockImplementation(() => undefined);
-    const mod = (await import(/* @vite-ignore */ `@/app/api/${file.replace(/\.ts$/, "")}`)) as Record<string, (req: Request, ctx: unknown) => Promise<Response>>;
+    const mod = (await import(/* @vite-ignore */ `@/app/api/${file.replace(/\.ts$/, "")}`)) as Record<
+      string,
+      (req: Request, ctx: unknown) => Promise<Response>
+    >;
     const implemented: string[] = [...(FOREIGN[file] ?? [])];
     const refusals: Response[] = [];
     for (const method of METHODS) {
@@ -54,7 +57,9 @@ describe("unsupported methods", () => {
       else implemented.push(method);
     }
     expect(refusals.length, `${file} has a method it does not implement`).toBeGreaterThan(0);
-    const allow = METHODS.filter((m) => implemented.includes(m)).flatMap((m) => (m === "GET" ? ["GET", "HEAD"] : [m])).join(", ");
+    const allow = METHODS.filter((m) => implemented.includes(m))
+      .flatMap((m) => (m === "GET" ? ["GET", "HEAD"] : [m]))
+      .join(", ");
     for (const res of refusals) {
       expect(res.headers.get("content-type")).toMatch(/^application\/json/);
       expect(res.headers.get("allow")).toBe(allow);

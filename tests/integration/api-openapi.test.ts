@@ -84,7 +84,8 @@ describe("GET /api/v1/openapi.json", () => {
     expect(values["200"].headers).toHaveProperty("ETag");
     expect(values["404"].content["application/json"].schema.$ref).toBe("#/components/schemas/Error");
     const q = doc.components.schemas.QuantityValues.properties;
-    for (const field of ["n", "median", "q1", "q3", "mad", "ciLow", "ciHigh", "recommended", "confidence", "lastChangeAt", "points"]) expect(q).toHaveProperty(field);
+    for (const field of ["n", "median", "q1", "q3", "mad", "ciLow", "ciHigh", "recommended", "confidence", "lastChangeAt", "points"])
+      expect(q).toHaveProperty(field);
     expect(doc.components.schemas.ValuePoint.required.sort()).toEqual(["date", "method", "modifiedZ", "outlier", "value"]);
     expect(doc.components.schemas.Error.properties.error.required.sort()).toEqual(["code", "fieldErrors", "message", "status"]);
   });
@@ -104,9 +105,26 @@ describe("GET /api/v1/openapi.json", () => {
     // the same fields the form and the handler parse (lib/submissions/schema.ts); the schema's
     // cross-field refinement keeps .shape out of reach, so the keys are read from a parse of {}
     const fields = Object.keys(doc.components.schemas.SubmissionInput.properties).sort();
-    const parsedKeys = new Set(submissionSchema().safeParse({}).error!.issues.map((i) => String(i.path[0])));
+    const parsedKeys = new Set(
+      submissionSchema()
+        .safeParse({})
+        .error!.issues.map((i) => String(i.path[0])),
+    );
     for (const key of parsedKeys) expect(fields).toContain(key);
-    expect(fields).toEqual(expect.arrayContaining(["boardRevisionId", "firmwareFamilyId", "method", "voltageScale", "currentScale", "currentOffset", "cycles", "bench", "voltageCheck", "photoIds"]));
+    expect(fields).toEqual(
+      expect.arrayContaining([
+        "boardRevisionId",
+        "firmwareFamilyId",
+        "method",
+        "voltageScale",
+        "currentScale",
+        "currentOffset",
+        "cycles",
+        "bench",
+        "voltageCheck",
+        "photoIds",
+      ]),
+    );
     expect(create.parameters.find((p: { name: string }) => p.name === "Idempotency-Key")).toMatchObject({ in: "header", required: false });
     expect(Object.keys(create.responses).sort()).toEqual(["201", "400", "401", "422", "500", "503"]);
     expect(create.security).toEqual([{ session: [] }]);

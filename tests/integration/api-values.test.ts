@@ -29,9 +29,7 @@ const KEYS = ["voltageScale", "currentScale", "currentOffset"] as const;
 const SQL_NAME = { voltageScale: "voltage_scale", currentScale: "current_scale", currentOffset: "current_offset" } as const;
 
 function everyQuantity(body: BoardValuesResponse) {
-  return body.revisions.flatMap((r) =>
-    r.families.flatMap((g: Quantities) => KEYS.flatMap((k) => (g[k] ? [{ revision: r, group: g, key: k, q: g[k]! }] : []))),
-  );
+  return body.revisions.flatMap((r) => r.families.flatMap((g: Quantities) => KEYS.flatMap((k) => (g[k] ? [{ revision: r, group: g, key: k, q: g[k]! }] : []))));
 }
 
 let busiest: string; // the board with the most approved values

@@ -31,7 +31,10 @@ const count = (model: { count: () => Promise<number> }) => model.count();
 
 describe("sign-up", () => {
   it("creates a contributor with a bcrypt hash, and the new password signs in", async () => {
-    const res = await callRoute(signUpRoute, json("/api/auth/sign-up", { name: "  Wren Okafor ", email: " Wren@Example.Test ", password: "ten chars ok", confirm: "ten chars ok" }));
+    const res = await callRoute(
+      signUpRoute,
+      json("/api/auth/sign-up", { name: "  Wren Okafor ", email: " Wren@Example.Test ", password: "ten chars ok", confirm: "ten chars ok" }),
+    );
     expect(res.status).toBe(201);
     const { user } = await res.json();
     expect(user).toMatchObject({ name: "Wren Okafor", email: "wren@example.test", role: "contributor" });
@@ -53,13 +56,20 @@ describe("sign-up", () => {
   });
 
   it("says the address is taken (409, on the email field), whatever its case", async () => {
-    const res = await callRoute(signUpRoute, json("/api/auth/sign-up", { name: "Copy", email: "Contributor@Shuntbook.test", password: "long enough pw", confirm: "long enough pw" }));
+    const res = await callRoute(
+      signUpRoute,
+      json("/api/auth/sign-up", { name: "Copy", email: "Contributor@Shuntbook.test", password: "long enough pw", confirm: "long enough pw" }),
+    );
     expect(res.status).toBe(409);
     expect((await res.json()).error.fieldErrors.email[0]).toMatch(/already exists/);
   });
 
   it("refuses a body that is not JSON (so another site's form cannot post it) and a write from another site's page", async () => {
-    const form = new Request("http://127.0.0.1:3999/api/auth/sign-up", { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" }, body: "name=x" });
+    const form = new Request("http://127.0.0.1:3999/api/auth/sign-up", {
+      method: "POST",
+      headers: { "content-type": "application/x-www-form-urlencoded" },
+      body: "name=x",
+    });
     expect((await callRoute(signUpRoute, form)).status).toBe(400);
     const crossSite = json("/api/auth/sign-up", {}, { headers: { origin: "https://elsewhere.test", host: "127.0.0.1:3999" } });
     expect((await callRoute(signUpRoute, crossSite)).status).toBe(403);
@@ -101,17 +111,29 @@ describe("profile", () => {
 
   it("changing the password needs the current one, signs out other sessions, keeps this one, and mails a notice", async () => {
     const account = await testAccount("contributor", { email: "changer@example.test" });
-    await User.scope("withPassword").update({ passwordHash: await import("@/lib/auth/passwords").then((m) => m.hashPassword("old password 1")) }, { where: { id: account.id } });
+    await User.scope("withPassword").update(
+      { passwordHash: await import("@/lib/auth/passwords").then((m) => m.hashPassword("old password 1")) },
+      { where: { id: account.id } },
+    );
     const { sessionCookieForAccount } = await import("@/tests/support/auth");
     const otherDevice = await sessionCookieForAccount(account, { signedInAt: new Date(Date.now() - 60_000) });
     const thisDevice = await sessionCookieForAccount(account, { signedInAt: new Date(Date.now() - 30_000) });
 
-    const wrong = await callRoute(changePasswordRoute, withCookie(json("/api/auth/profile/password", { currentPassword: "nope", newPassword: "new password 22", confirm: "new password 22" }), thisDevice));
+    const wrong = await callRoute(
+      changePasswordRoute,
+      withCookie(json("/api/auth/profile/password", { currentPassword: "nope", newPassword: "new password 22", confirm: "new password 22" }), thisDevice),
+    );
     expect(wrong.status).toBe(400);
     expect((await wrong.json()).error.fieldErrors.currentPassword[0]).toMatch(/not your current password/);
     expect(await authenticate(account.email, "old password 1")).not.toBeNull();
 
-    const res = await callRoute(changePasswordRoute, withCookie(json("/api/auth/profile/password", { currentPassword: "old password 1", newPassword: "new password 22", confirm: "new password 22" }), thisDevice));
+    const res = await callRoute(
+      changePasswordRoute,
+      withCookie(
+        json("/api/auth/profile/password", { currentPassword: "old password 1", newPassword: "new password 22", confirm: "new password 22" }),
+        thisDevice,
+      ),
+    );
     expect(res.status).toBe(200);
     const fresh = res.headers.get("set-cookie")!.split(";")[0];
     expect(await authenticate(account.email, "new password 22")).not.toBeNull();
@@ -143,7 +165,10 @@ describe("password reset by e-mail", () => {
     const plainStored = await PasswordResetToken.count({ where: { tokenHash: token } });
     expect(plainStored).toBe(0);
 
-    const done = await callRoute(resetComplete, json("/api/auth/password-reset/complete", { token, password: "brand new secret", confirm: "brand new secret" }));
+    const done = await callRoute(
+      resetComplete,
+      json("/api/auth/password-reset/complete", { token, password: "brand new secret", confirm: "brand new secret" }),
+    );
     expect(done.status).toBe(200);
     expect(await authenticate(email, "brand new secret")).not.toBeNull();
 
@@ -157,8 +182,13 @@ describe("password reset by e-mail", () => {
     const { requestPasswordReset } = await import("@/lib/auth/password-reset");
     const account = await testAccount("contributor", { email: "late@example.test" });
     const token = (await requestPasswordReset(account.email))!;
-    await db().query("UPDATE password_reset_tokens SET created_at = now() - interval '2 hours', expires_at = now() - interval '1 hour' WHERE user_id = $1", { bind: [account.id] });
-    const res = await callRoute(resetComplete, json("/api/auth/password-reset/complete", { token, password: "too late for this", confirm: "too late for this" }));
+    await db().query("UPDATE password_reset_tokens SET created_at = now() - interval '2 hours', expires_at = now() - interval '1 hour' WHERE user_id = $1", {
+      bind: [account.id],
+    });
+    const res = await callRoute(
+      resetComplete,
+      json("/api/auth/password-reset/complete", { token, password: "too late for this", confirm: "too late for this" }),
+    );
     expect(res.status).toBe(400);
     expect(await authenticate(account.email, "too late for this")).toBeNull();
   });
@@ -172,7 +202,8 @@ describe("password reset by e-mail", () => {
   });
 
   it(`is rate-limited per IP and address: request ${LIMITS.passwordReset.points + 1} gets a 429 with Retry-After`, async () => {
-    const ask = (ip: string) => callRoute(resetRequest, json("/api/auth/password-reset", { email: "limited@example.test" }, { headers: { "x-forwarded-for": ip } }));
+    const ask = (ip: string) =>
+      callRoute(resetRequest, json("/api/auth/password-reset", { email: "limited@example.test" }, { headers: { "x-forwarded-for": ip } }));
     for (let i = 0; i < LIMITS.passwordReset.points; i++) expect((await ask("198.51.100.7")).status).toBe(202);
     const limited = await ask("198.51.100.7");
     expect(limited.status).toBe(429);

@@ -5,16 +5,7 @@ import { currentUser, requirePageRole, requirePageUser, requireRole, requireUser
 import { route } from "@/lib/http";
 import { sessionCookieName } from "@/lib/auth/session-cookie";
 import { db, User } from "@/models";
-import {
-  ANONYMOUS,
-  callRoute,
-  inRequest,
-  redirectTarget,
-  sessionCookieFor,
-  sessionCookieForAccount,
-  testAccount,
-  withCookie,
-} from "@/tests/support/auth";
+import { ANONYMOUS, callRoute, inRequest, redirectTarget, sessionCookieFor, sessionCookieForAccount, testAccount, withCookie } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";
 
 useTestDatabase("migrated");
@@ -30,9 +21,7 @@ describe("the guard (lib/auth/guard.ts)", () => {
     const res = await callRoute(whoAmI, page(ANONYMOUS));
     expect(res.status).toBe(401);
     expect((await res.json()).error).toMatchObject({ status: 401, code: "unauthorized" });
-    expect(await redirectTarget(inRequest(page(ANONYMOUS), () => requirePageUser("/profile?tab=name")))).toBe(
-      "/signin?next=%2Fprofile%3Ftab%3Dname",
-    );
+    expect(await redirectTarget(inRequest(page(ANONYMOUS), () => requirePageUser("/profile?tab=name")))).toBe("/signin?next=%2Fprofile%3Ftab%3Dname");
   });
 
   it("a signed-in contributor is recognised, with the role from the database", async () => {

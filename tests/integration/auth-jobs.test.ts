@@ -14,10 +14,10 @@ useTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 const jobsNamed = async (state?: string) => {
-  const rows = await db().query<{ n: number }>(
-    `SELECT count(*) AS n FROM pgboss.job WHERE name = 'mail.send' ${state ? "AND state = $1" : ""}`,
-    { type: QueryTypes.SELECT, bind: state ? [state] : [] },
-  );
+  const rows = await db().query<{ n: number }>(`SELECT count(*) AS n FROM pgboss.job WHERE name = 'mail.send' ${state ? "AND state = $1" : ""}`, {
+    type: QueryTypes.SELECT,
+    bind: state ? [state] : [],
+  });
   return rows[0].n;
 };
 

@@ -96,7 +96,6 @@ describe("next-auth route: e-mail and password", () => {
     for (let i = 0; i < LIMITS.signIn.points; i++) {
       const res = await signInWithPassword(jar, DEMO_ACCOUNTS.moderator.email, `wrong ${i}`, ip);
       expect(res.status).toBe(401); // next-auth's answer to a wrong password
-
     }
     const limited = await signInWithPassword(jar, DEMO_ACCOUNTS.moderator.email, DEMO_ACCOUNTS.moderator.password, ip);
     expect(limited.status).toBe(429);
@@ -104,7 +103,9 @@ describe("next-auth route: e-mail and password", () => {
     expect((await limited.json()).error).toMatchObject({ code: "too_many_requests" });
     expect(jar.session()).toBeUndefined();
     // the right password from elsewhere still works
-    expect((await signInWithPassword(new Jar(), DEMO_ACCOUNTS.moderator.email, DEMO_ACCOUNTS.moderator.password, { "x-forwarded-for": "192.0.2.45" })).status).toBe(200);
+    expect(
+      (await signInWithPassword(new Jar(), DEMO_ACCOUNTS.moderator.email, DEMO_ACCOUNTS.moderator.password, { "x-forwarded-for": "192.0.2.45" })).status,
+    ).toBe(200);
   });
 
   it("a successful sign-in clears the count, so earlier typos do not add up", async () => {
@@ -129,7 +130,12 @@ describe("next-auth route: magic link", () => {
   it("mails a link; following it signs in (and creates a contributor for a new address); the link works once", async () => {
     const email = "first.visit@example.test";
     const jar = new Jar();
-    const res = await call(jar, "POST", "signin/email", { csrfToken: await csrf(jar), email: "First.Visit@Example.test", json: "true", callbackUrl: `${base()}/profile` });
+    const res = await call(jar, "POST", "signin/email", {
+      csrfToken: await csrf(jar),
+      email: "First.Visit@Example.test",
+      json: "true",
+      callbackUrl: `${base()}/profile`,
+    });
     // next-auth's verify-request step, which sends the browser on to our /signin/check-email page
     expect(new URL((await res.json()).url).pathname).toBe("/api/auth/verify-request");
     db();

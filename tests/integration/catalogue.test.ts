@@ -247,9 +247,15 @@ describe("board page data", () => {
     expect(board).toMatchObject({ slug: boardSlug, name: spec.name, kind: spec.kind, mountingPattern: spec.mountingPattern });
     expect(board.manufacturer.slug).toBe(spec.manufacturerSlug);
     expect([...board.aliases].sort()).toEqual(
-      scenario.boardAliases.filter((a) => a.boardSlug === boardSlug).map((a) => a.alias).sort(),
+      scenario.boardAliases
+        .filter((a) => a.boardSlug === boardSlug)
+        .map((a) => a.alias)
+        .sort(),
     );
-    const expectedLabels = scenario.boardRevisions.filter((r) => r.boardSlug === boardSlug).sort((a, b) => a.position - b.position).map((r) => r.label);
+    const expectedLabels = scenario.boardRevisions
+      .filter((r) => r.boardSlug === boardSlug)
+      .sort((a, b) => a.position - b.position)
+      .map((r) => r.label);
     expect(board.revisions.map((r) => r.label)).toEqual(expectedLabels);
 
     const counted = await db().query<{ id: number; n: number }>(
@@ -270,8 +276,8 @@ describe("board page data", () => {
     // Shunt and amplifier, sensitivity = R × gain (Ohm's law): 0.5 mΩ × 50 = 25 mV/A, and
     // 0.25 mΩ × 50 = 12.5 mV/A (check-values.md table). The hardware-change landmark has both.
     const tinsel = (await getBoardBySlug(DEMO_LANDMARKS.hardwareChange.boardSlug))!;
-    const [before, after] = [DEMO_LANDMARKS.hardwareChange.before, DEMO_LANDMARKS.hardwareChange.after].map(
-      (label) => tinsel.revisions.find((r) => r.label === label)!,
+    const [before, after] = [DEMO_LANDMARKS.hardwareChange.before, DEMO_LANDMARKS.hardwareChange.after].map((label) =>
+      tinsel.revisions.find((r) => r.label === label)!,
     );
     expect(before).toMatchObject({ currentSensor: "shunt", shuntMilliohms: 0.5, amplifierGain: 50 });
     expect(before.sensitivityMvPerAmp).toBeCloseTo(25, 12);

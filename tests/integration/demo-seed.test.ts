@@ -43,12 +43,14 @@ describe("the seeded demo", () => {
   });
 
   it("has one approval event per approved submission, by the demo moderator (or another for the moderator's own)", async () => {
-    const [row] = await select<{ approved: number; events: number; own: number; moderatorEvents: number }>(`
+    const [row] = await select<{ approved: number; events: number; own: number; moderatorEvents: number }>(
+      `
       SELECT (SELECT count(*)::int FROM submissions WHERE status = 'approved') AS approved,
              (SELECT count(*)::int FROM audit_events WHERE action = 'approve') AS events,
              (SELECT count(*)::int FROM audit_events e JOIN submissions s ON s.id = e.submission_id WHERE e.actor_id = s.contributor_id) AS own,
              (SELECT count(*)::int FROM audit_events e JOIN users u ON u.id = e.actor_id WHERE lower(u.email) = :email) AS "moderatorEvents"`,
-      { email: DEMO_ACCOUNTS.moderator.email });
+      { email: DEMO_ACCOUNTS.moderator.email },
+    );
     expect(row.events).toBe(row.approved);
     expect(row.own).toBe(0);
     expect(row.moderatorEvents).toBeGreaterThan(row.approved - 10);
@@ -71,7 +73,9 @@ describe("the seeded demo", () => {
         FROM (SELECT at, lag(at) OVER (PARTITION BY board_revision_id, firmware_family_id, quantity ORDER BY id) AS prev FROM published_value_history) h`);
     expect(order).toMatchObject({ backwards: 0, outside: 0 });
     expect(order.total).toBeGreaterThan(1000);
-    const [{ unsourced }] = await select<{ unsourced: number }>("SELECT count(*)::int AS unsourced FROM published_value_history WHERE caused_by_event_id IS NULL");
+    const [{ unsourced }] = await select<{ unsourced: number }>(
+      "SELECT count(*)::int AS unsourced FROM published_value_history WHERE caused_by_event_id IS NULL",
+    );
     expect(unsourced).toBe(0);
   });
 
@@ -88,7 +92,12 @@ describe("the seeded demo", () => {
         FROM audit_events e JOIN submissions s ON s.id = e.submission_id
        WHERE e.action = 'approve' AND s.current_scale IS NOT NULL ORDER BY e.at DESC LIMIT 1`);
     const listed = await listAuditEvents({ submission: target.id });
-    expect(listed.events[0]).toMatchObject({ id: target.eventId, revertable: true, before: { status: "pending", version: 0 }, after: { status: "approved", version: 1 } });
+    expect(listed.events[0]).toMatchObject({
+      id: target.eventId,
+      revertable: true,
+      before: { status: "pending", version: 0 },
+      after: { status: "approved", version: 1 },
+    });
 
     const result = await revertEvent({ id: admin.id }, target.eventId, { reason: "Approved by mistake during the demo walkthrough." });
     expect(result.submission).toMatchObject({ id: target.id, status: "pending", version: 2 });

@@ -14,7 +14,11 @@ useTestDatabase("migrated");
 
 const json = (url: string, cookie: string, method: string, body?: unknown) =>
   withCookie(
-    new Request(`http://test${url}`, { method, headers: body === undefined ? {} : { "content-type": "application/json" }, body: body === undefined ? undefined : JSON.stringify(body) }),
+    new Request(`http://test${url}`, {
+      method,
+      headers: body === undefined ? {} : { "content-type": "application/json" },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    }),
     cookie,
   );
 const params = <P>(p: P) => ({ params: Promise.resolve(p) });
@@ -25,7 +29,10 @@ describe("garage quads (app/api/v1/garage/quads)", () => {
     const alice = await sessionCookieFor("contributor", { email: "alice@garage.test" });
     const bob = await sessionCookieFor("contributor", { email: "bob@garage.test" });
 
-    const created = await callRoute(postQuad, json("/api/v1/garage/quads", alice, "POST", { name: "  Field five  ", esc: "Test 4-in-1", firmwareVersion: "2.1" }));
+    const created = await callRoute(
+      postQuad,
+      json("/api/v1/garage/quads", alice, "POST", { name: "  Field five  ", esc: "Test 4-in-1", firmwareVersion: "2.1" }),
+    );
     expect(created.status).toBe(201);
     const { quad } = await created.json();
     expect(quad).toMatchObject({ name: "Field five", esc: "Test 4-in-1", notes: null, boardRevisionId: null });
@@ -50,12 +57,23 @@ describe("garage quads (app/api/v1/garage/quads)", () => {
 describe("garage packs and charge logs", () => {
   it("counts cycles and estimates usable capacity from the log through packWarnings", async () => {
     const alice = await sessionCookieFor("contributor", { email: "alice@garage.test" });
-    const res = await callRoute(postPack, json("/api/v1/garage/packs", alice, "POST", { label: "Pack A", chemistry: "lipo", cells: 4, ratedMah: 1500, purchasedOn: "2026-01-10" }));
+    const res = await callRoute(
+      postPack,
+      json("/api/v1/garage/packs", alice, "POST", { label: "Pack A", chemistry: "lipo", cells: 4, ratedMah: 1500, purchasedOn: "2026-01-10" }),
+    );
     expect(res.status).toBe(201);
     const { pack } = await res.json();
     const id = String(pack.id);
-    for (const [day, mah] of [["2026-02-01", 1300], ["2026-02-02", 1350], ["2026-02-03", 1250]] as const) {
-      const r = await callRoute(postCharge, json(`/api/v1/garage/packs/${id}/charges`, alice, "POST", { chargedOn: day, chargedMah: mah, restingVoltsPerCell: 4.19 }), params({ id }));
+    for (const [day, mah] of [
+      ["2026-02-01", 1300],
+      ["2026-02-02", 1350],
+      ["2026-02-03", 1250],
+    ] as const) {
+      const r = await callRoute(
+        postCharge,
+        json(`/api/v1/garage/packs/${id}/charges`, alice, "POST", { chargedOn: day, chargedMah: mah, restingVoltsPerCell: 4.19 }),
+        params({ id }),
+      );
       expect(r.status).toBe(201);
     }
     const { pack: after } = await (await callRoute(getPackRoute, json(`/api/v1/garage/packs/${id}`, alice, "GET"), params({ id }))).json();
@@ -69,11 +87,17 @@ describe("garage packs and charge logs", () => {
 
   it("implausible readings get a field-level explanation and nothing is saved", async () => {
     const alice = await sessionCookieFor("contributor", { email: "alice@garage.test" });
-    const { pack } = await (await callRoute(postPack, json("/api/v1/garage/packs", alice, "POST", { label: "Pack B", chemistry: "lihv", cells: 6, ratedMah: 1100 }))).json();
+    const { pack } = await (
+      await callRoute(postPack, json("/api/v1/garage/packs", alice, "POST", { label: "Pack B", chemistry: "lihv", cells: 6, ratedMah: 1100 }))
+    ).json();
     const id = String(pack.id);
     db();
     const before = await PackCharge.count({ where: { packId: pack.id } });
-    const res = await callRoute(postCharge, json(`/api/v1/garage/packs/${id}/charges`, alice, "POST", { chargedOn: "2026-02-01", chargedMah: -5, restingVoltsPerCell: 25.1 }), params({ id }));
+    const res = await callRoute(
+      postCharge,
+      json(`/api/v1/garage/packs/${id}/charges`, alice, "POST", { chargedOn: "2026-02-01", chargedMah: -5, restingVoltsPerCell: 25.1 }),
+      params({ id }),
+    );
     expect(res.status).toBe(400);
     const { fieldErrors } = (await res.json()).error;
     expect(fieldErrors.chargedMah[0]).toMatch(/more than 0 mAh/);
@@ -87,9 +111,14 @@ describe("garage packs and charge logs", () => {
   it("another person's pack is 404 for reading and for logging a charge", async () => {
     const alice = await sessionCookieFor("contributor", { email: "alice@garage.test" });
     const bob = await sessionCookieFor("contributor", { email: "bob@garage.test" });
-    const { pack } = await (await callRoute(postPack, json("/api/v1/garage/packs", alice, "POST", { label: "Pack C", chemistry: "liion", cells: 2, ratedMah: 3000 }))).json();
+    const { pack } = await (
+      await callRoute(postPack, json("/api/v1/garage/packs", alice, "POST", { label: "Pack C", chemistry: "liion", cells: 2, ratedMah: 3000 }))
+    ).json();
     const id = String(pack.id);
     expect((await callRoute(getPackRoute, json(`/api/v1/garage/packs/${id}`, bob, "GET"), params({ id }))).status).toBe(404);
-    expect((await callRoute(postCharge, json(`/api/v1/garage/packs/${id}/charges`, bob, "POST", { chargedOn: "2026-02-01", chargedMah: 900 }), params({ id }))).status).toBe(404);
+    expect(
+      (await callRoute(postCharge, json(`/api/v1/garage/packs/${id}/charges`, bob, "POST", { chargedOn: "2026-02-01", chargedMah: 900 }), params({ id })))
+        .status,
+    ).toBe(404);
   });
 });

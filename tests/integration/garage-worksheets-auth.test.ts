@@ -40,18 +40,38 @@ beforeAll(async () => {
 const send = (handler: Handler, cookie: string, method: string, params: Record<string, string> = {}, body?: unknown) =>
   callRoute(
     handler,
-    withCookie(new Request("http://test.local/api/v1/garage/worksheets", body === undefined ? { method } : { method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), cookie),
+    withCookie(
+      new Request(
+        "http://test.local/api/v1/garage/worksheets",
+        body === undefined ? { method } : { method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) },
+      ),
+      cookie,
+    ),
     { params: Promise.resolve(params) },
   );
 
 async function quadOf(cookie: string): Promise<number> {
-  const res = await send(postQuad as Handler, cookie, "POST", {}, { name: "Matrix quad", boardRevisionId: fx.revisionIds[0], firmwareFamilyId: fx.familyId, firmwareVersion: "1.0.0" });
+  const res = await send(
+    postQuad as Handler,
+    cookie,
+    "POST",
+    {},
+    { name: "Matrix quad", boardRevisionId: fx.revisionIds[0], firmwareFamilyId: fx.familyId, firmwareVersion: "1.0.0" },
+  );
   return (await res.json()).quad.id;
 }
 /** A voltage worksheet of the cookie's owner with one reading: ready to read, extend, take back or publish. */
 async function sheetOf(cookie: string): Promise<string> {
-  const { worksheet } = await (await send(startRoute.POST as Handler, cookie, "POST", {}, { kind: "voltage", quadId: await quadOf(cookie), scaleUsed: 110 })).json();
-  await send(stepsRoute.POST as Handler, cookie, "POST", { id: String(worksheet.id) }, { cells: 4, reportedVolts: 16, measuredVolts: 16.4, measuredAt: "main_lead" });
+  const { worksheet } = await (
+    await send(startRoute.POST as Handler, cookie, "POST", {}, { kind: "voltage", quadId: await quadOf(cookie), scaleUsed: 110 })
+  ).json();
+  await send(
+    stepsRoute.POST as Handler,
+    cookie,
+    "POST",
+    { id: String(worksheet.id) },
+    { cells: 4, reportedVolts: 16, measuredVolts: 16.4, measuredAt: "main_lead" },
+  );
   return String(worksheet.id);
 }
 
@@ -70,9 +90,27 @@ const written = async () => (await db().query<Record<string, number>>(STATE_SQL,
 type Case = { name: string; handler: Handler; method: string; okStatus: number; call: (sheetId: string) => { params: Record<string, string>; body?: unknown } };
 const CASES: Case[] = [
   { name: "GET /garage/worksheets/{id}", handler: sheetRoute.GET as Handler, method: "GET", okStatus: 200, call: (id) => ({ params: { id } }) },
-  { name: "POST /garage/worksheets/{id}/steps", handler: stepsRoute.POST as Handler, method: "POST", okStatus: 201, call: (id) => ({ params: { id }, body: { cells: 4, reportedVolts: 16.1, measuredVolts: 16.5, measuredAt: "balance_outer_pins" } }) },
-  { name: "DELETE /garage/worksheets/{id}/steps/{position}", handler: stepRoute.DELETE as Handler, method: "DELETE", okStatus: 200, call: (id) => ({ params: { id, position: "0" } }) },
-  { name: "POST /garage/worksheets/{id}/publish", handler: publishRoute.POST as Handler, method: "POST", okStatus: 201, call: (id) => ({ params: { id }, body: {} }) },
+  {
+    name: "POST /garage/worksheets/{id}/steps",
+    handler: stepsRoute.POST as Handler,
+    method: "POST",
+    okStatus: 201,
+    call: (id) => ({ params: { id }, body: { cells: 4, reportedVolts: 16.1, measuredVolts: 16.5, measuredAt: "balance_outer_pins" } }),
+  },
+  {
+    name: "DELETE /garage/worksheets/{id}/steps/{position}",
+    handler: stepRoute.DELETE as Handler,
+    method: "DELETE",
+    okStatus: 200,
+    call: (id) => ({ params: { id, position: "0" } }),
+  },
+  {
+    name: "POST /garage/worksheets/{id}/publish",
+    handler: publishRoute.POST as Handler,
+    method: "POST",
+    okStatus: 201,
+    call: (id) => ({ params: { id }, body: {} }),
+  },
 ];
 
 describe("POST /garage/worksheets (start)", () => {
@@ -91,7 +129,13 @@ describe("POST /garage/worksheets (start)", () => {
     expect(res.headers.get("cache-control")).toBe("no-store");
     // someone else's quad: 404, nothing started
     const after = await written();
-    const foreign = await send(startRoute.POST as Handler, cookies[caller], "POST", {}, { kind: "bench", quadId: caller === "contributor" ? await quadOf(cookies.admin) : quadId, scaleUsed: 400, offsetUsed: 0 });
+    const foreign = await send(
+      startRoute.POST as Handler,
+      cookies[caller],
+      "POST",
+      {},
+      { kind: "bench", quadId: caller === "contributor" ? await quadOf(cookies.admin) : quadId, scaleUsed: 400, offsetUsed: 0 },
+    );
     expect(foreign.status).toBe(404);
     expect(await written()).toEqual(after);
   });
@@ -128,7 +172,11 @@ describe("writes from another site's page", () => {
     const id = await sheetOf(cookies.contributor);
     const before = await written();
     const request = withCookie(
-      new Request(`http://test.local/api/v1/garage/worksheets/${id}/publish`, { method: "POST", headers: { "content-type": "application/json", origin: "https://elsewhere.example", host: "test.local" }, body: "{}" }),
+      new Request(`http://test.local/api/v1/garage/worksheets/${id}/publish`, {
+        method: "POST",
+        headers: { "content-type": "application/json", origin: "https://elsewhere.example", host: "test.local" },
+        body: "{}",
+      }),
       cookies.contributor,
     );
     expect((await callRoute(publishRoute.POST as Handler, request, { params: Promise.resolve({ id }) })).status).toBe(403);

@@ -20,7 +20,10 @@ useTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 const req = (cookie: string, body?: unknown, method = "POST") =>
-  withCookie(new Request("http://test/x", body === undefined ? { method } : { method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), cookie);
+  withCookie(
+    new Request("http://test/x", body === undefined ? { method } : { method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) }),
+    cookie,
+  );
 const params = (id: number, position?: number) => ({ params: Promise.resolve({ id: String(id), position: String(position ?? "") }) });
 const count = async (table: string, where = "TRUE") =>
   (await db().query<{ n: number }>(`SELECT count(*)::int AS n FROM ${table} WHERE ${where}`, { type: QueryTypes.SELECT }))[0].n;
@@ -35,7 +38,10 @@ beforeAll(async () => {
 });
 
 async function quadOf(cookie: string) {
-  const res = await callRoute(postQuad, req(cookie, { name: "Field quad", boardRevisionId: fx.revisionIds[0], firmwareFamilyId: fx.familyId, firmwareVersion: "1.2.0" }));
+  const res = await callRoute(
+    postQuad,
+    req(cookie, { name: "Field quad", boardRevisionId: fx.revisionIds[0], firmwareFamilyId: fx.familyId, firmwareVersion: "1.2.0" }),
+  );
   return (await res.json()).quad.id as number;
 }
 async function start(cookie: string, body: Record<string, unknown>) {
@@ -79,9 +85,17 @@ describe("voltage worksheet, saved reading by reading", () => {
     expect(res.status, await res.clone().text()).toBe(201);
     const { submission } = await res.json();
     db();
-    expect(await Submission.findByPk(submission.id)).toMatchObject({ status: "pending", method: "multimeter", voltageScale: view.result.rounding.recommended.setting, currentScale: null });
+    expect(await Submission.findByPk(submission.id)).toMatchObject({
+      status: "pending",
+      method: "multimeter",
+      voltageScale: view.result.rounding.recommended.setting,
+      currentScale: null,
+    });
     const evidence = await SubmissionVoltageReading.findAll({ where: { submissionId: submission.id }, order: [["position", "ASC"]] });
-    expect(evidence.map((r) => [r.scaleUsed, r.reportedVolts, r.measuredVolts, r.measuredAt])).toEqual([[110, 16.0, 16.4, "main_lead"], [110, 16.2, 16.6, "balance_outer_pins"]]);
+    expect(evidence.map((r) => [r.scaleUsed, r.reportedVolts, r.measuredVolts, r.measuredAt])).toEqual([
+      [110, 16.0, 16.4, "main_lead"],
+      [110, 16.2, 16.6, "balance_outer_pins"],
+    ]);
     expect((await Worksheet.findByPk(sheet.id))!.submissionId).toBe(submission.id);
 
     // published: the readings are evidence now
@@ -141,7 +155,11 @@ describe("bench worksheet, saved point by point", () => {
   // fixture family: current scale in mV/A, 'inverse', so the new scale = old × gain, and a mV
   // offset becomes old + intercept × scale (lib/calibration/evidence.ts; least squares as
   // simple-statistics linearRegression). Points on reported = 1.1 × measured: gain 1.1, intercept 0.
-  const points = [[10, 11], [20, 22], [30, 33]] as const;
+  const points = [
+    [10, 11],
+    [20, 22],
+    [30, 33],
+  ] as const;
 
   it("needs a second current before it fits, then fits, and publishes a bench submission with the points", async () => {
     const noOffset = await callRoute(startSheet, req(owner, { kind: "bench", quadId: await quadOf(owner), scaleUsed: 400 }));
@@ -206,7 +224,9 @@ describe("publishing is one transaction", () => {
     expect(answers.map((r) => r.status).sort()).toEqual([201, 409]);
     expect(await count("submissions")).toBe(before + 1);
     expect(await count("worksheet_voltage_readings", `worksheet_id = ${id}`)).toBe(1);
-    const linked = (await db().query<{ n: number }>(`SELECT count(*)::int AS n FROM worksheets WHERE id = ${id} AND submission_id IS NOT NULL`, { type: QueryTypes.SELECT }))[0].n;
+    const linked = (
+      await db().query<{ n: number }>(`SELECT count(*)::int AS n FROM worksheets WHERE id = ${id} AND submission_id IS NOT NULL`, { type: QueryTypes.SELECT })
+    )[0].n;
     expect(linked).toBe(1);
   });
 
@@ -214,7 +234,9 @@ describe("publishing is one transaction", () => {
     const id = await finishedVoltage();
     // a trigger makes the link itself fail, after the submission and its evidence were written
     await db().query(`CREATE FUNCTION refuse_link() RETURNS trigger LANGUAGE plpgsql AS $$ BEGIN RAISE EXCEPTION 'link refused by the test'; END $$`);
-    await db().query(`CREATE TRIGGER refuse_link BEFORE UPDATE OF submission_id ON worksheets FOR EACH ROW WHEN (NEW.id = ${id}) EXECUTE FUNCTION refuse_link()`);
+    await db().query(
+      `CREATE TRIGGER refuse_link BEFORE UPDATE OF submission_id ON worksheets FOR EACH ROW WHEN (NEW.id = ${id}) EXECUTE FUNCTION refuse_link()`,
+    );
     const before = [await count("submissions"), await count("submission_voltage_readings"), await count("pgboss.job")];
     try {
       const res = await callRoute(publish, req(owner, {}), params(id));

@@ -18,7 +18,10 @@ useTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 const req = (url: string, cookie: string, body?: unknown) =>
-  withCookie(new Request(`http://test${url}`, body === undefined ? {} : { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), cookie);
+  withCookie(
+    new Request(`http://test${url}`, body === undefined ? {} : { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }),
+    cookie,
+  );
 const params = (id: number) => ({ params: Promise.resolve({ id: String(id) }) });
 
 let fx: Fixture;
@@ -27,7 +30,12 @@ beforeAll(async () => {
 });
 
 async function startOne(cookie: string) {
-  const { quad } = await (await callRoute(postQuad, req("/api/v1/garage/quads", cookie, { name: "Bench quad", boardRevisionId: fx.revisionIds[0], firmwareFamilyId: fx.familyId, firmwareVersion: "1.2.0" }))).json();
+  const { quad } = await (
+    await callRoute(
+      postQuad,
+      req("/api/v1/garage/quads", cookie, { name: "Bench quad", boardRevisionId: fx.revisionIds[0], firmwareFamilyId: fx.familyId, firmwareVersion: "1.2.0" }),
+    )
+  ).json();
   const noStart = await callRoute(startSheet, req("/api/v1/garage/worksheets", cookie, { quadId: quad.id, ratedMah: 1500, cells: 4 }));
   // nothing is published for the fixture board: the builder must say what the quad flies with now
   expect(noStart.status).toBe(400);
@@ -45,7 +53,8 @@ describe("fly-and-recharge worksheet, saved step by step", () => {
 
     // fixture family: mV/A, an 'inverse' unit, so next = scale × reported ÷ charged
     // (the fly-and-recharge rule: common practice, no source): 400 × 1200 ÷ 1300 = 369.23…
-    let view = (await (await callRoute(postStep, req(`/x`, cookie, { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }), params(sheet.id))).json()).worksheet;
+    let view = (await (await callRoute(postStep, req(`/x`, cookie, { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }), params(sheet.id))).json())
+      .worksheet;
     expect(view.result.iterations[0].impliedScale).toBeCloseTo((400 * 1200) / 1300, 9);
     expect(view.result.next.down.setting).toBe(369);
     expect(view.result.next.up.setting).toBe(370);
@@ -92,7 +101,9 @@ describe("fly-and-recharge worksheet, saved step by step", () => {
     const sheet = await startOne(cookie);
     const step = (body: object) => callRoute(postStep, req(`/x`, cookie, body), params(sheet.id));
     const takeBack = (position: number) =>
-      callRoute(removeStep, withCookie(new Request("http://test/x", { method: "DELETE" }), cookie), { params: Promise.resolve({ id: String(sheet.id), position: String(position) }) });
+      callRoute(removeStep, withCookie(new Request("http://test/x", { method: "DELETE" }), cookie), {
+        params: Promise.resolve({ id: String(sheet.id), position: String(position) }),
+      });
     await step({ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 });
     // 1380 typed for 1300: plausible, so stored, but wrong
     await step({ scaleUsed: 369, reportedMah: 1296, chargedMah: 1380 });
@@ -110,7 +121,10 @@ describe("fly-and-recharge worksheet, saved step by step", () => {
     expect((await takeBack(1)).status).toBe(409);
     // the corrected iteration takes position 1 again; the taken-back row is still in the table
     const fixed = (await (await step({ scaleUsed: 369, reportedMah: 1296, chargedMah: 1300 })).json()).worksheet;
-    expect(fixed.steps.map((s: { position: number; chargedMah: number }) => [s.position, s.chargedMah])).toEqual([[0, 1300], [1, 1300]]);
+    expect(fixed.steps.map((s: { position: number; chargedMah: number }) => [s.position, s.chargedMah])).toEqual([
+      [0, 1300],
+      [1, 1300],
+    ]);
     db();
     expect(await WorksheetStep.count({ where: { worksheetId: sheet.id } })).toBe(3);
     // published: only the live iterations are evidence, and nothing can be taken back any more

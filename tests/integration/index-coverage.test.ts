@@ -99,7 +99,9 @@ async function seqScansOnceReported(): Promise<Map<string, number>> {
 }
 
 const get = (handler: unknown, url: string, cookie: string, params: Record<string, string> = {}) =>
-  callRoute(handler as (r: Request, c: unknown) => Promise<Response>, withCookie(new Request(`http://test${url}`), cookie), { params: Promise.resolve(params) });
+  callRoute(handler as (r: Request, c: unknown) => Promise<Response>, withCookie(new Request(`http://test${url}`), cookie), {
+    params: Promise.resolve(params),
+  });
 const send = (handler: unknown, method: string, url: string, cookie: string, body: unknown, params: Record<string, string> = {}) =>
   callRoute(
     handler as (r: Request, c: unknown) => Promise<Response>,
@@ -158,11 +160,32 @@ describe("every query an endpoint or page runs has an index behind it", () => {
     await ok(get(quadsRoute.GET, "/api/v1/garage/quads", contributor));
     await ok(get(packsRoute.GET, "/api/v1/garage/packs", contributor));
     // a saved voltage worksheet: started, two readings, one taken back, read, listed, published
-    const { quad } = await ok(send(quadsRoute.POST, "POST", "/api/v1/garage/quads", contributor, { name: "Index check sheets", boardRevisionId: target.revisionId, firmwareFamilyId: target.familyId, firmwareVersion: "1.0.0" }), 201);
-    const { worksheet } = await ok(send(worksheetsRoute.POST, "POST", "/api/v1/garage/worksheets", contributor, { kind: "voltage", quadId: quad.id, scaleUsed: 110 }), 201);
+    const { quad } = await ok(
+      send(quadsRoute.POST, "POST", "/api/v1/garage/quads", contributor, {
+        name: "Index check sheets",
+        boardRevisionId: target.revisionId,
+        firmwareFamilyId: target.familyId,
+        firmwareVersion: "1.0.0",
+      }),
+      201,
+    );
+    const { worksheet } = await ok(
+      send(worksheetsRoute.POST, "POST", "/api/v1/garage/worksheets", contributor, { kind: "voltage", quadId: quad.id, scaleUsed: 110 }),
+      201,
+    );
     const sheetId = String(worksheet.id);
     for (const measuredVolts of [16.4, 16.5]) {
-      await ok(send(worksheetStepsRoute.POST, "POST", `/api/v1/garage/worksheets/${sheetId}/steps`, contributor, { cells: 4, reportedVolts: 16, measuredVolts, measuredAt: "main_lead" }, { id: sheetId }), 201);
+      await ok(
+        send(
+          worksheetStepsRoute.POST,
+          "POST",
+          `/api/v1/garage/worksheets/${sheetId}/steps`,
+          contributor,
+          { cells: 4, reportedVolts: 16, measuredVolts, measuredAt: "main_lead" },
+          { id: sheetId },
+        ),
+        201,
+      );
     }
     await ok(send(worksheetStepRoute.DELETE, "DELETE", `/api/v1/garage/worksheets/${sheetId}/steps/1`, contributor, undefined, { id: sheetId, position: "1" }));
     await ok(get(worksheetRoute.GET, `/api/v1/garage/worksheets/${sheetId}`, contributor, { id: sheetId }));
@@ -178,9 +201,21 @@ describe("every query an endpoint or page runs has an index behind it", () => {
     await ok(get(reviewRoute.GET, `/api/v1/moderation/submissions/${id}`, moderator, { id }));
     await contributorRecord((await testAccount("contributor")).id);
     await ok(send(approveRoute.POST, "POST", `/api/v1/moderation/submissions/${id}/approve`, moderator, { version: created.submission.version }, { id }));
-    const second = await ok(send(submissionsRoute.POST, "POST", "/api/v1/submissions", contributor, validBody(target, { currentScale: (validBody(target).currentScale ?? 400) + 1 })), 201);
+    const second = await ok(
+      send(submissionsRoute.POST, "POST", "/api/v1/submissions", contributor, validBody(target, { currentScale: (validBody(target).currentScale ?? 400) + 1 })),
+      201,
+    );
     const secondId = String(second.submission.id);
-    await ok(send(rejectRoute.POST, "POST", `/api/v1/moderation/submissions/${secondId}/reject`, moderator, { version: second.submission.version, reason: "Index check." }, { id: secondId }));
+    await ok(
+      send(
+        rejectRoute.POST,
+        "POST",
+        `/api/v1/moderation/submissions/${secondId}/reject`,
+        moderator,
+        { version: second.submission.version, reason: "Index check." },
+        { id: secondId },
+      ),
+    );
     const log = await ok(get(eventsRoute.GET, `/api/v1/moderation/events?submission=${id}`, moderator));
     await ok(get(eventsRoute.GET, "/api/v1/moderation/events?action=approve", moderator));
     const eventId = String(log.events[0].id);

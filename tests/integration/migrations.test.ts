@@ -87,10 +87,13 @@ describe("migrations", () => {
 
   it("worksheets: pack columns for fly_recharge only, the offset for bench only; the kinds' down keeps fly-and-recharge rows and restores the old schema", async () => {
     const fx = await insertFixture(sequelize);
-    const [quad] = await sequelize.query<{ id: number }>("INSERT INTO quads (owner_id, name, board_revision_id, firmware_family_id) VALUES ($1, 'Q', $2, $3) RETURNING id", {
-      bind: [fx.userId, fx.revisionIds[0], fx.familyId],
-      type: QueryTypes.SELECT,
-    });
+    const [quad] = await sequelize.query<{ id: number }>(
+      "INSERT INTO quads (owner_id, name, board_revision_id, firmware_family_id) VALUES ($1, 'Q', $2, $3) RETURNING id",
+      {
+        bind: [fx.userId, fx.revisionIds[0], fx.familyId],
+        type: QueryTypes.SELECT,
+      },
+    );
     const sheet = (kind: string, ratedMah: number | null, cells: number | null, offset: number | null) =>
       sequelize.query(
         `INSERT INTO worksheets (owner_id, quad_id, kind, firmware_family_id, rated_mah, cells, starting_scale, starting_offset, starting_source)
@@ -100,7 +103,13 @@ describe("migrations", () => {
     await sheet("fly_recharge", 1500, 4, null);
     await sheet("voltage", null, null, null);
     await sheet("bench", null, null, 0);
-    const refused: Array<Parameters<typeof sheet>> = [["fly_recharge", null, 4, null], ["voltage", 1500, 4, null], ["bench", null, null, null], ["voltage", null, null, 0], ["guess", null, null, null]];
+    const refused: Array<Parameters<typeof sheet>> = [
+      ["fly_recharge", null, 4, null],
+      ["voltage", 1500, 4, null],
+      ["bench", null, null, null],
+      ["voltage", null, null, 0],
+      ["guess", null, null, null],
+    ];
     for (const bad of refused) await expect(sheet(...bad), JSON.stringify(bad)).rejects.toThrow(/check constraint/);
 
     const qi = sequelize.getQueryInterface();
@@ -108,16 +117,19 @@ describe("migrations", () => {
     const kinds = await sequelize.query<{ kind: string }>("SELECT kind FROM worksheets", { type: QueryTypes.SELECT });
     expect(kinds.map((k) => k.kind)).toEqual(["fly_recharge"]);
     await expect(sheet("voltage", 1500, 4, null)).rejects.toThrow(/starting_offset|check constraint/);
-    await expect(sequelize.query("INSERT INTO worksheets (owner_id, quad_id, kind, firmware_family_id, rated_mah, cells, starting_scale, starting_source) VALUES ($1, $2, 'fly_recharge', $3, NULL, 4, 400, 'own')", { bind: [fx.userId, quad.id, fx.familyId] })).rejects.toThrow(/not-null|null value/);
+    await expect(
+      sequelize.query(
+        "INSERT INTO worksheets (owner_id, quad_id, kind, firmware_family_id, rated_mah, cells, starting_scale, starting_source) VALUES ($1, $2, 'fly_recharge', $3, NULL, 4, 400, 'own')",
+        { bind: [fx.userId, quad.id, fx.familyId] },
+      ),
+    ).rejects.toThrow(/not-null|null value/);
     for (const m of [worksheetKinds, voltageReadings, benchPoints]) await m.up(qi);
     expect(await tables()).toEqual(EXPECTED_TABLES);
     await sheet("bench", null, null, -20);
   });
 
   it("check constraints refuse impossible values", async () => {
-    await expect(
-      sequelize.query("INSERT INTO manufacturers (slug, name) VALUES ('Not A Slug', 'x')"),
-    ).rejects.toThrow(/check constraint/);
+    await expect(sequelize.query("INSERT INTO manufacturers (slug, name) VALUES ('Not A Slug', 'x')")).rejects.toThrow(/check constraint/);
     await sequelize.query("INSERT INTO manufacturers (slug, name) VALUES ('acme-test', 'Test maker')");
     await expect(
       sequelize.query(

@@ -192,7 +192,17 @@ describe("the audit log is append-only", () => {
 
 describe("bulk approval", () => {
   const bulk = (body: unknown, cookie: string) =>
-    callRoute(bulkRoute, withCookie(new Request("http://test.local/api/v1/moderation/bulk-approve", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), cookie));
+    callRoute(
+      bulkRoute,
+      withCookie(
+        new Request("http://test.local/api/v1/moderation/bulk-approve", {
+          method: "POST",
+          headers: { "content-type": "application/json" },
+          body: JSON.stringify(body),
+        }),
+        cookie,
+      ),
+    );
 
   it("approves the unflagged items one by one and reports the conflicted and the refused", async () => {
     const ok1 = await insertSubmission(setup.fx, { currentScale: 400 });
@@ -204,7 +214,17 @@ describe("bulk approval", () => {
     const eventsBefore = (await writtenState()).events as number;
 
     const res = await bulk(
-      { items: [{ id: ok1, version: 0 }, { id: stale, version: 5 }, { id: far, version: 0 }, { id: mismatch, version: 0 }, { id: newcomer, version: 0 }, { id: 999999, version: 0 }, { id: ok2, version: 0 }] },
+      {
+        items: [
+          { id: ok1, version: 0 },
+          { id: stale, version: 5 },
+          { id: far, version: 0 },
+          { id: mismatch, version: 0 },
+          { id: newcomer, version: 0 },
+          { id: 999999, version: 0 },
+          { id: ok2, version: 0 },
+        ],
+      },
       moderator,
     );
     expect(res.status).toBe(200);
@@ -222,7 +242,19 @@ describe("bulk approval", () => {
   it("refuses a bad list before writing anything, naming the item", async () => {
     const before = await writtenState();
     await expectError(await bulk({ items: [] }, moderator), 400, "items");
-    await expectError(await bulk({ items: [{ id: 1, version: 0 }, { id: 1, version: 0 }] }, moderator), 400, "items.1.id");
+    await expectError(
+      await bulk(
+        {
+          items: [
+            { id: 1, version: 0 },
+            { id: 1, version: 0 },
+          ],
+        },
+        moderator,
+      ),
+      400,
+      "items.1.id",
+    );
     await expectError(await bulk({ items: Array.from({ length: 101 }, (_, i) => ({ id: i + 1, version: 0 })) }, moderator), 400, "items");
     expect(await writtenState()).toEqual(before);
   });

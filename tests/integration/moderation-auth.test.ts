@@ -54,8 +54,20 @@ const pending = () => insertSubmission(setup.fx, { currentScale: 401 });
 let people = 0;
 
 const CASES: Case[] = [
-  { name: "GET /moderation/queue", handler: queueRoute.GET as Handler, minimum: "moderator", okStatus: 200, prepare: async () => ({ method: "GET", path: "/api/v1/moderation/queue" }) },
-  { name: "GET /moderation/events", handler: eventsRoute.GET as Handler, minimum: "moderator", okStatus: 200, prepare: async () => ({ method: "GET", path: "/api/v1/moderation/events" }) },
+  {
+    name: "GET /moderation/queue",
+    handler: queueRoute.GET as Handler,
+    minimum: "moderator",
+    okStatus: 200,
+    prepare: async () => ({ method: "GET", path: "/api/v1/moderation/queue" }),
+  },
+  {
+    name: "GET /moderation/events",
+    handler: eventsRoute.GET as Handler,
+    minimum: "moderator",
+    okStatus: 200,
+    prepare: async () => ({ method: "GET", path: "/api/v1/moderation/events" }),
+  },
   {
     name: "GET /moderation/submissions/{id}",
     handler: reviewRoute.GET as Handler,
@@ -72,18 +84,16 @@ const CASES: Case[] = [
       ["reject", rejectRoute.POST, { version: 0, reason: "Too far off." }],
       ["request-changes", requestChangesRoute.POST, { version: 0, message: "Add a photo." }],
     ] as const
-  ).map(
-    ([segment, handler, body]): Case => ({
-      name: `POST /moderation/submissions/{id}/${segment}`,
-      handler: handler as Handler,
-      minimum: "moderator",
-      okStatus: 200,
-      prepare: async () => {
-        const id = String(await pending());
-        return { method: "POST", path: `/api/v1/moderation/submissions/${id}/${segment}`, params: { id }, body };
-      },
-    }),
-  ),
+  ).map(([segment, handler, body]): Case => ({
+    name: `POST /moderation/submissions/{id}/${segment}`,
+    handler: handler as Handler,
+    minimum: "moderator",
+    okStatus: 200,
+    prepare: async () => {
+      const id = String(await pending());
+      return { method: "POST", path: `/api/v1/moderation/submissions/${id}/${segment}`, params: { id }, body };
+    },
+  })),
   {
     name: "POST /moderation/bulk-approve",
     handler: bulkRoute.POST as Handler,
@@ -102,7 +112,13 @@ const CASES: Case[] = [
       return { method: "POST", path: `/api/v1/admin/events/${event.id}/revert`, params: { id: String(event.id) }, body: { reason: "Checking the matrix." } };
     },
   },
-  { name: "GET /admin/users", handler: usersRoute.GET as Handler, minimum: "admin", okStatus: 200, prepare: async () => ({ method: "GET", path: "/api/v1/admin/users" }) },
+  {
+    name: "GET /admin/users",
+    handler: usersRoute.GET as Handler,
+    minimum: "admin",
+    okStatus: 200,
+    prepare: async () => ({ method: "GET", path: "/api/v1/admin/users" }),
+  },
   {
     name: "GET /admin/users/{id}",
     handler: userRoute.GET as Handler,

@@ -24,7 +24,8 @@ beforeAll(async () => {
   second = await sessionCookieFor("moderator", { email: "second-moderator@auth.test", name: "Second Moderator" });
 });
 
-const body = (decision: Decision) => (decision === "approve" ? { version: 0 } : decision === "reject" ? { version: 0, reason: "Too far off." } : { version: 0, message: "Add evidence." });
+const body = (decision: Decision) =>
+  decision === "approve" ? { version: 0 } : decision === "reject" ? { version: 0, reason: "Too far off." } : { version: 0, message: "Add evidence." };
 
 const eventsFor = (id: number) =>
   db().query<{ action: string }>("SELECT action FROM audit_events WHERE submission_id = :id", { replacements: { id }, type: QueryTypes.SELECT });

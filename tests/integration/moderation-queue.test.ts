@@ -56,7 +56,12 @@ describe("listQueue", () => {
 
   it("scores each value with the NIST modified z against the approved values (simple-statistics median and MAD)", async () => {
     const rows = (await listQueue()).rows;
-    for (const [name, x] of [["far", 460], ["justOut", 415], ["recent", 410], ["old", 402]] as const) {
+    for (const [name, x] of [
+      ["far", 460],
+      ["justOut", 415],
+      ["recent", 410],
+      ["old", 402],
+    ] as const) {
       const row = rows.find((r) => r.id === ids[name])!;
       expect(row.flags.modifiedZ.currentScale).toBeCloseTo(nist(x), 9);
       expect(row.flags.outlier).toBe(Math.abs(nist(x)) > 3.5);
@@ -145,7 +150,9 @@ describe("getReview", () => {
     expect(review.quantities.find((x) => x.quantity === "currentOffset")).toMatchObject({ value: null, moves: null, placement: null });
 
     // the contributor's record: everything approved in the group is theirs (the fixture has one contributor)
-    const [{ approved }] = await db().query<{ approved: number }>("SELECT count(*)::int AS approved FROM submissions WHERE status = 'approved'", { type: QueryTypes.SELECT });
+    const [{ approved }] = await db().query<{ approved: number }>("SELECT count(*)::int AS approved FROM submissions WHERE status = 'approved'", {
+      type: QueryTypes.SELECT,
+    });
     expect(review.contributor.record.approved).toBe(approved);
     expect(review.contributor.trust).toMatchObject({ trusted: true, reason: "record" });
     expect(review.contributor.otherForBoard.map((o) => o.id)).toContain(ids.far);
@@ -191,7 +198,9 @@ describe("getReview", () => {
 
   it("the route: 404 for an unknown or impossible id", async () => {
     for (const raw of ["999999", "x1"]) {
-      const res = await callRoute(reviewRoute, withCookie(new Request(`http://test.local/api/v1/moderation/submissions/${raw}`), moderator), { params: Promise.resolve({ id: raw }) });
+      const res = await callRoute(reviewRoute, withCookie(new Request(`http://test.local/api/v1/moderation/submissions/${raw}`), moderator), {
+        params: Promise.resolve({ id: raw }),
+      });
       await expectError(res, 404, "id");
     }
   });

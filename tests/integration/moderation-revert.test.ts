@@ -7,7 +7,19 @@ import { getValueHistory } from "@/lib/published/history";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";
-import { decideAs, expectError, historyRows, insertSubmission, queuedMails, rebuiltStats, setupGroup, storedStats, submissionRow, writtenState, type Setup } from "./moderation-helpers";
+import {
+  decideAs,
+  expectError,
+  historyRows,
+  insertSubmission,
+  queuedMails,
+  rebuiltStats,
+  setupGroup,
+  storedStats,
+  submissionRow,
+  writtenState,
+  type Setup,
+} from "./moderation-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
@@ -29,7 +41,14 @@ beforeAll(async () => {
 const revert = (eventId: number | string, body: unknown, cookie = admin) =>
   callRoute(
     revertRoute,
-    withCookie(new Request(`http://test.local/api/v1/admin/events/${eventId}/revert`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), cookie),
+    withCookie(
+      new Request(`http://test.local/api/v1/admin/events/${eventId}/revert`, {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify(body),
+      }),
+      cookie,
+    ),
     { params: Promise.resolve({ id: String(eventId) }) },
   );
 
@@ -70,7 +89,12 @@ describe("revert", () => {
     expect(undo.eventId).toBe(body.event.id);
     const figures = ({ eventId: _e, ...rest }: (typeof history)[number]) => rest;
     expect(figures(undo)).toEqual(figures(baseline));
-    expect(figures(undo)).toMatchObject({ n: published[0].n, recommendedValue: published[0].recommendedValue, ciLow: published[0].ciLow, ciHigh: published[0].ciHigh });
+    expect(figures(undo)).toMatchObject({
+      n: published[0].n,
+      recommendedValue: published[0].recommendedValue,
+      ciLow: published[0].ciLow,
+      ciHigh: published[0].ciHigh,
+    });
 
     // nothing deleted: the approval is still in the log, marked as reverted
     expect((await writtenState()).events).toBe(eventsBefore + 1);

@@ -8,7 +8,19 @@ import { applyTrustOnCreate, decideTrust, trustOf } from "@/lib/moderation";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, sessionCookieForAccount, testAccount, withCookie } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";
-import { expectError, historyRows, insertPerson, insertSubmission, queuedMails, rebuiltStats, setupGroup, storedStats, submissionRow, writtenState, type Setup } from "./moderation-helpers";
+import {
+  expectError,
+  historyRows,
+  insertPerson,
+  insertSubmission,
+  queuedMails,
+  rebuiltStats,
+  setupGroup,
+  storedStats,
+  submissionRow,
+  writtenState,
+  type Setup,
+} from "./moderation-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
@@ -41,12 +53,22 @@ async function create(values: Parameters<typeof insertSubmission>[1]) {
 }
 
 const events = (id: number) =>
-  db().query<{ action: string; actorId: string | null }>(`SELECT action, actor_id AS "actorId" FROM audit_events WHERE submission_id = :id`, { replacements: { id }, type: QueryTypes.SELECT });
+  db().query<{ action: string; actorId: string | null }>(`SELECT action, actor_id AS "actorId" FROM audit_events WHERE submission_id = :id`, {
+    replacements: { id },
+    type: QueryTypes.SELECT,
+  });
 
 const patchUser = (id: string, body: unknown, cookie = admin) =>
   callRoute(
     patchUserRoute,
-    withCookie(new Request(`http://test.local/api/v1/admin/users/${id}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), cookie),
+    withCookie(
+      new Request(`http://test.local/api/v1/admin/users/${id}`, {
+        method: "PATCH",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify(body),
+      }),
+      cookie,
+    ),
     { params: Promise.resolve({ id }) },
   );
 
@@ -134,7 +156,13 @@ describe("PATCH /api/v1/admin/users/{id}", () => {
     expect(res.status).toBe(200);
     const body = await res.json();
     expect(body.user.trust).toMatchObject({ trusted: false, reason: "revoked", override: false });
-    expect(body.event).toMatchObject({ action: "user_update", entity: { type: "user", id: setup.fx.userId }, before: { trusted: null }, after: { trusted: false }, reason: "Values copied from another board." });
+    expect(body.event).toMatchObject({
+      action: "user_update",
+      entity: { type: "user", id: setup.fx.userId },
+      before: { trusted: null },
+      after: { trusted: false },
+      reason: "Values copied from another board.",
+    });
     expect((await create({ currentScale: 400 })).outcome).toMatchObject({ autoApproved: false, why: "not_trusted" });
 
     const newcomer = await insertPerson("trusted-newcomer@example.test", "Trusted Newcomer");

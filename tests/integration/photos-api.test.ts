@@ -11,7 +11,18 @@ import { ANONYMOUS, sessionCookieFor, testAccount } from "@/tests/support/auth";
 import { useTestDatabase } from "@/tests/support/database";
 import type { Fixture } from "@/tests/support/fixtures";
 import {
-  BLUE, GPS_DATUM_MARKER, METADATA_MARKER, RED, SCRIPT, SVG, gif, jpegWithGps, near, pixelAt, pngClaiming, pngWithAlpha,
+  BLUE,
+  GPS_DATUM_MARKER,
+  METADATA_MARKER,
+  RED,
+  SCRIPT,
+  SVG,
+  gif,
+  jpegWithGps,
+  near,
+  pixelAt,
+  pngClaiming,
+  pngWithAlpha,
 } from "@/tests/unit/storage/photo-fixtures";
 import { attachDirectly, deletePhoto, getPhoto, insertFixture, insertSubmission, photoRow, upload, uploadForm, useOwnBucket, writes } from "./photos-support";
 
@@ -58,7 +69,8 @@ describe("POST /api/v1/photos", () => {
     expect(meta.xmp).toBeUndefined();
     expect(meta.iptc).toBeUndefined();
     const raw = Buffer.from(stored!);
-    for (const marker of ["Exif\0\0", GPS_DATUM_MARKER, METADATA_MARKER, "ICC_PROFILE", "<x:xmpmeta"]) expect(raw.includes(Buffer.from(marker)), marker).toBe(false);
+    for (const marker of ["Exif\0\0", GPS_DATUM_MARKER, METADATA_MARKER, "ICC_PROFILE", "<x:xmpmeta"])
+      expect(raw.includes(Buffer.from(marker)), marker).toBe(false);
     // the pixels are still there, upright
     expect([meta.width, meta.height]).toEqual([20, 40]);
     expect(near(await pixelAt(stored!, 10, 5), RED)).toBe(true);
@@ -71,7 +83,10 @@ describe("POST /api/v1/photos", () => {
   it("accepts the raw body with a Content-Type, and PNG becomes WebP", async () => {
     const cookie = await sessionCookieFor("contributor");
     const bytes = await pngWithAlpha();
-    const res = await upload(cookie, new Request("http://test.local/api/v1/photos", { method: "POST", body: bytes as BodyInit, headers: { "content-type": "image/png" } }));
+    const res = await upload(
+      cookie,
+      new Request("http://test.local/api/v1/photos", { method: "POST", body: bytes as BodyInit, headers: { "content-type": "image/png" } }),
+    );
     expect(res.status).toBe(201);
     const { id } = (await res.json()) as Uploaded;
     const got = await getPhoto(cookie, id);
@@ -99,7 +114,13 @@ describe("POST /api/v1/photos", () => {
     oversized.set(await jpegWithGps());
     const cases: Array<[string, string, Request, number, RegExp]> = [
       ["anonymous", ANONYMOUS, uploadForm(await jpegWithGps()), 401, /Sign in/],
-      ["GIF named .jpg and declared image/jpeg", cookie, uploadForm(await gif(), { name: "photo.jpg", type: "image/jpeg" }), 400, /not a JPEG, PNG or WebP image/],
+      [
+        "GIF named .jpg and declared image/jpeg",
+        cookie,
+        uploadForm(await gif(), { name: "photo.jpg", type: "image/jpeg" }),
+        400,
+        /not a JPEG, PNG or WebP image/,
+      ],
       ["SVG declared image/png", cookie, uploadForm(SVG, { name: "x.png", type: "image/png" }), 400, /not a JPEG, PNG or WebP image/],
       ["a script declared image/jpeg", cookie, uploadForm(SCRIPT), 400, /not a JPEG, PNG or WebP image/],
       ["over 8 MB", cookie, uploadForm(oversized), 400, /8 MB/],
@@ -263,7 +284,12 @@ describe("DELETE /api/v1/photos/{id}", () => {
     const sequelize = db();
     const cookie = await sessionCookieFor("contributor");
     const me = await testAccount("contributor");
-    for (const [status, expected] of [["pending", 204], ["approved", 409], ["rejected", 409], ["changes_requested", 409]] as const) {
+    for (const [status, expected] of [
+      ["pending", 204],
+      ["approved", 409],
+      ["rejected", 409],
+      ["changes_requested", 409],
+    ] as const) {
       const photo = await uploaded(cookie);
       await attachDirectly(sequelize, photo.id, await insertSubmission(sequelize, fx, me.id, status));
       const res = await deletePhoto(cookie, photo.id);

@@ -37,7 +37,10 @@ async function photoOf(cookie: string): Promise<string> {
 async function attachError(photoIds: string[], submissionId: number, userId = me.id): Promise<ApiError> {
   const error = await db()
     .transaction((t) => attachPhotosToSubmission(photoIds, submissionId, userId, t))
-    .then(() => undefined, (e: unknown) => e);
+    .then(
+      () => undefined,
+      (e: unknown) => e,
+    );
   expect(error).toBeInstanceOf(ApiError);
   expect((error as ApiError).status).toBe(400);
   expect(Object.keys((error as ApiError).fieldErrors)).toEqual(["photoIds"]);

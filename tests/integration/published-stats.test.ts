@@ -17,7 +17,12 @@ const close = (a: number | null, b: number | null) => {
 async function freshGroup(fx: Fixture, values: number[]) {
   const s = getSequelize();
   await s.query("DELETE FROM board_stats; DELETE FROM submissions");
-  await insertSubmissions(s, fx, fx.revisionIds[0], values.map((v) => ({ currentOffset: v })));
+  await insertSubmissions(
+    s,
+    fx,
+    fx.revisionIds[0],
+    values.map((v) => ({ currentOffset: v })),
+  );
   const rows = await computeAggregates(s, [{ boardRevisionId: fx.revisionIds[0], firmwareFamilyId: fx.familyId }]);
   return rows.find((r) => r.quantity === "current_offset")!;
 }

@@ -20,13 +20,25 @@ let target: Target;
 let cookies: Record<Role | "anonymous", string>;
 beforeAll(async () => {
   target = await pickTarget();
-  cookies = { anonymous: ANONYMOUS, contributor: await sessionCookieFor("contributor"), moderator: await sessionCookieFor("moderator"), admin: await sessionCookieFor("admin") };
+  cookies = {
+    anonymous: ANONYMOUS,
+    contributor: await sessionCookieFor("contributor"),
+    moderator: await sessionCookieFor("moderator"),
+    admin: await sessionCookieFor("admin"),
+  };
 });
 
 const patchAs = (id: number, body: unknown, cookie: string) =>
   callRoute(
     patchRoute,
-    withCookie(new Request(`http://test.local/api/v1/submissions/${id}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), cookie),
+    withCookie(
+      new Request(`http://test.local/api/v1/submissions/${id}`, {
+        method: "PATCH",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify(body),
+      }),
+      cookie,
+    ),
     { params: Promise.resolve({ id: String(id) }) },
   );
 

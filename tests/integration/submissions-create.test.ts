@@ -77,7 +77,10 @@ describe("a valid submission", () => {
 
     // 25 mV/A true (0.5 mΩ × 50, Ohm's law) read with 40 mV/A set: reported = 0.625 × measured + 12/40
     const points = [5, 10, 20].map((measuredAmps) => ({ measuredAmps, reportedAmps: 0.625 * measuredAmps + 0.3 }));
-    const bench = await post(validBody(target, { method: "bench_clamp", currentScale: 250, currentOffset: 12, cycles: [], bench: { scaleUsed: 400, offsetUsed: 0, points } }), cookie);
+    const bench = await post(
+      validBody(target, { method: "bench_clamp", currentScale: 250, currentOffset: 12, cycles: [], bench: { scaleUsed: 400, offsetUsed: 0, points } }),
+      cookie,
+    );
     expect(bench.status).toBe(201);
     const b = (await bench.json()).submission;
     expect(b.bench.points).toEqual(points);
@@ -104,14 +107,36 @@ describe("the status mail belongs to its transaction", () => {
 describe("a refused submission writes nothing", () => {
   const refusals: [string, (t: Target) => unknown, string][] = [
     ["a scale that is not positive", (t) => validBody(t, { currentScale: 0 }), "currentScale"],
-    ["a reported-to-charged ratio outside 0.2–5", (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 9000, chargedMah: 1300, ratedMah: 1500, cells: 4 }] }), "cycles.0.reportedMah"],
+    [
+      "a reported-to-charged ratio outside 0.2–5",
+      (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 9000, chargedMah: 1300, ratedMah: 1500, cells: 4 }] }),
+      "cycles.0.reportedMah",
+    ],
     ["negative mAh", (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: -1, ratedMah: 1500, cells: 4 }] }), "cycles.0.chargedMah"],
-    ["a cell count that is not possible", (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 15 }] }), "cycles.0.cells"],
-    ["a cell count outside the board's range", (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: t.maxCells + 1 }] }), "cycles.0.cells"],
-    ["charged mAh more than 1.5 × rated", (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 2000, chargedMah: 2400, ratedMah: 1500, cells: 4 }] }), "cycles.0.chargedMah"],
+    [
+      "a cell count that is not possible",
+      (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 15 }] }),
+      "cycles.0.cells",
+    ],
+    [
+      "a cell count outside the board's range",
+      (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: t.maxCells + 1 }] }),
+      "cycles.0.cells",
+    ],
+    [
+      "charged mAh more than 1.5 × rated",
+      (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 2000, chargedMah: 2400, ratedMah: 1500, cells: 4 }] }),
+      "cycles.0.chargedMah",
+    ],
     [
       "a reported voltage impossible for the cell count",
-      (t) => validBody(t, { method: "multimeter", voltageScale: 110, cycles: [], voltageCheck: { scaleUsed: 100, readings: [{ cells: 4, reportedVolts: 80, measuredVolts: 16.8, measuredAt: "main_lead" }] } }),
+      (t) =>
+        validBody(t, {
+          method: "multimeter",
+          voltageScale: 110,
+          cycles: [],
+          voltageCheck: { scaleUsed: 100, readings: [{ cells: 4, reportedVolts: 80, measuredVolts: 16.8, measuredAt: "main_lead" }] },
+        }),
       "voltageCheck.readings.0.reportedVolts",
     ],
     ["a scale outside the family's range", (t) => validBody(t, { currentScale: 20001 }), "currentScale"],
@@ -131,7 +156,16 @@ describe("a refused submission writes nothing", () => {
 
   it("several faults come back together, each under its field's path", async () => {
     const error = await expectError(
-      await post(validBody(target, { firmwareVersion: "not a version", cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 }, { scaleUsed: 0, reportedMah: -3, chargedMah: 1300, ratedMah: 1500, cells: 4 }] }), cookie),
+      await post(
+        validBody(target, {
+          firmwareVersion: "not a version",
+          cycles: [
+            { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
+            { scaleUsed: 0, reportedMah: -3, chargedMah: 1300, ratedMah: 1500, cells: 4 },
+          ],
+        }),
+        cookie,
+      ),
       400,
     );
     expect(Object.keys(error.fieldErrors).sort()).toEqual(["cycles.1.reportedMah", "cycles.1.scaleUsed", "firmwareVersion"]);

@@ -37,13 +37,19 @@ describe("editing one's own submission", () => {
   it("replaces the values and evidence, bumps the version and keeps it pending (no status change, no mail)", async () => {
     const s = await created();
     const mails = (await mailsTo(ownerAccount.email)).length;
-    const body = { ...validBody(target, { currentScale: 368, cycles: [{ scaleUsed: 400, reportedMah: 1150, chargedMah: 1250, ratedMah: 1500, cells: 4 }] }), version: s.version };
+    const body = {
+      ...validBody(target, { currentScale: 368, cycles: [{ scaleUsed: 400, reportedMah: 1150, chargedMah: 1250, ratedMah: 1500, cells: 4 }] }),
+      version: s.version,
+    };
     const res = await patch(s.id, body, owner);
     expect(res.status).toBe(200);
     const { submission } = await res.json();
     expect(submission).toMatchObject({ id: s.id, version: s.version + 1, status: "pending", currentScale: 368 });
     expect(submission.cycles).toHaveLength(1);
-    const [{ n }] = await db().query<{ n: number }>("SELECT count(*)::int AS n FROM submission_cycles WHERE submission_id = $1", { bind: [s.id], type: QueryTypes.SELECT });
+    const [{ n }] = await db().query<{ n: number }>("SELECT count(*)::int AS n FROM submission_cycles WHERE submission_id = $1", {
+      bind: [s.id],
+      type: QueryTypes.SELECT,
+    });
     expect(n).toBe(1);
     expect((await mailsTo(ownerAccount.email)).length).toBe(mails);
   });
@@ -88,7 +94,15 @@ describe("editing one's own submission", () => {
 
   it("the edit is validated like a new submission, keyed by the same paths", async () => {
     const s = await created();
-    await expectError(await patch(s.id, { ...validBody(target, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 99 }] }), version: s.version }, owner), 400, "cycles.0.cells");
+    await expectError(
+      await patch(
+        s.id,
+        { ...validBody(target, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 99 }] }), version: s.version },
+        owner,
+      ),
+      400,
+      "cycles.0.cells",
+    );
     await expectError(await patch(s.id, validBody(target), owner), 400, "version");
   });
 
@@ -96,8 +110,16 @@ describe("editing one's own submission", () => {
     const s = await created();
     const other = await sessionCookieFor("contributor", { email: "someone-else@auth.test" });
     await expectError(await patch(s.id, { ...validBody(target), version: s.version }, other), 403);
-    await expectError(await callRoute(getOne, withCookie(new Request(`http://test.local/api/v1/submissions/${s.id}`), other), { params: Promise.resolve({ id: String(s.id) }) }), 404, "id");
-    const mine = await callRoute(getOne, withCookie(new Request(`http://test.local/api/v1/submissions/${s.id}`), owner), { params: Promise.resolve({ id: String(s.id) }) });
+    await expectError(
+      await callRoute(getOne, withCookie(new Request(`http://test.local/api/v1/submissions/${s.id}`), other), {
+        params: Promise.resolve({ id: String(s.id) }),
+      }),
+      404,
+      "id",
+    );
+    const mine = await callRoute(getOne, withCookie(new Request(`http://test.local/api/v1/submissions/${s.id}`), owner), {
+      params: Promise.resolve({ id: String(s.id) }),
+    });
     expect(mine.status).toBe(200);
   });
 
@@ -112,7 +134,13 @@ describe("My submissions", () => {
     const s = await created();
     await setStatus(s.id, "changes_requested", "Which pack was this?");
     const list = await listOwnSubmissions(ownerAccount.id);
-    expect(list[0]).toMatchObject({ id: s.id, status: "changes_requested", moderatorNote: "Which pack was this?", editable: true, links: { edit: `/my/submissions/${s.id}/edit` } });
+    expect(list[0]).toMatchObject({
+      id: s.id,
+      status: "changes_requested",
+      moderatorNote: "Which pack was this?",
+      editable: true,
+      links: { edit: `/my/submissions/${s.id}/edit` },
+    });
     const times = list.map((x) => x.createdAt);
     expect([...times].sort().reverse()).toEqual(times);
     expect(list.every((x) => x.editable === (x.status === "pending" || x.status === "changes_requested"))).toBe(true);

@@ -58,7 +58,11 @@ export function postRequest(body: unknown, cookie: string, key?: string, raw = f
 export const post = (body: unknown, cookie: string, key?: string) => callRoute(postRoute, postRequest(body, cookie, key));
 
 export function patch(id: number | string, body: unknown, cookie: string): Promise<Response> {
-  const request = new Request(`http://test.local/api/v1/submissions/${id}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+  const request = new Request(`http://test.local/api/v1/submissions/${id}`, {
+    method: "PATCH",
+    headers: { "content-type": "application/json" },
+    body: JSON.stringify(body),
+  });
   return callRoute(patchRoute, withCookie(request, cookie), { params: Promise.resolve({ id: String(id) }) });
 }
 
@@ -78,10 +82,12 @@ export async function rowCounts(): Promise<Record<string, number>> {
 
 /** The mail jobs queued for an address, oldest first. */
 export async function mailsTo(email: string): Promise<{ to: string; subject: string; text: string }[]> {
-  return db().query(`SELECT data FROM pgboss.job WHERE name = 'mail.send' AND data->>'to' = $1 ORDER BY created_on`, {
-    bind: [email],
-    type: QueryTypes.SELECT,
-  }).then((rows) => (rows as { data: { to: string; subject: string; text: string } }[]).map((r) => r.data));
+  return db()
+    .query(`SELECT data FROM pgboss.job WHERE name = 'mail.send' AND data->>'to' = $1 ORDER BY created_on`, {
+      bind: [email],
+      type: QueryTypes.SELECT,
+    })
+    .then((rows) => (rows as { data: { to: string; subject: string; text: string } }[]).map((r) => r.data));
 }
 
 /** Checks the one error shape and returns its error object. */

@@ -28,7 +28,8 @@ beforeAll(async () => {
   bob = await sessionCookieFor("contributor", { email: "second-contributor@auth.test", name: "Second Contributor" });
 });
 
-const bobId = async () => (await db().query<{ id: string }>("SELECT id FROM users WHERE email = 'second-contributor@auth.test'", { type: QueryTypes.SELECT }))[0].id;
+const bobId = async () =>
+  (await db().query<{ id: string }>("SELECT id FROM users WHERE email = 'second-contributor@auth.test'", { type: QueryTypes.SELECT }))[0].id;
 const submissionsOf = async (userId: string) =>
   (await db().query<{ n: number }>("SELECT count(*)::int AS n FROM submissions WHERE contributor_id = $1", { bind: [userId], type: QueryTypes.SELECT }))[0].n;
 
@@ -79,7 +80,10 @@ describe("Idempotency-Key", () => {
     );
     expect(row.hours).toBeGreaterThanOrEqual(24);
     // age the key past its time (the CHECK keeps the 24-hour span, so both ends move)
-    await db().query("UPDATE idempotency_keys SET created_at = now() - interval '25 hours', expires_at = now() - interval '1 hour' WHERE user_id = $1 AND key = 'ttl-key'", { bind: [aliceId] });
+    await db().query(
+      "UPDATE idempotency_keys SET created_at = now() - interval '25 hours', expires_at = now() - interval '1 hour' WHERE user_id = $1 AND key = 'ttl-key'",
+      { bind: [aliceId] },
+    );
     const count = await submissionsOf(aliceId);
     const fresh = await post(validBody(target, { currentScale: 371 }), alice, "ttl-key");
     expect(fresh.status).toBe(201);
@@ -120,12 +124,17 @@ describe("Idempotency-Key", () => {
 
 describe("the hourly purge of expired keys", () => {
   const keysOf = async (userId: string) =>
-    (await db().query<{ key: string }>("SELECT key FROM idempotency_keys WHERE user_id = $1 ORDER BY key", { bind: [userId], type: QueryTypes.SELECT })).map((r) => r.key);
+    (await db().query<{ key: string }>("SELECT key FROM idempotency_keys WHERE user_id = $1 ORDER BY key", { bind: [userId], type: QueryTypes.SELECT })).map(
+      (r) => r.key,
+    );
 
   it("is scheduled every hour and, when worked, deletes only the keys past their time", async () => {
     expect((await post(validBody(target, { currentScale: 372 }), bob, "purge-live")).status).toBe(201);
     expect((await post(validBody(target, { currentScale: 373 }), bob, "purge-dead")).status).toBe(201);
-    await db().query("UPDATE idempotency_keys SET created_at = now() - interval '25 hours', expires_at = now() - interval '1 hour' WHERE user_id = $1 AND key = 'purge-dead'", { bind: [await bobId()] });
+    await db().query(
+      "UPDATE idempotency_keys SET created_at = now() - interval '25 hours', expires_at = now() - interval '1 hour' WHERE user_id = $1 AND key = 'purge-dead'",
+      { bind: [await bobId()] },
+    );
     const submissionsBefore = await submissionsOf(await bobId());
 
     const queue = await boss();

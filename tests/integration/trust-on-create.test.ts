@@ -47,10 +47,10 @@ describe("trusted contributors on create (applyTrustOnCreate wired into createSu
     expect(result.status).toBe(201);
     const id = result.body.submission.id;
     expect(await statusOf(id)).toBe("approved");
-    const [event] = await db().query<{ n: number }>(
-      "SELECT count(*)::int AS n FROM audit_events WHERE action = 'auto_approve' AND submission_id = :id",
-      { type: QueryTypes.SELECT, replacements: { id } },
-    );
+    const [event] = await db().query<{ n: number }>("SELECT count(*)::int AS n FROM audit_events WHERE action = 'auto_approve' AND submission_id = :id", {
+      type: QueryTypes.SELECT,
+      replacements: { id },
+    });
     expect(event?.n).toBe(1);
   });
 

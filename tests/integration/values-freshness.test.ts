@@ -92,8 +92,14 @@ describe("the values' change stamp", () => {
     };
     expect(await bumps("UPDATE board_models SET name = name || '' WHERE id = $id", { id: boardId })).toBe(true);
     expect(await bumps("UPDATE board_revisions SET label = label WHERE id = $id", { id: revisionIds[0] })).toBe(true);
-    expect(await bumps("UPDATE manufacturers SET name = name || ' Co' WHERE id = (SELECT manufacturer_id FROM board_models WHERE id = $id)", { id: boardId })).toBe(true);
-    expect(await bumps("UPDATE manufacturers SET website = 'https://maker.example.test' WHERE id = (SELECT manufacturer_id FROM board_models WHERE id = $id)", { id: boardId })).toBe(false);
+    expect(
+      await bumps("UPDATE manufacturers SET name = name || ' Co' WHERE id = (SELECT manufacturer_id FROM board_models WHERE id = $id)", { id: boardId }),
+    ).toBe(true);
+    expect(
+      await bumps("UPDATE manufacturers SET website = 'https://maker.example.test' WHERE id = (SELECT manufacturer_id FROM board_models WHERE id = $id)", {
+        id: boardId,
+      }),
+    ).toBe(false);
     expect(await bumps("UPDATE firmware_families SET description = 'units changed' WHERE id = $id", { id: familyId })).toBe(true);
   });
 });

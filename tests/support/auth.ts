@@ -73,10 +73,7 @@ export async function testAccount(role: Role, opts: { email?: string; name?: str
 }
 
 /** A Cookie header value carrying a next-auth session for `account` (what the browser would send). */
-export async function sessionCookieForAccount(
-  account: TestAccount,
-  opts: { maxAgeSeconds?: number; signedInAt?: Date } = {},
-): Promise<string> {
+export async function sessionCookieForAccount(account: TestAccount, opts: { maxAgeSeconds?: number; signedInAt?: Date } = {}): Promise<string> {
   ensureSecret();
   const token = await encodeSessionToken(
     { sub: account.id, email: account.email, name: account.name, role: account.role, authTime: (opts.signedInAt ?? new Date()).getTime() },
@@ -132,9 +129,7 @@ export async function mailsTo(address: string): Promise<CaughtMail[]> {
   if (!inbox) throw new Error("MAIL_INBOX_URL is not set: run the suite with npm test");
   const res = await fetch(new URL("/api/email", inbox));
   const all = (await res.json()) as CaughtMail[];
-  return all
-    .filter((m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase()))
-    .sort((a, b) => Date.parse(a.date) - Date.parse(b.date));
+  return all.filter((m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase())).sort((a, b) => Date.parse(a.date) - Date.parse(b.date));
 }
 
 /** Waits (up to `timeoutMs`) until the catcher holds at least `count` mails for `address`. */

@@ -7,7 +7,15 @@ import type { LaunchOptions } from "playwright-core";
 export const CHROMIUM_LAUNCH: LaunchOptions = {
   executablePath: "/usr/bin/chromium",
   headless: true,
-  args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
+  args: [
+    "--no-sandbox",
+    "--disable-gpu",
+    "--disable-quic",
+    "--disable-background-networking",
+    "--disable-component-update",
+    "--disable-sync",
+    "--no-first-run",
+  ],
 };
 
 /** Screenshots land here; git ignores the folder. */

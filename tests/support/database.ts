@@ -17,7 +17,6 @@ function clusterUrl(database: string): string {
   return url.toString();
 }
 
-
 async function admin<T>(fn: (c: pg.Client) => Promise<T>): Promise<T> {
   const client = new pg.Client({ connectionString: clusterUrl("postgres") });
   await client.connect();
@@ -51,7 +50,9 @@ export function useTestDatabase(template: Template = "migrated"): { url: () => s
   });
   afterAll(async () => {
     const { getSequelize } = await import("@/lib/db/sequelize");
-    await getSequelize().close().catch(() => undefined);
+    await getSequelize()
+      .close()
+      .catch(() => undefined);
     if (created) await dropDatabase(created.name);
   });
   return {

@@ -18,7 +18,11 @@ export async function insertFixture(sequelize: Sequelize, opts: { revisions?: nu
   );
   const revisionIds: number[] = [];
   for (let i = 0; i < (opts.revisions ?? 1); i++) {
-    const rev = await one<{ id: number }>("INSERT INTO board_revisions (board_model_id, label, position) VALUES ($1, $2, $3) RETURNING id", [board.id, `r${i + 1}`, i]);
+    const rev = await one<{ id: number }>("INSERT INTO board_revisions (board_model_id, label, position) VALUES ($1, $2, $3) RETURNING id", [
+      board.id,
+      `r${i + 1}`,
+      i,
+    ]);
     revisionIds.push(rev.id);
   }
   const family = await one<{ id: number }>(`
@@ -48,8 +52,18 @@ export async function insertSubmissions(
   if (rows.length === 0) return;
   const bind: unknown[] = [];
   const tuples = rows.map((r) => {
-    const values = [revisionId, fx.familyId, "1.0.0", fx.userId, "board_adc", r.method ?? "fly_recharge",
-      r.voltageScale ?? null, r.currentScale ?? null, r.currentOffset ?? null, r.status ?? "approved"];
+    const values = [
+      revisionId,
+      fx.familyId,
+      "1.0.0",
+      fx.userId,
+      "board_adc",
+      r.method ?? "fly_recharge",
+      r.voltageScale ?? null,
+      r.currentScale ?? null,
+      r.currentOffset ?? null,
+      r.status ?? "approved",
+    ];
     const start = bind.length;
     bind.push(...values);
     return `(${values.map((_, i) => `$${start + i + 1}`).join(", ")})`;

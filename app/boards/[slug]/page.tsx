@@ -132,7 +132,14 @@ export default async function BoardPage({ params, searchParams }: Props) {
       <BoardValuesSection
         slug={board.slug}
         revisions={revisionEntries}
-        overview={values?.overview ?? { board: { slug: board.slug, name: board.name, kind: board.kind, manufacturer: board.manufacturer }, families: [], revisions: [], lastChangeAt: null }}
+        overview={
+          values?.overview ?? {
+            board: { slug: board.slug, name: board.name, kind: board.kind, manufacturer: board.manufacturer },
+            families: [],
+            revisions: [],
+            lastChangeAt: null,
+          }
+        }
         initial={values?.initial ?? null}
         notices={values?.notices ?? []}
         safety={<SafetyNote />}
@@ -160,14 +167,14 @@ export default async function BoardPage({ params, searchParams }: Props) {
       </div>
 
       <section aria-labelledby="revisions-title" className="space-y-4">
-          <h2 id="revisions-title" className="font-display text-heading uppercase">
-            Revisions and sensor hardware
-          </h2>
-          {board.revisions.length > 0 ? (
-            board.revisions.map((revision) => <RevisionHardware key={revision.id} revision={revision} />)
-          ) : (
-            <p className="sb-unknown">No revision of this board is on record yet.</p>
-          )}
+        <h2 id="revisions-title" className="font-display text-heading uppercase">
+          Revisions and sensor hardware
+        </h2>
+        {board.revisions.length > 0 ? (
+          board.revisions.map((revision) => <RevisionHardware key={revision.id} revision={revision} />)
+        ) : (
+          <p className="sb-unknown">No revision of this board is on record yet.</p>
+        )}
       </section>
     </div>
   );

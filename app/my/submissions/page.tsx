@@ -17,7 +17,12 @@ const when = (iso: string) => `${dateTime.format(new Date(iso))} UTC`;
 
 // Contributors' and moderators' Markdown goes through the one sanitising renderer.
 function Markdown({ text, className = "" }: { text: string; className?: string }) {
-  return <div className={`space-y-2 [&_a]:font-semibold [&_ol]:list-decimal [&_ol]:pl-5 [&_ul]:list-disc [&_ul]:pl-5 ${className}`} dangerouslySetInnerHTML={{ __html: renderMarkdown(text) }} />;
+  return (
+    <div
+      className={`space-y-2 [&_a]:font-semibold [&_ol]:list-decimal [&_ol]:pl-5 [&_ul]:list-disc [&_ul]:pl-5 ${className}`}
+      dangerouslySetInnerHTML={{ __html: renderMarkdown(text) }}
+    />
+  );
 }
 
 function Values({ s }: { s: SubmissionView }) {
@@ -119,8 +124,7 @@ export default async function MySubmissionsPage({ searchParams }: Props) {
       )}
       {submissions.length === 0 ? (
         <p className="max-w-prose rounded-md border-3 border-rule bg-surface p-4">
-          You have not sent any values yet. <Link href="/submit">Send the values you measured</Link> and they will show here while a
-          moderator reviews them.
+          You have not sent any values yet. <Link href="/submit">Send the values you measured</Link> and they will show here while a moderator reviews them.
         </p>
       ) : (
         <ol className="space-y-4" aria-label="Your submissions, newest first">

@@ -14,8 +14,14 @@ export default async function CheckEmailPage({ searchParams }: Props) {
     <AccountPage kicker="Account" title="Check your mail">
       <div className="max-w-prose space-y-4 text-lead">
         <p>
-          A sign-in link is on its way{parsed.success ? <> to <strong className="font-mono">{parsed.data}</strong></> : null}. Open it on
-          this device within 15 minutes; it works once.
+          A sign-in link is on its way
+          {parsed.success ? (
+            <>
+              {" "}
+              to <strong className="font-mono">{parsed.data}</strong>
+            </>
+          ) : null}
+          . Open it on this device within 15 minutes; it works once.
         </p>
         <p>Nothing after a few minutes? Look in the spam folder, or ask again.</p>
       </div>

@@ -30,10 +30,18 @@ describe("where sign-in sends you back to (open-redirect guard)", () => {
 describe("session cookie reading", () => {
   it("parses a Cookie header (RFC 6265 §5.4) and takes the first of duplicate names", () => {
     const jar = parseCookieHeader("a=1; b=two=2;  a=3 ; junk; =x");
-    expect([...jar]).toEqual([["a", "1"], ["b", "two=2"]]);
+    expect([...jar]).toEqual([
+      ["a", "1"],
+      ["b", "two=2"],
+    ]);
   });
   it("joins next-auth's chunked token in numeric order", () => {
-    const jar = new Map([["next-auth.session-token.10", "K"], ["next-auth.session-token.2", "C"], ["next-auth.session-token.0", "A"], ["next-auth.session-token.1", "B"]]);
+    const jar = new Map([
+      ["next-auth.session-token.10", "K"],
+      ["next-auth.session-token.2", "C"],
+      ["next-auth.session-token.0", "A"],
+      ["next-auth.session-token.1", "B"],
+    ]);
     expect(sessionTokenFrom(jar)).toBe("ABCK");
     expect(sessionTokenFrom(new Map())).toBeUndefined();
   });

@@ -14,10 +14,7 @@ function run(target: TargetId, size: number, connections: number, reqPerSec: num
 
 describe("one target's figures, pooled over its rounds", () => {
   // two rounds of 3 s and 2 s: per-second counts 5, 7, 6 | 10, 4 → sorted 4 5 6 7 10
-  const rounds = [
-    samples([5, 7, 6], [1, 2, 3, 4, 5, 6, 7, 8, 9, 10], { 200: 10 }),
-    samples([10, 4], [20, 30], { 200: 1, 304: 1 }),
-  ];
+  const rounds = [samples([5, 7, 6], [1, 2, 3, 4, 5, 6, 7, 8, 9, 10], { 200: 10 }), samples([10, 4], [20, 30], { 200: 1, 304: 1 })];
 
   it("takes the median and quartiles of the per-second counts (type 7)", () => {
     const f = figuresOf("lookup", 10, 8, rounds);
@@ -49,9 +46,18 @@ describe("ratios", () => {
   });
 
   const runs = [
-    run("framework", 10_000, 8, 600), run("lookup", 10_000, 8, 540), run("revalidate", 10_000, 8, 570), run("machine", 10_000, 8, 18_000),
-    run("framework", 10_000, 64, 650), run("lookup", 10_000, 64, 455), run("revalidate", 10_000, 64, 650), run("machine", 10_000, 64, 17_000),
-    run("framework", 1_000_000, 8, 600), run("lookup", 1_000_000, 8, 420, 30), run("revalidate", 1_000_000, 8, 560), run("machine", 1_000_000, 8, 18_000),
+    run("framework", 10_000, 8, 600),
+    run("lookup", 10_000, 8, 540),
+    run("revalidate", 10_000, 8, 570),
+    run("machine", 10_000, 8, 18_000),
+    run("framework", 10_000, 64, 650),
+    run("lookup", 10_000, 64, 455),
+    run("revalidate", 10_000, 64, 650),
+    run("machine", 10_000, 64, 17_000),
+    run("framework", 1_000_000, 8, 600),
+    run("lookup", 1_000_000, 8, 420, 30),
+    run("revalidate", 1_000_000, 8, 560),
+    run("machine", 1_000_000, 8, 18_000),
   ];
 
   it("divides runs of the same size and connection count only", () => {

@@ -20,7 +20,11 @@ describe("synthetic catalogue", () => {
     expect(catalogue.revisions).toHaveLength(13);
     expect([0, 1, 2, 3].map(revisionsOfBoard)).toEqual([1, 2, 3, 1]);
     const labels = catalogue.revisions.filter((r) => r.boardSlug === catalogue.boards[2].slug).map((r) => [r.label, r.position]);
-    expect(labels).toEqual([["v1", 0], ["v2", 1], ["v3", 2]]);
+    expect(labels).toEqual([
+      ["v1", 0],
+      ["v2", 1],
+      ["v3", 2],
+    ]);
   });
 
   it("passes the schema's CHECKs and unique keys", () => {

@@ -52,18 +52,32 @@ describe(`bench fit against ${ANSCOMBE}, data from the npm package vega-datasets
   it(`agrees with ${SIMPLE_STATISTICS} on any points a bench could give`, () => {
     fc.assert(
       fc.property(
-        fc.array(fc.tuple(fc.double({ min: 0, max: 200, noNaN: true }), fc.double({ min: 0.5, max: 2, noNaN: true }), fc.double({ min: -3, max: 3, noNaN: true })), { minLength: 3, maxLength: 15 }),
+        fc.array(
+          fc.tuple(fc.double({ min: 0, max: 200, noNaN: true }), fc.double({ min: 0.5, max: 2, noNaN: true }), fc.double({ min: -3, max: 3, noNaN: true })),
+          { minLength: 3, maxLength: 15 },
+        ),
         (raw) => {
           const pairs = raw.map(([x, g, noise]) => [x, g * x + noise] as [number, number]);
           const xs = pairs.map((p) => p[0]);
           fc.pre(Math.max(...xs) - Math.min(...xs) > 20);
           const ref = linearRegression(pairs);
           fc.pre(ref.m >= 0.2 && ref.m <= 5 && pairs.every((p) => p[1] >= -1000));
-          const got = unwrapWorksheet(benchWorksheet({ scaleUsed: 250, offsetUsed: 0, points: pairs.map(([measuredAmps, reportedAmps]) => ({ measuredAmps, reportedAmps })) }, VORNEL));
+          const got = unwrapWorksheet(
+            benchWorksheet({ scaleUsed: 250, offsetUsed: 0, points: pairs.map(([measuredAmps, reportedAmps]) => ({ measuredAmps, reportedAmps })) }, VORNEL),
+          );
           expect(got.fit.gain).toBeCloseTo(ref.m, 9);
           expect(got.fit.interceptAmps).toBeCloseTo(ref.b, 9);
-          expect(got.fit.rSquared).toBeCloseTo(rSquared(pairs, (x) => ref.m * x + ref.b), 9);
-          expect(got.fit.r!).toBeCloseTo(sampleCorrelation(xs, pairs.map((p) => p[1])), 9);
+          expect(got.fit.rSquared).toBeCloseTo(
+            rSquared(pairs, (x) => ref.m * x + ref.b),
+            9,
+          );
+          expect(got.fit.r!).toBeCloseTo(
+            sampleCorrelation(
+              xs,
+              pairs.map((p) => p[1]),
+            ),
+            9,
+          );
         },
       ),
     );
@@ -82,31 +96,56 @@ describe(`bench worksheet on a simulated sensor — ${OHM}; rounding: ${ROUNDING
     return family.currentOffsetUnit === "mV" ? (mv - o) / s : mv / s - o / 1000;
   }
 
-  it.each([VORNEL, SKELMAR, QUAYSEL])("$slug ($currentScaleUnit, offset in $currentOffsetUnit): the new scale over-reports, the new offset leaves the error it states", (family) => {
-    const scaleUsed = Math.round(currentScaleSettingFromSensitivity(31, family)); // set as if 31 mV/A
-    const offsetUsed = 3;
-    const points = [3, 8, 15, 25, 40].map((measuredAmps) => ({ measuredAmps, reportedAmps: displayed(family, scaleUsed, offsetUsed, measuredAmps) }));
-    const r = unwrapWorksheet(benchWorksheet({ scaleUsed, offsetUsed, points }, family));
-    const trueScale = currentScaleSettingFromSensitivity(sensitivity, family);
-    expect(r.scaleRounding.exact).toBeCloseTo(trueScale, 6);
-    expect(r.fit.rSquared).toBeCloseTo(1, 12);
-    for (const p of r.residuals) expect(Math.abs(p.residualAmps)).toBeLessThan(1e-9);
-    // the safe rounding over-reports the current
-    const chosen = r.scaleRounding.recommended.setting;
-    expect(displayed(family, chosen, r.offset.exact, 30)).toBeGreaterThanOrEqual(30 - 1e-9);
-    // at zero current with the exact scale and the whole-step offset, the display shows the stated error
-    expect(displayed(family, r.scaleRounding.exact, r.offset.setting, 0)).toBeCloseTo(r.offset.displayedErrorAmpsAtZero, 9);
-    expect(r.offset.setting).toBe(Math.round(r.offset.exact));
-  });
+  it.each([VORNEL, SKELMAR, QUAYSEL])(
+    "$slug ($currentScaleUnit, offset in $currentOffsetUnit): the new scale over-reports, the new offset leaves the error it states",
+    (family) => {
+      const scaleUsed = Math.round(currentScaleSettingFromSensitivity(31, family)); // set as if 31 mV/A
+      const offsetUsed = 3;
+      const points = [3, 8, 15, 25, 40].map((measuredAmps) => ({ measuredAmps, reportedAmps: displayed(family, scaleUsed, offsetUsed, measuredAmps) }));
+      const r = unwrapWorksheet(benchWorksheet({ scaleUsed, offsetUsed, points }, family));
+      const trueScale = currentScaleSettingFromSensitivity(sensitivity, family);
+      expect(r.scaleRounding.exact).toBeCloseTo(trueScale, 6);
+      expect(r.fit.rSquared).toBeCloseTo(1, 12);
+      for (const p of r.residuals) expect(Math.abs(p.residualAmps)).toBeLessThan(1e-9);
+      // the safe rounding over-reports the current
+      const chosen = r.scaleRounding.recommended.setting;
+      expect(displayed(family, chosen, r.offset.exact, 30)).toBeGreaterThanOrEqual(30 - 1e-9);
+      // at zero current with the exact scale and the whole-step offset, the display shows the stated error
+      expect(displayed(family, r.scaleRounding.exact, r.offset.setting, 0)).toBeCloseTo(r.offset.displayedErrorAmpsAtZero, 9);
+      expect(r.offset.setting).toBe(Math.round(r.offset.exact));
+    },
+  );
 
   it("two points fit exactly, and the worksheet says a third would show linearity", () => {
-    const r = benchWorksheet({ scaleUsed: 250, offsetUsed: 0, points: [{ measuredAmps: 5, reportedAmps: 5.2 }, { measuredAmps: 20, reportedAmps: 20.5 }] }, VORNEL);
+    const r = benchWorksheet(
+      {
+        scaleUsed: 250,
+        offsetUsed: 0,
+        points: [
+          { measuredAmps: 5, reportedAmps: 5.2 },
+          { measuredAmps: 20, reportedAmps: 20.5 },
+        ],
+      },
+      VORNEL,
+    );
     expect(r.ok).toBe(true);
     expect(r.warnings[0].message).toMatch(/add a third/);
   });
 
   it("carries the props-on cautions (model-flying club rules; smoke stopper common practice)", () => {
-    const r = unwrapWorksheet(benchWorksheet({ scaleUsed: 250, offsetUsed: 0, points: [{ measuredAmps: 5, reportedAmps: 5 }, { measuredAmps: 20, reportedAmps: 20 }] }, VORNEL));
+    const r = unwrapWorksheet(
+      benchWorksheet(
+        {
+          scaleUsed: 250,
+          offsetUsed: 0,
+          points: [
+            { measuredAmps: 5, reportedAmps: 5 },
+            { measuredAmps: 20, reportedAmps: 20 },
+          ],
+        },
+        VORNEL,
+      ),
+    );
     expect(r.cautions.map((c) => c.text).join(" ")).toMatch(/Remove the props.*eye protection.*Unplug the battery/s);
   });
 });
@@ -119,8 +158,19 @@ describe("bench worksheet: field-level errors", () => {
   };
 
   it("at least 2 points, at distinct measured currents", () => {
-    expect(errorsOf({ scaleUsed: 250, offsetUsed: 0, points: [{ measuredAmps: 5, reportedAmps: 5 }] })).toEqual([{ field: "points", message: expect.stringMatching(/at least 2/) }]);
-    expect(errorsOf({ scaleUsed: 250, offsetUsed: 0, points: [{ measuredAmps: 5, reportedAmps: 5 }, { measuredAmps: 5, reportedAmps: 6 }] })[0].message).toMatch(/different clamp-meter currents/);
+    expect(errorsOf({ scaleUsed: 250, offsetUsed: 0, points: [{ measuredAmps: 5, reportedAmps: 5 }] })).toEqual([
+      { field: "points", message: expect.stringMatching(/at least 2/) },
+    ]);
+    expect(
+      errorsOf({
+        scaleUsed: 250,
+        offsetUsed: 0,
+        points: [
+          { measuredAmps: 5, reportedAmps: 5 },
+          { measuredAmps: 5, reportedAmps: 6 },
+        ],
+      })[0].message,
+    ).toMatch(/different clamp-meter currents/);
   });
 
   it("negative clamp-meter current, missing reported current, a fractional scale", () => {
@@ -129,7 +179,25 @@ describe("bench worksheet: field-level errors", () => {
   });
 
   it("a gain outside 0.2–5 cannot be the same current (our own rule, limits.ts)", () => {
-    expect(errorsOf({ scaleUsed: 250, offsetUsed: 0, points: [{ measuredAmps: 1, reportedAmps: 10 }, { measuredAmps: 2, reportedAmps: 70 }] })[0].message).toMatch(/outside 0\.2–5/);
-    expect(errorsOf({ scaleUsed: 250, offsetUsed: 0, points: [{ measuredAmps: 1, reportedAmps: 10 }, { measuredAmps: 2, reportedAmps: 5 }] })[0].field).toBe("points");
+    expect(
+      errorsOf({
+        scaleUsed: 250,
+        offsetUsed: 0,
+        points: [
+          { measuredAmps: 1, reportedAmps: 10 },
+          { measuredAmps: 2, reportedAmps: 70 },
+        ],
+      })[0].message,
+    ).toMatch(/outside 0\.2–5/);
+    expect(
+      errorsOf({
+        scaleUsed: 250,
+        offsetUsed: 0,
+        points: [
+          { measuredAmps: 1, reportedAmps: 10 },
+          { measuredAmps: 2, reportedAmps: 5 },
+        ],
+      })[0].field,
+    ).toBe("points");
   });
 });

@@ -152,13 +152,29 @@ describe(`least squares — ${ANSCOMBE_SOURCE}, data from the npm package vega-d
     expect(Math.abs(fit.slope - 0.5)).toBeLessThanOrEqual(0.001);
     expect(Math.abs(fit.intercept - 3)).toBeLessThanOrEqual(0.005);
     expect(Math.abs(fit.r! - 0.816)).toBeLessThanOrEqual(0.001);
-    expect(fit.r).toBeCloseTo(sampleCorrelation(series(name).map((p) => p[0]), series(name).map((p) => p[1])), 12);
+    expect(fit.r).toBeCloseTo(
+      sampleCorrelation(
+        series(name).map((p) => p[0]),
+        series(name).map((p) => p[1]),
+      ),
+      12,
+    );
   });
 
   it("refuses what no line can be fitted through, saying why", () => {
     expect(() => fitLine([[1, 2]])).toThrowError(LineFitError);
-    expect(() => fitLine([[5, 1], [5, 2]])).toThrowError(/different currents/);
-    expect(fitLine([[1, 3], [2, 3]])).toMatchObject({ slope: 0, intercept: 3, r: null });
+    expect(() =>
+      fitLine([
+        [5, 1],
+        [5, 2],
+      ]),
+    ).toThrowError(/different currents/);
+    expect(
+      fitLine([
+        [1, 3],
+        [2, 3],
+      ]),
+    ).toMatchObject({ slope: 0, intercept: 3, r: null });
   });
 
   it("an exact line is recovered whatever its slope and intercept", () => {
@@ -224,7 +240,10 @@ describe(`mismatch flag — a ${EVIDENCE_TOLERANCE * 100} % tolerance (our own r
     expect(s.offsetToleranceFloorSteps).toBeCloseTo(100 / ma.currentOffsetStep, 9);
     expect(s.checks.find((c) => c.quantity === "current_offset")!.mismatch).toBe(false);
     // 0.3 A off is more than the display's resolution: flagged
-    const far = summariseEvidence({ ...base, currentScale: 100, currentOffset: 0, bench: { ...bench, points: [0, 10, 20].map((m) => ({ measuredAmps: m, reportedAmps: m + 0.3 })) } }, ma);
+    const far = summariseEvidence(
+      { ...base, currentScale: 100, currentOffset: 0, bench: { ...bench, points: [0, 10, 20].map((m) => ({ measuredAmps: m, reportedAmps: m + 0.3 })) } },
+      ma,
+    );
     expect(far.checks.find((c) => c.quantity === "current_offset")!.mismatch).toBe(true);
   });
 

@@ -35,7 +35,10 @@ describe("from the hardware: a board revision row as the worksheet's figures", (
   });
 
   it("unknown parts (null in the record) are left out, not treated as zero", () => {
-    const figures = hardwareFiguresFromRevision({ ...shuntRevision, dividerTopOhms: null, dividerBottomOhms: null, adcBits: null, adcReferenceVolts: null }, null);
+    const figures = hardwareFiguresFromRevision(
+      { ...shuntRevision, dividerTopOhms: null, dividerBottomOhms: null, adcBits: null, adcReferenceVolts: null },
+      null,
+    );
     const input = hardwareWorksheetInput(figures);
     expect(input.divider).toBeNull();
     expect(input.adc).toBeNull();

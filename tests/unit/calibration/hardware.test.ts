@@ -1,12 +1,5 @@
 import { describe, expect, it } from "vitest";
-import {
-  adcCountToVolts,
-  adcLsbVolts,
-  hardwareWorksheet,
-  packVoltsFromAdcCount,
-  unwrapWorksheet,
-  WorksheetInputError,
-} from "@/lib/calibration";
+import { adcCountToVolts, adcLsbVolts, hardwareWorksheet, packVoltsFromAdcCount, unwrapWorksheet, WorksheetInputError } from "@/lib/calibration";
 import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { ADC, DIVIDER, OHM } from "./sources";
 
@@ -58,7 +51,9 @@ describe(`from the hardware: the current sensor — ${OHM}`, () => {
     [0.5, 50, 25, 40, 1.0, 0.8],
     [0.25, 20, 5, 100, 0.5, 2.5],
   ])("%s mΩ × %s V/V = %s mV/A; at %s A: %s V out, %s W in the shunt", (mohm, gain, mvPerAmp, amps, volts, watts) => {
-    const { current } = unwrapWorksheet(hardwareWorksheet({ currentSensor: { kind: "shunt", shuntMilliohms: mohm, amplifierGain: gain }, atAmps: amps }, VORNEL));
+    const { current } = unwrapWorksheet(
+      hardwareWorksheet({ currentSensor: { kind: "shunt", shuntMilliohms: mohm, amplifierGain: gain }, atAmps: amps }, VORNEL),
+    );
     expect(current!.sensitivityMvPerAmp).toBeCloseTo(mvPerAmp, 12);
     expect(current!.atAmps!.outputVolts).toBeCloseTo(volts, 12);
     expect(current!.atAmps!.shuntWatts).toBeCloseTo(watts, 12);
@@ -79,14 +74,20 @@ describe(`from the hardware: the current sensor — ${OHM}`, () => {
   });
 
   it("warns outside the 2–200 mV/A usual for hobby boards (common practice, no source) and when the amplifier clips the ADC", () => {
-    const r = hardwareWorksheet({ currentSensor: { kind: "shunt", shuntMilliohms: 5, amplifierGain: 50 }, atAmps: 20, adc: { vrefVolts: 3.3, bits: 12 } }, VORNEL);
+    const r = hardwareWorksheet(
+      { currentSensor: { kind: "shunt", shuntMilliohms: 5, amplifierGain: 50 }, atAmps: 20, adc: { vrefVolts: 3.3, bits: 12 } },
+      VORNEL,
+    );
     expect(r.warnings.map((w) => w.field).sort()).toEqual(["atAmps", "currentSensor"]);
   });
 });
 
 describe("from the hardware: field-level errors", () => {
   it("names every bad field", () => {
-    const r = hardwareWorksheet({ divider: { topOhms: 0, bottomOhms: -1 }, currentSensor: { kind: "shunt", shuntMilliohms: Number.NaN, amplifierGain: 50 }, maxCells: 2.5 }, VORNEL);
+    const r = hardwareWorksheet(
+      { divider: { topOhms: 0, bottomOhms: -1 }, currentSensor: { kind: "shunt", shuntMilliohms: Number.NaN, amplifierGain: 50 }, maxCells: 2.5 },
+      VORNEL,
+    );
     expect(r.ok).toBe(false);
     expect(!r.ok && r.errors.map((e) => e.field).sort()).toEqual(["currentSensor.shuntMilliohms", "divider.bottomOhms", "divider.topOhms", "maxCells"]);
   });

@@ -94,39 +94,52 @@ describe(`iterating the ${RECHARGE_RULE} on a simulated sensor, rounding: ${ROUN
 
   it("after the first cycle every ratio stays within the error budget, converged or not, over the wider range", () => {
     fc.assert(
-      fc.property(fc.double({ min: 20, max: 200, noNaN: true }), fc.double({ min: 0.7, max: 1.3, noNaN: true }), fc.integer({ min: 450, max: 10_000 }), fc.array(flight, { minLength: 8, maxLength: 8 }), (sensitivity, off, ratedMah, flights) => {
-        const family = DEMO_FIRMWARE_FAMILIES[0]; // 0.1 mV/A steps: 200–2000 of them
-        const start = Math.round(currentScaleSettingFromSensitivity(sensitivity, family) * off);
-        const { cycles, result } = fly(family, sensitivity, 0.98, ratedMah, start, flights, false);
-        const { charger, rounding, step } = cycleBudget(cycles, 0.003);
-        // Once the stop rule is met on the safe side the worksheet keeps the setting, so the next
-        // ratio is the last one (≤ 1 % over) moved by the charger's scatter; otherwise one step.
-        const high = charger * rounding * Math.max(step, 1 + STOP_TOLERANCE);
-        const low = 1 / (charger * rounding);
-        for (const it of unwrapWorksheet(result).iterations.slice(1)) {
-          expect(it.ratio).toBeLessThanOrEqual(high);
-          expect(it.ratio).toBeGreaterThanOrEqual(low);
-        }
-      }),
+      fc.property(
+        fc.double({ min: 20, max: 200, noNaN: true }),
+        fc.double({ min: 0.7, max: 1.3, noNaN: true }),
+        fc.integer({ min: 450, max: 10_000 }),
+        fc.array(flight, { minLength: 8, maxLength: 8 }),
+        (sensitivity, off, ratedMah, flights) => {
+          const family = DEMO_FIRMWARE_FAMILIES[0]; // 0.1 mV/A steps: 200–2000 of them
+          const start = Math.round(currentScaleSettingFromSensitivity(sensitivity, family) * off);
+          const { cycles, result } = fly(family, sensitivity, 0.98, ratedMah, start, flights, false);
+          const { charger, rounding, step } = cycleBudget(cycles, 0.003);
+          // Once the stop rule is met on the safe side the worksheet keeps the setting, so the next
+          // ratio is the last one (≤ 1 % over) moved by the charger's scatter; otherwise one step.
+          const high = charger * rounding * Math.max(step, 1 + STOP_TOLERANCE);
+          const low = 1 / (charger * rounding);
+          for (const it of unwrapWorksheet(result).iterations.slice(1)) {
+            expect(it.ratio).toBeLessThanOrEqual(high);
+            expect(it.ratio).toBeGreaterThanOrEqual(low);
+          }
+        },
+      ),
       { numRuns: 300 },
     );
   });
 
   it("where the budget fits inside 1 %, every cycle until the stop rule is met is within it, and later ones drift only by the charger and the roundings", () => {
     fc.assert(
-      fc.property(fc.double({ min: 40, max: 200, noNaN: true }), fc.double({ min: 0.7, max: 1.3, noNaN: true }), fc.array(flightWithScatter(0.0015), { minLength: 8, maxLength: 8 }), (sensitivity, off, flights) => {
-        const family = DEMO_FIRMWARE_FAMILIES[0]; // 0.1 mV/A steps: 400–2000 of them
-        const start = Math.round(currentScaleSettingFromSensitivity(sensitivity, family) * off);
-        const { cycles, result } = fly(family, sensitivity, 0.98, 1500, start, flights, false);
-        const its = unwrapWorksheet(result).iterations;
-        const { charger, rounding } = cycleBudget(cycles, 0.0015);
-        const firstMet = its.findIndex((it, i) => i > 0 && Math.abs(it.ratio - 1) <= STOP_TOLERANCE + 1e-12 && Math.abs(its[i - 1].ratio - 1) <= STOP_TOLERANCE + 1e-12);
-        expect(firstMet).toBeGreaterThan(0);
-        expect(firstMet).toBeLessThan(EXPECTED_MAX_CYCLES);
-        // after the first met pair a kept setting drifts only by the charger's scatter and the roundings
-        for (const it of its.slice(firstMet + 1)) expect(Math.abs(it.ratio - 1)).toBeLessThanOrEqual((1 + STOP_TOLERANCE) * charger * rounding - 1);
-        for (const it of its.slice(1, firstMet + 1)) expect(Math.abs(it.ratio - 1)).toBeLessThanOrEqual(STOP_TOLERANCE + 1e-12);
-      }),
+      fc.property(
+        fc.double({ min: 40, max: 200, noNaN: true }),
+        fc.double({ min: 0.7, max: 1.3, noNaN: true }),
+        fc.array(flightWithScatter(0.0015), { minLength: 8, maxLength: 8 }),
+        (sensitivity, off, flights) => {
+          const family = DEMO_FIRMWARE_FAMILIES[0]; // 0.1 mV/A steps: 400–2000 of them
+          const start = Math.round(currentScaleSettingFromSensitivity(sensitivity, family) * off);
+          const { cycles, result } = fly(family, sensitivity, 0.98, 1500, start, flights, false);
+          const its = unwrapWorksheet(result).iterations;
+          const { charger, rounding } = cycleBudget(cycles, 0.0015);
+          const firstMet = its.findIndex(
+            (it, i) => i > 0 && Math.abs(it.ratio - 1) <= STOP_TOLERANCE + 1e-12 && Math.abs(its[i - 1].ratio - 1) <= STOP_TOLERANCE + 1e-12,
+          );
+          expect(firstMet).toBeGreaterThan(0);
+          expect(firstMet).toBeLessThan(EXPECTED_MAX_CYCLES);
+          // after the first met pair a kept setting drifts only by the charger's scatter and the roundings
+          for (const it of its.slice(firstMet + 1)) expect(Math.abs(it.ratio - 1)).toBeLessThanOrEqual((1 + STOP_TOLERANCE) * charger * rounding - 1);
+          for (const it of its.slice(1, firstMet + 1)) expect(Math.abs(it.ratio - 1)).toBeLessThanOrEqual(STOP_TOLERANCE + 1e-12);
+        },
+      ),
       { numRuns: 100 },
     );
   });

@@ -22,7 +22,7 @@ describe(`fly-and-recharge worksheet — ${RECHARGE_RULE}`, () => {
     // inverse: 400 × 1200 / 1300 = 369.23 → floor 369 makes the displayed current larger
     const inv = unwrapWorksheet(rechargeWorksheet({ cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }] }, VORNEL));
     expect(inv.next).toMatchObject({ down: { setting: 369, reads: "high" }, up: { setting: 370, reads: "low" }, safeSide: "down" });
-    expect(inv.next.down.readingError).toBeCloseTo(((400 * 1200) / 1300 / 369 - 1), 12);
+    expect(inv.next.down.readingError).toBeCloseTo((400 * 1200) / 1300 / 369 - 1, 12);
     expect(inv.recommendedSetting).toBe(369);
     expect(inv.next.why).toMatch(/lands early rather than late/);
     // proportional: 2500 × 1300 / 1200 = 2708.33 → ceil 2709 makes the displayed current larger
@@ -48,13 +48,33 @@ describe(`fly-and-recharge worksheet — ${RECHARGE_RULE}`, () => {
   });
 
   it("met but under-reporting: the safe rounding rather than the scale in force", () => {
-    const r = unwrapWorksheet(rechargeWorksheet({ cycles: [{ scaleUsed: 320, reportedMah: 995, chargedMah: 1000 }, { scaleUsed: 320, reportedMah: 993, chargedMah: 1000 }] }, VORNEL));
+    const r = unwrapWorksheet(
+      rechargeWorksheet(
+        {
+          cycles: [
+            { scaleUsed: 320, reportedMah: 995, chargedMah: 1000 },
+            { scaleUsed: 320, reportedMah: 993, chargedMah: 1000 },
+          ],
+        },
+        VORNEL,
+      ),
+    );
     expect(r.stop.met).toBe(true);
     expect(r.recommendedSetting).toBe(Math.floor(320 * 0.993)); // 317: over-reports
   });
 
   it("convergence data for a plot: scale, ratio and error per iteration", () => {
-    const r = unwrapWorksheet(rechargeWorksheet({ cycles: [{ scaleUsed: 400, reportedMah: 1000, chargedMah: 1250 }, { scaleUsed: 320, reportedMah: 1190, chargedMah: 1200 }] }, VORNEL));
+    const r = unwrapWorksheet(
+      rechargeWorksheet(
+        {
+          cycles: [
+            { scaleUsed: 400, reportedMah: 1000, chargedMah: 1250 },
+            { scaleUsed: 320, reportedMah: 1190, chargedMah: 1200 },
+          ],
+        },
+        VORNEL,
+      ),
+    );
     expect(r.convergence.map((c) => [c.scale, Number(c.errorPercent.toFixed(3))])).toEqual([
       [400, -20],
       [320, -0.833],
@@ -70,7 +90,12 @@ describe(`fly-and-recharge worksheet — ${RECHARGE_RULE}`, () => {
 describe("fly-and-recharge worksheet: warnings (our own rules)", () => {
   it("a cycle marked not fully recharged is left out, and the next scale comes from the one before", () => {
     const r = rechargeWorksheet(
-      { cycles: [{ scaleUsed: 400, reportedMah: 1000, chargedMah: 1250 }, { scaleUsed: 320, reportedMah: 1100, chargedMah: 700, fullyRecharged: false }] },
+      {
+        cycles: [
+          { scaleUsed: 400, reportedMah: 1000, chargedMah: 1250 },
+          { scaleUsed: 320, reportedMah: 1100, chargedMah: 700, fullyRecharged: false },
+        ],
+      },
       VORNEL,
     );
     expect(r.warnings).toEqual([{ field: "cycles.1.fullyRecharged", message: expect.stringMatching(/left out/) }]);
@@ -95,7 +120,16 @@ describe("fly-and-recharge worksheet: warnings (our own rules)", () => {
   });
 
   it(`charged more than ${CHARGED_OVER_RATED_WARNING * 100} % over the rating is doubted, not refused`, () => {
-    const r = rechargeWorksheet({ ratedMah: 1000, cycles: [{ scaleUsed: 400, reportedMah: 1050, chargedMah: 1150 }, { scaleUsed: 400, reportedMah: 1000, chargedMah: 1050, ratedMah: 1300 }] }, VORNEL);
+    const r = rechargeWorksheet(
+      {
+        ratedMah: 1000,
+        cycles: [
+          { scaleUsed: 400, reportedMah: 1050, chargedMah: 1150 },
+          { scaleUsed: 400, reportedMah: 1000, chargedMah: 1050, ratedMah: 1300 },
+        ],
+      },
+      VORNEL,
+    );
     expect(r.ok).toBe(true);
     expect(r.warnings.map((w) => w.field)).toEqual(["cycles.0.chargedMah"]);
   });
@@ -114,14 +148,24 @@ describe("fly-and-recharge worksheet: field-level errors", () => {
   };
 
   it("zero and negative mAh, a fractional scale, a missing figure", () => {
-    const errors = errorsOf({ cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }, { scaleUsed: 370.5, reportedMah: 0, chargedMah: -5 }, { scaleUsed: 370 }] });
-    expect(errors.map((e) => e.field)).toEqual(["cycles.1.scaleUsed", "cycles.1.reportedMah", "cycles.1.chargedMah", "cycles.2.reportedMah", "cycles.2.chargedMah"]);
+    const errors = errorsOf({
+      cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }, { scaleUsed: 370.5, reportedMah: 0, chargedMah: -5 }, { scaleUsed: 370 }],
+    });
+    expect(errors.map((e) => e.field)).toEqual([
+      "cycles.1.scaleUsed",
+      "cycles.1.reportedMah",
+      "cycles.1.chargedMah",
+      "cycles.2.reportedMah",
+      "cycles.2.chargedMah",
+    ]);
     expect(errors[2].message).toMatch(/more than 0 mAh/);
     expect(errors[3].message).toBe("Enter the reported mAh");
   });
 
   it("a ratio outside 0.2–5 cannot be one flight (our own rule, limits.ts)", () => {
-    expect(errorsOf({ cycles: [{ scaleUsed: 400, reportedMah: 12000, chargedMah: 1200 }] })).toEqual([{ field: "cycles.0.reportedMah", message: expect.stringMatching(/outside 0\.2–5/) }]);
+    expect(errorsOf({ cycles: [{ scaleUsed: 400, reportedMah: 12000, chargedMah: 1200 }] })).toEqual([
+      { field: "cycles.0.reportedMah", message: expect.stringMatching(/outside 0\.2–5/) },
+    ]);
   });
 
   it("more than 1.5 × the rating cannot have gone in", () => {

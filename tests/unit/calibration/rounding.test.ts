@@ -39,13 +39,18 @@ describe(`both roundings and the safe side — ${ROUNDING_SIDE}`, () => {
 
   it("property: the recommended rounding never reads on the unsafe side, and is at most one step away", () => {
     fc.assert(
-      fc.property(fc.double({ min: 1, max: 1e5, noNaN: true }), fc.constantFrom("inverse" as const, "proportional" as const), fc.constantFrom("high" as const, "low" as const), (exact, response, safe) => {
-        const r = roundBothWays(exact, response, safe);
-        expect(Math.abs(r.recommended.setting - exact)).toBeLessThanOrEqual(1);
-        const err = predictedReadingError(r.recommended.setting, exact, response);
-        if (safe === "high") expect(err).toBeGreaterThanOrEqual(-1e-9);
-        else expect(err).toBeLessThanOrEqual(1e-9);
-      }),
+      fc.property(
+        fc.double({ min: 1, max: 1e5, noNaN: true }),
+        fc.constantFrom("inverse" as const, "proportional" as const),
+        fc.constantFrom("high" as const, "low" as const),
+        (exact, response, safe) => {
+          const r = roundBothWays(exact, response, safe);
+          expect(Math.abs(r.recommended.setting - exact)).toBeLessThanOrEqual(1);
+          const err = predictedReadingError(r.recommended.setting, exact, response);
+          if (safe === "high") expect(err).toBeGreaterThanOrEqual(-1e-9);
+          else expect(err).toBeLessThanOrEqual(1e-9);
+        },
+      ),
     );
   });
 });

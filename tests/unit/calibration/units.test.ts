@@ -154,7 +154,9 @@ describe("round trips (fast-check)", () => {
   const relClose = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(Math.abs(a), Math.abs(b));
 
   it("ratio -> voltage setting -> ratio", () => {
-    fc.assert(fc.property(positive, voltageUnits, (ratio, fam) => relClose(ratioFromVoltageScaleSetting(voltageScaleSettingFromRatio(ratio, fam), fam), ratio)));
+    fc.assert(
+      fc.property(positive, voltageUnits, (ratio, fam) => relClose(ratioFromVoltageScaleSetting(voltageScaleSettingFromRatio(ratio, fam), fam), ratio)),
+    );
   });
 
   it("sensitivity -> current setting -> sensitivity", () => {

@@ -70,7 +70,10 @@ describe(`voltage worksheet — ${VOLTAGE_RULE}`, () => {
           const trueSetting = voltageScaleSettingFromRatio(trueRatio, family);
           const used = Math.max(family.voltageScaleMin, Math.round(trueSetting * off));
           const measuredVolts = cells * 3.9;
-          const r = voltageWorksheet({ scaleUsed: used, readings: [{ cells, measuredVolts, reportedVolts: displayed(measuredVolts, trueRatio, used, family) }] }, family);
+          const r = voltageWorksheet(
+            { scaleUsed: used, readings: [{ cells, measuredVolts, reportedVolts: displayed(measuredVolts, trueRatio, used, family) }] },
+            family,
+          );
           expect(r.ok).toBe(true); // ±30 % is well inside the reported-voltage slack
           expect(r.ok && r.value.impliedScale / trueSetting).toBeCloseTo(1, 9);
         },
@@ -93,9 +96,17 @@ describe(`voltage worksheet: implausible readings, field by field (2.5–4.35 V 
   });
 
   it("a multimeter voltage impossible for the cell count (a 4S pack is 10–17.4 V)", () => {
-    const errors = errorsOf({ scaleUsed: 110, readings: [{ cells: 4, reportedVolts: 16.8, measuredVolts: 16.8 }, { cells: 4, reportedVolts: 22, measuredVolts: 22.2 }] });
+    const errors = errorsOf({
+      scaleUsed: 110,
+      readings: [
+        { cells: 4, reportedVolts: 16.8, measuredVolts: 16.8 },
+        { cells: 4, reportedVolts: 22, measuredVolts: 22.2 },
+      ],
+    });
     expect(errors).toEqual([{ field: "readings.1.measuredVolts", message: expect.stringMatching(/4S pack measures 10–17\.4 V/) }]);
-    expect(errorsOf({ scaleUsed: 110, readings: [{ cells: 4, reportedVolts: 9.9, measuredVolts: 9.9 }] }).map((e) => e.field)).toEqual(["readings.0.measuredVolts"]);
+    expect(errorsOf({ scaleUsed: 110, readings: [{ cells: 4, reportedVolts: 9.9, measuredVolts: 9.9 }] }).map((e) => e.field)).toEqual([
+      "readings.0.measuredVolts",
+    ]);
   });
 
   it("a reported voltage beyond even a badly set display's slack (lib/submissions/limits.ts)", () => {

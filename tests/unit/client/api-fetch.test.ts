@@ -8,7 +8,10 @@ const json = (status: number, body: unknown) => new Response(JSON.stringify(body
 afterEach(() => vi.unstubAllGlobals());
 
 async function refusal(promise: Promise<unknown>): Promise<ApiFetchError> {
-  const error = await promise.then(() => null, (e: unknown) => e);
+  const error = await promise.then(
+    () => null,
+    (e: unknown) => e,
+  );
   expect(error).toBeInstanceOf(ApiFetchError);
   return error as ApiFetchError;
 }
@@ -25,12 +28,18 @@ describe("apiFetch", () => {
   });
 
   it("returns undefined for 204", async () => {
-    vi.stubGlobal("fetch", vi.fn(async () => new Response(null, { status: 204 })));
+    vi.stubGlobal(
+      "fetch",
+      vi.fn(async () => new Response(null, { status: 204 })),
+    );
     expect(await apiFetch("/api/v1/x", { method: "DELETE" })).toBeUndefined();
   });
 
   it("turns the API's error body into status, message and field errors", async () => {
-    vi.stubGlobal("fetch", vi.fn(async () => json(400, { error: { message: "Check the fields", fieldErrors: { cells: ["Enter the cells"], bad: "not a list" } } })));
+    vi.stubGlobal(
+      "fetch",
+      vi.fn(async () => json(400, { error: { message: "Check the fields", fieldErrors: { cells: ["Enter the cells"], bad: "not a list" } } })),
+    );
     const error = await refusal(apiFetch("/api/v1/x", { json: {} }));
     expect(error.status).toBe(400);
     expect(error.message).toBe("Check the fields");
@@ -38,11 +47,17 @@ describe("apiFetch", () => {
   });
 
   it("says the caller's fallback for a refusal without the API's body, and its own words when unreachable", async () => {
-    vi.stubGlobal("fetch", vi.fn(async () => new Response("<html>bad gateway</html>", { status: 502 })));
+    vi.stubGlobal(
+      "fetch",
+      vi.fn(async () => new Response("<html>bad gateway</html>", { status: 502 })),
+    );
     expect((await refusal(apiFetch("/x", { fallbackMessage: (s) => `No luck (HTTP ${s}).` }))).message).toBe("No luck (HTTP 502).");
     expect((await refusal(apiFetch("/x"))).message).toBe("The server answered 502. Try again in a moment.");
 
-    vi.stubGlobal("fetch", vi.fn(async () => Promise.reject(new TypeError("Failed to fetch"))));
+    vi.stubGlobal(
+      "fetch",
+      vi.fn(async () => Promise.reject(new TypeError("Failed to fetch"))),
+    );
     const unreachable = await refusal(apiFetch("/x"));
     expect(unreachable.status).toBe(0);
     expect(unreachable.message).toBe(UNREACHABLE_MESSAGE);

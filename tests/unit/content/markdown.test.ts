@@ -12,10 +12,13 @@ const OWASP_VECTORS_FROM_MEMORY: Array<[name: string, input: string]> = [
   ["plain script", "<script>alert('XSS')</script>"],
   ["script with src", '<SCRIPT SRC="https://xss.example/xss.js"></SCRIPT>'],
   ["img onerror", "<img src=x onerror=alert(1)>"],
-  ["img javascript: src", '<IMG SRC="javascript:alert(\'XSS\');">'],
+  ["img javascript: src", "<IMG SRC=\"javascript:alert('XSS');\">"],
   ["img src case-mixed, no quotes", "<IMG SRC=JaVaScRiPt:alert('XSS')>"],
   ["img src in backticks", "<IMG SRC=`javascript:alert(1)`>"],
-  ["img src with HTML entities", "<IMG SRC=&#106;&#97;&#118;&#97;&#115;&#99;&#114;&#105;&#112;&#116;&#58;&#97;&#108;&#101;&#114;&#116;&#40;&#39;&#88;&#83;&#83;&#39;&#41;>"],
+  [
+    "img src with HTML entities",
+    "<IMG SRC=&#106;&#97;&#118;&#97;&#115;&#99;&#114;&#105;&#112;&#116;&#58;&#97;&#108;&#101;&#114;&#116;&#40;&#39;&#88;&#83;&#83;&#39;&#41;>",
+  ],
   ["img src with embedded tab entity", '<IMG SRC="jav&#x09;ascript:alert(1);">'],
   ["img src with embedded newline", '<IMG SRC="jav&#x0A;ascript:alert(1);">'],
   ["malformed img with quoted script", '<IMG """><SCRIPT>alert("XSS")</SCRIPT>">'],
@@ -23,12 +26,15 @@ const OWASP_VECTORS_FROM_MEMORY: Array<[name: string, input: string]> = [
   ["body onload", "<BODY ONLOAD=alert('XSS')>"],
   ["iframe javascript:", '<IFRAME SRC="javascript:alert(1);"></IFRAME>'],
   ["style tag with expression()", "<STYLE>li {list-style-image: url(\"javascript:alert('XSS')\");}</STYLE><UL><LI>XSS</LI></UL>"],
-  ["style attribute with expression()", '<DIV STYLE="width: expression(alert(\'XSS\'));">x</DIV>'],
+  ["style attribute with expression()", "<DIV STYLE=\"width: expression(alert('XSS'));\">x</DIV>"],
   ["data: URL in a link", '<a href="data:text/html;base64,PHNjcmlwdD5hbGVydCgxKTwvc2NyaXB0Pg==">click</a>'],
   ["half-open double script", "<<SCRIPT>alert(1);//<</SCRIPT>"],
   ["script without closing tag", "<SCRIPT SRC=https://xss.example/xss.js?< B >"],
   ["meta refresh to data:", '<META HTTP-EQUIV="refresh" CONTENT="0;url=data:text/html;base64,PHNjcmlwdD5hbGVydCgxKTwvc2NyaXB0Pg">'],
-  ["object/embed", '<OBJECT TYPE="text/x-scriptlet" DATA="https://xss.example/scriptlet.html"></OBJECT><EMBED SRC="data:image/svg+xml;base64,PHN2Zz48L3N2Zz4=">'],
+  [
+    "object/embed",
+    '<OBJECT TYPE="text/x-scriptlet" DATA="https://xss.example/scriptlet.html"></OBJECT><EMBED SRC="data:image/svg+xml;base64,PHN2Zz48L3N2Zz4=">',
+  ],
   ["vbscript: in a link", '<a href="vbscript:msgbox(1)">x</a>'],
   ["Markdown link to javascript:", "[x](javascript:alert(1))"],
   ["Markdown link, case and entity obfuscated", "[x](JaVaScRiPt&#58;alert(1)) [y](jav&#x09;ascript:alert(1)) [z]( javascript:alert(1) )"],
@@ -76,8 +82,34 @@ describe("renderMarkdown against the OWASP XSS Filter Evasion Cheat Sheet (vecto
   });
 
   it("random splices of the vectors' pieces stay inert (fast-check)", () => {
-    const pieces = ["<", ">", "<script>", "</script>", "<img src=x ", "onerror=alert(1)", "javascript:", "jav&#x09;ascript:",
-      "&#106;", "[x](", ")", "![y](", "<", "\"", "'", "`", "\n\n", "> ", "- ", "*", "data:text/html,", "<a href=", "<svg", " onload=", "style=", "&"];
+    const pieces = [
+      "<",
+      ">",
+      "<script>",
+      "</script>",
+      "<img src=x ",
+      "onerror=alert(1)",
+      "javascript:",
+      "jav&#x09;ascript:",
+      "&#106;",
+      "[x](",
+      ")",
+      "![y](",
+      "<",
+      '"',
+      "'",
+      "`",
+      "\n\n",
+      "> ",
+      "- ",
+      "*",
+      "data:text/html,",
+      "<a href=",
+      "<svg",
+      " onload=",
+      "style=",
+      "&",
+    ];
     fc.assert(
       fc.property(fc.array(fc.constantFrom(...pieces), { maxLength: 40 }), (parts) => {
         expectNoScriptCapableOutput(renderMarkdown(parts.join("")));

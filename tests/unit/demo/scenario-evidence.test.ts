@@ -156,7 +156,13 @@ describe("demo moderation past", () => {
       }
       for (const [key, vs] of values) {
         const sum = summarise(vs);
-        expect(newest.get(key), key).toMatchObject({ n: sum.n, median: sum.median, ciLow: sum.ciLow, ciHigh: sum.ciHigh, recommendedValue: recommendValue(sum.median!, 1)!.setting });
+        expect(newest.get(key), key).toMatchObject({
+          n: sum.n,
+          median: sum.median,
+          ciLow: sum.ciLow,
+          ciHigh: sum.ciHigh,
+          recommendedValue: recommendValue(sum.median!, 1)!.setting,
+        });
         groups++;
       }
     }

@@ -137,7 +137,9 @@ describe("catalogue rows satisfy the schema", () => {
   });
 
   it("firmware families use three different unit sets and satisfy the family CHECKs", () => {
-    const units = scenario.firmwareFamilies.map((f) => `${f.voltageScaleUnit}:${f.voltageScaleStep}|${f.currentScaleUnit}:${f.currentScaleStep}|${f.currentOffsetUnit}`);
+    const units = scenario.firmwareFamilies.map(
+      (f) => `${f.voltageScaleUnit}:${f.voltageScaleStep}|${f.currentScaleUnit}:${f.currentScaleStep}|${f.currentOffsetUnit}`,
+    );
     expect(new Set(units).size).toBe(3);
     for (const f of scenario.firmwareFamilies) {
       expect(f.voltageScaleUnit === "V/V", f.slug).toBe(f.voltageScaleResponse === "proportional");
@@ -282,8 +284,7 @@ describe("submissions", () => {
 
 describe("landmarks (DEMO_LANDMARKS)", () => {
   it("popular boards have 80+ submissions and many boards have 10–30", () => {
-    const perBoard = (slug: string) =>
-      scenario.boardRevisions.filter((r) => r.boardSlug === slug).reduce((n, r) => n + (countByRevision.get(r.key) ?? 0), 0);
+    const perBoard = (slug: string) => scenario.boardRevisions.filter((r) => r.boardSlug === slug).reduce((n, r) => n + (countByRevision.get(r.key) ?? 0), 0);
     for (const slug of DEMO_LANDMARKS.popularBoards) expect(perBoard(slug), slug).toBeGreaterThanOrEqual(80);
     const middling = scenario.boardModels.filter((b) => perBoard(b.slug) >= 10 && perBoard(b.slug) <= 30);
     expect(middling.length).toBeGreaterThanOrEqual(25);
@@ -292,10 +293,17 @@ describe("landmarks (DEMO_LANDMARKS)", () => {
   it("includes revisions with exactly 0, 1 and 2 submissions, and only those are that sparse", () => {
     const { none, one, two } = DEMO_LANDMARKS.sparseRevisions;
     const expected = new Map<string, number>();
-    for (const [list, n] of [[none, 0], [one, 1], [two, 2]] as const) {
+    for (const [list, n] of [
+      [none, 0],
+      [one, 1],
+      [two, 2],
+    ] as const) {
       for (const r of list) {
         const k = key(r.boardSlug, r.label);
-        expect(scenario.boardRevisions.some((x) => x.key === k), k).toBe(true);
+        expect(
+          scenario.boardRevisions.some((x) => x.key === k),
+          k,
+        ).toBe(true);
         expect(countByRevision.get(k) ?? 0, k).toBe(n);
         expected.set(k, n);
       }

@@ -66,7 +66,7 @@ describe("route", () => {
 
 describe("error helpers", () => {
   it("notFound names the field when given one", () => {
-    expect(notFound("No board has the slug \"x\".", "slug").fieldErrors).toEqual({ slug: ["No board has the slug \"x\"."] });
+    expect(notFound('No board has the slug "x".', "slug").fieldErrors).toEqual({ slug: ['No board has the slug "x".'] });
     expect(notFound("Nothing here.").fieldErrors).toEqual({});
   });
 

@@ -79,7 +79,13 @@ describe("the demo's halved shunt (Tinsel 25 AIO v1 → v2), Ohm's law: 0.5 mΩ 
 
   it("without a parts list the values alone give the same answer under the inverse mV/A setting (127 / 249 ≈ 0.51)", () => {
     const bare = { dividerRatio: null, currentSensor: null, shuntMilliohms: null, amplifierGain: null, sensitivityMvPerAmp: null };
-    const [d] = revisionDifferences([{ ...v1, ...bare }, { ...v2, ...bare }], VORNEL_LIKE);
+    const [d] = revisionDifferences(
+      [
+        { ...v1, ...bare },
+        { ...v2, ...bare },
+      ],
+      VORNEL_LIKE,
+    );
     expect(d.hardware).toEqual([]);
     expect(d.readingRatio).toBeCloseTo(127 / 249, 12);
     expect(describeDifference(d, "v2")).toBe(
@@ -94,12 +100,24 @@ describe("values only: which way the ratio goes depends on the family's response
   const same = { currentSensor: null, sensitivityMvPerAmp: null };
 
   it("proportional (A/V): b needs a bigger setting, so at a's setting it reads less: 4018 / 7867", () => {
-    const [d] = revisionDifferences([{ ...a, ...same }, { ...b, ...same }], SKELMAR_LIKE);
+    const [d] = revisionDifferences(
+      [
+        { ...a, ...same },
+        { ...b, ...same },
+      ],
+      SKELMAR_LIKE,
+    );
     expect(d.readingRatio).toBeCloseTo(4018 / 7867, 12);
   });
 
   it("inverse (mV/A): the same numbers read the other way: 7867 / 4018", () => {
-    const [d] = revisionDifferences([{ ...a, ...same }, { ...b, ...same }], VORNEL_LIKE);
+    const [d] = revisionDifferences(
+      [
+        { ...a, ...same },
+        { ...b, ...same },
+      ],
+      VORNEL_LIKE,
+    );
     expect(d.readingRatio).toBeCloseTo(7867 / 4018, 12);
   });
 });

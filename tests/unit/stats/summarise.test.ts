@@ -9,7 +9,19 @@ describe("summarise(): defined behaviour for small n, even n and ties", () => {
   it("n = 0: every figure null, state too_few, never NaN", () => {
     const s = summarise([]);
     expect(Object.keys(s)).toEqual(expect.arrayContaining(FIELDS));
-    expect(s).toMatchObject({ n: 0, median: null, q1: null, q3: null, iqr: null, mad: null, scaledMad: null, ciLow: null, ciHigh: null, ciCoverage: null, state: "too_few" });
+    expect(s).toMatchObject({
+      n: 0,
+      median: null,
+      q1: null,
+      q3: null,
+      iqr: null,
+      mad: null,
+      scaledMad: null,
+      ciLow: null,
+      ciHigh: null,
+      ciCoverage: null,
+      state: "too_few",
+    });
   });
 
   it("n = 1 and n = 2: centre and spread reported, state too_few, no CI", () => {

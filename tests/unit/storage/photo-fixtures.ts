@@ -57,12 +57,18 @@ export async function pngWithAlpha(width = 40, height = 20): Promise<Buffer> {
       rgba.set([c.r, c.g, c.b, y === 0 ? 0 : 255], (y * width + x) * 4);
     }
   }
-  return sharp(rgba, { raw: { width, height, channels: 4 } }).png().withXmp(XMP).toBuffer();
+  return sharp(rgba, { raw: { width, height, channels: 4 } })
+    .png()
+    .withXmp(XMP)
+    .toBuffer();
 }
 
 export async function webp(width = 40, height = 20): Promise<Buffer> {
   const flat = await twoTone(width, height).png().toBuffer();
-  return sharp(flat).webp({ quality: 90 }).withExif({ IFD0: { Artist: METADATA_MARKER } }).toBuffer();
+  return sharp(flat)
+    .webp({ quality: 90 })
+    .withExif({ IFD0: { Artist: METADATA_MARKER } })
+    .toBuffer();
 }
 
 export async function gif(): Promise<Buffer> {
@@ -82,7 +88,11 @@ export const SCRIPT = Buffer.from("#!/bin/sh\necho not a photo\n");
  * decompression bomb looks like to a decoder. The IHDR's CRC is recomputed so it parses.
  */
 export async function pngClaiming(width: number, height: number): Promise<Buffer> {
-  const png = Buffer.from(await sharp({ create: { width: 1, height: 1, channels: 3, background: RED } }).png().toBuffer());
+  const png = Buffer.from(
+    await sharp({ create: { width: 1, height: 1, channels: 3, background: RED } })
+      .png()
+      .toBuffer(),
+  );
   // signature (8) | length (4) | "IHDR" (4) | width (4) | height (4) | … 5 more bytes | CRC (4)
   png.writeUInt32BE(width, 16);
   png.writeUInt32BE(height, 20);

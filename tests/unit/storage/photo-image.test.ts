@@ -4,7 +4,21 @@ import { ApiError } from "@/lib/http/errors";
 import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS } from "@/lib/storage/limits";
 import { sanitisePhoto, sniffPhotoType } from "@/lib/storage/photo-image";
 import {
-  BLUE, GPS_DATUM_MARKER, METADATA_MARKER, PDF, RED, SCRIPT, SVG, gif, jpegWithGps, near, pixelAt, pngClaiming, pngWithAlpha, tiff, webp,
+  BLUE,
+  GPS_DATUM_MARKER,
+  METADATA_MARKER,
+  PDF,
+  RED,
+  SCRIPT,
+  SVG,
+  gif,
+  jpegWithGps,
+  near,
+  pixelAt,
+  pngClaiming,
+  pngWithAlpha,
+  tiff,
+  webp,
 } from "./photo-fixtures";
 
 async function refusal(bytes: Uint8Array): Promise<string> {
@@ -20,7 +34,17 @@ async function refusal(bytes: Uint8Array): Promise<string> {
 }
 
 /** Byte strings that mark each kind of metadata block inside a JPEG or WebP file. */
-const METADATA_SIGNATURES = ["Exif\0\0", "ICC_PROFILE", "http://ns.adobe.com/xap/1.0/", "<x:xmpmeta", "Photoshop 3.0", METADATA_MARKER, GPS_DATUM_MARKER, "Testmaker", "SN-0042"];
+const METADATA_SIGNATURES = [
+  "Exif\0\0",
+  "ICC_PROFILE",
+  "http://ns.adobe.com/xap/1.0/",
+  "<x:xmpmeta",
+  "Photoshop 3.0",
+  METADATA_MARKER,
+  GPS_DATUM_MARKER,
+  "Testmaker",
+  "SN-0042",
+];
 
 describe("the fixture really carries what a phone photo carries", () => {
   it("EXIF with GPS, orientation 6, XMP and an ICC profile", async () => {

@@ -64,7 +64,9 @@ describe("readUpload", () => {
   });
 
   it("takes a raw body with any declared type (the bytes decide later)", async () => {
-    const upload = await readUpload(new Request(URL_, { method: "POST", body: new Uint8Array([7, 8]), headers: { "content-type": "application/octet-stream" } }));
+    const upload = await readUpload(
+      new Request(URL_, { method: "POST", body: new Uint8Array([7, 8]), headers: { "content-type": "application/octet-stream" } }),
+    );
     expect([...upload.bytes]).toEqual([7, 8]);
     expect(upload.declaredType).toBe("application/octet-stream");
   });

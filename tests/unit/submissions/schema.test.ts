@@ -63,7 +63,9 @@ describe("a whole contribution", () => {
 
 describe("settings: whole steps inside the family's range", () => {
   it("a scale that is not positive is refused with the reason", () => {
-    expect(errorsOf({ ...base, currentScale: 0 }).currentScale).toEqual(["Current scale must be more than 0: a scale of 0 cannot turn a sensor reading into volts or amps"]);
+    expect(errorsOf({ ...base, currentScale: 0 }).currentScale).toEqual([
+      "Current scale must be more than 0: a scale of 0 cannot turn a sensor reading into volts or amps",
+    ]);
     expect(errorsOf({ ...base, currentScale: -5 }).currentScale?.[0]).toMatch(/more than 0/);
   });
 
@@ -90,7 +92,10 @@ describe("settings: whole steps inside the family's range", () => {
 });
 
 describe("fly-and-recharge cycles: impossible figures refused", () => {
-  const withCycle = (c: Partial<NonNullable<SubmissionInput["cycles"]>[number]>) => ({ ...base, cycles: [base.cycles![0], base.cycles![1], { ...base.cycles![0], ...c }] });
+  const withCycle = (c: Partial<NonNullable<SubmissionInput["cycles"]>[number]>) => ({
+    ...base,
+    cycles: [base.cycles![0], base.cycles![1], { ...base.cycles![0], ...c }],
+  });
 
   it("a reported-to-charged ratio outside 0.2–5, keyed cycles.2.reportedMah", () => {
     expect(errorsOf(withCycle({ reportedMah: 7000, chargedMah: 1300, ratedMah: 1500 }))["cycles.2.reportedMah"]?.[0]).toMatch(/5.38 × .*outside 0.2–5/);
@@ -102,7 +107,9 @@ describe("fly-and-recharge cycles: impossible figures refused", () => {
   });
 
   it("charged more than 1.5 × rated, keyed cycles.2.chargedMah", () => {
-    expect(errorsOf(withCycle({ reportedMah: 2000, chargedMah: 2300, ratedMah: 1500 }))["cycles.2.chargedMah"]?.[0]).toMatch(/cannot have put 2300 mAh into a 1500 mAh pack/);
+    expect(errorsOf(withCycle({ reportedMah: 2000, chargedMah: 2300, ratedMah: 1500 }))["cycles.2.chargedMah"]?.[0]).toMatch(
+      /cannot have put 2300 mAh into a 1500 mAh pack/,
+    );
   });
 
   it("a cell count that is not possible, or not for this board", () => {
@@ -160,22 +167,48 @@ describe("bench points", () => {
   });
 
   it("two points at different currents pass", () => {
-    expect(errorsOf(bench([{ reportedAmps: 3.2, measuredAmps: 5 }, { reportedAmps: 12.5, measuredAmps: 20 }]))).toEqual({});
+    expect(
+      errorsOf(
+        bench([
+          { reportedAmps: 3.2, measuredAmps: 5 },
+          { reportedAmps: 12.5, measuredAmps: 20 },
+        ]),
+      ),
+    ).toEqual({});
   });
 
   it("fewer than two, or all at one current, are refused on bench.points", () => {
     expect(errorsOf(bench([{ reportedAmps: 3, measuredAmps: 5 }]))["bench.points"]?.[0]).toMatch(/at least 2 points/);
-    expect(errorsOf(bench([{ reportedAmps: 3, measuredAmps: 5 }, { reportedAmps: 3.1, measuredAmps: 5 }]))["bench.points"]?.[0]).toMatch(/different currents/);
+    expect(
+      errorsOf(
+        bench([
+          { reportedAmps: 3, measuredAmps: 5 },
+          { reportedAmps: 3.1, measuredAmps: 5 },
+        ]),
+      )["bench.points"]?.[0],
+    ).toMatch(/different currents/);
   });
 
   it("a fitted gain outside 0.2–5 cannot be the same current", () => {
-    expect(errorsOf(bench([{ reportedAmps: 60, measuredAmps: 5 }, { reportedAmps: 240, measuredAmps: 20 }]))["bench.points"]?.[0]).toMatch(/12 A per clamp-meter amp/);
+    expect(
+      errorsOf(
+        bench([
+          { reportedAmps: 60, measuredAmps: 5 },
+          { reportedAmps: 240, measuredAmps: 20 },
+        ]),
+      )["bench.points"]?.[0],
+    ).toMatch(/12 A per clamp-meter amp/);
   });
 
   it("a negative clamp reading is refused on its own field", () => {
-    expect(errorsOf(bench([{ reportedAmps: 3, measuredAmps: -5 }, { reportedAmps: 12, measuredAmps: 20 }]))["bench.points.0.measuredAmps"]).toEqual([
-      "The clamp-meter current must be at least 0 A",
-    ]);
+    expect(
+      errorsOf(
+        bench([
+          { reportedAmps: 3, measuredAmps: -5 },
+          { reportedAmps: 12, measuredAmps: 20 },
+        ]),
+      )["bench.points.0.measuredAmps"],
+    ).toEqual(["The clamp-meter current must be at least 0 A"]);
   });
 });
 

@@ -15,7 +15,9 @@ describe("status mails", () => {
   });
 
   it("a resubmission after changes were requested says it is back in the queue", () => {
-    expect(statusMail("a@example.test", "Ann", { ...facts, status: "pending" }, "resubmitted").subject).toBe("Shuntbook: Submission #42 updated: back in the review queue");
+    expect(statusMail("a@example.test", "Ann", { ...facts, status: "pending" }, "resubmitted").subject).toBe(
+      "Shuntbook: Submission #42 updated: back in the review queue",
+    );
   });
 
   it.each([

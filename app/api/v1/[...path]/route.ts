@@ -5,4 +5,10 @@ const unknownEndpoint = route({ auth: "public" }, async ({ req }) => {
   throw new ApiError(404, `There is no endpoint at ${new URL(req.url).pathname}. The endpoints are listed at /api/v1/openapi.json.`);
 });
 
-export const { GET, POST, PUT, PATCH, DELETE } = routes({ GET: unknownEndpoint, POST: unknownEndpoint, PUT: unknownEndpoint, PATCH: unknownEndpoint, DELETE: unknownEndpoint });
+export const { GET, POST, PUT, PATCH, DELETE } = routes({
+  GET: unknownEndpoint,
+  POST: unknownEndpoint,
+  PUT: unknownEndpoint,
+  PATCH: unknownEndpoint,
+  DELETE: unknownEndpoint,
+});

@@ -26,24 +26,47 @@ export default async function QuadPage({ params }: Props) {
   const sheets = await listQuadWorksheets(user.id, quad.id);
   return (
     <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
-      <p><Link href="/garage">← My garage</Link></p>
+      <p>
+        <Link href="/garage">← My garage</Link>
+      </p>
       <h1 className="font-display text-display uppercase">{quad.name}</h1>
       <section aria-labelledby="sheets-title" className="space-y-3">
-        <h2 id="sheets-title" className="font-display text-heading uppercase">Worksheets</h2>
-        {sheets.length === 0 ? <p className="text-muted">No worksheets yet.</p> : (
+        <h2 id="sheets-title" className="font-display text-heading uppercase">
+          Worksheets
+        </h2>
+        {sheets.length === 0 ? (
+          <p className="text-muted">No worksheets yet.</p>
+        ) : (
           <ul className="space-y-2">
             {sheets.map((s) => (
               <li key={s.id}>
-                <Link href={`/garage/worksheets/${s.id}`} className="font-semibold">{WORKSHEET_LABELS[s.kind].title}, {s.createdAt.slice(0, 10)}</Link>{" "}
-                <span className="text-small text-muted">{s.entries} {WORKSHEET_LABELS[s.kind].entries}{s.submissionId ? ", published" : ""}</span>
+                <Link href={`/garage/worksheets/${s.id}`} className="font-semibold">
+                  {WORKSHEET_LABELS[s.kind].title}, {s.createdAt.slice(0, 10)}
+                </Link>{" "}
+                <span className="text-small text-muted">
+                  {s.entries} {WORKSHEET_LABELS[s.kind].entries}
+                  {s.submissionId ? ", published" : ""}
+                </span>
               </li>
             ))}
           </ul>
         )}
         <StartWorksheet quadId={quad.id} />
-        <p><Link href={`/garage/quads/${quad.id}/voltage`} className="font-semibold">Check the voltage scale with a multimeter →</Link></p>
-        <p><Link href={`/garage/quads/${quad.id}/hardware`} className="font-semibold">What the board&rsquo;s parts say the scales should be →</Link></p>
-        <p><Link href={`/garage/quads/${quad.id}/bench`} className="font-semibold">Bench current check with a clamp meter (props on; most people should not need it) →</Link></p>
+        <p>
+          <Link href={`/garage/quads/${quad.id}/voltage`} className="font-semibold">
+            Check the voltage scale with a multimeter →
+          </Link>
+        </p>
+        <p>
+          <Link href={`/garage/quads/${quad.id}/hardware`} className="font-semibold">
+            What the board&rsquo;s parts say the scales should be →
+          </Link>
+        </p>
+        <p>
+          <Link href={`/garage/quads/${quad.id}/bench`} className="font-semibold">
+            Bench current check with a clamp meter (props on; most people should not need it) →
+          </Link>
+        </p>
       </section>
     </div>
   );

@@ -34,9 +34,15 @@ export async function QuadWorksheetPage(props: {
   const open = openId == null ? null : await getWorksheet(user.id, openId);
   return (
     <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
-      <p><Link href={`/garage/quads/${quad.id}`}>← {quad.name}</Link></p>
+      <p>
+        <Link href={`/garage/quads/${quad.id}`}>← {quad.name}</Link>
+      </p>
       <h1 className="font-display text-display uppercase">{props.title}</h1>
-      {family ? props.render({ ...ctx, family, open }) : <p>Give this quad its firmware family first: the worksheet follows that family&rsquo;s {props.setting} rules.</p>}
+      {family ? (
+        props.render({ ...ctx, family, open })
+      ) : (
+        <p>Give this quad its firmware family first: the worksheet follows that family&rsquo;s {props.setting} rules.</p>
+      )}
     </div>
   );
 }

@@ -26,9 +26,17 @@ export default async function WorksheetPage({ params }: Props) {
   });
   return (
     <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
-      <p><Link href={`/garage/quads/${sheet.quadId}`}>← {sheet.quadName}</Link></p>
+      <p>
+        <Link href={`/garage/quads/${sheet.quadId}`}>← {sheet.quadName}</Link>
+      </p>
       <h1 className="font-display text-display uppercase">{sheet.kind === "fly_recharge" ? "Fly and recharge" : WORKSHEET_LABELS[sheet.kind].title}</h1>
-      {sheet.kind === "voltage" ? <VoltageSheet initial={sheet} /> : sheet.kind === "bench" ? <BenchSheet initial={sheet} /> : <RechargeWorksheetView initial={sheet} />}
+      {sheet.kind === "voltage" ? (
+        <VoltageSheet initial={sheet} />
+      ) : sheet.kind === "bench" ? (
+        <BenchSheet initial={sheet} />
+      ) : (
+        <RechargeWorksheetView initial={sheet} />
+      )}
     </div>
   );
 }

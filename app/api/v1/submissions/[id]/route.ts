@@ -12,5 +12,7 @@ export const { GET, POST, PUT, PATCH, DELETE } = routes({
   }),
   // PATCH /api/v1/submissions/{id}: the whole submission again plus the `version` it was edited
   // from. Owner only (403), only while pending or changes requested (409), and 409 on a stale version.
-  PATCH: route({ auth: "user", params, body: "json" }, async ({ user, params, body }) => privateJson({ submission: await updateSubmission(user, params.id, body) })),
+  PATCH: route({ auth: "user", params, body: "json" }, async ({ user, params, body }) =>
+    privateJson({ submission: await updateSubmission(user, params.id, body) }),
+  ),
 });

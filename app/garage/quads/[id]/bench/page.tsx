@@ -18,7 +18,12 @@ export default async function BenchPage({ params }: Props) {
       title="Bench current check"
       setting="current-scale"
       render={({ quad, published, open }) => (
-        <BenchWorksheet quadId={quad.id} startingScale={published.currentScale} startingOffset={published.currentOffset} initial={open as BenchSheetView | null} />
+        <BenchWorksheet
+          quadId={quad.id}
+          startingScale={published.currentScale}
+          startingOffset={published.currentOffset}
+          initial={open as BenchSheetView | null}
+        />
       )}
     />
   );

@@ -25,5 +25,13 @@ export default async function HardwarePage({ params }: Props) {
 
 async function HardwareFigures({ quad, family, published }: { quad: QuadView } & Pick<Parameters<typeof HardwareWorksheetForm>[0], "family" | "published">) {
   const { board, figures } = await quadHardware(quad);
-  return <HardwareWorksheetForm family={family} quadId={quad.id} board={board} fromBoard={figures} published={{ voltageScale: published.voltageScale, currentScale: published.currentScale }} />;
+  return (
+    <HardwareWorksheetForm
+      family={family}
+      quadId={quad.id}
+      board={board}
+      fromBoard={figures}
+      published={{ voltageScale: published.voltageScale, currentScale: published.currentScale }}
+    />
+  );
 }

@@ -17,7 +17,9 @@ export default async function VoltagePage({ params }: Props) {
       section="voltage"
       title="Voltage check"
       setting="voltage-scale"
-      render={({ quad, published, open }) => <VoltageWorksheet quadId={quad.id} startingScale={published.voltageScale} initial={open as VoltageSheetView | null} />}
+      render={({ quad, published, open }) => (
+        <VoltageWorksheet quadId={quad.id} startingScale={published.voltageScale} initial={open as VoltageSheetView | null} />
+      )}
     />
   );
 }

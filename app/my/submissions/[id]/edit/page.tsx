@@ -54,10 +54,13 @@ export default async function EditSubmissionPage({ params }: Props) {
   return (
     <div className="space-y-8 pb-12">
       {heading}
-      {submission.status === "changes_requested" && (
-        <p className="max-w-prose">Saving your changes sends the submission back for review.</p>
-      )}
-      <SubmissionForm families={families} mode={{ kind: "edit", id: submission.id, version: submission.version }} initialDraft={draftFromView(submission)} initialBoard={board} />
+      {submission.status === "changes_requested" && <p className="max-w-prose">Saving your changes sends the submission back for review.</p>}
+      <SubmissionForm
+        families={families}
+        mode={{ kind: "edit", id: submission.id, version: submission.version }}
+        initialDraft={draftFromView(submission)}
+        initialBoard={board}
+      />
     </div>
   );
 }

@@ -7,5 +7,7 @@ import { deleteCharge } from "@/lib/garage/packs";
 const ChargeParams = z.object({ id: ownedId("pack"), chargeId: ownedId("charge") });
 
 export const { GET, POST, PUT, PATCH, DELETE } = routes({
-  DELETE: route({ auth: "user", params: ChargeParams }, async ({ user, params }) => privateJson({ pack: await deleteCharge(user.id, params.id, params.chargeId) })),
+  DELETE: route({ auth: "user", params: ChargeParams }, async ({ user, params }) =>
+    privateJson({ pack: await deleteCharge(user.id, params.id, params.chargeId) }),
+  ),
 });

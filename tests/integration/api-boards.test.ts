@@ -8,10 +8,10 @@ import { getBoardBySlug } from "@/lib/catalogue/get-board";
 import { listBoards } from "@/lib/catalogue/list-boards";
 import { parseCatalogueParams, MAX_PAGE } from "@/lib/catalogue/search-params";
 import { db } from "@/models";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
 // GET /api/v1/boards and GET /api/v1/boards/{slug} against a clone of the seeded demo database.
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 
 const list = (query = "", headers: Record<string, string> = {}) =>
   listBoardsRoute(new Request(`http://test.local/api/v1/boards${query}`, { headers }), undefined);

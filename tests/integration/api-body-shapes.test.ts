@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { stopBoss } from "@/lib/jobs";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
@@ -14,7 +14,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // object. Each must answer a 4xx in the API's one error shape and write nothing: a TypeError deep
 // in a handler would be a 500 (the contribution schema on its own once threw on `null`; its
 // handler happened to refuse the body before reaching it).
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 const APP_DIR = path.resolve(__dirname, "../../app");

@@ -4,7 +4,7 @@ import { afterAll, describe, expect, it, vi } from "vitest";
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
 import { stopBoss } from "@/lib/jobs";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
 // Every route file under app/api answers a method it does not implement with the API's JSON 405
 // and an Allow header naming the ones it does (RFC 9110 §15.5.6), never the framework's empty
@@ -12,7 +12,7 @@ import { useTestDatabase } from "@/tests/support/database";
 // refused by the sign-in or same-origin check (401/403) before it reads anything, so only the
 // unimplemented ones answer 405. Next.js serves HEAD through GET, so Allow names HEAD with GET.
 
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 const API_DIR = join(process.cwd(), "app/api");

@@ -8,11 +8,11 @@ import { invalidateBoardValues } from "@/lib/published/board-values";
 import { refreshGroups } from "@/lib/published/refresh";
 import { flagPoints } from "@/lib/stats";
 import { db } from "@/models";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
 // GET /api/v1/boards/{slug}/values, called as Next calls it (a Request and a params promise),
 // against a clone of the seeded demo database.
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 
 const call = (slug: string, query = "", headers: Record<string, string> = {}) =>
   GET(new Request(`http://test.local/api/v1/boards/${encodeURIComponent(slug)}/values${query}`, { headers }), {

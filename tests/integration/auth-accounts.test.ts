@@ -15,9 +15,9 @@ import { stopBoss } from "@/lib/jobs";
 import { drainJobsOnce } from "@/lib/jobs/worker";
 import { db, PasswordResetToken, User } from "@/models";
 import { callRoute, inRequest, linkIn, sessionCookieFor, testAccount, waitForMails, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 const json = (url: string, body: unknown, init: { method?: string; headers?: Record<string, string> } = {}) =>

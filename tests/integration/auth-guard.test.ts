@@ -6,9 +6,9 @@ import { route } from "@/lib/http";
 import { sessionCookieName } from "@/lib/auth/session-cookie";
 import { db, User } from "@/models";
 import { ANONYMOUS, callRoute, inRequest, redirectTarget, sessionCookieFor, sessionCookieForAccount, testAccount, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 
 const page = (cookie: string) => withCookie(new Request("http://test/somewhere"), cookie);
 const whoAmI = route({ auth: "user" }, async () => Response.json(await requireUser()));

@@ -5,12 +5,12 @@ import { enqueue, stopBoss } from "@/lib/jobs";
 import { drainJobsOnce } from "@/lib/jobs/worker";
 import { db } from "@/models";
 import { waitForMails } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
 // The job queue (lib/jobs on pg-boss) and outgoing mail (lib/mail): a job enqueued inside a
 // transaction lives and dies with it, and a mail the relay refuses is retried, never lost.
 
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 const jobsNamed = async (state?: string) => {

@@ -11,13 +11,13 @@ import { env } from "@/lib/env";
 import { stopBoss } from "@/lib/jobs";
 import { db, User, VerificationToken } from "@/models";
 import { callRoute, inRequest, linkIn, waitForMails, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
 // next-auth's own route handler, called in-process the way Next.js would call it: a CSRF token
 // first (double-submit cookie), then the sign-in POST, then the session cookie it sets is the
 // one the guard reads.
 
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 const base = () => env().NEXTAUTH_URL!;

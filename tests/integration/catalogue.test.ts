@@ -8,9 +8,9 @@ import { DEFAULT_PAGE_SIZE, parseCatalogueParams, type CatalogueParams } from "@
 import { DEMO_LANDMARKS, buildDemoScenario } from "@/seeders/demo/scenario";
 import { db } from "@/models";
 import { BOARD_KINDS } from "@/lib/vocabulary";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 
 // What the seeder inserted, rebuilt from the same source (seeders/demo) so that expectations follow
 // the scenario instead of hard-coded counts. The catalogue part does not depend on the date.

@@ -5,13 +5,13 @@ import { stopBoss } from "@/lib/jobs";
 import { listAuditEvents, revertEvent } from "@/lib/moderation";
 import { getValueHistory } from "@/lib/published/history";
 import { db } from "@/models";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
 // What the demo seeder (seeders/20261202000100-demo-scenario.ts) leaves in PostgreSQL beyond the
 // catalogue: evidence rows behind the measured submissions, one approval event per approved
 // submission, and a value history whose newest row per series is what board_stats publishes.
 // A seeded approval can be reverted by an admin like a live one.
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 const select = <T extends object>(sql: string, replacements: Record<string, unknown> = {}) => db().query<T>(sql, { type: QueryTypes.SELECT, replacements });

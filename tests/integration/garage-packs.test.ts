@@ -8,9 +8,9 @@ import { GET as getPackRoute } from "@/app/api/v1/garage/packs/[id]/route";
 import { POST as postCharge } from "@/app/api/v1/garage/packs/[id]/charges/route";
 import { db, PackCharge } from "@/models";
 import { ANONYMOUS, callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 
 const json = (url: string, cookie: string, method: string, body?: unknown) =>
   withCookie(

@@ -10,7 +10,7 @@ import { stopBoss } from "@/lib/jobs";
 import { db } from "@/models";
 import type { Role } from "@/lib/vocabulary";
 import { ANONYMOUS, callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { insertFixture, type Fixture } from "@/tests/support/fixtures";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -18,7 +18,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // Every worksheet route × every kind of caller. The garage is private, not a role's privilege:
 // anonymous 401 and nothing written; any signed-in role (contributor, moderator, admin) may work
 // on their own worksheets; everyone else's — even for an admin — answers 404 and changes nothing.
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 type Caller = Role | "anonymous";

@@ -11,12 +11,12 @@ import { DELETE as removeStep } from "@/app/api/v1/garage/worksheets/[id]/steps/
 import { stopBoss } from "@/lib/jobs";
 import { db, Submission, SubmissionBenchPoint, SubmissionVoltageReading, Worksheet, WorksheetBenchPoint, WorksheetVoltageReading } from "@/models";
 import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { insertFixture, type Fixture } from "@/tests/support/fixtures";
 
 // The voltage and bench worksheets saved step by step (lib/worksheets/voltage.ts, bench.ts) and
 // publishing of every kind in one transaction (lib/worksheets/publish.ts).
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 const req = (cookie: string, body?: unknown, method = "POST") =>

@@ -10,10 +10,10 @@ import { DELETE as removeStep } from "@/app/api/v1/garage/worksheets/[id]/steps/
 import { stopBoss } from "@/lib/jobs";
 import { db, Submission, WorksheetStep } from "@/models";
 import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { insertFixture, type Fixture } from "@/tests/support/fixtures";
 
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 // publishing queues mail through pg-boss; stop it before the database is dropped
 afterAll(() => stopBoss());
 

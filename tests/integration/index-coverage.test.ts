@@ -30,7 +30,7 @@ import { contributorRecord } from "@/lib/moderation/trust";
 import { chosenBoard } from "@/lib/submissions/form-data";
 import { listQuadWorksheets, openWorksheetId } from "@/lib/worksheets";
 import { callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { pickTarget, validBody } from "./submissions-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -43,7 +43,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // per-table counter pg_stat_user_tables.seq_scan (manual, "The Cumulative Statistics System")
 // shows every table that was read whole anyway. The demo's tables are small, so without the
 // setting the planner would rightly scan them and prove nothing.
-const database = useTestDatabase("seeded");
+const database = setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 /** Tables read whole on purpose, each with the reason; anything else read whole fails the test. */

@@ -5,10 +5,10 @@ import { createSequelize } from "@/lib/db/sequelize";
 import * as benchPoints from "@/migrations/20261212000300-create-worksheet-bench-points";
 import * as voltageReadings from "@/migrations/20261212000200-create-worksheet-voltage-readings";
 import * as worksheetKinds from "@/migrations/20261212000100-allow-voltage-and-bench-worksheets";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { insertFixture } from "@/tests/support/fixtures";
 
-const database = useTestDatabase("migrated");
+const database = setupTestDatabase("migrated");
 
 const EXPECTED_TABLES = [
   "accounts",

@@ -8,7 +8,7 @@ import { getValueHistory } from "@/lib/published/history";
 import { CONFLICT_MESSAGE } from "@/lib/vocabulary";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import {
   decideAs,
   expectError,
@@ -29,7 +29,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // The three decisions through their routes: each is one transaction that changes the status and
 // note, refreshes the group's published figures (approvals), writes one audit event, appends the
 // history of what moved and queues the contributor's mail; a refused one writes nothing at all.
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 // seven approved current scale settings around 400: enough for the median's 95 % interval (n ≥ 6)

@@ -13,7 +13,7 @@ import { stopBoss } from "@/lib/jobs";
 import { approveSubmission } from "@/lib/moderation";
 import type { Role } from "@/lib/vocabulary";
 import { ANONYMOUS, callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { expectError, insertPerson, insertSubmission, setupGroup, writtenState, type Setup } from "./moderation-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -22,7 +22,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // moderator allowed on moderation routes and 403 on admin ones, admin allowed everywhere (an admin
 // passes every moderator check). A refused call writes nothing. Each allowed call gets fresh data,
 // so every one of them really does its work.
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 type Caller = Role | "anonymous";

@@ -4,7 +4,7 @@ import { stopBoss } from "@/lib/jobs";
 import { CONFLICT_MESSAGE, type Decision } from "@/lib/vocabulary";
 import { db } from "@/models";
 import { sessionCookieFor } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { decideAs, insertSubmission, queuedMails, rebuiltStats, setupGroup, storedStats, submissionRow, type Setup } from "./moderation-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -12,7 +12,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // Two moderators act on one submission at the same moment, both from the version they loaded.
 // The row lock plus version check lets exactly one win; the other gets a 409 with the friendly
 // message, and the log, the mails and the published figures show only the winner's action.
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 let setup: Setup;

@@ -6,12 +6,12 @@ import { drainJobsOnce } from "@/lib/jobs/worker";
 import { DIGEST_CRON, DIGEST_JOB, registerModerationJobs, sendModeratorDigest } from "@/lib/moderation";
 import { db } from "@/models";
 import { testAccount, waitForMails } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { insertPerson, insertSubmission, queuedMails, setupGroup, type Setup } from "./moderation-helpers";
 
 // The daily digest: counts of what waits, by the queue's own flags, mailed to every moderator and
 // admin through the job queue; scheduled by pg-boss at 07:00 UTC.
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 let setup: Setup;

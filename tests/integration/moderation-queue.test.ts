@@ -8,7 +8,7 @@ import { approveSubmission, getReview, listQueue, type QueueRow } from "@/lib/mo
 import { refreshGroups } from "@/lib/published/refresh";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { expectError, insertPerson, insertSubmission, setupGroup, storedStats, type Setup } from "./moderation-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -19,7 +19,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // interval for the median is (x(1), x(n)) for n = 7 and 8 because P(B < 2) = 8/128 and 9/256 for
 // B ~ Bin(n, 1/2) both exceed 2.5 % (binomial arithmetic; Conover, Practical Nonparametric
 // Statistics, from memory).
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 const APPROVED = [397, 398, 399, 400, 401, 402, 403];

@@ -6,7 +6,7 @@ import { listAuditEvents } from "@/lib/moderation";
 import { getValueHistory } from "@/lib/published/history";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import {
   decideAs,
   expectError,
@@ -26,7 +26,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // An admin's revert restores the submission's earlier status and note through a new event, and
 // re-runs the statistics: undoing an approval brings back exactly the figures published before it,
 // in board_stats and as the newest history rows. Nothing is deleted.
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 let setup: Setup;

@@ -7,7 +7,7 @@ import { stopBoss } from "@/lib/jobs";
 import { applyTrustOnCreate, decideTrust, trustOf } from "@/lib/moderation";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, sessionCookieForAccount, testAccount, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import {
   expectError,
   historyRows,
@@ -27,7 +27,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // Trusted contributors (N approved, no rejection; N = MODERATION_TRUST_THRESHOLD, default 5) skip
 // the queue unless their new submission raises a flag; admins can overrule the record and change
 // roles, each change audited. The rule N/"no rejection" is Shuntbook's own (no outside source).
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 afterEach(() => {
   delete process.env.MODERATION_TRUST_THRESHOLD;

@@ -8,7 +8,7 @@ import { getObjectBytes, listObjectKeys } from "@/lib/storage/object-store";
 import { PRIVATE_PHOTO_CACHE_CONTROL, PUBLIC_PHOTO_CACHE_CONTROL } from "@/lib/storage/photo-response";
 import { db } from "@/models";
 import { ANONYMOUS, sessionCookieFor, testAccount } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import type { Fixture } from "@/tests/support/fixtures";
 import {
   BLUE,
@@ -24,12 +24,12 @@ import {
   pngClaiming,
   pngWithAlpha,
 } from "@/tests/unit/storage/photo-fixtures";
-import { attachDirectly, deletePhoto, getPhoto, insertFixture, insertSubmission, photoRow, upload, uploadForm, useOwnBucket, writes } from "./photos-support";
+import { attachDirectly, deletePhoto, getPhoto, insertFixture, insertSubmission, photoRow, upload, uploadForm, setupOwnBucket, writes } from "./photos-support";
 
 // POST/GET/DELETE /api/v1/photos against a migrated database and the S3 fake that npm test runs,
 // each file in a bucket of its own.
-useTestDatabase("migrated");
-useOwnBucket();
+setupTestDatabase("migrated");
+setupOwnBucket();
 
 let fx: Fixture; // a board revision and firmware family for the submissions photos get attached to
 beforeAll(async () => {

@@ -6,15 +6,15 @@ import { attachPhotosToSubmission, listSubmissionPhotos } from "@/lib/storage/ev
 import { MAX_PHOTOS_PER_SUBMISSION } from "@/lib/storage/limits";
 import { db } from "@/models";
 import { sessionCookieFor, testAccount } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import type { Fixture } from "@/tests/support/fixtures";
 import { jpegWithGps } from "@/tests/unit/storage/photo-fixtures";
-import { deletePhoto, getPhoto, insertFixture, insertSubmission, photoRow, upload, uploadForm, useOwnBucket } from "./photos-support";
+import { deletePhoto, getPhoto, insertFixture, insertSubmission, photoRow, upload, uploadForm, setupOwnBucket } from "./photos-support";
 
 // attachPhotosToSubmission, as the submission form calls it inside the transaction that creates
 // the submission: only the caller's own, live, unattached photos, all or none.
-useTestDatabase("migrated");
-useOwnBucket();
+setupTestDatabase("migrated");
+setupOwnBucket();
 
 let fx: Fixture;
 let me: { id: string; cookie: string };

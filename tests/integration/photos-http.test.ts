@@ -2,7 +2,7 @@ import sharp from "sharp";
 import { describe, expect, it } from "vitest";
 import { db, User } from "@/models";
 import { ANONYMOUS, sessionCookieForAccount } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { GPS_DATUM_MARKER, gif, jpegWithGps } from "@/tests/unit/storage/photo-fixtures";
 
 // The photo routes through the production build that npm test serves (SHUNTBOOK_TEST_APP_URL):
@@ -10,7 +10,7 @@ import { GPS_DATUM_MARKER, gif, jpegWithGps } from "@/tests/unit/storage/photo-f
 // the headers as they leave Next. The app's database is a clone of the seeded template, like this
 // file's, so a seeded person's id is the same in both and a cookie made here signs in there.
 const appUrl = process.env.SHUNTBOOK_TEST_APP_URL;
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 
 async function seededCookie(email: string): Promise<string> {
   db();

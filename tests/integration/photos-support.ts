@@ -15,7 +15,7 @@ import { insertFixture, type Fixture } from "@/tests/support/fixtures";
  * Points the object store at a fresh bucket for this test file, which lib/storage then creates
  * on first use, so that object counts see only this file's writes.
  */
-export function useOwnBucket(): void {
+export function setupOwnBucket(): void {
   beforeAll(() => {
     process.env.S3_BUCKET = `photos-test-${randomBytes(4).toString("hex")}`;
     resetEnvCache();

@@ -4,10 +4,10 @@ import { describe, expect, it } from "vitest";
 import { computeAggregates, refreshGroups } from "@/lib/published/refresh";
 import { describeFlags, summarise } from "@/lib/stats";
 import { getSequelize } from "@/lib/db/sequelize";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { insertFixture, insertSubmissions, type Fixture } from "@/tests/support/fixtures";
 
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 
 const close = (a: number | null, b: number | null) => {
   if (a === null || b === null) return expect(a).toBe(b);

@@ -1,12 +1,12 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { quadHardware } from "@/lib/worksheets/hardware";
 import { BoardRevision, db } from "@/models";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { insertFixture, type Fixture } from "@/tests/support/fixtures";
 
 // The hardware worksheet's starting figures come from the quad's board revision row as stored:
 // known parts as numbers, unknown ones as null (never 0), the board's largest pack for headroom.
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 
 let fx: Fixture;
 beforeAll(async () => {

@@ -2,9 +2,9 @@ import { QueryTypes } from "sequelize";
 import { describe, expect, it } from "vitest";
 import { getSequelize } from "@/lib/db/sequelize";
 import { rebuildAllStats } from "@/lib/published/rebuild";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 
 const snapshot = () =>
   getSequelize().query(

@@ -4,7 +4,7 @@ import { GET as listRoute, POST as postRoute } from "@/app/api/v1/submissions/ro
 import { stopBoss } from "@/lib/jobs";
 import type { Role } from "@/lib/vocabulary";
 import { ANONYMOUS, callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { expectError, pickTarget, postRequest, rowCounts, validBody, type Target } from "./submissions-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -12,7 +12,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // Who may call the mutating submission routes: anonymous 401 (and nothing written); any signed-in
 // role may contribute; only the owner may edit, whatever their role (moderators review through
 // moderation, not by rewriting a contributor's values).
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 const ROLES: Role[] = ["contributor", "moderator", "admin"];

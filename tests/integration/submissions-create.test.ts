@@ -4,7 +4,7 @@ import { stopBoss } from "@/lib/jobs";
 import { queueStatusMail } from "@/lib/submissions";
 import { db } from "@/models";
 import { sessionCookieFor, testAccount } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { expectError, mailsTo, pickTarget, post, postRequest, rowCounts, validBody, type Target } from "./submissions-helpers";
 import { POST } from "@/app/api/v1/submissions/route";
 import { callRoute } from "@/tests/support/auth";
@@ -13,7 +13,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
 // POST /api/v1/submissions against real PostgreSQL (a clone of the seeded demo): what a valid
 // submission writes, what the evidence implies, and that every refusal writes nothing at all.
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 let target: Target;

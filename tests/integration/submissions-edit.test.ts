@@ -5,14 +5,14 @@ import { stopBoss } from "@/lib/jobs";
 import { getOwnSubmission, listOwnSubmissions } from "@/lib/submissions";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { expectError, mailsTo, patch, pickTarget, post, rowCounts, validBody, type Target } from "./submissions-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
 // PATCH /api/v1/submissions/{id}: owner only, only while pending or changes requested, and
 // optimistic concurrency on `version` (409 when stale). Against real PostgreSQL.
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 let target: Target;

@@ -6,7 +6,7 @@ import { PURGE_KEYS_CRON, PURGE_KEYS_JOB, registerSubmissionJobs } from "@/lib/s
 import { KEY_TTL_HOURS } from "@/lib/submissions";
 import { db } from "@/models";
 import { sessionCookieFor, testAccount } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { expectError, pickTarget, post, rowCounts, validBody, type Target } from "./submissions-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -14,7 +14,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // Idempotency-Key on POST /api/v1/submissions, against real PostgreSQL: a retry gets the first
 // response and never a second row; another body under the same key is a 422; keys are per user
 // and kept at least 24 hours; two identical requests at the same instant create one row.
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 let target: Target;

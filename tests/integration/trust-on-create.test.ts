@@ -4,14 +4,14 @@ import { stopBoss } from "@/lib/jobs";
 import { createSubmission } from "@/lib/submissions/create";
 import { db } from "@/models";
 import { testAccount } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { pickTarget, validBody, type Target } from "./submissions-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
 // Creation calls the moderation's trust rule in its own transaction: a trusted contributor's
 // unflagged submission is approved at once (and audited); anyone else's waits for a moderator.
-useTestDatabase("seeded");
+setupTestDatabase("seeded");
 afterAll(() => stopBoss());
 
 let target: Target;

@@ -7,7 +7,7 @@ import { checkBoardValuesFeed, invalidateBoardValues, loadBoardValues } from "@/
 import { refreshGroups } from "@/lib/published/refresh";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
-import { useTestDatabase } from "@/tests/support/database";
+import { setupTestDatabase } from "@/tests/support/database";
 import { decideAs, insertSubmission, setupGroup, type Setup } from "./moderation-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -16,7 +16,7 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // the cache and the endpoint do with it: bumped in the same transaction as the refresh, by every
 // moderation action that moves an approved value and by catalogue edits; a point-free view never
 // reads the points; the bytes kept per view are the JSON every request gets.
-useTestDatabase("migrated");
+setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
 const SLUG = "fixture-board"; // tests/support/fixtures.ts

@@ -17,7 +17,7 @@ import { runWithRequest } from "./next-headers";
 //   import { vi } from "vitest";
 //   vi.mock("next/headers", () => import("@/tests/support/next-headers"));   // top of the file
 //   import { callRoute, inRequest, redirectTarget, sessionCookieFor, withCookie } from "@/tests/support/auth";
-//   useTestDatabase("seeded");
+//   setupTestDatabase("seeded");
 //
 //   // a route handler (route() reads the Request's Cookie header; requireUser() inside a
 //   // handler reads next/headers, which callRoute points at the same request)

@@ -41,7 +41,7 @@ export async function dropDatabase(name: string): Promise<void> {
  * Gives the calling test file its own database and points DATABASE_URL (and so `db()` and every
  * lib function) at it. Call at the top level of the file, before anything touches the database.
  */
-export function useTestDatabase(template: Template = "migrated"): { url: () => string } {
+export function setupTestDatabase(template: Template = "migrated"): { url: () => string } {
   let created: { name: string; url: string } | undefined;
   beforeAll(async () => {
     created = await createDatabaseFromTemplate(template);
@@ -57,7 +57,7 @@ export function useTestDatabase(template: Template = "migrated"): { url: () => s
   });
   return {
     url: () => {
-      if (!created) throw new Error("useTestDatabase: the database is made in beforeAll");
+      if (!created) throw new Error("setupTestDatabase: the database is made in beforeAll");
       return created.url;
     },
   };

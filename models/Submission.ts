@@ -8,9 +8,9 @@ import {
   type NonAttribute,
   type Sequelize,
 } from "sequelize";
-import type { EvidenceSummary } from "@/lib/calibration/evidence";
 import type { Method, SensingSource, SubmissionStatus } from "@/lib/vocabulary";
 import type { BoardRevision } from "./Board";
+import type { EvidenceSummary } from "./evidence-summary";
 import type { FirmwareFamily } from "./FirmwareFamily";
 import type { User } from "./User";
 

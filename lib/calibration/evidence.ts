@@ -1,4 +1,5 @@
 import { medianOfSorted, sortedCopy } from "@/lib/stats";
+import type { BenchImplication, EvidenceCheck, EvidenceQuantity, EvidenceSource, EvidenceSummary } from "@/models/evidence-summary";
 import type { FirmwareFamily } from "@/models/FirmwareFamily";
 import { fitLine } from "./least-squares";
 import { sensitivityFromCurrentScaleSetting } from "./units";
@@ -79,17 +80,6 @@ export function impliedCurrentScaleFromCycle(cycle: Pick<CycleEvidence, "scaleUs
   return scaleBy(response, cycle.scaleUsed, cycle.chargedMah / cycle.reportedMah);
 }
 
-export type BenchImplication = {
-  /** Fitted reported amps per measured amp: 1 when the scale is right. */
-  gain: number;
-  /** Fitted reported amps at zero measured current: 0 when the offset is right. */
-  interceptAmps: number;
-  r: number | null;
-  n: number;
-  impliedScale: number;
-  impliedOffset: number;
-};
-
 /**
  * Bench points: reported current against the clamp meter's, fitted by least squares
  * (reported = gain × measured + intercept; lib/calibration/least-squares.ts).
@@ -125,33 +115,8 @@ export function impliedFromBench(bench: BenchEvidence, units: EvidenceUnits): Be
 
 const median = (values: number[]) => medianOfSorted(sortedCopy(values))!;
 
-export type EvidenceQuantity = "voltage_scale" | "current_scale" | "current_offset";
-export type EvidenceSource = "voltage_check" | "recharge_cycles" | "bench_points";
-
-export type EvidenceCheck = {
-  quantity: EvidenceQuantity;
-  source: EvidenceSource;
-  claimed: number;
-  implied: number;
-  /** claimed − implied, in steps. */
-  difference: number;
-  /** (claimed − implied) ÷ |implied|; null when the implied value is 0. */
-  relativeDifference: number | null;
-  /** The largest |difference| in steps that is not flagged. */
-  allowed: number;
-  mismatch: boolean;
-};
-
-export type EvidenceSummary = {
-  tolerance: number;
-  /** The offset check's floor in steps (offsetFloorSteps), or the bare 10 steps without bench evidence. */
-  offsetToleranceFloorSteps: number;
-  voltage: { implied: number; perReading: number[] } | null;
-  cycles: { implied: number; perCycle: number[] } | null;
-  bench: BenchImplication | null;
-  checks: EvidenceCheck[];
-  mismatch: boolean;
-};
+// The summary's types live beside the column that stores them (models/evidence-summary.ts).
+export type { EvidenceCheck, EvidenceSummary };
 
 export type EvidenceInput = {
   voltageScale: number | null;

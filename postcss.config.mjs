@@ -1,1 +1,4 @@
-export default { plugins: { "@tailwindcss/postcss": {} } };
+// Tailwind CSS runs as a PostCSS plugin (Next reads this file when it builds the styles).
+const config = { plugins: { "@tailwindcss/postcss": {} } };
+
+export default config;

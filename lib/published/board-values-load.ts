@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from "sequelize";
 import { CONFIDENCE_EXPLANATIONS, flagPoints, recommendValue } from "@/lib/stats";
-import { type BoardKind, CONFIDENCE_TITLES, type ConfidenceLabel, type Method, QUANTITIES, type Quantity } from "@/lib/vocabulary";
+import { type BoardKind, CONFIDENCE_TITLES, type Method, QUANTITIES, type Quantity } from "@/lib/vocabulary";
 import type { BoardStatRow } from "@/models/BoardStat";
 import { familyUnitColumnsSql, type FamilyUnitFields, type FirmwareFamily } from "@/models/FirmwareFamily";
 import { QUANTITY_KEYS, type BoardValues, type FamilyUnits, type GroupValues, type QuantityValues, type ValuePoint } from "./board-values-types";

@@ -74,7 +74,7 @@ export type RevisionDifference = {
   published: { a: boolean; b: boolean };
 };
 
-const SCALES = ["voltageScale", "currentScale"] as const;
+type Scale = "voltageScale" | "currentScale";
 
 function differs(x: number, y: number): boolean {
   return Math.abs(y / x - 1) > HARDWARE_TOLERANCE;
@@ -115,7 +115,7 @@ function intervalsApart(x: QuantityFigures | null | undefined, y: QuantityFigure
   return x.ciHigh < y.ciLow || y.ciHigh < x.ciLow;
 }
 
-function hardwareRatio(quantity: (typeof SCALES)[number], a: RevisionFacts, b: RevisionFacts): number | null {
+function hardwareRatio(quantity: Scale, a: RevisionFacts, b: RevisionFacts): number | null {
   if (quantity === "voltageScale") {
     return a.dividerRatio !== null && b.dividerRatio !== null ? a.dividerRatio / b.dividerRatio : null;
   }

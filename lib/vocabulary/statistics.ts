@@ -1,4 +1,3 @@
 // Which spread a value's modified z-score was divided by (lib/stats/outliers.ts says when each
 // applies); board_stats.z_scale_rule keeps the same words.
-const Z_SCALE_RULES = ["mad", "mean_abs_dev", "no_spread", "too_few"] as const;
-export type ZScaleRule = (typeof Z_SCALE_RULES)[number];
+export type ZScaleRule = "mad" | "mean_abs_dev" | "no_spread" | "too_few";

@@ -1,6 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { applyFieldErrors, asApiFetchError, formProblem } from "@/components/form-errors";
@@ -44,6 +45,7 @@ export function PasswordSignInForm({ next }: { next: string }) {
 
 /** A one-time link by e-mail; no password needed, and a new address gets an account. */
 export function MagicLinkForm({ next }: { next: string }) {
+  const router = useRouter();
   const { register, handleSubmit, setError, formState } = useForm<MagicLinkInput>({ resolver: zodResolver(MagicLinkSchema), mode: "onTouched" });
   const [problem, setProblem] = useState<string | null>(null);
   const onSubmit = handleSubmit(async (values) => {
@@ -53,7 +55,8 @@ export function MagicLinkForm({ next }: { next: string }) {
     } catch (error) {
       return setProblem(formProblem(setError, error, ["email"]));
     }
-    window.location.assign(`/signin/check-email?email=${encodeURIComponent(values.email)}`);
+    // nobody is signed in yet, so nothing on the page is stale: a client navigation will do
+    router.push(`/signin/check-email?email=${encodeURIComponent(values.email)}`);
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">

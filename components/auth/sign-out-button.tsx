@@ -22,6 +22,9 @@ export function SignOutButton({ className = "sb-button" }: { className?: string 
             setBusy(false);
             return setProblem(asApiFetchError(error).message);
           }
+          // a whole new document, not router.push: the header, the server components and the query
+          // cache all hold the signed-out user's data, and a fresh load is the one way to drop them all
+          // eslint-disable-next-line @next/next/no-location-assign-relative-destination
           window.location.assign("/");
         }}
       >

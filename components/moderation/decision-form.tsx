@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useState } from "react";
-import { useForm, type Resolver } from "react-hook-form";
+import { useForm, useWatch, type Resolver } from "react-hook-form";
 import { asApiFetchError } from "@/components/form-errors";
 import { useDecide } from "@/components/hooks/use-moderation";
 import { ApproveBodySchema, RejectBodySchema, RequestChangesBodySchema } from "@/lib/moderation/schemas";
@@ -58,7 +58,7 @@ function decisionResolver(version: number): Resolver<Values, unknown, Body> {
 // with the same words as the server; the server's own refusals land beside the field.
 export function DecisionForm({ id, version, open }: Props) {
   const decide = useDecide(id);
-  const { register, handleSubmit, watch, setError, clearErrors, formState } = useForm<Values, unknown, Body>({
+  const { register, handleSubmit, control, setError, clearErrors, formState } = useForm<Values, unknown, Body>({
     resolver: decisionResolver(version),
     defaultValues: { decision: "approve", text: "" },
     // a message stays until the next try and focus stays where it is, as this form has always behaved
@@ -66,7 +66,8 @@ export function DecisionForm({ id, version, open }: Props) {
     shouldFocusError: false,
   });
   const [refusal, setRefusal] = useState<{ message: string; conflict: boolean } | null>(null);
-  const decision = watch("decision");
+  // useWatch rather than watch(): React Compiler can memoise a component that subscribes this way
+  const decision = useWatch({ control, name: "decision" });
   const field = TEXT_FIELD[decision];
   const error = formState.errors.text?.message;
 

@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useId, useRef, useState } from "react";
+import { useEffect, useId, useRef, useState, useSyncExternalStore } from "react";
 import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_SUBMISSION, formatFileSize, formatMegabytes } from "@/lib/storage/limits";
 import { ACCEPTED_INPUT_TYPES, ACCEPTED_LABEL } from "@/lib/vocabulary";
 import { photoUrl, type PhotoSummary } from "@/lib/storage/photo-api";
@@ -43,6 +43,16 @@ function readDraft(draftKey: string): Stored[] {
   }
 }
 
+// true in the browser once hydrated, false on the server and while hydrating, so what is rendered
+// from sessionStorage never disagrees with the server's HTML
+const subscribeToNothing = () => () => {};
+const useHydrated = () =>
+  useSyncExternalStore(
+    subscribeToNothing,
+    () => true,
+    () => false,
+  );
+
 function writeDraft(draftKey: string, stored: Stored[]): void {
   try {
     window.sessionStorage.setItem(STORAGE_PREFIX + draftKey, JSON.stringify(stored));
@@ -59,7 +69,8 @@ export function EvidencePhotos({ draftKey, onChange }: { draftKey: string; onCha
   const [stored, setStored] = useState<Stored[]>([]);
   const [uploading, setUploading] = useState<Uploading[]>([]);
   const [refused, setRefused] = useState<Refused[]>([]);
-  const [restored, setRestored] = useState(false);
+  // the draftKey whose photos `stored` holds; null until the draft has been read
+  const [restoredFor, setRestoredFor] = useState<string | null>(null);
   const aborts = useRef(new Map<string, () => void>());
   const nextKey = useRef(0);
   // the latest onChange without making it an effect dependency (parents pass a new one each render)
@@ -68,19 +79,21 @@ export function EvidencePhotos({ draftKey, onChange }: { draftKey: string; onCha
     onChangeRef.current = onChange;
   }, [onChange]);
 
-  // sessionStorage exists only in the browser, so the draft is read after the first render
-  useEffect(() => {
+  // sessionStorage exists only in the browser, so the draft is read once hydrated (state adjusted
+  // during render, the way React documents for state that follows a prop, here draftKey)
+  const hydrated = useHydrated();
+  if (hydrated && restoredFor !== draftKey) {
+    setRestoredFor(draftKey);
     setStored(readDraft(draftKey));
-    setRestored(true);
-  }, [draftKey]);
+  }
+  const restored = restoredFor === draftKey;
 
-  const ids = stored.map((s) => s.photo.id).join(",");
+  // every setStored below adds or removes a photo, so a new `stored` is news to the parent
   useEffect(() => {
     if (!restored) return;
     writeDraft(draftKey, stored);
-    onChangeRef.current(ids ? ids.split(",") : []);
-    // `ids` stands for `stored`: only a change in the set of stored photos is news to the parent
-  }, [ids, restored, draftKey]);
+    onChangeRef.current(stored.map((s) => s.photo.id));
+  }, [stored, restored, draftKey]);
 
   // leaving the page cancels uploads still under way
   useEffect(() => () => aborts.current.forEach((abort) => abort()), []);

@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useMemo, useRef, useState, type ReactNode } from "react";
+import { useLayoutEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import { FormProvider, useForm, useWatch, type FieldErrors, type Resolver } from "react-hook-form";
 import { useSendSubmission, type SendTarget } from "@/components/hooks/use-submission";
 import { EvidencePhotos } from "@/components/photos/evidence-photos";
@@ -85,7 +85,6 @@ export function SubmissionForm({
 
   const familyRef = useRef<FamilyOption | null>(null);
   const boardRef = useRef<ChosenBoard | null>(board);
-  boardRef.current = board;
   // the resolver reads the current family and board at each validation, so the limits follow the choices
   const resolver = useMemo<Resolver<SubmissionDraft>>(
     () => async (values, context, options) => {
@@ -100,7 +99,11 @@ export function SubmissionForm({
   const { handleSubmit, setError, setValue, getValues, register, control, formState } = form;
   const [familyId, method, includeVoltageCheck] = useWatch({ control, name: ["firmwareFamilyId", "method", "includeVoltageCheck"] });
   const family = families.find((f) => f.id === familyId) ?? null;
-  familyRef.current = family;
+  // kept current after each commit, before any event can validate (chooseBoard also sets the board at once)
+  useLayoutEffect(() => {
+    familyRef.current = family;
+    boardRef.current = board;
+  });
   const shown = sectionsFor(method, includeVoltageCheck);
 
   function chooseBoard(next: ChosenBoard | null) {
@@ -150,7 +153,7 @@ export function SubmissionForm({
   const familyOptions = families.map((f) => ({ value: f.id, label: f.name }));
   return (
     <FormProvider {...form}>
-      <form noValidate onSubmit={handleSubmit(send, showSummary)} className="space-y-10" aria-describedby="form-intro">
+      <form noValidate onSubmit={(event) => handleSubmit(send, showSummary)(event)} className="space-y-10" aria-describedby="form-intro">
         <div ref={summaryRef} tabIndex={-1} className="focus:outline-none" aria-live="assertive">
           {(outcome || (formState.isSubmitted && problems.length > 0)) && (
             <div id="form-problems" role="alert" className="rounded-md border-3 border-fault bg-fault-wash p-4">

@@ -15,7 +15,7 @@ import type { FamilyUnits, QuantityKey } from "./board-values-types";
 //    significance of differences by examining the overlap between confidence intervals",
 //    The American Statistician 55(3), 2001; from memory). So a note is never raised on noise.
 //
-// How a reading moves with the setting (check-values.md, fly-and-recharge rule, common practice):
+// How a reading moves with the setting (the fly-and-recharge rule: common practice, no source):
 // a "proportional" setting scales the reading up with it, an "inverse" one scales it down. At the
 // same setting, board b therefore reads readingRatio × what board a reads, where
 //   voltage: ratio_a / ratio_b (more division on b leaves less at the ADC pin);

@@ -47,10 +47,10 @@ export function offsetFloorSteps(scaleUsed: number, units: EvidenceUnits): numbe
   return Math.max(OFFSET_TOLERANCE_FLOOR_STEPS, (OFFSET_TOLERANCE_FLOOR_AMPS * perAmp) / units.currentOffsetStep);
 }
 
-export type VoltageReadingEvidence = { cells: number; reportedVolts: number; measuredVolts: number; measuredAt: string };
-export type VoltageCheckEvidence = { scaleUsed: number; readings: readonly VoltageReadingEvidence[] };
+type VoltageReadingEvidence = { cells: number; reportedVolts: number; measuredVolts: number; measuredAt: string };
+type VoltageCheckEvidence = { scaleUsed: number; readings: readonly VoltageReadingEvidence[] };
 export type CycleEvidence = { scaleUsed: number; reportedMah: number; chargedMah: number; ratedMah: number; cells: number };
-export type BenchPointEvidence = { reportedAmps: number; measuredAmps: number };
+type BenchPointEvidence = { reportedAmps: number; measuredAmps: number };
 export type BenchEvidence = { scaleUsed: number; offsetUsed: number; points: readonly BenchPointEvidence[] };
 
 function scaleBy(response: Response, setting: number, readingRatio: number): number {

@@ -112,9 +112,9 @@ export async function getAuditEvent(id: number, transaction?: Transaction): Prom
   return row ? toView(row) : null;
 }
 
-export const AUDIT_MAX_PAGE_SIZE = 100;
+const AUDIT_MAX_PAGE_SIZE = 100;
 
-export const AuditQuerySchema = z.object({
+const AuditQuerySchema = z.object({
   page: z.coerce
     .number({ error: "page is a whole number from 1" })
     .int("page is a whole number from 1")

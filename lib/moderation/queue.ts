@@ -28,7 +28,7 @@ export type QueueParams = { page: number; pageSize: number; sort: QueueSort; boa
 const MAX_PAGE = 10_000;
 
 /** The query string's parameters; field-level messages for anything that is not one of them. */
-export const QueueParamsSchema = z.object({
+const QueueParamsSchema = z.object({
   page: z.coerce
     .number({ error: "page is a whole number from 1" })
     .int("page is a whole number from 1")

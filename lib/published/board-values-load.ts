@@ -81,7 +81,7 @@ const POINTS_SQL = `
 
 const FAMILIES_SQL = `SELECT id, slug, name, description, ${familyUnitColumnsSql()} FROM firmware_families ORDER BY name, id`;
 
-export function familyUnits(f: FamilyRow): FamilyUnits {
+function familyUnits(f: FamilyRow): FamilyUnits {
   return {
     slug: f.slug,
     name: f.name,

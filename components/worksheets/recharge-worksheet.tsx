@@ -6,7 +6,8 @@ import { CHARGING_CAUTIONS } from "@/lib/calibration/cautions";
 import type { RoundedSetting } from "@/lib/calibration";
 import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
 import { ConvergencePlot } from "./convergence-plot";
-import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { errorsOf, showServerErrors } from "@/components/form-errors";
+import { useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useSavedWorksheet } from "@/components/hooks/use-worksheet";
 import { FieldError, numberOrNull, TakenBack, Warnings, type Errors } from "./saved-worksheet";
 

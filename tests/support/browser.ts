@@ -26,21 +26,32 @@ export const ARTIFACTS_DIR = path.resolve(__dirname, "../artifacts");
 /** A full-page screenshot named for what it shows, in ARTIFACTS_DIR. */
 export const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
 
-/**
- * For the describe block it is called in: one Chromium with a phone (light colours, touch) and a
- * desktop (dark colours) context on the app, closed after the block.
- */
-export function usePhoneAndDesktop(appUrl: string | undefined): { phone: BrowserContext; desktop: BrowserContext } {
-  let browser: Browser | undefined;
-  const contexts = {} as { phone: BrowserContext; desktop: BrowserContext };
+/** For the describe block it is called in: one Chromium, launched before the block and closed after it. */
+export function useChromium(): { browser: Browser } {
+  const holder = {} as { browser: Browser };
   beforeAll(async () => {
     mkdirSync(ARTIFACTS_DIR, { recursive: true });
-    browser = await chromium.launch(CHROMIUM_LAUNCH);
-    contexts.phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, colorScheme: "light", isMobile: true, hasTouch: true });
-    contexts.desktop = await browser.newContext({ baseURL: appUrl, viewport: { width: 1280, height: 800 }, colorScheme: "dark" });
+    holder.browser = await chromium.launch(CHROMIUM_LAUNCH);
   });
   afterAll(async () => {
-    await browser?.close();
+    await holder.browser?.close();
+  });
+  return holder;
+}
+
+/** useChromium with a phone (light colours, touch) and a desktop (dark colours) context on the app. */
+export function usePhoneAndDesktop(appUrl: string | undefined): { phone: BrowserContext; desktop: BrowserContext } {
+  const chrome = useChromium();
+  const contexts = {} as { phone: BrowserContext; desktop: BrowserContext };
+  beforeAll(async () => {
+    contexts.phone = await chrome.browser.newContext({
+      baseURL: appUrl,
+      viewport: { width: 390, height: 844 },
+      colorScheme: "light",
+      isMobile: true,
+      hasTouch: true,
+    });
+    contexts.desktop = await chrome.browser.newContext({ baseURL: appUrl, viewport: { width: 1280, height: 800 }, colorScheme: "dark" });
   });
   return contexts;
 }

@@ -5,7 +5,7 @@ import { useState } from "react";
 import { ResetConfirmSchema, ResetRequestSchema, type ResetConfirmInput, type ResetRequestInput } from "@/lib/auth/schemas";
 import { applyFieldErrors, asApiFetchError, formProblem } from "@/components/form-errors";
 import { useCompleteReset, useRequestReset } from "@/components/hooks/use-account";
-import { FormMessage, TextField } from "./fields";
+import { FormMessage, NewPasswordFields, TextField } from "./fields";
 import { useAccountForm } from "./use-account-form";
 
 /** Step 1: an address; the answer never says whether an account has it. */
@@ -67,8 +67,7 @@ export function ResetCompleteForm({ token }: { token: string }) {
         </FormMessage>
       )}
       <input type="hidden" {...register("token")} />
-      <TextField form={fields} idPrefix="rc" name="password" label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." />
-      <TextField form={fields} idPrefix="rc" name="confirm" label="New password again" type="password" autoComplete="new-password" />
+      <NewPasswordFields form={fields} idPrefix="rc" name="password" label="New password" hint="At least 10 characters." />
       <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Saving…" : "Set the new password"}
       </button>

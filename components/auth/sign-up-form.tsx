@@ -4,7 +4,7 @@ import Link from "next/link";
 import { applyFieldErrors, asApiFetchError } from "@/components/form-errors";
 import { useSignUp } from "@/components/hooks/use-account";
 import { SignUpSchema, type SignUpInput } from "@/lib/auth/schemas";
-import { FormMessage, TextField } from "./fields";
+import { FormMessage, NewPasswordFields, TextField } from "./fields";
 import { nextAuthPost } from "./next-auth-client";
 import { useAccountForm } from "./use-account-form";
 
@@ -45,16 +45,7 @@ export function SignUpForm({ next }: { next: string }) {
         autoComplete="email"
         hint="For sign-in links and password resets only; never shown."
       />
-      <TextField
-        form={form}
-        idPrefix="su"
-        name="password"
-        label="Password"
-        type="password"
-        autoComplete="new-password"
-        hint="At least 10 characters. A few unrelated words work well."
-      />
-      <TextField form={form} idPrefix="su" name="confirm" label="Password again" type="password" autoComplete="new-password" />
+      <NewPasswordFields form={form} idPrefix="su" name="password" label="Password" hint="At least 10 characters. A few unrelated words work well." />
       <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Creating the account…" : "Create my account"}
       </button>

@@ -1,5 +1,5 @@
 // The caution shown wherever the site hands out numbers that someone will fly with.
-// Figures and sources: /work/shared/reference/check-values.md (University of Washington EH&S
+// Sources: University of Washington EH&S
 // battery guidance for 4.20 V full and 3.0 V floor; BMFA for the off-load floor; landing voltage
 // under load is common practice, no source).
 export function SafetyNote() {

@@ -5,7 +5,7 @@ import { useCallback, useSyncExternalStore } from "react";
 // Out in the sun a phone set to dark mode is hard to read, so the visitor can pin the light (or
 // dark) scheme for this site. The choice lives in localStorage and on <html data-theme>; the
 // inline script from THEME_BOOT_SCRIPT applies it before first paint so there is no flash.
-export const THEME_STORAGE_KEY = "shuntbook-theme";
+const THEME_STORAGE_KEY = "shuntbook-theme";
 type Theme = "system" | "light" | "dark";
 const ORDER: Theme[] = ["system", "light", "dark"];
 const LABEL: Record<Theme, string> = { system: "Auto", light: "Light", dark: "Dark" };

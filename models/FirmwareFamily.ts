@@ -63,7 +63,7 @@ export class FirmwareFamily extends Model<InferAttributes<FirmwareFamily>, Infer
  * response) and the range a setting may take. FamilyUnitFields is their one TypeScript type,
  * FAMILY_UNIT_COLUMNS / familyUnitColumnsSql their one SQL column list.
  */
-export const FAMILY_UNIT_FIELDS = [
+const FAMILY_UNIT_FIELDS = [
   "voltageScaleUnit",
   "voltageScaleStep",
   "voltageScaleResponse",

@@ -28,10 +28,10 @@ import { WorksheetStep } from "./WorksheetStep";
 import { WorksheetVoltageReading } from "./WorksheetVoltageReading";
 
 export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, Manufacturer, Submission, User };
-export { IdempotencyKey, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
-export { Account, AuthSession, PasswordResetToken, RateLimit, VerificationToken };
+export { SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
+export { Account, AuthSession, PasswordResetToken, VerificationToken };
 export { Pack, PackCharge, Quad, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint };
-export { FAMILY_UNIT_COLUMNS, FAMILY_UNIT_FIELDS, familyUnitColumnsSql, familyUnitFieldsOf, type FamilyUnitFields } from "./FirmwareFamily";
+export { familyUnitFieldsOf } from "./FirmwareFamily";
 export { AuditEvent, BoardStat, PublishedValueHistory, type BoardStatRow };
 
 let initialisedWith: Sequelize | undefined;

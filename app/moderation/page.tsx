@@ -3,6 +3,7 @@ import Link from "next/link";
 import { QueueView } from "@/components/moderation/queue-view";
 import { Pagination } from "@/components/pagination";
 import { requirePageRole } from "@/lib/auth";
+import { QUEUE_AGE_LABELS as AGE_LABELS, QUEUE_SORT_LABELS as SORT_LABELS } from "@/lib/vocabulary";
 import { loadQueue, parseQueueQuery, queueHref, type QueueAge, type QueueFlag, type QueueQuery, type QueueSort } from "./_data/queue";
 
 export const dynamic = "force-dynamic";
@@ -17,8 +18,6 @@ const FLAG_LABELS: Record<QueueFlag | "all", string> = {
   new: "First-time contributor",
   none: "No flags",
 };
-const AGE_LABELS: Record<QueueAge, string> = { day: "Last 24 hours", week: "Last 7 days", older: "Waiting over a week" };
-const SORT_LABELS: Record<QueueSort, string> = { severity: "Most serious first", oldest: "Oldest first", newest: "Newest first" };
 
 function Chip({ href, active, children }: { href: string; active: boolean; children: React.ReactNode }) {
   return (

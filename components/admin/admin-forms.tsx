@@ -7,7 +7,7 @@ import { z } from "zod";
 import { asApiFetchError } from "@/components/form-errors";
 import { useRevertEvent, useUpdateUser } from "@/components/hooks/use-moderation";
 import { RevertBodySchema, UserPatchBodySchema, type RevertBody, type UserPatchBody } from "@/lib/moderation/schemas";
-import { ROLE_CHOICES, ROLE_LABELS } from "@/lib/vocabulary";
+import { ROLES, ROLE_LABELS } from "@/lib/vocabulary";
 
 // The admin page's two forms, each checked in the browser with the schema its endpoint uses and
 // sent through apiFetch; a refusal's field messages show under the form, its message below them.
@@ -67,7 +67,7 @@ export function UserForm({ user }: { user: { id: string; name: string; role: str
       <label className="flex flex-col text-small font-semibold">
         Role
         <select {...register("role")} className="sb-field min-h-11" aria-invalid={roleError ? "true" : undefined}>
-          {ROLE_CHOICES.map((role) => (
+          {ROLES.map((role) => (
             <option key={role} value={role}>
               {ROLE_LABELS[role]}
             </option>

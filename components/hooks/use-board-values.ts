@@ -9,7 +9,7 @@ import type { BoardValues } from "@/lib/published/board-values-types";
 // or family needs no page load. The query key names the view, so react-query keeps each one, a
 // switch back is instant, and the board page and the contribution form's preview share the cache.
 
-export const valuesQueryKey = (slug: string, s: Selection) => ["board-values", slug, s.revision, s.family] as const;
+const valuesQueryKey = (slug: string, s: Selection) => ["board-values", slug, s.revision, s.family] as const;
 
 function fetchGroupValues(slug: string, s: Selection, signal?: AbortSignal): Promise<BoardValues> {
   const query = new URLSearchParams({ revision: s.revision, family: s.family, points: "1" });

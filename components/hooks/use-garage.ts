@@ -10,7 +10,7 @@ import { ApiFetchError, apiFetch } from "@/lib/client/api-fetch";
 
 export type PackChoice = Pick<PackView, "id" | "label" | "chemistry" | "cells" | "ratedMah">;
 
-export const packsKey = ["garage-packs"] as const;
+const packsKey = ["garage-packs"] as const;
 
 /** The builder's packs; a failure says to type the figures instead. */
 export function usePacks() {

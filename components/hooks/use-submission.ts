@@ -11,7 +11,7 @@ import type { SubmissionInput } from "@/lib/submissions/schema";
 export type SendTarget = { kind: "create"; idempotencyKey: string } | { kind: "edit"; id: number; version: number };
 
 /** Said when the form could not reach the server: nothing was sent, and sending again is safe. */
-export const NOT_SENT_UNREACHABLE =
+const NOT_SENT_UNREACHABLE =
   "It was not sent: Shuntbook could not be reached. Check your connection and send again; sending twice is safe, it will not make two.";
 
 const fallbackMessage = (status: number) => `It was not saved (HTTP ${status}).`;

@@ -11,7 +11,7 @@ import { apiFetch, type ApiFetchOptions } from "@/lib/client/api-fetch";
 const NOT_SAVED = "The server did not answer, so nothing was saved. Check the connection and try again.";
 const saving: Pick<ApiFetchOptions, "unreachableMessage" | "fallbackMessage"> = { unreachableMessage: NOT_SAVED, fallbackMessage: () => NOT_SAVED };
 
-export const worksheetKey = (id: number) => ["garage-worksheet", id] as const;
+const worksheetKey = (id: number) => ["garage-worksheet", id] as const;
 const worksheetPath = (id: number) => `/api/v1/garage/worksheets/${id}`;
 
 type WorksheetAnswer<V> = { worksheet: V };

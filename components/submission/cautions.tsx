@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 
-// The cautions beside each kind of measurement. The figures and advice come from
-// /work/shared/reference/check-values.md: LiPo charging from the BMFA and the University of
+// The cautions beside each kind of measurement. The figures and advice come from:
+// LiPo charging from the BMFA safety guidance and the University of
 // Washington EH&S battery guidance; the bench rules from model-flying club safety rules; never
 // shorting the probes and a DC-rated clamp meter are common practice, no source. Each box ends by
 // deferring to the maker's instructions and local rules.

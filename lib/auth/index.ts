@@ -1,2 +1,1 @@
-export { currentUser, requirePageRole, requirePageUser, requireRole, requireUser, userFromRequest, type SessionUser } from "./guard";
-export { roleSatisfies } from "./roles";
+export { currentUser, requirePageRole, requirePageUser, requireRole, requireUser, type SessionUser } from "./guard";

@@ -15,7 +15,7 @@ import { authSecret, SESSION_MAX_AGE_SECONDS } from "./session-cookie";
 // work without a session table). The JWT names the user (sub) and when they signed in (authTime);
 // the guard (./guard.ts) reads role and password-change time fresh from the database.
 
-export const MAGIC_LINK_MINUTES = 15;
+const MAGIC_LINK_MINUTES = 15;
 
 /** Built on demand, not at import time, so that `next build` needs no database or secret. */
 export function authOptions(): NextAuthOptions {

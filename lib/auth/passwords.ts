@@ -3,7 +3,7 @@ import bcrypt from "bcryptjs";
 // bcrypt with cost 10: the floor the OWASP Password Storage Cheat Sheet gives for bcrypt, and the
 // cost of the seeded demo hashes (seeders/demo/accounts.ts), so every hash in the table is alike.
 // About 60–100 ms per hash on a small server with bcryptjs.
-export const BCRYPT_COST = 10;
+const BCRYPT_COST = 10;
 
 export function hashPassword(plain: string): Promise<string> {
   return bcrypt.hash(plain, BCRYPT_COST);

@@ -64,7 +64,7 @@ export async function clearAttempts(name: LimitName, key: string): Promise<void>
   await limiter(name).delete(key);
 }
 
-export function tooManyMessage(name: LimitName, retryAfterSeconds: number): string {
+function tooManyMessage(name: LimitName, retryAfterSeconds: number): string {
   const minutes = Math.ceil(retryAfterSeconds / 60);
   const wait = retryAfterSeconds < 90 ? `${retryAfterSeconds} seconds` : `${minutes} minutes`;
   return `Too many ${LIMITS[name].what} for this address from your network. Wait ${wait} and try again.`;

@@ -1,13 +1,9 @@
-import { type Role, ROLES } from "@/lib/vocabulary";
+import type { Role } from "@/lib/vocabulary";
 
 // Roles are ranked: contributor < moderator < admin. A check for a role lets in that role and
 // every higher one, so an admin passes every check a moderator passes, and a moderator can still
 // contribute. Who owns a row (a contributor editing their own submission) is a separate check.
 const RANK: Record<Role, number> = { contributor: 0, moderator: 1, admin: 2 };
-
-export function isRole(value: unknown): value is Role {
-  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
-}
 
 /** Whether someone with `role` passes a check that names `allowed` (any one of them). */
 export function roleSatisfies(role: Role, allowed: readonly Role[]): boolean {

@@ -30,12 +30,9 @@ export const newPasswordField = z
   .refine((s) => s.trim().length > 0, "A password of only spaces is too easy to guess.");
 
 /** A password being checked, not chosen: any length we can hash, no hints about the rules. */
-export const existingPasswordField = z
-  .string({ error: "Enter your password." })
-  .min(1, "Enter your password.")
-  .max(200, "That is longer than any password here.");
+const existingPasswordField = z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(200, "That is longer than any password here.");
 
-export const nameField = z
+const nameField = z
   .string({ error: "Enter a name." })
   .trim()
   .min(1, "Enter a name others will see beside your contributions.")

@@ -11,7 +11,7 @@ import type { Role } from "@/lib/vocabulary";
 export const SESSION_MAX_AGE_SECONDS = 30 * 24 * 60 * 60;
 
 /** next-auth's rule: the __Secure- prefix (and the Secure flag) exactly when the site is served over https. */
-export function usesSecureCookies(): boolean {
+function usesSecureCookies(): boolean {
   return env().NEXTAUTH_URL?.startsWith("https://") ?? false;
 }
 

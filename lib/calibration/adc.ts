@@ -1,15 +1,13 @@
 import { z } from "zod";
 import { numberField, positiveNumber } from "./fields";
 import { WorksheetInputError, parseInput } from "./result";
-import { SOURCES } from "./sources";
 
 // ADC conversion for the hardware worksheet. We use 1 LSB = Vref / 2^N, the usual form and the
 // IEEE Std 1241 definition (from memory). Some documentation divides by 2^N − 1
 // instead; at 12 bits the two differ by 0.024 %, far below any setting step, but the choice is
 // named here so that the figures can be checked: 12 bits, 3.3 V, count 2048 → 1.650000 V.
 
-export const ADC_LSB_DEFINITION = SOURCES.adcLsb;
-export const MAX_ADC_BITS = 24;
+const MAX_ADC_BITS = 24;
 
 const adcSchema = z.object({
   vrefVolts: positiveNumber("The ADC reference", "V", 10),

@@ -29,7 +29,7 @@ export type BenchWorksheetInput = {
   points: ReadonlyArray<{ measuredAmps: number; reportedAmps: number }>;
 };
 
-export type BenchResidual = { index: number; measuredAmps: number; reportedAmps: number; fittedAmps: number; residualAmps: number };
+type BenchResidual = { index: number; measuredAmps: number; reportedAmps: number; fittedAmps: number; residualAmps: number };
 
 export type BenchWorksheet = {
   scaleUsed: number;

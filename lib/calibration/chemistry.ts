@@ -7,8 +7,8 @@ import { SOURCES } from "./sources";
 
 export { CHEMISTRIES, type Chemistry } from "@/lib/vocabulary";
 
-export type CellFigure = { volts: number; source: string };
-export type CellRange = { low: number; high: number; source: string };
+type CellFigure = { volts: number; source: string };
+type CellRange = { low: number; high: number; source: string };
 
 export type ChemistryLimits = {
   label: string;

@@ -46,10 +46,10 @@ export function offsetFloorSteps(scaleUsed: number, units: EvidenceUnits): numbe
   return Math.max(OFFSET_TOLERANCE_FLOOR_STEPS, (OFFSET_TOLERANCE_FLOOR_AMPS * perAmp) / units.currentOffsetStep);
 }
 
-export type VoltageReadingEvidence = { cells: number; reportedVolts: number; measuredVolts: number; measuredAt: string };
-export type VoltageCheckEvidence = { scaleUsed: number; readings: readonly VoltageReadingEvidence[] };
+type VoltageReadingEvidence = { cells: number; reportedVolts: number; measuredVolts: number; measuredAt: string };
+type VoltageCheckEvidence = { scaleUsed: number; readings: readonly VoltageReadingEvidence[] };
 export type CycleEvidence = { scaleUsed: number; reportedMah: number; chargedMah: number; ratedMah: number; cells: number };
-export type BenchPointEvidence = { reportedAmps: number; measuredAmps: number };
+type BenchPointEvidence = { reportedAmps: number; measuredAmps: number };
 export type BenchEvidence = { scaleUsed: number; offsetUsed: number; points: readonly BenchPointEvidence[] };
 
 function scaleBy(response: Response, setting: number, readingRatio: number): number {
@@ -125,8 +125,8 @@ export function impliedFromBench(bench: BenchEvidence, units: EvidenceUnits): Be
 
 const median = (values: number[]) => medianOfSorted(sortedCopy(values))!;
 
-export type EvidenceQuantity = "voltage_scale" | "current_scale" | "current_offset";
-export type EvidenceSource = "voltage_check" | "recharge_cycles" | "bench_points";
+type EvidenceQuantity = "voltage_scale" | "current_scale" | "current_offset";
+type EvidenceSource = "voltage_check" | "recharge_cycles" | "bench_points";
 
 export type EvidenceCheck = {
   quantity: EvidenceQuantity;

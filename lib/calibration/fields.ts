@@ -46,7 +46,7 @@ export const settingRange = (family: WorksheetFamily, kind: SettingKind) => {
 };
 
 /** "1 step = 0.1 mV/A" */
-export const stepText = (family: WorksheetFamily, kind: SettingKind) => {
+const stepText = (family: WorksheetFamily, kind: SettingKind) => {
   const r = rangeOf(family, kind);
   return `1 step = ${formatFigure(r.step, 6)} ${r.unit}`;
 };

@@ -96,8 +96,8 @@ export function figureOrigin(fromBoard: number | null, inForce: number | null): 
  * a per cent or two, stay within about 3 %; past 10 % it is a different part, not a spread
  * (both thresholds common practice, no source).
  */
-export const PARTS_TOLERANCE_PERCENT = 3;
-export const DIFFERENT_PART_PERCENT = 10;
+const PARTS_TOLERANCE_PERCENT = 3;
+const DIFFERENT_PART_PERCENT = 10;
 export const PARTS_TOLERANCE_SOURCE = "common practice, no source";
 
 export type ComparisonVerdict = "same-setting" | "within-tolerance" | "beyond-tolerance" | "different-part";

@@ -13,7 +13,7 @@ import { SOURCES } from "./sources";
 // (Horowitz & Hill, from memory), and a shunt's sensitivity R × gain by Ohm's law (a Hall sensor's
 // datasheet figure is already mV/A). The ADC figures use 1 LSB = Vref / 2^N (adc.ts).
 
-export type CurrentSensorInput = { kind: "shunt"; shuntMilliohms: number; amplifierGain: number } | { kind: "hall"; mvPerAmp: number };
+type CurrentSensorInput = { kind: "shunt"; shuntMilliohms: number; amplifierGain: number } | { kind: "hall"; mvPerAmp: number };
 
 export type HardwareWorksheetInput = {
   divider?: { topOhms: number; bottomOhms: number } | null;
@@ -28,7 +28,7 @@ export type HardwareWorksheetInput = {
   atAmps?: number | null;
 };
 
-export type Comparison = { published: number; differencePercent: number } | null;
+type Comparison = { published: number; differencePercent: number } | null;
 
 export type HardwareWorksheet = {
   voltage: {

@@ -13,10 +13,10 @@ import { SOURCES } from "./sources";
 /** Warn at 80 % of usable capacity (common practice, no source). */
 export const MAH_WARNING_FRACTION = 0.8;
 /** The estimate is the median of the last 5 charges after full flights, once there are 3 (our own rule). */
-export const RECENT_CHARGES = 5;
-export const MIN_CHARGES_FOR_ESTIMATE = 3;
+const RECENT_CHARGES = 5;
+const MIN_CHARGES_FOR_ESTIMATE = 3;
 /** A charge-log estimate this far over the rating means the charger or the label is off (our own rule). */
-export const ESTIMATE_OVER_RATED_WARNING = 0.1;
+const ESTIMATE_OVER_RATED_WARNING = 0.1;
 
 export type PackWarningsInput = {
   chemistry: Chemistry;

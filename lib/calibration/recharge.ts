@@ -24,7 +24,7 @@ import { SOURCES } from "./sources";
 /** Done when |reported ÷ charged − 1| ≤ 1 % ... */
 export const STOP_TOLERANCE = 0.01;
 /** ... on this many usable cycles in a row (our own rule, in line with common practice, no source). */
-export const STOP_CYCLES = 2;
+const STOP_CYCLES = 2;
 /** The rule usually settles in 3–5 cycles (common practice, no source); the tests hold it to 5. */
 export const EXPECTED_MAX_CYCLES = 5;
 /** A charge more than 10 % over the pack's rating is doubtful (our own rule); over 1.5 × it is refused (limits.ts). */
@@ -33,10 +33,10 @@ export const CHARGED_OVER_RATED_WARNING = 0.1;
  * A cycle is suspected of a short recharge when the charger put back 10 % less than the other
  * cycles imply for its scale, while those others agree within ±3 % (our own rules).
  */
-export const INCOMPLETE_SHORTFALL = 0.1;
-export const STABLE_SPREAD = 0.03;
+const INCOMPLETE_SHORTFALL = 0.1;
+const STABLE_SPREAD = 0.03;
 
-export const STOP_RULE_TEXT = `Done when the display is within ${STOP_TOLERANCE * 100} % of the charger (|reported ÷ charged − 1| ≤ ${STOP_TOLERANCE * 100} %) on ${STOP_CYCLES} usable cycles in a row (${SOURCES.ownRuleByPractice}).`;
+const STOP_RULE_TEXT = `Done when the display is within ${STOP_TOLERANCE * 100} % of the charger (|reported ÷ charged − 1| ≤ ${STOP_TOLERANCE * 100} %) on ${STOP_CYCLES} usable cycles in a row (${SOURCES.ownRuleByPractice}).`;
 
 export type RechargeCycleInput = {
   scaleUsed: number;
@@ -49,7 +49,7 @@ export type RechargeCycleInput = {
 };
 export type RechargeWorksheetInput = { ratedMah?: number | null; cycles: readonly RechargeCycleInput[] };
 
-export type RechargeIteration = {
+type RechargeIteration = {
   index: number;
   scaleUsed: number;
   reportedMah: number;

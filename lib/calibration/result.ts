@@ -27,7 +27,7 @@ export function unwrapWorksheet<T>(result: WorksheetResult<T>): T {
 }
 
 /** zod's issues as field issues; an issue about the whole input is filed under "input". */
-export function issuesFromZod(error: z.ZodError): FieldIssue[] {
+function issuesFromZod(error: z.ZodError): FieldIssue[] {
   return error.issues.map((issue) => ({ field: issue.path.length ? issue.path.map(String).join(".") : "input", message: issue.message }));
 }
 

@@ -15,5 +15,3 @@ export const SOURCES = {
   adcLsb: "1 LSB = Vref / 2^N (the IEEE Std 1241 form)",
   leastSquares: "ordinary least squares (simple-statistics linearRegression)",
 } as const;
-
-export type SourceText = (typeof SOURCES)[keyof typeof SOURCES];

@@ -27,7 +27,7 @@ import { SOURCES } from "./sources";
  * 1.15–2 % of it), so the per-cell error is shown beside it but does not decide.
  */
 export const VOLTAGE_TOLERANCE = 0.01;
-export const VOLTAGE_TOLERANCE_SOURCE = SOURCES.commonPractice;
+const VOLTAGE_TOLERANCE_SOURCE = SOURCES.commonPractice;
 
 export type VoltageWorksheetInput = {
   /** The voltage scale in force when the readings were taken, in steps. */
@@ -35,7 +35,7 @@ export type VoltageWorksheetInput = {
   readings: ReadonlyArray<{ cells: number; reportedVolts: number; measuredVolts: number }>;
 };
 
-export type VoltagePair = {
+type VoltagePair = {
   index: number;
   cells: number;
   reportedVolts: number;

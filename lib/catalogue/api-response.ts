@@ -8,9 +8,9 @@ import type { BoardDetailResponse, BoardListResponse } from "./api-schemas";
 // lib/catalogue's results in the API's published shape. Mapped field by field (not spread) so a
 // column added to a query does not silently become part of the public API.
 
-export const API_BASE = "/api/v1";
+const API_BASE = "/api/v1";
 
-export function boardLinks(slug: string) {
+function boardLinks(slug: string) {
   const self = `${API_BASE}/boards/${encodeURIComponent(slug)}`;
   return { self, values: `${self}/values`, page: `/boards/${encodeURIComponent(slug)}` };
 }
@@ -27,7 +27,7 @@ function summary(row: CatalogueRow): BoardListResponse["boards"][number] {
   };
 }
 
-export function boardListResponse(page: CataloguePage, params: CatalogueParams): BoardListResponse {
+function boardListResponse(page: CataloguePage, params: CatalogueParams): BoardListResponse {
   const link = (p: number) => `${API_BASE}/boards${catalogueQueryString({ ...params, page: p })}`;
   return {
     boards: page.rows.map(summary),
@@ -49,7 +49,7 @@ export function boardListResponse(page: CataloguePage, params: CatalogueParams):
   };
 }
 
-export function boardDetailResponse(board: BoardDetail): BoardDetailResponse {
+function boardDetailResponse(board: BoardDetail): BoardDetailResponse {
   return {
     ...boardFacts(board),
     description: board.description,

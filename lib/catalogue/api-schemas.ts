@@ -11,15 +11,15 @@ const isoDate = z
   .regex(/^\d{4}-\d{2}-\d{2}$/)
   .meta({ description: "A calendar date, YYYY-MM-DD." });
 
-export const BoardLinksSchema = z.object({
+const BoardLinksSchema = z.object({
   self: z.string().meta({ example: "/api/v1/boards/example-f7" }),
   values: z.string().meta({ example: "/api/v1/boards/example-f7/values" }),
   page: z.string().meta({ description: "The board's page on the site.", example: "/boards/example-f7" }),
 });
 
-export const ManufacturerRefSchema = z.object({ slug: z.string(), name: z.string() });
+const ManufacturerRefSchema = z.object({ slug: z.string(), name: z.string() });
 
-export const BoardSummarySchema = z
+const BoardSummarySchema = z
   .object({
     slug: z.string(),
     name: z.string(),
@@ -59,7 +59,7 @@ export const BoardListResponseSchema = z
   })
   .meta({ id: "BoardList", description: "One page of the catalogue." });
 
-export const RevisionDetailSchema = z
+const RevisionDetailSchema = z
   .object({
     id: z.number().int(),
     label: z.string().meta({ example: "v2" }),

@@ -22,7 +22,7 @@ export const MAX_PAGE_SIZE = 100;
 export const MAX_PAGE = 10_000;
 
 // Same rule as the CHECK on board_models.mounting_pattern: hole spacing in mm, "20x20", "30.5x30.5".
-export const MOUNTING_PATTERN_RE = /^[0-9]{1,2}(\.[0-9])?x[0-9]{1,2}(\.[0-9])?$/;
+const MOUNTING_PATTERN_RE = /^[0-9]{1,2}(\.[0-9])?x[0-9]{1,2}(\.[0-9])?$/;
 
 const positiveInt = (field: string, max: number) =>
   z

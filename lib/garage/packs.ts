@@ -7,7 +7,7 @@ import { chargeInput, packInput } from "./schemas";
 // A builder's packs and their charge logs. The cycle count, the usable-capacity estimate and the
 // suggested OSD warnings come from lib/calibration/pack.ts; nothing is re-derived here.
 
-export type ChargeView = { id: number; chargedOn: string; chargedMah: number; restingVoltsPerCell: number | null; afterFullFlight: boolean };
+type ChargeView = { id: number; chargedOn: string; chargedMah: number; restingVoltsPerCell: number | null; afterFullFlight: boolean };
 export type PackView = {
   id: number;
   label: string;

@@ -38,7 +38,6 @@ export const quadInput = z.object({
   esc: optionalText("the ESC", 120),
   notes: optionalText("the notes", 4000),
 });
-export type QuadInput = z.input<typeof quadInput>;
 
 export const packInput = z.object({
   label: text("the pack's label", 80),
@@ -49,10 +48,9 @@ export const packInput = z.object({
     .nullish()
     .transform((v) => v ?? null),
 });
-export type PackInput = z.input<typeof packInput>;
 
 /** Resting volts outside 2.5–4.45 V a cell are no lithium cell at rest (our own plausibility rule). */
-export const RESTING_VOLTS = { min: 2.5, max: 4.45 } as const;
+const RESTING_VOLTS = { min: 2.5, max: 4.45 } as const;
 
 export const chargeInput = z.object({
   chargedOn: isoDate("The charge date"),
@@ -70,4 +68,3 @@ export const chargeInput = z.object({
     .transform((v) => v ?? null),
   afterFullFlight: z.boolean({ error: "Say whether the flight before this charge went to the landing voltage" }).default(true),
 });
-export type ChargeInput = z.input<typeof chargeInput>;

@@ -10,8 +10,8 @@ import type { ErrorBody } from "./error-body";
  * they revalidate (RFC 5861). Published values move only when a moderator approves something, so a
  * minute of lag is harmless, and revalidation with If-None-Match costs us almost nothing.
  */
-export const READ_CACHE_CONTROL = "public, max-age=60, stale-while-revalidate=300";
-export const ERROR_CACHE_CONTROL = "no-store";
+const READ_CACHE_CONTROL = "public, max-age=60, stale-while-revalidate=300";
+const ERROR_CACHE_CONTROL = "no-store";
 
 const JSON_TYPE = "application/json; charset=utf-8";
 
@@ -60,7 +60,7 @@ export function jsonOk<T>(request: Request, body: T, cacheControl = READ_CACHE_C
   return jsonWithEtag(request, etagOf(text), text, cacheControl);
 }
 
-export function errorBody(error: ApiError): ErrorBody {
+function errorBody(error: ApiError): ErrorBody {
   return { error: { status: error.status, code: error.code, message: error.message, fieldErrors: error.fieldErrors } };
 }
 

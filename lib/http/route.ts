@@ -24,7 +24,7 @@ import { errorResponse } from "./respond";
  * "optional" reads it and passes the user or null (a photo's visibility depends on the viewer);
  * the others need a signed-in user holding that role or a higher one.
  */
-export type Auth = "public" | "optional" | "user" | "moderator" | "admin";
+type Auth = "public" | "optional" | "user" | "moderator" | "admin";
 
 type QueryParser = (record: Record<string, string | string[]>) => unknown;
 
@@ -41,7 +41,7 @@ export type RouteSpec = {
 };
 
 /** A submission with every section full is a few kB; this is far above it and bounds the parser. */
-export const MAX_JSON_BODY_BYTES = 256 * 1024;
+const MAX_JSON_BODY_BYTES = 256 * 1024;
 
 type UserOf<A extends Auth> = A extends "public" ? null : A extends "optional" ? SessionUser | null : SessionUser;
 type ParamsOf<S extends RouteSpec> = S["params"] extends z.ZodType ? z.output<S["params"]> : undefined;
@@ -57,7 +57,7 @@ export type RouteInput<S extends RouteSpec> = {
 };
 
 /** What Next.js passes a route handler besides the request (tests may pass nothing). */
-export type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> } | undefined;
+type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> } | undefined;
 export type RouteHandler = (request: Request, context?: RouteContext) => Promise<Response>;
 
 const NEEDS_ROLE = { moderator: ["moderator"], admin: ["admin"] } as const;

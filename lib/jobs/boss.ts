@@ -8,7 +8,7 @@ import { JOBS } from "./handlers";
 // One instance per process, on its own small pool, made on first use and kept on globalThis so
 // that dev reloads do not leak pools.
 
-export const BOSS_SCHEMA = "pgboss";
+const BOSS_SCHEMA = "pgboss";
 
 type BossHolder = { url: string; boss: PgBoss; started: Promise<PgBoss> };
 const globalForJobs = globalThis as unknown as { shuntbookBoss?: BossHolder };

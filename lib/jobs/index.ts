@@ -2,4 +2,3 @@
 // the concepts' own jobs, so it sits above them and is imported by itself (instrumentation.ts, tests).
 export { enqueue } from "./enqueue";
 export { stopBoss } from "./boss";
-export { JOBS, type JobName } from "./handlers";

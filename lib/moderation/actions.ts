@@ -71,10 +71,8 @@ export async function decide(actor: Actor, submissionId: number, decision: Decis
 }
 
 export const approveSubmission = (actor: Actor, id: number, body: { version: number; note?: string | null }) => decide(actor, id, "approve", body);
-export const rejectSubmission = (actor: Actor, id: number, body: { version: number; reason: string }) => decide(actor, id, "reject", body);
-export const requestChanges = (actor: Actor, id: number, body: { version: number; message: string }) => decide(actor, id, "request_changes", body);
 
-export type BulkItemResult =
+type BulkItemResult =
   | { id: number; outcome: "approved"; version: number; eventId: number; changed: QuantityKey[] }
   | { id: number; outcome: "conflict" | "refused"; status: number; message: string };
 

@@ -111,9 +111,9 @@ export async function getAuditEvent(id: number, transaction?: Transaction): Prom
   return row ? toView(row) : null;
 }
 
-export const AUDIT_MAX_PAGE_SIZE = 100;
+const AUDIT_MAX_PAGE_SIZE = 100;
 
-export const AuditQuerySchema = z.object({
+const AuditQuerySchema = z.object({
   page: pageParam(),
   pageSize: pageSizeParam(AUDIT_MAX_PAGE_SIZE, 50),
   action: z.enum(AUDIT_ACTIONS, { error: `action is one of: ${AUDIT_ACTIONS.join(", ")}` }).optional(),

@@ -10,13 +10,13 @@ import { queueCounts, type QueueCounts } from "./queue";
 // so a failure sends none and the next run tries again). Nothing is sent when nothing waits.
 // jobs.ts schedules it; tests and scripts call sendModeratorDigest() directly.
 
-export type DigestCounts = QueueCounts & {
+type DigestCounts = QueueCounts & {
   /** Pending submissions far off OR with disagreeing evidence, each counted once. */
   flagged: number;
   oldestPendingAt: Date | null;
 };
 
-export async function digestCounts(): Promise<DigestCounts> {
+async function digestCounts(): Promise<DigestCounts> {
   const sequelize = db();
   const counts = await queueCounts();
   // submissions_status_created_idx for the oldest; the flag count reuses the queue's scoring

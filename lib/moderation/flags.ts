@@ -27,7 +27,7 @@ const statsJoin = (q: Quantity) =>
  * ff and u. Columns: see ScoredRow. Every lookup is by primary key or by
  * submissions_contributor_status_idx (the first-time-contributor test).
  */
-export function scoredSql(where: string): string {
+function scoredSql(where: string): string {
   return `
   SELECT s.id, s.version, s.status, s.created_at AS "createdAt", s.method,
          s.board_revision_id AS "revisionId", br.label AS "revisionLabel",
@@ -88,7 +88,7 @@ export type ScoredRow = {
 } & Record<`z_${Quantity}`, number | null>;
 
 /** JSON has no Infinity: an unbounded score is reported as null with outlier = true. */
-export const finiteOrNull = (v: number | null): number | null => (v === null || !Number.isFinite(Number(v)) ? null : Number(v));
+const finiteOrNull = (v: number | null): number | null => (v === null || !Number.isFinite(Number(v)) ? null : Number(v));
 
 /** A submission's flags as the queue, bulk approval and trust read them. */
 export type SubmissionFlags = {

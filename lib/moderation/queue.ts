@@ -28,7 +28,7 @@ export type QueueParams = { page: number; pageSize: number; sort: QueueSort; boa
 const MAX_PAGE = 10_000;
 
 /** The query string's parameters; field-level messages for anything that is not one of them. */
-export const QueueParamsSchema = z.object({
+const QueueParamsSchema = z.object({
   page: pageParam(MAX_PAGE),
   pageSize: pageSizeParam(QUEUE_MAX_PAGE_SIZE, QUEUE_DEFAULT_PAGE_SIZE),
   sort: z.enum(QUEUE_SORTS, { error: `sort is one of: ${QUEUE_SORTS.join(", ")}` }).default("severity"),

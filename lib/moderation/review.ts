@@ -22,7 +22,7 @@ import { contributorRecord, trustOf, type ContributorRecord, type TrustState } f
 // same data by tests/unit/published. "Now" is computed the same way from the approved values alone,
 // so the two sides of each comparison come from one implementation.
 
-export type Figures = {
+type Figures = {
   n: number;
   median: number;
   ciLow: number | null;
@@ -33,9 +33,9 @@ export type Figures = {
   outlierCount: number;
 };
 
-export type GroupPoint = { submissionId: number; value: number; method: Method; date: string; outlier: boolean; modifiedZ: number | null };
+type GroupPoint = { submissionId: number; value: number; method: Method; date: string; outlier: boolean; modifiedZ: number | null };
 
-export type QuantityReview = {
+type QuantityReview = {
   quantity: QuantityKey;
   /** This submission's value; null when it leaves this quantity out (then nothing would move). */
   value: number | null;
@@ -54,7 +54,7 @@ export type QuantityReview = {
   moves: { median: number | null; ciLow: number | null; ciHigh: number | null; recommendedValue: number | null; n: number } | null;
 };
 
-export type ReviewPhoto = {
+type ReviewPhoto = {
   id: string;
   url: string;
   contentType: string;
@@ -65,7 +65,7 @@ export type ReviewPhoto = {
   removedAt: string | null;
 };
 
-export type OtherSubmission = {
+type OtherSubmission = {
   id: number;
   status: SubmissionStatus;
   createdAt: string;
@@ -86,7 +86,7 @@ export type Review = {
 type ApprovedRow = { id: number; method: Method; updatedAt: Date } & Record<Quantity, number | null>;
 
 /** board_stats' figures for a set of values, by lib/stats and lib/published's derivation. */
-export function figuresOf(group: GroupKey, quantity: Quantity, points: ApprovedPoint[]): Figures | null {
+function figuresOf(group: GroupKey, quantity: Quantity, points: ApprovedPoint[]): Figures | null {
   const published = publishedFromValues(group, quantity, points);
   if (!published) return null;
   return {

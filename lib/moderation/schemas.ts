@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { BULK_MAX_ITEMS, NOTE_MAX_LENGTH, ROLE_CHOICES } from "@/lib/vocabulary";
+import { BULK_MAX_ITEMS, NOTE_MAX_LENGTH, ROLES } from "@/lib/vocabulary";
 
 // The bodies of the moderation and admin endpoints, with field-level messages. Plain zod and
 // browser-safe imports only: the moderation UI can check a form with the schema the handler uses.
@@ -60,16 +60,13 @@ export const RevertBodySchema = z.object({
 
 export const UserPatchBodySchema = z
   .object({
-    role: z.enum(ROLE_CHOICES, { error: `role is one of: ${ROLE_CHOICES.join(", ")}` }).optional(),
+    role: z.enum(ROLES, { error: `role is one of: ${ROLES.join(", ")}` }).optional(),
     /** true: trusted regardless of record; false: never auto-approved; null: by record. */
     trusted: z.boolean({ error: "trusted is true, false, or null (decided by their record)" }).nullable().optional(),
     reason: text("The reason", "Leave the reason out, or write something").nullish(),
   })
   .refine((b) => b.role !== undefined || b.trusted !== undefined, { message: "Send role, trusted, or both", path: ["role"] });
 
-export type ApproveBody = z.input<typeof ApproveBodySchema>;
-export type RejectBody = z.input<typeof RejectBodySchema>;
-export type RequestChangesBody = z.input<typeof RequestChangesBodySchema>;
 export type BulkApproveBody = z.input<typeof BulkApproveBodySchema>;
 export type RevertBody = z.input<typeof RevertBodySchema>;
 export type UserPatchBody = z.input<typeof UserPatchBodySchema>;

@@ -38,10 +38,10 @@ export class ModerationRefusal extends ApiError {
   }
 }
 
-export const missingSubmission = (id: number) =>
+const missingSubmission = (id: number) =>
   new ModerationRefusal(404, "not_found", `There is no submission with id ${id}.`, { id: [`There is no submission with id ${id}.`] });
 
-export const staleVersion = (sent: number, current: number) =>
+const staleVersion = (sent: number, current: number) =>
   new ModerationRefusal(
     409,
     "conflict",
@@ -51,13 +51,13 @@ export const staleVersion = (sent: number, current: number) =>
     },
   );
 
-export type LockedSubmission = SubmissionState & {
+type LockedSubmission = SubmissionState & {
   id: number;
   contributorId: string;
   group: GroupKey;
 };
 
-export async function lockSubmission(id: number, transaction: Transaction): Promise<LockedSubmission | null> {
+async function lockSubmission(id: number, transaction: Transaction): Promise<LockedSubmission | null> {
   const [row] = await db().query<Omit<LockedSubmission, "group"> & { r: number; f: number }>(
     `SELECT id, status, moderator_note AS "moderatorNote", version, contributor_id AS "contributorId",
             board_revision_id AS r, firmware_family_id AS f

@@ -52,7 +52,7 @@ export function decideTrust(record: Pick<ContributorRecord, "approved" | "reject
 }
 
 /** users.trusted: the admin's override, null when there is none; undefined when there is no such user. */
-export async function trustOverride(userId: string, transaction?: Transaction): Promise<boolean | null | undefined> {
+async function trustOverride(userId: string, transaction?: Transaction): Promise<boolean | null | undefined> {
   db();
   const user = await User.findByPk(userId, { attributes: ["trusted"], transaction });
   return user ? user.trusted : undefined;

@@ -3,7 +3,7 @@ import { z } from "zod";
 import { ApiError, badRequest } from "@/lib/http/errors";
 import { pageParam, parseQueryOrRefuse } from "@/lib/http/query";
 import { db } from "@/models";
-import { type Role, ROLE_CHOICES } from "@/lib/vocabulary";
+import { type Role, ROLES } from "@/lib/vocabulary";
 import { writeAuditEvent, type AuditEventView, type UserState, getAuditEvent } from "./audit";
 import { fieldErrorsOf } from "@/lib/http/field-errors";
 import { UserPatchBodySchema } from "./schemas";
@@ -66,11 +66,11 @@ export async function getUserSummary(id: string): Promise<UserSummary | null> {
   return row ? toSummary(row, trustThreshold()) : null;
 }
 
-export const USERS_PAGE_SIZE = 50;
+const USERS_PAGE_SIZE = 50;
 
-export const UsersQuerySchema = z.object({
+const UsersQuerySchema = z.object({
   page: pageParam(),
-  role: z.enum(ROLE_CHOICES, { error: `role is one of: ${ROLE_CHOICES.join(", ")}` }).optional(),
+  role: z.enum(ROLES, { error: `role is one of: ${ROLES.join(", ")}` }).optional(),
 });
 export type UsersQuery = z.output<typeof UsersQuerySchema>;
 

@@ -17,7 +17,7 @@ import { BoardValuesResponseSchema, ValuesQuerySchema } from "@/lib/published/ap
 // The contribution endpoints are here too; the moderation, admin and garage ones serve the site's
 // own pages and are left out until someone outside needs them.
 
-export const API_VERSION = "1.0.0";
+const API_VERSION = "1.0.0";
 
 // Parameter descriptions for the catalogue's own schema. They are attached to copies of its fields
 // here, because that schema belongs to lib/catalogue and carries no documentation of its own; the

@@ -17,7 +17,7 @@ export type FieldRow = {
   values?: string[];
 };
 
-export type ParameterRow = {
+type ParameterRow = {
   name: string;
   in: string;
   required: boolean;
@@ -28,10 +28,10 @@ export type ParameterRow = {
   description?: string;
 };
 
-export type ResponseRow = { status: string; description: string; ref?: string; headers: string[] };
+type ResponseRow = { status: string; description: string; ref?: string; headers: string[] };
 
 /** A JSON request body: its own fields (inline parts) and the components it takes whole. */
-export type RequestBodyView = { rows: FieldRow[]; refs: string[] };
+type RequestBodyView = { rows: FieldRow[]; refs: string[] };
 
 export type OperationView = {
   id: string;
@@ -47,7 +47,7 @@ export type OperationView = {
 };
 
 const isRef = (s: unknown): s is ReferenceObject => typeof s === "object" && s !== null && "$ref" in s;
-export const refName = (ref: string) => ref.replace("#/components/schemas/", "");
+const refName = (ref: string) => ref.replace("#/components/schemas/", "");
 
 function typeOf(schema: SchemaObject | ReferenceObject): { type: string; ref?: string } {
   if (isRef(schema)) return { type: refName(schema.$ref), ref: refName(schema.$ref) };

@@ -6,7 +6,7 @@ export function spawnGroup(command: string, args: string[], options: SpawnOption
   return spawn(command, args, { ...options, detached: true });
 }
 
-export function signalGroup(child: ChildProcess, signal: NodeJS.Signals): void {
+function signalGroup(child: ChildProcess, signal: NodeJS.Signals): void {
   if (child.pid === undefined || child.exitCode !== null || child.signalCode !== null) return;
   try {
     process.kill(-child.pid, signal);

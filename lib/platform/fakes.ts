@@ -9,14 +9,14 @@ import { waitForHttp } from "./wait-for-http";
 // outgoing mail, and an S3-compatible store for evidence photos. The app reaches them through the
 // same SDKs it would use against the real services (nodemailer, @aws-sdk/client-s3).
 
-export type MailCatcher = { smtpUrl: string; inboxUrl: string };
-export type ObjectStore = { endpoint: string };
+type MailCatcher = { smtpUrl: string; inboxUrl: string };
+type ObjectStore = { endpoint: string };
 
 function nodeBin(root: string, relative: string): string {
   return path.join(root, "node_modules", relative);
 }
 
-export async function startMailCatcher(root: string, opts: { smtpPort: number; webPort: number; mailDir: string; lifecycle: Lifecycle }): Promise<MailCatcher> {
+async function startMailCatcher(root: string, opts: { smtpPort: number; webPort: number; mailDir: string; lifecycle: Lifecycle }): Promise<MailCatcher> {
   mkdirSync(opts.mailDir, { recursive: true });
   const child = spawnGroup(
     process.execPath,
@@ -44,7 +44,7 @@ export async function startMailCatcher(root: string, opts: { smtpPort: number; w
   return { smtpUrl: `smtp://127.0.0.1:${opts.smtpPort}`, inboxUrl };
 }
 
-export async function startObjectStore(root: string, opts: { port: number; dataDir: string; bucket: string; lifecycle: Lifecycle }): Promise<ObjectStore> {
+async function startObjectStore(root: string, opts: { port: number; dataDir: string; bucket: string; lifecycle: Lifecycle }): Promise<ObjectStore> {
   mkdirSync(opts.dataDir, { recursive: true });
   const child = spawnGroup(
     process.execPath,

@@ -28,7 +28,7 @@ function newestMtime(target: string): number {
   return newest;
 }
 
-export function buildIsStale(root: string): boolean {
+function buildIsStale(root: string): boolean {
   const buildId = path.join(root, env().SHUNTBOOK_NEXT_DIST_DIR, "BUILD_ID");
   if (!existsSync(buildId)) return true;
   const builtAt = statSync(buildId).mtimeMs;

@@ -5,7 +5,7 @@ import pg from "pg";
 import { findPostgresBinaries, isRoot } from "./postgres-binaries";
 import { log } from "./log";
 
-export const CLUSTER_SUPERUSER = "shuntbook";
+const CLUSTER_SUPERUSER = "shuntbook";
 // initdb refuses to run as root, so as root the cluster belongs to Debian's `postgres` system user.
 const SERVICE_USER = "postgres";
 

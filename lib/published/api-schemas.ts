@@ -32,7 +32,7 @@ export type ValuesQuery = z.output<typeof ValuesQuerySchema>;
 
 const methodEnum = z.enum(METHODS);
 
-export const ValuePointSchema = z
+const ValuePointSchema = z
   .object({
     value: z.number().meta({ description: "The setting as submitted, in steps of the family's unit." }),
     method: methodEnum,
@@ -45,7 +45,7 @@ export const ValuePointSchema = z
   })
   .meta({ id: "ValuePoint" });
 
-export const QuantityValuesSchema = z
+const QuantityValuesSchema = z
   .object({
     n: z.number().int().meta({ description: "Approved values behind these figures." }),
     median: z.number(),
@@ -85,7 +85,7 @@ export const QuantityValuesSchema = z
 // because its first use is nullable; that holds as long as every use is.)
 const quantity = QuantityValuesSchema.nullable();
 
-export const GroupValuesSchema = z
+const GroupValuesSchema = z
   .object({
     family: z.string().meta({ description: "Firmware family slug; see families for its units." }),
     lastChangeAt: iso,
@@ -106,7 +106,7 @@ const scaleUnits = <U extends readonly [string, ...string[]]>(units: U) =>
     max: z.number(),
   });
 
-export const FamilyUnitsSchema = z
+const FamilyUnitsSchema = z
   .object({
     slug: z.string(),
     name: z.string(),

@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from "sequelize";
 import { CONFIDENCE_EXPLANATIONS, flagPoints, recommendValue } from "@/lib/stats";
-import { type BoardKind, CONFIDENCE_TITLES, type ConfidenceLabel, type Method, QUANTITIES, type Quantity } from "@/lib/vocabulary";
+import { type BoardKind, CONFIDENCE_TITLES, type Method, QUANTITIES, type Quantity } from "@/lib/vocabulary";
 import type { BoardStatRow } from "@/models/BoardStat";
 import { familyUnitColumnsSql, type FamilyUnitFields, type FirmwareFamily } from "@/models/FirmwareFamily";
 import { QUANTITY_KEYS, type BoardValues, type FamilyUnits, type GroupValues, type QuantityValues, type ValuePoint } from "./board-values-types";
@@ -81,7 +81,7 @@ const POINTS_SQL = `
 
 const FAMILIES_SQL = `SELECT id, slug, name, description, ${familyUnitColumnsSql()} FROM firmware_families ORDER BY name, id`;
 
-export function familyUnits(f: FamilyRow): FamilyUnits {
+function familyUnits(f: FamilyRow): FamilyUnits {
   return {
     slug: f.slug,
     name: f.name,

@@ -14,10 +14,10 @@ import { refreshGroups, type PublishedStats } from "./refresh";
 // timeline always starts from what readers saw.
 
 /** The published figures of one quantity that the history keeps. */
-export type PublishedFigures = Pick<BoardStatRow, "recommendedValue" | "n" | "median" | "ciLow" | "ciHigh" | "confidence" | "computedAt">;
+type PublishedFigures = Pick<BoardStatRow, "recommendedValue" | "n" | "median" | "ciLow" | "ciHigh" | "confidence" | "computedAt">;
 
 /** board_stats of one group by quantity, read by primary key. */
-export async function publishedFigures(group: GroupKey, transaction?: Transaction): Promise<Map<Quantity, PublishedFigures>> {
+async function publishedFigures(group: GroupKey, transaction?: Transaction): Promise<Map<Quantity, PublishedFigures>> {
   db();
   const rows = await BoardStat.findAll({
     attributes: ["quantity", "recommendedValue", "n", "median", "ciLow", "ciHigh", "confidence", "computedAt"],
@@ -97,7 +97,7 @@ export type HistoryPoint = {
   event: { id: number; action: AuditAction } | null;
 };
 
-export type HistorySeries = {
+type HistorySeries = {
   revision: { id: number; label: string };
   family: { id: number; slug: string; name: string };
   quantity: QuantityKey;

@@ -15,7 +15,7 @@ import type { FamilyUnits, QuantityKey } from "./board-values-types";
 //    significance of differences by examining the overlap between confidence intervals",
 //    The American Statistician 55(3), 2001; from memory). So a note is never raised on noise.
 //
-// How a reading moves with the setting (check-values.md, fly-and-recharge rule, common practice):
+// How a reading moves with the setting (the fly-and-recharge rule: common practice, no source):
 // a "proportional" setting scales the reading up with it, an "inverse" one scales it down. At the
 // same setting, board b therefore reads readingRatio × what board a reads, where
 //   voltage: ratio_a / ratio_b (more division on b leaves less at the ADC pin);
@@ -23,7 +23,7 @@ import type { FamilyUnits, QuantityKey } from "./board-values-types";
 //   from the values: m_a / m_b for a proportional setting, m_b / m_a for an inverse one.
 
 /** Parts that differ by less than this are the same part: common 1 % resistor tolerance (common practice, no source). */
-export const HARDWARE_TOLERANCE = 0.01;
+const HARDWARE_TOLERANCE = 0.01;
 
 /** The figures of one published quantity this rule reads; QuantityValues has them all. */
 export type QuantityFigures = { n: number; median: number; ciLow: number | null; ciHigh: number | null };
@@ -49,7 +49,7 @@ export type FamilyResponse = {
   currentOffset: Pick<FamilyUnits["currentOffset"], "unit" | "step">;
 };
 
-export type HardwareChange = {
+type HardwareChange = {
   part: "divider ratio" | "current sensor" | "shunt" | "amplifier gain" | "Hall sensor";
   /** How revision a and b have it, in words: "÷5.55", "0.5 mΩ", "a Hall sensor". */
   a: string;

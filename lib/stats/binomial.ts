@@ -4,7 +4,7 @@ import { gammaln } from "simple-statistics";
 import { StatsInputError } from "./validate";
 
 /** ln C(n, k), through simple-statistics' Lanczos log-gamma (relative error near 1e-15). */
-export function logChoose(n: number, k: number): number {
+function logChoose(n: number, k: number): number {
   return gammaln(n + 1) - gammaln(k + 1) - gammaln(n - k + 1);
 }
 

@@ -10,7 +10,7 @@ import { checkFiniteNumber, StatsInputError } from "./validate";
  * against an outside reference; a multimeter reading is good but usually one point; an unverified
  * value is someone's word. Keyed by the submissions.method CHECK list, so a new method must be weighed here.
  */
-export const METHOD_EVIDENCE_WEIGHT: Record<Method, number> = {
+const METHOD_EVIDENCE_WEIGHT: Record<Method, number> = {
   bench_clamp: 1,
   fly_recharge: 1,
   multimeter: 0.6,
@@ -25,7 +25,7 @@ export const METHOD_EVIDENCE_WEIGHT: Record<Method, number> = {
  *  - "weak":    anything else with n ≥ 3, including no interval or no measurable relative width.
  * Relative CI width = (ciHigh − ciLow) / |reference|, the reference normally the median.
  */
-export const CONFIDENCE_THRESHOLDS = {
+const CONFIDENCE_THRESHOLDS = {
   strong: { minCount: 10, maxRelativeWidth: 0.02, minEvidence: 0.75 },
   fair: { minCount: minimumCountForCi(), maxRelativeWidth: 0.05, minEvidence: 0.5 },
 } as const;

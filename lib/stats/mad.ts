@@ -8,9 +8,6 @@ import { medianOfSorted } from "./quantile";
  */
 export const SCALED_MAD_CONSTANT = 1.4826;
 
-/** 1 / Φ⁻¹(0.75) to double precision (Φ⁻¹(0.75) = 0.6744897501960818), for reference only. */
-export const SCALED_MAD_CONSTANT_EXACT = 1.4826022185056018;
-
 /**
  * Median absolute deviation, unscaled: median of |x − median| (type 7 median both times).
  * Same definition as simple-statistics `medianAbsoluteDeviation` and R's mad(x, constant = 1).

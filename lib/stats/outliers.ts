@@ -17,9 +17,9 @@ export const MEAN_AD_FACTOR = 1.253314;
 /** Tukey, Exploratory Data Analysis (1977); NIST e-Handbook §7.1.6: inner fences at 1.5·IQR… */
 export const TUKEY_INNER = 1.5;
 /** …and outer fences at 3·IQR beyond the quartiles. */
-export const TUKEY_OUTER = 3;
+const TUKEY_OUTER = 3;
 
-export type TukeyFlag = "none" | "mild" | "extreme";
+type TukeyFlag = "none" | "mild" | "extreme";
 
 export interface FlaggedPoint {
   value: number;
@@ -66,7 +66,7 @@ export function tukeyFences(q1: number, q3: number): TukeyFences {
 }
 
 /** "Beyond" a fence means strictly outside it; a value on a fence is not flagged. */
-export function tukeyFlag(value: number, fences: TukeyFences): TukeyFlag {
+function tukeyFlag(value: number, fences: TukeyFences): TukeyFlag {
   if (value < fences.outerLow || value > fences.outerHigh) return "extreme";
   if (value < fences.innerLow || value > fences.innerHigh) return "mild";
   return "none";

@@ -5,7 +5,7 @@ import { MIN_VALUES_TO_JUDGE, spreadOfSorted } from "./spread";
 import { sortedCopy } from "./validate";
 
 /** "too_few": fewer than 3 values, so nothing is flagged or judged. "ok": 3 or more. */
-export type SummaryState = "too_few" | "ok";
+type SummaryState = "too_few" | "ok";
 
 export interface Summary {
   n: number;

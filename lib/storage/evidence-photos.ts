@@ -18,7 +18,7 @@ import { sanitisePhoto } from "./photo-image";
 /** Who is asking: the signed-in user (lib/auth's SessionUser fits), or null for a visitor. */
 export type PhotoViewer = { id: string; role: Role } | null;
 
-export { PHOTO_IDS_FIELD, photoUrl, type PhotoSummary };
+export { photoUrl, type PhotoSummary };
 
 const STAFF: readonly Role[] = ["moderator", "admin"];
 const OBJECT_PREFIX = "evidence";

@@ -27,7 +27,7 @@ function configSignature(c: StoreConfig): string {
 }
 
 /** One client per configuration (tests may point the store elsewhere), kept across dev reloads. */
-export function s3Client(config: StoreConfig = env()): S3Client {
+function s3Client(config: StoreConfig = env()): S3Client {
   const signature = configSignature(config);
   if (globalForStore.shuntbookS3?.signature !== signature) {
     globalForStore.shuntbookS3?.client.destroy();
@@ -47,10 +47,6 @@ export function s3Client(config: StoreConfig = env()): S3Client {
   return globalForStore.shuntbookS3.client;
 }
 
-export function bucketName(config: StoreConfig = env()): string {
-  return config.S3_BUCKET;
-}
-
 function isStatus(error: unknown, ...statuses: number[]): boolean {
   return error instanceof S3ServiceException && statuses.includes(error.$metadata.httpStatusCode ?? 0);
 }
@@ -59,7 +55,7 @@ function isStatus(error: unknown, ...statuses: number[]): boolean {
  * Creates the bucket on first use when it is missing, once per process and bucket. The launcher
  * already asks s3rver for it, but a fresh store (or one wiped by hand) should just work.
  */
-export function ensureBucket(config: StoreConfig = env()): Promise<void> {
+function ensureBucket(config: StoreConfig = env()): Promise<void> {
   const buckets = (globalForStore.shuntbookBuckets ??= new Map());
   const key = `${configSignature(config)}|${config.S3_BUCKET}`;
   let ready = buckets.get(key);

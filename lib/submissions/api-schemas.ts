@@ -35,7 +35,7 @@ const BenchSchema = z.object({
   points: z.array(z.object({ reportedAmps: z.number(), measuredAmps: z.number().meta({ description: "The DC clamp meter's reading." }) })),
 });
 
-export const SubmissionSchema = z
+const SubmissionSchema = z
   .object({
     id: z.number().int(),
     status: z.enum(STATUSES),

@@ -32,7 +32,7 @@ export function parseIdempotencyKey(header: string | null): string | null {
 }
 
 /** JSON with object keys sorted at every depth, so that key order does not make two bodies differ. */
-export function canonicalJson(value: unknown): string {
+function canonicalJson(value: unknown): string {
   if (Array.isArray(value)) return `[${value.map(canonicalJson).join(",")}]`;
   if (value !== null && typeof value === "object") {
     const entries = Object.entries(value as Record<string, unknown>)

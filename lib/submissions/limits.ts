@@ -1,7 +1,6 @@
 // What a contribution may claim, in one place: the schema (lib/submissions/schema.ts) refuses
 // anything outside these with a message saying which limit, and the evidence tables' CHECKs
-// (migrations/20261205000200…400) repeat the hard ones. Sources as in
-// /work/shared/reference/check-values.md.
+// (migrations/20261205000200…400) repeat the hard ones. Each limit below names its own source.
 
 /** A pack has 1 to 14 cells in series (the board_models.min_cells/max_cells CHECK); the board narrows it. */
 export const MIN_CELLS = 1;

@@ -257,7 +257,7 @@ export function submissionSchema(context: SchemaContext = {}) {
   );
 }
 
-export type SubmissionSchema = ReturnType<typeof submissionSchema>;
+type SubmissionSchema = ReturnType<typeof submissionSchema>;
 /** What the form holds and the API accepts. */
 export type SubmissionInput = z.input<SubmissionSchema>;
 /** What lib/submissions stores: notes trimmed to null, absent evidence as null / []. */

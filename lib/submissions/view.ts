@@ -43,7 +43,7 @@ type Loaded = Submission & {
   benchPoints: SubmissionBenchPoint[];
 };
 
-export const submissionApiPath = (id: number) => `/api/v1/submissions/${id}`;
+const submissionApiPath = (id: number) => `/api/v1/submissions/${id}`;
 export const submissionEditPath = (id: number) => `/my/submissions/${id}/edit`;
 export const MY_SUBMISSIONS_PATH = "/my/submissions";
 
@@ -55,7 +55,7 @@ const INCLUDE = [
   { model: SubmissionBenchPoint, as: "benchPoints" },
 ];
 
-export function toView(s: Loaded): SubmissionView {
+function toView(s: Loaded): SubmissionView {
   const board = s.boardRevision.boardModel;
   const editable = EDITABLE_STATUSES.includes(s.status);
   return {

@@ -4,8 +4,7 @@
 
 export const AUDIT_ACTIONS = ["approve", "reject", "request_changes", "auto_approve", "revert", "user_update"] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
-export const AUDIT_ENTITY_TYPES = ["submission", "user"] as const;
-export type AuditEntityType = (typeof AUDIT_ENTITY_TYPES)[number];
+export type AuditEntityType = "submission" | "user";
 
 /**
  * Why a pending submission needs a closer look:
@@ -42,7 +41,7 @@ export const QUEUE_FLAG_LABELS: Record<QueueFlag, string> = {
 export const QUEUE_AGE_LABELS: Record<QueueAge, string> = {
   day: "Last 24 hours",
   week: "Last 7 days",
-  older: "Waiting a week or more",
+  older: "Waiting over a week",
 };
 
 export const QUEUE_SORT_LABELS: Record<QueueSort, string> = {
@@ -52,8 +51,7 @@ export const QUEUE_SORT_LABELS: Record<QueueSort, string> = {
 };
 
 /** The three decisions a moderator makes on a pending submission. */
-export const DECISIONS = ["approve", "reject", "request_changes"] as const;
-export type Decision = (typeof DECISIONS)[number];
+export type Decision = "approve" | "reject" | "request_changes";
 
 export const ACTION_LABELS: Record<AuditAction, string> = {
   approve: "Approved",

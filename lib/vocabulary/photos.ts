@@ -7,5 +7,4 @@ export type AcceptedInputType = (typeof ACCEPTED_INPUT_TYPES)[number];
 export const ACCEPTED_LABEL = "JPEG, PNG or WebP";
 
 /** What we store after re-encoding: JPEG stays JPEG, PNG and WebP become WebP (keeps transparency). */
-export const STORED_TYPES = ["image/jpeg", "image/webp"] as const;
-export type StoredType = (typeof STORED_TYPES)[number];
+export type StoredType = "image/jpeg" | "image/webp";

@@ -9,7 +9,7 @@ import { addVoltageReading, getVoltageWorksheet, removeVoltageReading, startVolt
 
 // Public face of lib/worksheets: the routes under /api/v1/garage/worksheets and the garage pages
 // speak to every kind through these, and each kind's module does its own work.
-export { publishWorksheet, type PublishOptions } from "./publish";
+export { publishWorksheet } from "./publish";
 
 export type AnyWorksheetView =
   Awaited<ReturnType<typeof getRechargeWorksheet>> | Awaited<ReturnType<typeof getVoltageWorksheet>> | Awaited<ReturnType<typeof getBenchWorksheet>>;

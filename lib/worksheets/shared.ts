@@ -76,13 +76,7 @@ export function assertOpen(sheet: Worksheet, what: string): void {
  * counted or published), so a mistyped reading is never silently lost. The caller names the
  * position it means, so a double tap cannot take back two.
  */
-export async function removeLastEntry<R extends Entry>(
-  model: EntryModel,
-  sheet: Worksheet,
-  position: number,
-  noun: string,
-  transaction: Transaction,
-): Promise<R> {
+async function removeLastEntry<R extends Entry>(model: EntryModel, sheet: Worksheet, position: number, noun: string, transaction: Transaction): Promise<R> {
   const { live } = await entriesOf<R>(model, sheet.id, transaction);
   const last = live.at(-1);
   if (!last) throw new ApiError(409, `This worksheet has no ${noun} to take back.`);

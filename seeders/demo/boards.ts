@@ -8,8 +8,8 @@ import type { BoardKind } from "@/lib/vocabulary";
 // 3.3 V ADC: ratio ≥ cells × 4.35 / 3.3 (derived from the divider formula Vout = Vin·R2/(R1+R2):
 // the full pack must reach the pin below Vref).
 
-export type DividerSpec = { topOhms: number; bottomOhms: number } | null;
-export type SensorSpec = { kind: "shunt"; milliohms: number | null; gain: number | null } | { kind: "hall"; mvPerAmp: number | null } | null;
+type DividerSpec = { topOhms: number; bottomOhms: number } | null;
+type SensorSpec = { kind: "shunt"; milliohms: number | null; gain: number | null } | { kind: "hall"; mvPerAmp: number | null } | null;
 
 export type RevisionSpec = {
   label: string;

@@ -43,14 +43,14 @@ export type DemoCatalogue = {
   truths: DemoTruth[];
 };
 
-export function slugify(name: string): string {
+function slugify(name: string): string {
   return name
     .toLowerCase()
     .replace(/[^a-z0-9]+/g, "-")
     .replace(/^-+|-+$/g, "");
 }
 
-export const revisionKey = (boardSlug: string, label: string) => `${boardSlug}@${label}`;
+const revisionKey = (boardSlug: string, label: string) => `${boardSlug}@${label}`;
 
 const KIND_WORDS: Record<BoardKind, string> = {
   flight_controller: "Flight controller",
@@ -76,7 +76,7 @@ export function offsetSetting(truth: PhysicalTruth, family: DemoFirmwareFamily):
   return inUnit / family.currentOffsetStep;
 }
 
-export function trueSettingsFor(truth: PhysicalTruth, family: DemoFirmwareFamily): TrueSettings {
+function trueSettingsFor(truth: PhysicalTruth, family: DemoFirmwareFamily): TrueSettings {
   return {
     voltageScale: voltageScaleSettingFromRatio(truth.ratio, family),
     currentScale: currentScaleSettingFromSensitivity(truth.sensitivityMvPerAmp, family),

@@ -24,10 +24,10 @@ export type PhysicalTruth = {
 };
 
 /** Highest pack voltage a divider must pass at the ADC: 4.35 V per HV cell (common practice). */
-export const HV_CELL_VOLTS = 4.35;
+const HV_CELL_VOLTS = 4.35;
 /** The ADC full scale assumed for headroom checks (12-bit ADC at 3.3 V in every demo revision). */
-export const DEMO_ADC_REFERENCE_VOLTS = 3.3;
-export const DEMO_ADC_BITS = 12;
+const DEMO_ADC_REFERENCE_VOLTS = 3.3;
+const DEMO_ADC_BITS = 12;
 
 /** Smallest divider ratio that keeps a full HV pack of `cells` under the ADC reference. */
 export function minimumRatioFor(cells: number): number {

@@ -15,8 +15,8 @@ export type DemoUser = {
 };
 
 /** Reserved for examples (RFC 2606), so no invented address can reach a real mailbox. */
-export const DEMO_PEOPLE_EMAIL_DOMAIN = "pilots.example";
-export const DEMO_PEOPLE_COUNT = 25;
+const DEMO_PEOPLE_EMAIL_DOMAIN = "pilots.example";
+const DEMO_PEOPLE_COUNT = 25;
 
 /** Roles of the invented people, in order: mostly contributors, two moderators, one admin. */
 function roleOf(index: number): Role {

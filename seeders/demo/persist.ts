@@ -54,8 +54,8 @@ export type InsertCounts = Record<
 >;
 
 /** What a seeded approval records (lib/moderation/audit.ts SubmissionState): the revert path reads these back. */
-export const DEMO_APPROVAL_BEFORE: SubmissionState = { status: "pending", moderatorNote: null, version: 0 };
-export const DEMO_APPROVAL_AFTER: SubmissionState = { status: "approved", moderatorNote: null, version: 1 };
+const DEMO_APPROVAL_BEFORE: SubmissionState = { status: "pending", moderatorNote: null, version: 0 };
+const DEMO_APPROVAL_AFTER: SubmissionState = { status: "approved", moderatorNote: null, version: 1 };
 
 export async function insertDemoScenario(qi: QueryInterface, s: DemoScenario, transaction: Transaction): Promise<InsertCounts> {
   const makerIds = await insertReturningIds(qi, "manufacturers", s.manufacturers, "slug", transaction);

@@ -30,7 +30,7 @@ export type DemoScenario = {
   truths: DemoTruth[];
 };
 
-export const DEMO_SEED = 20261202;
+const DEMO_SEED = 20261202;
 
 export type BuildOptions = { now?: Date; seed?: number };
 

@@ -17,7 +17,7 @@ import { SUBMISSION_WINDOW_MONTHS, daysAfter, monthsBefore, monthsBetween } from
 // so that the outlier flags have something to find.
 
 /** Why a value is deliberately wrong; null for an honest (if noisy) measurement. */
-export type Anomaly = "decimal_slip" | "other_board" | "wrong_family" | "firmware_default";
+type Anomaly = "decimal_slip" | "other_board" | "wrong_family" | "firmware_default";
 
 export type DemoSubmission = {
   revisionKey: string;

@@ -53,7 +53,7 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
     expect(await page.getByRole("heading", { level: 3, name: /^Revision / }).count()).toBe(
       scenario.boardRevisions.filter((r) => r.boardSlug === boardSlug).length,
     );
-    // 0.5 mΩ × 50 = 25 mV/A (Ohm's law; check-values.md), computed by lib/calibration/units.ts
+    // 0.5 mΩ × 50 = 25 mV/A (Ohm's law: sensitivity = R_shunt × gain), computed by lib/calibration/units.ts
     expect(await page.getByText("25 mV/A").first().isVisible()).toBe(true);
     await shot(page, "board-desktop-dark");
     await page.close();

@@ -274,7 +274,7 @@ describe("board page data", () => {
     expect([v1.dividerTopOhms, v1.dividerBottomOhms]).toEqual([10_000, 1_000]);
     expect(v1.dividerRatio).toBeCloseTo(11, 12);
     // Shunt and amplifier, sensitivity = R × gain (Ohm's law): 0.5 mΩ × 50 = 25 mV/A, and
-    // 0.25 mΩ × 50 = 12.5 mV/A (check-values.md table). The hardware-change landmark has both.
+    // 0.25 mΩ × 50 = 12.5 mV/A (Ohm's law: sensitivity = R_shunt × gain). The hardware-change landmark has both.
     const tinsel = (await getBoardBySlug(DEMO_LANDMARKS.hardwareChange.boardSlug))!;
     const [before, after] = [DEMO_LANDMARKS.hardwareChange.before, DEMO_LANDMARKS.hardwareChange.after].map((label) =>
       tinsel.revisions.find((r) => r.label === label)!,

@@ -46,6 +46,20 @@ const events = (id: number) =>
     type: QueryTypes.SELECT,
   });
 
+/** Polls until `count` backends of this database wait on a lock (10 s deadline). */
+async function waitForLockWaiters(count: number) {
+  const deadline = Date.now() + 10_000;
+  for (;;) {
+    const [{ waiting }] = await db().query<{ waiting: number }>(
+      "SELECT count(*)::int AS waiting FROM pg_stat_activity WHERE datname = current_database() AND wait_event_type = 'Lock'",
+      { type: QueryTypes.SELECT },
+    );
+    if (waiting >= count) return;
+    if (Date.now() > deadline) throw new Error(`only ${waiting} of ${count} requests reached the lock within 10 s`);
+    await new Promise((resolve) => setTimeout(resolve, 20));
+  }
+}
+
 const patchUser = (id: string, body: unknown, cookie = admin) =>
   callRoute(
     patchUserRoute,
@@ -212,7 +226,16 @@ describe("PATCH /api/v1/admin/users/{id}", () => {
 
     const other = await testAccount("admin", { email: "second-admin@auth.test", name: "Second Admin" });
     const otherCookie = await sessionCookieForAccount(other);
-    const results = await Promise.all([patchUser(other.id, { role: "moderator" }), patchUser(me.id, { role: "moderator" }, otherCookie)]);
+    // "At the same moment" made certain: a transaction of the test's own holds the admin rows, so both
+    // requests pass their role check and then queue on the lock; only then does it let them go. Without
+    // it, on a busy machine one request could finish before the other starts, and the second admin
+    // (no longer an admin) would rightly get 403 instead of meeting the last-admin rule.
+    const hold = await db().transaction();
+    await db().query("SELECT id FROM users WHERE role = 'admin' ORDER BY id FOR UPDATE", { transaction: hold });
+    const racing = Promise.all([patchUser(other.id, { role: "moderator" }), patchUser(me.id, { role: "moderator" }, otherCookie)]);
+    await waitForLockWaiters(2);
+    await hold.commit();
+    const results = await racing;
     expect(results.map((r) => r.status).sort()).toEqual([200, 409]);
     const [{ admins }] = await db().query<{ admins: number }>("SELECT count(*)::int AS admins FROM users WHERE role = 'admin'", { type: QueryTypes.SELECT });
     expect(admins).toBe(1);

@@ -59,7 +59,7 @@ describe("board_stats: PostgreSQL aggregates agree with the TypeScript definitio
     );
   });
 
-  it("the check-value set [10.9, 11, 11, 11.1, 11.2, 25] (shared/reference/check-values.md): 25 is the one outlier", async () => {
+  it("the check-value set [10.9, 11, 11, 11.1, 11.2, 25] (type 7 quartiles, Hyndman & Fan 1996; modified z, NIST e-Handbook §1.3.5.17): 25 is the one outlier", async () => {
     const sql = await freshGroup(fx, [10.9, 11, 11, 11.1, 11.2, 25]);
     close(sql.median, 11.05);
     close(sql.q1, 11);

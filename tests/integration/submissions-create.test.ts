@@ -67,7 +67,7 @@ describe("a valid submission", () => {
   });
 
   it("a multimeter check and a bench fit are stored as rows and summarised through the family's units", async () => {
-    // V/V proportional: 100 × 16.8 / 15.27 ≈ 110.0 (voltage divider 10 k / 1 k, check-values.md)
+    // V/V proportional: 100 × 16.8 / 15.27 ≈ 110.0 (voltage divider 10 k / 1 k: Vout = Vin·R2/(R1+R2), Horowitz & Hill §1.2.3, from memory)
     const voltageCheck = { scaleUsed: 100, readings: [{ cells: 4, reportedVolts: 15.27, measuredVolts: 16.8, measuredAt: "balance_outer_pins" as const }] };
     const multimeter = await post(validBody(target, { method: "multimeter", voltageScale: 110, currentScale: null, cycles: [], voltageCheck }), cookie);
     expect(multimeter.status).toBe(201);

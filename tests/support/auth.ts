@@ -130,7 +130,7 @@ export async function redirectTarget(work: Promise<unknown> | (() => unknown)): 
 export type CaughtMail = { id: string; subject: string; text: string; html: string; to: { address: string }[]; date: string };
 
 /** Mails the catcher holds for `address`, newest last (npm test sets MAIL_INBOX_URL). */
-export async function mailsTo(address: string): Promise<CaughtMail[]> {
+async function mailsTo(address: string): Promise<CaughtMail[]> {
   const inbox = env().MAIL_INBOX_URL;
   if (!inbox) throw new Error("MAIL_INBOX_URL is not set: run the suite with npm test");
   const res = await fetch(new URL("/api/email", inbox));

@@ -6,7 +6,7 @@ import { afterAll, beforeAll } from "vitest";
 // One place for how every browser test starts Debian's Chromium (never a downloaded browser):
 // headless, no sandbox (CI runs as root), and none of the background traffic that this closed
 // network refuses. Playwright makes its own empty profile.
-export const CHROMIUM_LAUNCH: LaunchOptions = {
+const CHROMIUM_LAUNCH: LaunchOptions = {
   executablePath: "/usr/bin/chromium",
   headless: true,
   args: [

@@ -27,13 +27,13 @@ async function admin<T>(fn: (c: pg.Client) => Promise<T>): Promise<T> {
   }
 }
 
-export async function createDatabaseFromTemplate(template: Template): Promise<{ name: string; url: string }> {
+async function createDatabaseFromTemplate(template: Template): Promise<{ name: string; url: string }> {
   const name = `t_${template}_${randomBytes(5).toString("hex")}`;
   await admin((c) => c.query(`CREATE DATABASE ${name} TEMPLATE ${TEMPLATE_DATABASES[template]}`));
   return { name, url: clusterUrl(name) };
 }
 
-export async function dropDatabase(name: string): Promise<void> {
+async function dropDatabase(name: string): Promise<void> {
   await admin((c) => c.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`));
 }
 

@@ -10,12 +10,12 @@ import {
   type RevisionFacts,
 } from "@/lib/published/revision-differences";
 
-// Outside references (see /work/shared/reference/check-values.md):
+// Outside references:
 //  - Ohm's law for a shunt read through an amplifier: sensitivity = R_shunt × gain (0.5 mΩ × 50 = 25 mV/A).
 //  - Voltage divider formula Vout = Vin·R2/(R1+R2), Horowitz & Hill 3rd ed. §1.2.3 (from memory):
 //    a 10 k / 1 k pair divides by 11.
 //  - How a reading follows the setting: "proportional" for a divider ratio, "inverse" for mV/A
-//    (check-values.md, fly-and-recharge rule: common practice, no source).
+//    (the fly-and-recharge rule: common practice, no source).
 //  - Non-overlapping 95 % intervals as a conservative sign of a real difference: Schenker &
 //    Gentleman, The American Statistician 55(3), 2001 (from memory).
 

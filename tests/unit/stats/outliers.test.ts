@@ -2,12 +2,12 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { describeFlags, flagPoints, MODIFIED_Z_CUTOFF, tukeyFences } from "@/lib/stats";
 
-const CHECK_SET = [10.9, 11, 11, 11.1, 11.2, 25]; // check-values.md, last row of the type 7 table
+const CHECK_SET = [10.9, 11, 11, 11.1, 11.2, 25]; // worked by hand: median 11.05, MAD 0.1, M(25) ≈ 94.09
 
 // Modified z-score: NIST/SEMATECH e-Handbook of Statistical Methods §1.3.5.17, after Iglewicz &
 // Hoaglin (1993): M = 0.6745 (x − median) / MAD, potential outlier when |M| > 3.5. The handbook has
-// no worked numbers; the figures below are from check-values.md.
-describe("modified z-score (NIST e-Handbook §1.3.5.17; check-values.md)", () => {
+// no worked numbers; the figures below are worked by hand from its formula.
+describe("modified z-score (NIST e-Handbook §1.3.5.17)", () => {
   it("M(25) ≈ 94.09 and only 25 is an outlier in [10.9, 11, 11, 11.1, 11.2, 25]", () => {
     const report = describeFlags(CHECK_SET);
     expect(report.zScaleRule).toBe("mad");
@@ -18,7 +18,7 @@ describe("modified z-score (NIST e-Handbook §1.3.5.17; check-values.md)", () =>
     expect(report.points.map((p) => p.outlier)).toEqual([false, false, false, false, false, true]);
   });
 
-  it("is symmetric up to float error (check-values.md: 'slightly asymmetric, compare with a tolerance')", () => {
+  it("is symmetric up to float error (float8 makes M slightly asymmetric, so compare with a tolerance)", () => {
     const [low, , , , high] = flagPoints(CHECK_SET);
     // 10.9 and 11.2 sit 0.15 either side of 11.05: M = ∓0.6745 × 0.15 / 0.1 = ∓1.01175.
     expect(low.modifiedZ).toBeCloseTo(-1.01175, 9);
@@ -47,7 +47,7 @@ describe("modified z-score (NIST e-Handbook §1.3.5.17; check-values.md)", () =>
 });
 
 // MAD = 0 rule (lib/stats/outliers.ts): M = (x − median) / (1.253314 · meanAD), common robust-stats
-// practice after Iglewicz & Hoaglin (from memory). check-values.md names the case [11, 11, 11, 11, 12].
+// practice after Iglewicz & Hoaglin (from memory). The case [11, 11, 11, 11, 12] has MAD 0, where M divides by zero.
 describe("MAD = 0 (more than half the values tie)", () => {
   it("[11, 11, 11, 11, 12] falls back to the mean absolute deviation: M(12) = 1 / (1.253314 × 0.2) ≈ 3.9894", () => {
     const report = describeFlags([11, 11, 11, 11, 12]);
@@ -78,7 +78,7 @@ describe("MAD = 0 (more than half the values tie)", () => {
 // Q3 + 1.5·IQR (beyond = mild), outer fences with 3·IQR (beyond = extreme).
 // The NIST §7.1.6 example (N = 90: Q1 429.75, Q3 742.25, fences −39.0 / 1211.0) takes quartiles at
 // p(N+1), which is Hyndman–Fan type 6, so it does not reproduce with our type 7 quartiles and is
-// deliberately not used here. The type 7 fences below come from check-values.md.
+// deliberately not used here. The type 7 fences below are worked by hand (Hyndman & Fan 1996, definition 7).
 describe("Tukey's fences (Tukey 1977; NIST §7.1.6) with type 7 quartiles", () => {
   it("[10.9, 11, 11, 11.1, 11.2, 25]: inner fences 10.7375 / 11.4375 and 25 is extreme", () => {
     const { fences, points } = describeFlags(CHECK_SET);

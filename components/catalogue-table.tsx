@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { ColumnHeads } from "@/components/column-heads";
 import { formatCells, formatMounting } from "@/lib/catalogue/format";
 import { kindLabel } from "@/lib/catalogue/kinds";
 import type { CatalogueRow } from "@/lib/catalogue/list-boards";
@@ -15,24 +16,17 @@ export function CatalogueTable({ rows, caption }: { rows: CatalogueRow[]; captio
       <caption className="sr-only">{caption}</caption>
       <thead role="rowgroup">
         <tr role="row">
-          <th scope="col" role="columnheader">
-            Board
-          </th>
-          <th scope="col" role="columnheader">
-            Kind
-          </th>
-          <th scope="col" role="columnheader">
-            Mounting
-          </th>
-          <th scope="col" role="columnheader">
-            Cells
-          </th>
-          <th scope="col" role="columnheader" className="text-right">
-            Revisions
-          </th>
-          <th scope="col" role="columnheader" className="text-right">
-            Approved values
-          </th>
+          <ColumnHeads
+            role="columnheader"
+            heads={[
+              "Board",
+              "Kind",
+              "Mounting",
+              "Cells",
+              { label: "Revisions", className: "text-right" },
+              { label: "Approved values", className: "text-right" },
+            ]}
+          />
         </tr>
       </thead>
       <tbody role="rowgroup">

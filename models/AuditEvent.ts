@@ -1,13 +1,5 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type ForeignKey,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type NonAttribute,
-  type Sequelize,
-} from "sequelize";
+import { DataTypes, Model } from "sequelize";
+import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from "sequelize";
 import type { AuditAction, AuditEntityType } from "@/lib/vocabulary";
 import type { Submission } from "./Submission";
 import type { User } from "./User";

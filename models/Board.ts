@@ -1,14 +1,5 @@
-import {
-  DataTypes,
-  fn,
-  Model,
-  type CreationOptional,
-  type ForeignKey,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type NonAttribute,
-  type Sequelize,
-} from "sequelize";
+import { DataTypes, fn, Model } from "sequelize";
+import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from "sequelize";
 import type { BoardKind, CurrentSensorKind } from "@/lib/vocabulary";
 import type { Manufacturer } from "./Manufacturer";
 

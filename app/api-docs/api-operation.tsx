@@ -1,3 +1,4 @@
+import { ColumnHeads } from "@/components/column-heads";
 import type { OperationView } from "@/lib/openapi/view";
 import { SchemaRows } from "./schema-table";
 
@@ -22,18 +23,7 @@ export function ApiOperation({ op, curl }: { op: OperationView; curl: string }) 
             <table className="w-full border-collapse text-left text-small">
               <thead>
                 <tr className="border-b-2 border-rule">
-                  <th scope="col" className="py-2 pr-4">
-                    Name
-                  </th>
-                  <th scope="col" className="py-2 pr-4">
-                    In
-                  </th>
-                  <th scope="col" className="py-2 pr-4">
-                    Accepts
-                  </th>
-                  <th scope="col" className="py-2">
-                    Meaning
-                  </th>
+                  <ColumnHeads heads={["Name", "In", "Accepts", { label: "Meaning", className: "py-2" }]} className="py-2 pr-4" />
                 </tr>
               </thead>
               <tbody>

@@ -8,6 +8,7 @@ import { listBoards } from "@/lib/catalogue/list-boards";
 import { parseCatalogueParams } from "@/lib/catalogue/search-params";
 import { ApiOperation } from "./api-operation";
 import { SchemaTable } from "./schema-table";
+import { TitledSection } from "@/components/titled-section";
 
 export const dynamic = "force-dynamic";
 
@@ -67,10 +68,7 @@ export default async function ApiDocsPage() {
       </header>
 
       <div className="grid gap-8 lg:grid-cols-[1fr_22rem] lg:items-start">
-        <section aria-labelledby="basics-title" className="space-y-4">
-          <h2 id="basics-title" className="font-display text-heading uppercase">
-            The basics
-          </h2>
+        <TitledSection id="basics" title="The basics" className="space-y-4">
           <dl className="grid gap-px overflow-hidden rounded-md border-3 border-rule bg-rule sm:grid-cols-2">
             {[
               { term: "Base address", value: <code className="font-mono break-all">{base}</code> },
@@ -122,7 +120,7 @@ export default async function ApiDocsPage() {
               ))}
             </ul>
           </nav>
-        </section>
+        </TitledSection>
         <div className="lg:sticky lg:top-4">
           <SafetyNote />
         </div>
@@ -132,10 +130,7 @@ export default async function ApiDocsPage() {
         <ApiOperation key={op.id} op={op} curl={exampleCurl(op, base, slug)} />
       ))}
 
-      <section aria-labelledby="schemas-title" className="space-y-6">
-        <h2 id="schemas-title" className="font-display text-heading uppercase">
-          Fields
-        </h2>
+      <TitledSection id="schemas" title="Fields" className="space-y-6">
         {schemas.map((name) => {
           const schema = document.components!.schemas![name];
           return (
@@ -148,7 +143,7 @@ export default async function ApiDocsPage() {
             />
           );
         })}
-      </section>
+      </TitledSection>
 
       <p>
         <Link href="/boards" className="font-semibold">

@@ -1,3 +1,4 @@
+import { ColumnHeads } from "@/components/column-heads";
 import type { FieldRow } from "@/lib/openapi/view";
 
 /** A table of fields, nested fields indented: for a component schema or a request body. */
@@ -7,15 +8,7 @@ export function SchemaRows({ rows }: { rows: FieldRow[] }) {
       <table className="w-full border-collapse text-left text-small">
         <thead>
           <tr className="border-b-2 border-rule">
-            <th scope="col" className="py-2 pr-4">
-              Field
-            </th>
-            <th scope="col" className="py-2 pr-4">
-              Type
-            </th>
-            <th scope="col" className="py-2">
-              Meaning
-            </th>
+            <ColumnHeads heads={["Field", "Type", { label: "Meaning", className: "py-2" }]} className="py-2 pr-4" />
           </tr>
         </thead>
         <tbody>

@@ -9,6 +9,7 @@ import { kindLabel } from "@/lib/catalogue/kinds";
 import { listBoards } from "@/lib/catalogue/list-boards";
 import { listMountingPatterns } from "@/lib/catalogue/mounting-patterns";
 import { catalogueQueryString, parseCatalogueParams, type CatalogueParams } from "@/lib/catalogue/search-params";
+import { TitledSection } from "@/components/titled-section";
 
 export const dynamic = "force-dynamic";
 
@@ -56,10 +57,7 @@ export default async function BoardsPage({ searchParams }: { searchParams: Promi
       <CatalogueFilters params={params} mountingPatterns={mountingPatterns} />
       <ActiveFilters params={params} />
 
-      <section aria-labelledby="results-title">
-        <h2 id="results-title" className="sr-only">
-          Results
-        </h2>
+      <TitledSection id="results" title="Results" titleClassName="sr-only">
         <p className="mb-3 font-semibold" aria-live="polite">
           {result.total === 0
             ? "No boards match."
@@ -89,7 +87,7 @@ export default async function BoardsPage({ searchParams }: { searchParams: Promi
         )}
 
         <Pagination page={result.page} pageCount={result.pageCount} hrefFor={hrefFor} />
-      </section>
+      </TitledSection>
     </div>
   );
 }

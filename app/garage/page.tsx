@@ -6,6 +6,7 @@ import { requirePageUser } from "@/lib/auth";
 import { listPacks } from "@/lib/garage/packs";
 import { listQuads } from "@/lib/garage/quads";
 import { BoardModel, BoardRevision, db, FirmwareFamily } from "@/models";
+import { TitledSection } from "@/components/titled-section";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "My garage" };
@@ -48,10 +49,7 @@ export default async function GaragePage() {
         </p>
       </header>
 
-      <section aria-labelledby="quads-title" className="space-y-4">
-        <h2 id="quads-title" className="font-display text-heading uppercase">
-          Quads
-        </h2>
+      <TitledSection id="quads" title="Quads" className="space-y-4">
         {quads.length === 0 ? (
           <p className="text-muted">No quads yet: add the first below.</p>
         ) : (
@@ -81,12 +79,9 @@ export default async function GaragePage() {
           </ul>
         )}
         <QuadForm revisions={lists.revisions} families={lists.families} />
-      </section>
+      </TitledSection>
 
-      <section aria-labelledby="packs-title" className="space-y-4">
-        <h2 id="packs-title" className="font-display text-heading uppercase">
-          Packs
-        </h2>
+      <TitledSection id="packs" title="Packs" className="space-y-4">
         {packs.length === 0 ? (
           <p className="text-muted">No packs yet: add the first below.</p>
         ) : (
@@ -101,7 +96,7 @@ export default async function GaragePage() {
           </ul>
         )}
         <PackForm />
-      </section>
+      </TitledSection>
     </div>
   );
 }

@@ -67,3 +67,25 @@ export function FormMessage({ tone, children }: { tone: "fault" | "done"; childr
     </div>
   );
 }
+
+/** A new password and the same again (field "confirm"), as every form that sets one asks for them. */
+export function NewPasswordFields<T extends FieldValues>({
+  form,
+  idPrefix,
+  name,
+  label,
+  hint,
+}: {
+  form: { register: UseFormRegister<T>; errors: FieldErrors<T> };
+  idPrefix: string;
+  name: Path<T>;
+  label: string;
+  hint: ReactNode;
+}) {
+  return (
+    <>
+      <TextField form={form} idPrefix={idPrefix} name={name} label={label} type="password" autoComplete="new-password" hint={hint} />
+      <TextField form={form} idPrefix={idPrefix} name={"confirm" as Path<T>} label={`${label} again`} type="password" autoComplete="new-password" />
+    </>
+  );
+}

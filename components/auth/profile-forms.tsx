@@ -14,7 +14,7 @@ import {
 } from "@/lib/auth/schemas";
 import { formProblem } from "@/components/form-errors";
 import { useSaveName, useSavePassword } from "@/components/hooks/use-account";
-import { FormMessage, TextField } from "./fields";
+import { FormMessage, NewPasswordFields, TextField } from "./fields";
 
 export function NameForm({ name }: { name: string }) {
   const router = useRouter();
@@ -90,16 +90,13 @@ export function PasswordForm({ hasPassword }: { hasPassword: boolean }) {
           autoComplete="current-password"
         />
       )}
-      <TextField
+      <NewPasswordFields
         form={form}
         idPrefix="pw-change"
         name="newPassword"
         label="New password"
-        type="password"
-        autoComplete="new-password"
         hint="At least 10 characters. Other devices are signed out when it changes."
       />
-      <TextField form={form} idPrefix="pw-change" name="confirm" label="New password again" type="password" autoComplete="new-password" />
       <button type="submit" className="sb-button" disabled={formState.isSubmitting}>
         {hasPassword ? "Change the password" : "Set a password"}
       </button>

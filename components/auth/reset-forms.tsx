@@ -1,40 +1,27 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
 import { ResetConfirmSchema, ResetRequestSchema, type ResetConfirmInput, type ResetRequestInput } from "@/lib/auth/schemas";
 import { applyFieldErrors, asApiFetchError, formProblem } from "@/components/form-errors";
 import { useCompleteReset, useRequestReset } from "@/components/hooks/use-account";
-import { FormMessage, TextField } from "./fields";
+import { FormMessage, NewPasswordFields, TextField } from "./fields";
+import { useAccountForm } from "./use-account-form";
 
 /** Step 1: an address; the answer never says whether an account has it. */
 export function ResetRequestForm() {
-  const { register, handleSubmit, setError, formState } = useForm<ResetRequestInput>({ resolver: zodResolver(ResetRequestSchema), mode: "onTouched" });
-  const [problem, setProblem] = useState<string | null>(null);
+  const { fields, setError, formState, problem, setProblem, submit } = useAccountForm<ResetRequestInput>(ResetRequestSchema);
   const requestReset = useRequestReset();
   const [sent, setSent] = useState<string | null>(null);
-  const onSubmit = handleSubmit(async (values) => {
-    setProblem(null);
-    try {
-      setSent((await requestReset.mutateAsync(values)).message);
-    } catch (error) {
-      setProblem(formProblem(setError, error, ["email"]));
-    }
-  });
+  const onSubmit = submit(
+    async (values) => setSent((await requestReset.mutateAsync(values)).message),
+    (error) => setProblem(formProblem(setError, error, ["email"])),
+  );
   if (sent) return <FormMessage tone="done">{sent} Check the spam folder too.</FormMessage>;
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {problem && <FormMessage tone="fault">{problem}</FormMessage>}
-      <TextField
-        form={{ register, errors: formState.errors }}
-        idPrefix="rr"
-        name="email"
-        label="E-mail address of the account"
-        type="email"
-        autoComplete="email"
-      />
+      <TextField form={fields} idPrefix="rr" name="email" label="E-mail address of the account" type="email" autoComplete="email" />
       <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Sending…" : "Mail me a reset link"}
       </button>
@@ -44,27 +31,26 @@ export function ResetRequestForm() {
 
 /** Step 2: from the mailed link, a new password. */
 export function ResetCompleteForm({ token }: { token: string }) {
-  const { register, handleSubmit, setError, formState } = useForm<ResetConfirmInput>({
-    resolver: zodResolver(ResetConfirmSchema),
-    mode: "onTouched",
-    defaultValues: { token, password: "", confirm: "" },
+  const { register, fields, setError, formState, problem, setProblem, submit } = useAccountForm<ResetConfirmInput>(ResetConfirmSchema, {
+    token,
+    password: "",
+    confirm: "",
   });
-  const [problem, setProblem] = useState<string | null>(null);
   const completeReset = useCompleteReset();
   const [done, setDone] = useState(false);
-  const onSubmit = handleSubmit(async (values) => {
-    setProblem(null);
-    try {
+  const onSubmit = submit(
+    async (values) => {
       await completeReset.mutateAsync(values);
       setDone(true);
-    } catch (error) {
+    },
+    (error) => {
       const refusal = asApiFetchError(error);
       // the token has no field to show beside: its message (an expired or used link) leads the form's
       const rest = applyFieldErrors(setError, refusal.fieldErrors, ["password", "confirm"]);
       if (refusal.fieldErrors.token) rest.push(...refusal.fieldErrors.token);
       if (rest.length || !Object.keys(refusal.fieldErrors).length) setProblem(rest[0] ?? refusal.message);
-    }
-  });
+    },
+  );
   if (done) {
     return (
       <FormMessage tone="done">
@@ -81,23 +67,7 @@ export function ResetCompleteForm({ token }: { token: string }) {
         </FormMessage>
       )}
       <input type="hidden" {...register("token")} />
-      <TextField
-        form={{ register, errors: formState.errors }}
-        idPrefix="rc"
-        name="password"
-        label="New password"
-        type="password"
-        autoComplete="new-password"
-        hint="At least 10 characters."
-      />
-      <TextField
-        form={{ register, errors: formState.errors }}
-        idPrefix="rc"
-        name="confirm"
-        label="New password again"
-        type="password"
-        autoComplete="new-password"
-      />
+      <NewPasswordFields form={fields} idPrefix="rc" name="password" label="New password" hint="At least 10 characters." />
       <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Saving…" : "Set the new password"}
       </button>

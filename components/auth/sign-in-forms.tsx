@@ -1,32 +1,29 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useState } from "react";
-import { useForm } from "react-hook-form";
 import { applyFieldErrors, asApiFetchError, formProblem } from "@/components/form-errors";
 import { MagicLinkSchema, SignInSchema, type MagicLinkInput, type SignInInput } from "@/lib/auth/schemas";
 import { FormMessage, TextField } from "./fields";
 import { nextAuthPost } from "./next-auth-client";
+import { useAccountForm } from "./use-account-form";
 
 const callbackFor = (next: string) => new URL(next, window.location.origin).toString();
 
 /** E-mail and password. On success the whole page reloads at `next`, so the header shows the account. */
 export function PasswordSignInForm({ next }: { next: string }) {
-  const { register, handleSubmit, setError, formState } = useForm<SignInInput>({ resolver: zodResolver(SignInSchema), mode: "onTouched" });
-  const [problem, setProblem] = useState<string | null>(null);
-  const onSubmit = handleSubmit(async (values) => {
-    setProblem(null);
-    try {
+  const { fields, setError, formState, problem, setProblem, submit } = useAccountForm<SignInInput>(SignInSchema);
+  const onSubmit = submit(
+    async (values) => {
       await nextAuthPost("callback/credentials", values, callbackFor(next));
-    } catch (error) {
+      window.location.assign(next);
+    },
+    (error) => {
       const refusal = asApiFetchError(error);
       applyFieldErrors(setError, refusal.fieldErrors, ["email", "password"]);
       // always said: a wrong password is no one field's fault
-      return setProblem(refusal.message);
-    }
-    window.location.assign(next);
-  });
+      setProblem(refusal.message);
+    },
+  );
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-describedby={problem ? "password-signin-problem" : undefined}>
       {problem && (
@@ -34,8 +31,8 @@ export function PasswordSignInForm({ next }: { next: string }) {
           <FormMessage tone="fault">{problem}</FormMessage>
         </div>
       )}
-      <TextField form={{ register, errors: formState.errors }} idPrefix="pw" name="email" label="E-mail address" type="email" autoComplete="email" />
-      <TextField form={{ register, errors: formState.errors }} idPrefix="pw" name="password" label="Password" type="password" autoComplete="current-password" />
+      <TextField form={fields} idPrefix="pw" name="email" label="E-mail address" type="email" autoComplete="email" />
+      <TextField form={fields} idPrefix="pw" name="password" label="Password" type="password" autoComplete="current-password" />
       <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Checking…" : "Sign in"}
       </button>
@@ -46,23 +43,20 @@ export function PasswordSignInForm({ next }: { next: string }) {
 /** A one-time link by e-mail; no password needed, and a new address gets an account. */
 export function MagicLinkForm({ next }: { next: string }) {
   const router = useRouter();
-  const { register, handleSubmit, setError, formState } = useForm<MagicLinkInput>({ resolver: zodResolver(MagicLinkSchema), mode: "onTouched" });
-  const [problem, setProblem] = useState<string | null>(null);
-  const onSubmit = handleSubmit(async (values) => {
-    setProblem(null);
-    try {
+  const { fields, setError, formState, problem, setProblem, submit } = useAccountForm<MagicLinkInput>(MagicLinkSchema);
+  const onSubmit = submit(
+    async (values) => {
       await nextAuthPost("signin/email", { email: values.email }, callbackFor(next));
-    } catch (error) {
-      return setProblem(formProblem(setError, error, ["email"]));
-    }
-    // nobody is signed in yet, so nothing on the page is stale: a client navigation will do
-    router.push(`/signin/check-email?email=${encodeURIComponent(values.email)}`);
-  });
+      // nobody is signed in yet, so nothing on the page is stale: a client navigation will do
+      router.push(`/signin/check-email?email=${encodeURIComponent(values.email)}`);
+    },
+    (error) => setProblem(formProblem(setError, error, ["email"])),
+  );
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {problem && <FormMessage tone="fault">{problem}</FormMessage>}
       <TextField
-        form={{ register, errors: formState.errors }}
+        form={fields}
         idPrefix="link"
         name="email"
         label="E-mail address"

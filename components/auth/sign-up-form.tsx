@@ -1,34 +1,21 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
-import { useState } from "react";
-import { useForm } from "react-hook-form";
 import { applyFieldErrors, asApiFetchError } from "@/components/form-errors";
 import { useSignUp } from "@/components/hooks/use-account";
 import { SignUpSchema, type SignUpInput } from "@/lib/auth/schemas";
-import { FormMessage, TextField } from "./fields";
+import { FormMessage, NewPasswordFields, TextField } from "./fields";
 import { nextAuthPost } from "./next-auth-client";
+import { useAccountForm } from "./use-account-form";
 
 const FIELDS = ["name", "email", "password", "confirm"] as const;
 
 /** Creates the account, then signs in with the same password and goes on to `next`. */
 export function SignUpForm({ next }: { next: string }) {
-  const { register, handleSubmit, setError, formState } = useForm<SignUpInput>({ resolver: zodResolver(SignUpSchema), mode: "onTouched" });
+  const { fields: form, setError, formState, problem, setProblem, submit } = useAccountForm<SignUpInput>(SignUpSchema);
   const signUp = useSignUp();
-  const [problem, setProblem] = useState<string | null>(null);
-  const form = { register, errors: formState.errors };
-  const onSubmit = handleSubmit(async (values) => {
-    setProblem(null);
-    try {
-      await signUp.mutateAsync(values);
-    } catch (error) {
-      const refusal = asApiFetchError(error);
-      const rest = applyFieldErrors(setError, refusal.fieldErrors, FIELDS);
-      // a rate limit names the e-mail field but is about the whole form: say it above too
-      if (rest.length || !Object.keys(refusal.fieldErrors).length || refusal.status === 429) setProblem(refusal.message);
-      return;
-    }
+  const signUpThenSignIn = async (values: SignUpInput) => {
+    await signUp.mutateAsync(values);
     const signedIn = await nextAuthPost(
       "callback/credentials",
       { email: values.email, password: values.password },
@@ -38,6 +25,12 @@ export function SignUpForm({ next }: { next: string }) {
       () => false,
     );
     window.location.assign(signedIn ? next : "/signin");
+  };
+  const onSubmit = submit(signUpThenSignIn, (error) => {
+    const refusal = asApiFetchError(error);
+    const rest = applyFieldErrors(setError, refusal.fieldErrors, FIELDS);
+    // a rate limit names the e-mail field but is about the whole form: say it above too
+    if (rest.length || !Object.keys(refusal.fieldErrors).length || refusal.status === 429) setProblem(refusal.message);
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
@@ -52,16 +45,7 @@ export function SignUpForm({ next }: { next: string }) {
         autoComplete="email"
         hint="For sign-in links and password resets only; never shown."
       />
-      <TextField
-        form={form}
-        idPrefix="su"
-        name="password"
-        label="Password"
-        type="password"
-        autoComplete="new-password"
-        hint="At least 10 characters. A few unrelated words work well."
-      />
-      <TextField form={form} idPrefix="su" name="confirm" label="Password again" type="password" autoComplete="new-password" />
+      <NewPasswordFields form={form} idPrefix="su" name="password" label="Password" hint="At least 10 characters. A few unrelated words work well." />
       <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Creating the account…" : "Create my account"}
       </button>

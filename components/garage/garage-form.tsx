@@ -2,7 +2,8 @@
 
 import { useRouter } from "next/navigation";
 import type { z } from "zod";
-import { showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { showServerErrors } from "@/components/form-errors";
+import { useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useGarageSave } from "@/components/hooks/use-garage";
 
 // One small form of the garage (a quad, a pack, a charge). The same zod schema as the server

@@ -7,23 +7,45 @@ import { MAX_BENCH_POINTS, MAX_CYCLES, MAX_READINGS } from "@/lib/submissions/li
 import { MEASURED_AT, MEASURED_AT_LABELS } from "@/lib/vocabulary";
 import { BenchCaution, ChargingCaution, ProbeCaution } from "./cautions";
 import { emptyCycle, emptyPoint, emptyReading, type FamilyOption, type SubmissionDraft } from "./draft";
-import { ErrorText, NumberField, SelectField, fieldId, useFieldError } from "./field";
+import { ErrorText, NumberField, SelectField, fieldId, useFieldError, type DraftPath } from "./field";
 
 // The three kinds of evidence, each with its cautions beside it. Rows are added and removed with
 // react-hook-form's field arrays; field names are the schema's paths ("cycles.2.chargedMah").
 
 /** "× 0.1 V/V" beside a setting box: what one step is worth. */
-export const stepUnit = (step: number, unit: string) => `× ${formatFigure(step, 6)} ${unit}`;
+const stepUnit = (step: number, unit: string) => `× ${formatFigure(step, 6)} ${unit}`;
 
-export function settingHint(family: FamilyOption | null, which: "voltage" | "current" | "offset"): string | undefined {
-  if (!family) return "Choose the firmware family first to see its steps and range.";
+type Setting = "voltage" | "current" | "offset";
+
+/** A family's range, step and unit for one of the three settings. */
+function rangeOf(family: FamilyOption, which: Setting) {
   const [min, max, step, unit] =
     which === "voltage"
       ? [family.voltageScaleMin, family.voltageScaleMax, family.voltageScaleStep, family.voltageScaleUnit]
       : which === "current"
         ? [family.currentScaleMin, family.currentScaleMax, family.currentScaleStep, family.currentScaleUnit]
         : [family.currentOffsetMin, family.currentOffsetMax, family.currentOffsetStep, family.currentOffsetUnit];
+  return { min, max, step, unit };
+}
+
+function settingHint(family: FamilyOption | null, which: Setting): string | undefined {
+  if (!family) return "Choose the firmware family first to see its steps and range.";
+  const { min, max, step, unit } = rangeOf(family, which);
   return `A whole number of steps (1 step = ${formatFigure(step, 6)} ${unit}), ${min} to ${max} in ${family.name}.`;
+}
+
+/** A box for a setting as the firmware stores it: a whole number of the family's steps (the offset may be negative). */
+export function SettingField({ name, label, family, setting }: { name: DraftPath; label: string; family: FamilyOption | null; setting: Setting }) {
+  const range = family ? rangeOf(family, setting) : null;
+  return (
+    <NumberField
+      name={name}
+      label={label}
+      kind={setting === "offset" ? "signed" : "whole"}
+      unit={range ? stepUnit(range.step, range.unit) : undefined}
+      hint={settingHint(family, setting)}
+    />
+  );
 }
 
 function Section({ id, title, intro, caution, children }: { id: string; title: string; intro: ReactNode; caution: ReactNode; children: ReactNode }) {
@@ -75,13 +97,7 @@ export function VoltageCheckSection({ family }: { family: FamilyOption | null })
       caution={<ProbeCaution />}
     >
       <div className="max-w-sm">
-        <NumberField
-          name="voltageCheck.scaleUsed"
-          label="Voltage scale set while you measured"
-          kind="whole"
-          unit={family ? stepUnit(family.voltageScaleStep, family.voltageScaleUnit) : undefined}
-          hint={settingHint(family, "voltage")}
-        />
+        <SettingField name="voltageCheck.scaleUsed" label="Voltage scale set while you measured" family={family} setting="voltage" />
       </div>
       <ErrorText id="f-voltageCheck-readings-error" message={listError} />
       {fields.map((f, i) => (
@@ -108,7 +124,8 @@ export function VoltageCheckSection({ family }: { family: FamilyOption | null })
 export function CyclesSection({ family }: { family: FamilyOption | null }) {
   const { control } = useFormContext<SubmissionDraft>();
   const { fields, append, remove } = useFieldArray({ control, name: "cycles" });
-  const unit = family ? stepUnit(family.currentScaleStep, family.currentScaleUnit) : undefined;
+  const current = family ? rangeOf(family, "current") : null;
+  const unit = current ? stepUnit(current.step, current.unit) : undefined;
   return (
     <Section
       id="cycles"
@@ -153,20 +170,8 @@ export function BenchSection({ family }: { family: FamilyOption | null }) {
       caution={<BenchCaution />}
     >
       <div className="grid max-w-2xl gap-3 sm:grid-cols-2">
-        <NumberField
-          name="bench.scaleUsed"
-          label="Current scale set during the test"
-          kind="whole"
-          unit={family ? stepUnit(family.currentScaleStep, family.currentScaleUnit) : undefined}
-          hint={settingHint(family, "current")}
-        />
-        <NumberField
-          name="bench.offsetUsed"
-          label="Current offset set during the test"
-          kind="signed"
-          unit={family ? stepUnit(family.currentOffsetStep, family.currentOffsetUnit) : undefined}
-          hint={settingHint(family, "offset")}
-        />
+        <SettingField name="bench.scaleUsed" label="Current scale set during the test" family={family} setting="current" />
+        <SettingField name="bench.offsetUsed" label="Current offset set during the test" family={family} setting="offset" />
       </div>
       <ErrorText id="f-bench-points-error" message={listError} />
       {fields.map((f, i) => (

@@ -15,8 +15,8 @@ import { BoardPicker } from "./board-picker";
 import { DistributionPreview } from "./distribution-preview";
 import { emptyDraft, sectionsFor, toPayload, type ChosenBoard, type FamilyOption, type SubmissionDraft } from "./draft";
 import { EvidencePreview } from "./evidence-preview";
-import { BenchSection, CyclesSection, VoltageCheckSection, settingHint, stepUnit } from "./evidence-sections";
-import { ErrorText, NumberField, SelectField, TextField, errorAt, fieldId } from "./field";
+import { BenchSection, CyclesSection, SettingField, VoltageCheckSection } from "./evidence-sections";
+import { ErrorText, SelectField, TextField, errorAt, fieldId } from "./field";
 
 // The contribution form. react-hook-form holds the draft; validation is lib/submissions/schema.ts
 // (the same schema POST/PATCH /api/v1/submissions parse with), made for the chosen family and
@@ -256,27 +256,9 @@ export function SubmissionForm({
           <div className="space-y-4 rounded-md border-3 border-rule bg-surface p-4 sm:p-5">
             <p className="max-w-prose">Enter the settings as the firmware stores them. Leave out any you did not calibrate, but give at least one.</p>
             <div className="grid gap-4 md:grid-cols-3">
-              <NumberField
-                name="voltageScale"
-                label="Voltage scale"
-                kind="whole"
-                unit={family ? stepUnit(family.voltageScaleStep, family.voltageScaleUnit) : undefined}
-                hint={settingHint(family, "voltage")}
-              />
-              <NumberField
-                name="currentScale"
-                label="Current scale"
-                kind="whole"
-                unit={family ? stepUnit(family.currentScaleStep, family.currentScaleUnit) : undefined}
-                hint={settingHint(family, "current")}
-              />
-              <NumberField
-                name="currentOffset"
-                label="Current offset"
-                kind="signed"
-                unit={family ? stepUnit(family.currentOffsetStep, family.currentOffsetUnit) : undefined}
-                hint={settingHint(family, "offset")}
-              />
+              <SettingField name="voltageScale" label="Voltage scale" family={family} setting="voltage" />
+              <SettingField name="currentScale" label="Current scale" family={family} setting="current" />
+              <SettingField name="currentOffset" label="Current offset" family={family} setting="offset" />
             </div>
             <EvidencePreview family={family} />
             <DistributionPreview board={board} families={families} />

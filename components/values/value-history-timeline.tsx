@@ -1,6 +1,7 @@
 import { formatFigure, plural } from "@/lib/catalogue/format";
 import { getValueHistory, type HistoryPoint } from "@/lib/published/history";
 import { ACTION_LABELS, type Quantity, QUANTITY_LABELS } from "@/lib/vocabulary";
+import { TitledSection } from "@/components/titled-section";
 
 // How each published value got where it is: one timeline per revision, firmware family and
 // quantity, newest change first, with the value, n, interval, when and which kind of event moved
@@ -35,10 +36,7 @@ export async function ValueHistoryTimeline({ slug }: { slug: string }) {
   const history = await getValueHistory(slug);
   if (!history || history.series.length === 0) return null;
   return (
-    <section aria-labelledby="history-title" className="space-y-3">
-      <h2 id="history-title" className="font-display text-heading uppercase">
-        How the values changed
-      </h2>
+    <TitledSection id="history" title="How the values changed" className="space-y-3">
       <p className="max-w-prose text-muted">Every change to a published value: approvals move them, and so can a reverted decision.</p>
       <div className="space-y-2">
         {history.series.map((s) => (
@@ -55,6 +53,6 @@ export async function ValueHistoryTimeline({ slug }: { slug: string }) {
           </details>
         ))}
       </div>
-    </section>
+    </TitledSection>
   );
 }

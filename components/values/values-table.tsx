@@ -1,3 +1,4 @@
+import { ColumnHeads } from "@/components/column-heads";
 import type { QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
 import { plural } from "@/lib/catalogue/format";
 import { QUANTITY_TITLES, settingText } from "./quantity-meaning";
@@ -18,15 +19,10 @@ export function ValuesTable({ quantity, values: q }: { quantity: QuantityKey; va
           <caption className="sr-only">Approved values of the {QUANTITY_TITLES[quantity].toLowerCase()}, newest first</caption>
           <thead>
             <tr className="border-b-2 border-rule text-left">
-              <th scope="col" className="py-1 pr-2 font-display tracking-wide uppercase">
-                Date
-              </th>
-              <th scope="col" className="py-1 pr-2 font-display tracking-wide uppercase">
-                Method
-              </th>
-              <th scope="col" className="py-1 text-right font-display tracking-wide uppercase">
-                Setting
-              </th>
+              <ColumnHeads
+                heads={["Date", "Method", { label: "Setting", className: "py-1 text-right font-display tracking-wide uppercase" }]}
+                className="py-1 pr-2 font-display tracking-wide uppercase"
+              />
             </tr>
           </thead>
           <tbody>

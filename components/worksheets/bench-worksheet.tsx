@@ -5,7 +5,8 @@ import { CartesianGrid, ReferenceLine, Scatter, ScatterChart, XAxis, YAxis } fro
 import { BenchCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
 import { benchPointInput, benchStartInput, type BenchSheetView } from "@/lib/worksheets/bench-input";
-import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { errorsOf, showServerErrors } from "@/components/form-errors";
+import { useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useSavedWorksheet, useStartWorksheet } from "@/components/hooks/use-worksheet";
 import { FieldError, NumberInput, numberOrUndefined, PublishPanel, SavedEntries, Warnings } from "./saved-worksheet";
 

@@ -6,9 +6,11 @@ import { CHARGING_CAUTIONS } from "@/lib/calibration/cautions";
 import type { RoundedSetting } from "@/lib/calibration";
 import { stepInput, type WorksheetView } from "@/lib/worksheets/recharge-input";
 import { ConvergencePlot } from "./convergence-plot";
-import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { errorsOf, showServerErrors } from "@/components/form-errors";
+import { useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useSavedWorksheet } from "@/components/hooks/use-worksheet";
 import { FieldError, numberOrNull, TakenBack, Warnings, type Errors } from "./saved-worksheet";
+import { TitledSection } from "@/components/titled-section";
 
 // The fly-and-recharge worksheet: each iteration is sent on its own and stored whole, then the page
 // shows what the recharge maths makes of all of them (lib/calibration/recharge.ts).
@@ -127,10 +129,7 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
       />
 
       {r && (
-        <section aria-labelledby="next-title" className="space-y-3 rounded-md border-3 border-rule bg-surface p-4">
-          <h2 id="next-title" className="font-display text-heading uppercase">
-            Next scale
-          </h2>
+        <TitledSection id="next" title="Next scale" className="space-y-3 rounded-md border-3 border-rule bg-surface p-4">
           <p>
             Exact: <span className="font-mono">{formatFigure(r.next.exact, 2)}</span> (from cycle {r.basedOn + 1}). Enter{" "}
             <strong className="font-mono" data-testid="recommended">
@@ -148,7 +147,7 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
             {r.stop.message}
           </p>
           <p className="text-small text-muted">{r.stop.rule}</p>
-        </section>
+        </TitledSection>
       )}
 
       <Warnings items={sheet.warnings} />

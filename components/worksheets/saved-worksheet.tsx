@@ -2,7 +2,7 @@
 
 import type { ReactNode } from "react";
 import type { UseFormRegisterReturn } from "react-hook-form";
-import type { Errors } from "@/components/hooks/use-schema-form";
+import type { Errors } from "@/components/form-errors";
 
 // The pieces the saved worksheets share on the client: a number field, the messages under it, the
 // warnings, the publish panel and the list of saved entries. Their reads and writes are the

@@ -2,7 +2,8 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { showServerErrors } from "@/components/form-errors";
+import { useSchemaForm } from "@/components/hooks/use-schema-form";
 import { usePacks } from "@/components/hooks/use-garage";
 import { useStartWorksheet } from "@/components/hooks/use-worksheet";
 import { CHEMISTRY_LIMITS } from "@/lib/calibration/chemistry";

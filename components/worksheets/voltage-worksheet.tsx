@@ -5,7 +5,8 @@ import { ProbeCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
 import { voltageReadingInput, voltageStartInput, type VoltageSheetView } from "@/lib/worksheets/voltage-input";
 import { MEASURED_AT, type MeasuredAt } from "@/lib/vocabulary";
-import { errorsOf, showServerErrors, useSchemaForm } from "@/components/hooks/use-schema-form";
+import { errorsOf, showServerErrors } from "@/components/form-errors";
+import { useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useSavedWorksheet, useStartWorksheet } from "@/components/hooks/use-worksheet";
 import { FieldError, NumberInput, numberOrUndefined, PublishPanel, SavedEntries, Warnings } from "./saved-worksheet";
 

@@ -1,4 +1,5 @@
 import { badRequest, notFound } from "@/lib/http/errors";
+import { boardFacts } from "./board-facts";
 import { getBoardBySlug, type BoardDetail } from "./get-board";
 import { listBoards, type CataloguePage, type CatalogueRow } from "./list-boards";
 import { catalogueQueryString, parseCatalogueParams, type CatalogueParams } from "./search-params";
@@ -16,12 +17,7 @@ function boardLinks(slug: string) {
 
 function summary(row: CatalogueRow): BoardListResponse["boards"][number] {
   return {
-    slug: row.slug,
-    name: row.name,
-    kind: row.kind,
-    mountingPattern: row.mountingPattern,
-    minCells: row.minCells,
-    maxCells: row.maxCells,
+    ...boardFacts(row),
     manufacturer: { slug: row.manufacturerSlug, name: row.manufacturerName },
     revisionCount: row.revisionCount,
     approvedCount: row.approvedCount,
@@ -55,12 +51,7 @@ function boardListResponse(page: CataloguePage, params: CatalogueParams): BoardL
 
 function boardDetailResponse(board: BoardDetail): BoardDetailResponse {
   return {
-    slug: board.slug,
-    name: board.name,
-    kind: board.kind,
-    mountingPattern: board.mountingPattern,
-    minCells: board.minCells,
-    maxCells: board.maxCells,
+    ...boardFacts(board),
     description: board.description,
     manufacturer: { slug: board.manufacturer.slug, name: board.manufacturer.name, website: board.manufacturer.website },
     aliases: board.aliases,

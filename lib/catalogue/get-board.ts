@@ -1,7 +1,8 @@
 import { fn, col } from "sequelize";
 import { revisionDividerRatio, revisionSensitivityMvPerAmp } from "@/lib/calibration/units";
 import { BoardAlias, BoardModel, BoardRevision, Manufacturer, Submission, db } from "@/models";
-import type { BoardKind, CurrentSensorKind } from "@/lib/vocabulary";
+import type { CurrentSensorKind } from "@/lib/vocabulary";
+import { boardFacts, type BoardFacts } from "./board-facts";
 
 export type BoardRevisionDetail = {
   id: number;
@@ -24,19 +25,12 @@ export type BoardRevisionDetail = {
   approvedCount: number;
 };
 
-export type BoardDetail = {
-  id: number;
-  slug: string;
-  name: string;
-  kind: BoardKind;
-  mountingPattern: string;
-  minCells: number;
-  maxCells: number;
-  description: string | null;
-  manufacturer: { name: string; slug: string; website: string | null };
-  aliases: string[];
-  revisions: BoardRevisionDetail[];
-};
+export type BoardDetail = { id: number } & BoardFacts & {
+    description: string | null;
+    manufacturer: { name: string; slug: string; website: string | null };
+    aliases: string[];
+    revisions: BoardRevisionDetail[];
+  };
 
 const SLUG_RE = /^[a-z0-9]+(-[a-z0-9]+)*$/;
 
@@ -73,12 +67,7 @@ export async function getBoardBySlug(slug: string): Promise<BoardDetail | null> 
 
   return {
     id: board.id,
-    slug: board.slug,
-    name: board.name,
-    kind: board.kind,
-    mountingPattern: board.mountingPattern,
-    minCells: board.minCells,
-    maxCells: board.maxCells,
+    ...boardFacts(board),
     description: board.description,
     manufacturer: {
       name: board.manufacturer!.name,

@@ -1,25 +1,18 @@
 import { QueryTypes } from "sequelize";
 import { db } from "@/models";
-import type { BoardKind } from "@/lib/vocabulary";
+import type { BoardFacts } from "./board-facts";
 import type { CatalogueParams, CatalogueSort } from "./search-params";
 
-export type CatalogueRow = {
-  id: number;
-  slug: string;
-  name: string;
-  kind: BoardKind;
-  mountingPattern: string;
-  minCells: number;
-  maxCells: number;
-  manufacturerName: string;
-  manufacturerSlug: string;
-  revisionCount: number;
-  approvedCount: number;
-  /** Release date (YYYY-MM-DD) of the board's newest revision, null when no revision has one. */
-  latestReleasedOn: string | null;
-  /** How well the board matched the search text, 0–1; null when there was no search text. */
-  score: number | null;
-};
+export type CatalogueRow = { id: number } & BoardFacts & {
+    manufacturerName: string;
+    manufacturerSlug: string;
+    revisionCount: number;
+    approvedCount: number;
+    /** Release date (YYYY-MM-DD) of the board's newest revision, null when no revision has one. */
+    latestReleasedOn: string | null;
+    /** How well the board matched the search text, 0–1; null when there was no search text. */
+    score: number | null;
+  };
 
 export type CataloguePage = {
   rows: CatalogueRow[];

@@ -1,5 +1,5 @@
-import type { z } from "zod";
-import type { FieldErrors } from "./errors";
+import { z } from "zod";
+import { badRequest, type FieldErrors } from "./errors";
 import { fieldErrorsOf } from "./field-errors";
 
 /**
@@ -40,3 +40,21 @@ export function parseQuery<S extends z.ZodObject>(schema: S, input: Record<strin
   if (!parsed.success || Object.keys(fieldErrors).length > 0) return { ok: false, fieldErrors };
   return { ok: true, params: parsed.data };
 }
+
+/** parseQuery for a handler: the parameters, or a 400 naming each refused one. */
+export function parseQueryOrRefuse<S extends z.ZodObject>(schema: S, input: Record<string, string | string[] | undefined>): z.output<S> {
+  const parsed = parseQuery(schema, input);
+  if (!parsed.ok) throw badRequest(parsed.fieldErrors);
+  return parsed.params;
+}
+
+/** A whole-number query parameter from `min` to `max`: every refusal says `message`, except a too-large value, which says `tooLarge`. */
+export function wholeNumberParam(message: string, min: number, max: number, tooLarge = message) {
+  return z.coerce.number({ error: message }).int(message).min(min, message).max(max, tooLarge);
+}
+
+/** `page`, from 1 (default) to `max`: a page past that is refused rather than scanned. */
+export const pageParam = (max = 10_000) => wholeNumberParam("page is a whole number from 1", 1, max, `page is at most ${max}`).default(1);
+
+/** `pageSize`, from 1 to `max`. */
+export const pageSizeParam = (max: number, byDefault: number) => wholeNumberParam(`pageSize is a whole number from 1 to ${max}`, 1, max).default(byDefault);

@@ -1,11 +1,11 @@
 import type { z } from "zod";
 import { checkRole, mustBeSignedIn, userFromRequest, type SessionUser } from "@/lib/auth/guard";
 import { assertSameOrigin } from "@/lib/auth/same-origin";
-import { ApiError, badRequest, methodNotAllowed, toApiError, type FieldErrors } from "./errors";
+import { ApiError, methodNotAllowed, toApiError, type FieldErrors } from "./errors";
 import { fieldErrorsOf } from "./field-errors";
 import { readJsonBody } from "./json-body";
 import { parseBody } from "./parse-body";
-import { parseQuery, queryRecord } from "./query";
+import { parseQueryOrRefuse, queryRecord } from "./query";
 import { errorResponse } from "./respond";
 
 // The one way a route handler is made. A route file declares who may call it and what it reads,
@@ -81,9 +81,7 @@ async function readParams(schema: z.ZodType, context: RouteContext): Promise<unk
 function readQuery(spec: NonNullable<RouteSpec["query"]>, request: Request): unknown {
   const record = queryRecord(request);
   if (typeof spec === "function") return spec(record);
-  const parsed = parseQuery(spec, record);
-  if (!parsed.ok) throw badRequest(parsed.fieldErrors);
-  return parsed.params;
+  return parseQueryOrRefuse(spec, record);
 }
 
 async function readBody(spec: NonNullable<RouteSpec["body"]>, request: Request, maxBytes: number): Promise<unknown> {

@@ -1,7 +1,6 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
-import { badRequest } from "@/lib/http/errors";
-import { parseQuery } from "@/lib/http/query";
+import { pageParam, pageSizeParam, parseQueryOrRefuse, wholeNumberParam } from "@/lib/http/query";
 import { AuditEvent, db } from "@/models";
 import { ACTION_LABELS, AUDIT_ACTIONS, type AuditAction, type AuditEntityType, type Role, type SubmissionStatus } from "@/lib/vocabulary";
 
@@ -115,33 +114,16 @@ export async function getAuditEvent(id: number, transaction?: Transaction): Prom
 const AUDIT_MAX_PAGE_SIZE = 100;
 
 const AuditQuerySchema = z.object({
-  page: z.coerce
-    .number({ error: "page is a whole number from 1" })
-    .int("page is a whole number from 1")
-    .min(1, "page is a whole number from 1")
-    .max(10_000, "page is at most 10000")
-    .default(1),
-  pageSize: z.coerce
-    .number({ error: `pageSize is a whole number from 1 to ${AUDIT_MAX_PAGE_SIZE}` })
-    .int(`pageSize is a whole number from 1 to ${AUDIT_MAX_PAGE_SIZE}`)
-    .min(1, `pageSize is a whole number from 1 to ${AUDIT_MAX_PAGE_SIZE}`)
-    .max(AUDIT_MAX_PAGE_SIZE, `pageSize is a whole number from 1 to ${AUDIT_MAX_PAGE_SIZE}`)
-    .default(50),
+  page: pageParam(),
+  pageSize: pageSizeParam(AUDIT_MAX_PAGE_SIZE, 50),
   action: z.enum(AUDIT_ACTIONS, { error: `action is one of: ${AUDIT_ACTIONS.join(", ")}` }).optional(),
-  submission: z.coerce
-    .number({ error: "submission is a submission id" })
-    .int("submission is a submission id")
-    .min(1, "submission is a submission id")
-    .max(2_147_483_647, "submission is a submission id")
-    .optional(),
+  submission: wholeNumberParam("submission is a submission id", 1, 2_147_483_647).optional(),
   user: z.uuid("user is a user id (a UUID)").optional(),
 });
 export type AuditQuery = z.output<typeof AuditQuerySchema>;
 
 export function parseAuditQuery(input: Record<string, string | string[] | undefined>): AuditQuery {
-  const parsed = parseQuery(AuditQuerySchema, input);
-  if (!parsed.ok) throw badRequest(parsed.fieldErrors);
-  return parsed.params;
+  return parseQueryOrRefuse(AuditQuerySchema, input);
 }
 
 export type AuditPage = { events: AuditEventView[]; page: number; pageSize: number; total: number; pageCount: number };

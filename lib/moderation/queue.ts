@@ -1,7 +1,7 @@
 import { QueryTypes } from "sequelize";
 import { z } from "zod";
 import { badRequest } from "@/lib/http/errors";
-import { parseQuery } from "@/lib/http/query";
+import { pageParam, pageSizeParam, parseQueryOrRefuse } from "@/lib/http/query";
 import type { QuantityKey } from "@/lib/published/board-values-types";
 import { db } from "@/models";
 import {
@@ -29,18 +29,8 @@ const MAX_PAGE = 10_000;
 
 /** The query string's parameters; field-level messages for anything that is not one of them. */
 const QueueParamsSchema = z.object({
-  page: z.coerce
-    .number({ error: "page is a whole number from 1" })
-    .int("page is a whole number from 1")
-    .min(1, "page is a whole number from 1")
-    .max(MAX_PAGE, `page is at most ${MAX_PAGE}`)
-    .default(1),
-  pageSize: z.coerce
-    .number({ error: `pageSize is a whole number from 1 to ${QUEUE_MAX_PAGE_SIZE}` })
-    .int(`pageSize is a whole number from 1 to ${QUEUE_MAX_PAGE_SIZE}`)
-    .min(1, `pageSize is a whole number from 1 to ${QUEUE_MAX_PAGE_SIZE}`)
-    .max(QUEUE_MAX_PAGE_SIZE, `pageSize is a whole number from 1 to ${QUEUE_MAX_PAGE_SIZE}`)
-    .default(QUEUE_DEFAULT_PAGE_SIZE),
+  page: pageParam(MAX_PAGE),
+  pageSize: pageSizeParam(QUEUE_MAX_PAGE_SIZE, QUEUE_DEFAULT_PAGE_SIZE),
   sort: z.enum(QUEUE_SORTS, { error: `sort is one of: ${QUEUE_SORTS.join(", ")}` }).default("severity"),
   board: z
     .string()
@@ -61,9 +51,7 @@ const QueueParamsSchema = z.object({
 
 /** Query-string parameters (as lib/http/query's queryRecord gives them) to QueueParams, or ApiError 400 naming each bad one. */
 export function parseQueueParams(input: Record<string, string | string[] | undefined>): QueueParams {
-  const parsed = parseQuery(QueueParamsSchema, input);
-  if (!parsed.ok) throw badRequest(parsed.fieldErrors);
-  return parsed.params;
+  return parseQueryOrRefuse(QueueParamsSchema, input);
 }
 
 export type QueueRow = {

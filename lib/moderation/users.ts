@@ -1,7 +1,7 @@
 import { QueryTypes } from "sequelize";
 import { z } from "zod";
 import { ApiError, badRequest } from "@/lib/http/errors";
-import { parseQuery } from "@/lib/http/query";
+import { pageParam, parseQueryOrRefuse } from "@/lib/http/query";
 import { db } from "@/models";
 import { type Role, ROLES } from "@/lib/vocabulary";
 import { writeAuditEvent, type AuditEventView, type UserState, getAuditEvent } from "./audit";
@@ -69,20 +69,13 @@ export async function getUserSummary(id: string): Promise<UserSummary | null> {
 const USERS_PAGE_SIZE = 50;
 
 const UsersQuerySchema = z.object({
-  page: z.coerce
-    .number({ error: "page is a whole number from 1" })
-    .int("page is a whole number from 1")
-    .min(1, "page is a whole number from 1")
-    .max(10_000, "page is at most 10000")
-    .default(1),
+  page: pageParam(),
   role: z.enum(ROLES, { error: `role is one of: ${ROLES.join(", ")}` }).optional(),
 });
 export type UsersQuery = z.output<typeof UsersQuerySchema>;
 
 export function parseUsersQuery(input: Record<string, string | string[] | undefined>): UsersQuery {
-  const parsed = parseQuery(UsersQuerySchema, input);
-  if (!parsed.ok) throw badRequest(parsed.fieldErrors);
-  return parsed.params;
+  return parseQueryOrRefuse(UsersQuerySchema, input);
 }
 
 export type UsersPage = { users: UserSummary[]; page: number; pageSize: number; total: number; pageCount: number };

@@ -1,9 +1,6 @@
-import { mkdirSync } from "node:fs";
-import path from "node:path";
-import { chromium, type Browser, type Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "@/seeders/demo/accounts";
-import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
+import { shot, useChromium } from "@/tests/support/browser";
 
 // Sign-in in a real browser against the build `npm test` serves (SHUNTBOOK_TEST_APP_URL): a magic
 // link read from the mail catcher's REST API (MAIL_INBOX_URL, maildev's GET /api/email), the demo
@@ -24,19 +21,10 @@ async function magicLinkFor(address: string): Promise<string> {
 }
 
 describe.skipIf(!appUrl || !inboxUrl)("auth in Chromium: magic link, password, sign-out", () => {
-  let browser: Browser;
-  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
-
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS_DIR, { recursive: true });
-    browser = await chromium.launch(CHROMIUM_LAUNCH);
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const chrome = useChromium();
 
   it("a magic link from the inbox signs in a new address and shows its profile", async () => {
-    const context = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    const context = await chrome.browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
     const page = await context.newPage();
     const address = `browser-${Date.now()}@example.test`;
     await page.goto("/signin?next=/profile");
@@ -59,7 +47,7 @@ describe.skipIf(!appUrl || !inboxUrl)("auth in Chromium: magic link, password, s
   });
 
   it("the demo contributor signs in with the password after a wrong try, sees the profile, then signs out", async () => {
-    const context = await browser.newContext({ baseURL: appUrl, viewport: { width: 1280, height: 800 }, colorScheme: "dark" });
+    const context = await chrome.browser.newContext({ baseURL: appUrl, viewport: { width: 1280, height: 800 }, colorScheme: "dark" });
     const page = await context.newPage();
     await page.goto("/signin");
     const passwordForm = page.getByRole("region", { name: "With your password" });
@@ -100,7 +88,7 @@ describe.skipIf(!appUrl || !inboxUrl)("auth in Chromium: magic link, password, s
   });
 
   it("sign-up refuses bad fields one by one, on the phone", async () => {
-    const context = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    const context = await chrome.browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
     const page = await context.newPage();
     await page.goto("/signup");
     await page.getByLabel("Name").fill("Test Pilot");

@@ -1,11 +1,10 @@
-import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { DEMO_LANDMARKS } from "@/seeders/demo/scenario";
 import type { BoardValues, QuantityKey } from "@/lib/published/board-values-types";
 import { METHOD_LABELS } from "@/lib/vocabulary";
-import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
+import { ARTIFACTS_DIR, shot, usePhoneAndDesktop } from "@/tests/support/browser";
 
 // The board page's published starting values in a real browser, against the app `npm test` serves
 // on the seeded demo (SHUNTBOOK_TEST_APP_URL). The figures on screen are checked against what the
@@ -42,23 +41,10 @@ async function waitForView(page: Page, revision: string, family: string) {
 }
 
 describe.skipIf(!appUrl)("board page: published starting values", () => {
-  let browser: Browser;
-  let phone: BrowserContext;
-  let desktop: BrowserContext;
-  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
-
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS_DIR, { recursive: true });
-    browser = await chromium.launch(CHROMIUM_LAUNCH);
-    phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, colorScheme: "light", isMobile: true, hasTouch: true });
-    desktop = await browser.newContext({ baseURL: appUrl, viewport: { width: 1280, height: 800 }, colorScheme: "dark" });
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browsers = usePhoneAndDesktop(appUrl);
 
   it("phone: shows the recommended values, switches revision and family in place, taps a dot for its method and date", async () => {
-    const page = await phone.newPage();
+    const page = await browsers.phone.newPage();
     const res = await page.goto(`/boards/${boardSlug}?revision=${before}&family=vornel`);
     expect(res?.status()).toBe(200);
     await waitForView(page, before, "vornel");
@@ -119,7 +105,7 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
     await page.getByTestId("chart-currentScale").screenshot({ path: path.join(ARTIFACTS_DIR, "board-values-tooltip-phone-light.png") });
 
     // and the address is shareable: a fresh load opens the same view
-    const shared = await phone.newPage();
+    const shared = await browsers.phone.newPage();
     await shared.goto(page.url());
     await waitForView(shared, after, "skelmar");
     expect(await shownSettings(shared)).toEqual(skShown);
@@ -131,7 +117,7 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
   });
 
   it("desktop, dark: hovering a dot shows its method and date, outliers are crosses", async () => {
-    const page = await desktop.newPage();
+    const page = await browsers.desktop.newPage();
     await page.goto(`/boards/${boardSlug}?revision=${before}&family=vornel`);
     await waitForView(page, before, "vornel");
     const dot = page.locator('[data-testid="chart-voltageScale"] .recharts-scatter-symbol').first();
@@ -160,7 +146,7 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
   });
 
   it("a revision with no values, and one with too few to judge, say so in words", async () => {
-    const page = await phone.newPage();
+    const page = await browsers.phone.newPage();
     const none = DEMO_LANDMARKS.sparseRevisions.none[0];
     await page.goto(`/boards/${none.boardSlug}?revision=${encodeURIComponent(none.label)}`);
     await page.getByText("No published values yet for this revision and firmware family").waitFor();

@@ -1,11 +1,10 @@
-import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { chromium, type Browser, type Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { DEMO_LANDMARKS, buildDemoScenario } from "@/seeders/demo/scenario";
 import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { linkIn, waitForMails } from "@/tests/support/auth";
-import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
+import { ARTIFACTS_DIR, shot as shotOf, useChromium } from "@/tests/support/browser";
 
 // The whole contributor journey in Chromium against the production build that `npm test` serves
 // (SHUNTBOOK_TEST_APP_URL) on a seeded database: sign in with the magic link read from the mail
@@ -39,18 +38,19 @@ async function signInWithMagicLink(page: Page, next: string): Promise<void> {
 }
 
 describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () => {
-  let browser: Browser;
+  const chrome = useChromium();
   let page: Page;
-  const shot = (name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
+  const shot = (name: string) => shotOf(page, name);
 
   beforeAll(async () => {
-    mkdirSync(ARTIFACTS_DIR, { recursive: true });
-    browser = await chromium.launch(CHROMIUM_LAUNCH);
-    const phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, colorScheme: "light", isMobile: true, hasTouch: true });
+    const phone = await chrome.browser.newContext({
+      baseURL: appUrl,
+      viewport: { width: 390, height: 844 },
+      colorScheme: "light",
+      isMobile: true,
+      hasTouch: true,
+    });
     page = await phone.newPage();
-  });
-  afterAll(async () => {
-    await browser?.close();
   });
 
   it("the form asks for a session first, and the magic link from the inbox brings the person back to it", async () => {
@@ -147,7 +147,7 @@ describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () =
   });
 
   it("the same pages on a desktop in dark mode, signed in as the same person", async () => {
-    const desktop = await browser.newContext({
+    const desktop = await chrome.browser.newContext({
       baseURL: appUrl,
       viewport: { width: 1280, height: 800 },
       colorScheme: "dark",

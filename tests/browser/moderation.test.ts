@@ -1,9 +1,7 @@
-import { mkdirSync } from "node:fs";
-import path from "node:path";
-import { chromium, type Browser, type Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "@/seeders/demo/accounts";
-import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
+import { shot as shotOf, useChromium } from "@/tests/support/browser";
 
 // A moderator's pass through the queue in Chromium against the build `npm test` serves
 // (SHUNTBOOK_TEST_APP_URL) on the seeded database: sign in by the demo moderator's password, find a
@@ -29,18 +27,13 @@ async function waitForSubject(subject: string, timeoutMs = 30_000): Promise<Mail
 }
 
 describe.skipIf(!appUrl || !inboxUrl)("moderation in Chromium: an outlier first, reviewed and rejected, the contributor told", () => {
-  let browser: Browser;
+  const chrome = useChromium();
   let page: Page;
-  const shot = (name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
+  const shot = (name: string) => shotOf(page, name);
 
   beforeAll(async () => {
-    mkdirSync(ARTIFACTS_DIR, { recursive: true });
-    browser = await chromium.launch(CHROMIUM_LAUNCH);
-    const phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    const phone = await chrome.browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
     page = await phone.newPage();
-  });
-  afterAll(async () => {
-    await browser?.close();
   });
 
   it("signs in as the demo moderator and sees the queue with the far-off value first", async () => {

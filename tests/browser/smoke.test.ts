@@ -1,9 +1,6 @@
-import { mkdirSync } from "node:fs";
-import path from "node:path";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { DEMO_LANDMARKS, buildDemoScenario } from "@/seeders/demo/scenario";
-import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
+import { shot, usePhoneAndDesktop } from "@/tests/support/browser";
 
 // The first pages in a real browser against the production build that `npm test` serves on a
 // seeded database (SHUNTBOOK_TEST_APP_URL). Screenshots go to tests/artifacts/ (git-ignored) so a
@@ -15,23 +12,10 @@ const aliasLandmark = DEMO_LANDMARKS.distinctiveAliases[1]; // "Sluicebox": noth
 const aliasBoard = scenario.boardModels.find((b) => b.slug === aliasLandmark.boardSlug)!;
 
 describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
-  let browser: Browser;
-  let phone: BrowserContext;
-  let desktop: BrowserContext;
-  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
-
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS_DIR, { recursive: true });
-    browser = await chromium.launch(CHROMIUM_LAUNCH);
-    phone = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, colorScheme: "light", isMobile: true, hasTouch: true });
-    desktop = await browser.newContext({ baseURL: appUrl, viewport: { width: 1280, height: 800 }, colorScheme: "dark" });
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browsers = usePhoneAndDesktop(appUrl);
 
   it("home page: the name, the search box and the catalogue counts", async () => {
-    const page = await phone.newPage();
+    const page = await browsers.phone.newPage();
     const res = await page.goto("/");
     expect(res?.status()).toBe(200);
     await expect(page.title()).resolves.toMatch(/Shuntbook/);
@@ -43,7 +27,7 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
   });
 
   it("search from the home page finds a board by its alias, with the query kept in the URL", async () => {
-    const page = await phone.newPage();
+    const page = await browsers.phone.newPage();
     await page.goto("/");
     await page.getByRole("searchbox", { name: "Find your board" }).fill(aliasLandmark.alias);
     await Promise.all([page.waitForURL(/\/boards\?q=/), page.getByRole("button", { name: "Search" }).click()]);
@@ -62,7 +46,7 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
   });
 
   it("board page on a desktop in dark mode shows each revision's hardware", async () => {
-    const page = await desktop.newPage();
+    const page = await browsers.desktop.newPage();
     const { boardSlug } = DEMO_LANDMARKS.hardwareChange;
     const res = await page.goto(`/boards/${boardSlug}`);
     expect(res?.status()).toBe(200);
@@ -76,7 +60,7 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
   });
 
   it("catalogue on a desktop: filters by kind through the URL", async () => {
-    const page = await desktop.newPage();
+    const page = await browsers.desktop.newPage();
     await page.goto("/boards");
     await page.getByLabel("Kind").selectOption("pdb");
     await Promise.all([page.waitForURL(/kind=pdb/), page.getByRole("button", { name: "Show boards" }).click()]);
@@ -87,7 +71,7 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
   });
 
   it("an unknown board slug gets the designed 404 page", async () => {
-    const page = await phone.newPage();
+    const page = await browsers.phone.newPage();
     const res = await page.goto("/boards/no-such-board-here");
     expect(res?.status()).toBe(404);
     await page.getByRole("heading", { name: "Nothing on the bench here" }).waitFor();
@@ -97,7 +81,7 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
   });
 
   it("malformed catalogue parameters get a page naming each bad field, never a 500", async () => {
-    const page = await phone.newPage();
+    const page = await browsers.phone.newPage();
     const res = await page.goto(`/boards?page=abc&kind=bogus&sort=xyz&q=${"x".repeat(101)}`);
     // a page cannot set its status in the App Router; what matters is a friendly page, never a 500
     // (a proxy.ts rewrite to the same URL loops under `next start -H 127.0.0.1`, so there is none)
@@ -116,7 +100,7 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
   });
 
   it("keyboard: the skip link is the first stop and moves focus to the content", async () => {
-    const page = await desktop.newPage();
+    const page = await browsers.desktop.newPage();
     await page.goto("/boards");
     await page.keyboard.press("Tab");
     expect(await page.evaluate(() => document.activeElement?.textContent)).toBe("Skip to content");

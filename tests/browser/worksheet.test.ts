@@ -1,9 +1,6 @@
-import { mkdirSync } from "node:fs";
-import path from "node:path";
-import { chromium, type Browser, type Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "@/seeders/demo/accounts";
-import { ARTIFACTS_DIR, CHROMIUM_LAUNCH } from "@/tests/support/browser";
+import { shot, useChromium } from "@/tests/support/browser";
 
 // The garage and the fly-and-recharge worksheet in a real browser against the build `npm test`
 // serves: sign in as the demo contributor, add a quad on a board with a published current scale,
@@ -36,20 +33,11 @@ async function publishedGroup(): Promise<{ revisionOption: string; familyName: s
 }
 
 describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", () => {
-  let browser: Browser;
-  const shot = (page: Page, name: string) => page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
-
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS_DIR, { recursive: true });
-    browser = await chromium.launch(CHROMIUM_LAUNCH);
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const chrome = useChromium();
 
   it("creates a quad, runs three iterations, shows the plot and publishes, then saves a voltage and a bench check", async () => {
     const group = await publishedGroup();
-    const context = await browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    const context = await chrome.browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
     const page = await context.newPage();
     await page.goto("/signin?next=/garage");
     const passwordForm = page.getByRole("region", { name: "With your password" });

@@ -8,8 +8,7 @@ import * as stepRoute from "@/app/api/v1/garage/worksheets/[id]/steps/[position]
 import * as startRoute from "@/app/api/v1/garage/worksheets/route";
 import { stopBoss } from "@/lib/jobs";
 import { db } from "@/models";
-import type { Role } from "@/lib/vocabulary";
-import { ANONYMOUS, callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
+import { ANONYMOUS, CALLERS, callRoute, sessionCookieFor, withCookie, type Caller, type RouteHandler } from "@/tests/support/auth";
 import { setupTestDatabase } from "@/tests/support/database";
 import { insertFixture, type Fixture } from "@/tests/support/fixtures";
 
@@ -20,10 +19,6 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 // on their own worksheets; everyone else's — even for an admin — answers 404 and changes nothing.
 setupTestDatabase("migrated");
 afterAll(() => stopBoss());
-
-type Caller = Role | "anonymous";
-const CALLERS: Caller[] = ["anonymous", "contributor", "moderator", "admin"];
-type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
 
 let fx: Fixture;
 let cookies: Record<Caller, string>;
@@ -37,7 +32,7 @@ beforeAll(async () => {
   };
 });
 
-const send = (handler: Handler, cookie: string, method: string, params: Record<string, string> = {}, body?: unknown) =>
+const send = (handler: RouteHandler, cookie: string, method: string, params: Record<string, string> = {}, body?: unknown) =>
   callRoute(
     handler,
     withCookie(
@@ -52,7 +47,7 @@ const send = (handler: Handler, cookie: string, method: string, params: Record<s
 
 async function quadOf(cookie: string): Promise<number> {
   const res = await send(
-    postQuad as Handler,
+    postQuad as RouteHandler,
     cookie,
     "POST",
     {},
@@ -63,10 +58,10 @@ async function quadOf(cookie: string): Promise<number> {
 /** A voltage worksheet of the cookie's owner with one reading: ready to read, extend, take back or publish. */
 async function sheetOf(cookie: string): Promise<string> {
   const { worksheet } = await (
-    await send(startRoute.POST as Handler, cookie, "POST", {}, { kind: "voltage", quadId: await quadOf(cookie), scaleUsed: 110 })
+    await send(startRoute.POST as RouteHandler, cookie, "POST", {}, { kind: "voltage", quadId: await quadOf(cookie), scaleUsed: 110 })
   ).json();
   await send(
-    stepsRoute.POST as Handler,
+    stepsRoute.POST as RouteHandler,
     cookie,
     "POST",
     { id: String(worksheet.id) },
@@ -87,26 +82,32 @@ const STATE_SQL = `SELECT
   (SELECT count(*) FROM submission_voltage_readings)::int AS evidence`;
 const written = async () => (await db().query<Record<string, number>>(STATE_SQL, { type: QueryTypes.SELECT }))[0];
 
-type Case = { name: string; handler: Handler; method: string; okStatus: number; call: (sheetId: string) => { params: Record<string, string>; body?: unknown } };
+type Case = {
+  name: string;
+  handler: RouteHandler;
+  method: string;
+  okStatus: number;
+  call: (sheetId: string) => { params: Record<string, string>; body?: unknown };
+};
 const CASES: Case[] = [
-  { name: "GET /garage/worksheets/{id}", handler: sheetRoute.GET as Handler, method: "GET", okStatus: 200, call: (id) => ({ params: { id } }) },
+  { name: "GET /garage/worksheets/{id}", handler: sheetRoute.GET as RouteHandler, method: "GET", okStatus: 200, call: (id) => ({ params: { id } }) },
   {
     name: "POST /garage/worksheets/{id}/steps",
-    handler: stepsRoute.POST as Handler,
+    handler: stepsRoute.POST as RouteHandler,
     method: "POST",
     okStatus: 201,
     call: (id) => ({ params: { id }, body: { cells: 4, reportedVolts: 16.1, measuredVolts: 16.5, measuredAt: "balance_outer_pins" } }),
   },
   {
     name: "DELETE /garage/worksheets/{id}/steps/{position}",
-    handler: stepRoute.DELETE as Handler,
+    handler: stepRoute.DELETE as RouteHandler,
     method: "DELETE",
     okStatus: 200,
     call: (id) => ({ params: { id, position: "0" } }),
   },
   {
     name: "POST /garage/worksheets/{id}/publish",
-    handler: publishRoute.POST as Handler,
+    handler: publishRoute.POST as RouteHandler,
     method: "POST",
     okStatus: 201,
     call: (id) => ({ params: { id }, body: {} }),
@@ -118,7 +119,7 @@ describe("POST /garage/worksheets (start)", () => {
     const quadId = await quadOf(cookies.contributor);
     const own = caller === "anonymous" ? quadId : await quadOf(cookies[caller]);
     const before = await written();
-    const res = await send(startRoute.POST as Handler, cookies[caller], "POST", {}, { kind: "bench", quadId: own, scaleUsed: 400, offsetUsed: 0 });
+    const res = await send(startRoute.POST as RouteHandler, cookies[caller], "POST", {}, { kind: "bench", quadId: own, scaleUsed: 400, offsetUsed: 0 });
     if (caller === "anonymous") {
       expect(res.status).toBe(401);
       expect((await res.json()).error.code).toBe("unauthorized");
@@ -130,7 +131,7 @@ describe("POST /garage/worksheets (start)", () => {
     // someone else's quad: 404, nothing started
     const after = await written();
     const foreign = await send(
-      startRoute.POST as Handler,
+      startRoute.POST as RouteHandler,
       cookies[caller],
       "POST",
       {},
@@ -179,7 +180,7 @@ describe("writes from another site's page", () => {
       }),
       cookies.contributor,
     );
-    expect((await callRoute(publishRoute.POST as Handler, request, { params: Promise.resolve({ id }) })).status).toBe(403);
+    expect((await callRoute(publishRoute.POST as RouteHandler, request, { params: Promise.resolve({ id }) })).status).toBe(403);
     expect(await written()).toEqual(before);
   });
 });

@@ -11,8 +11,7 @@ import * as requestChangesRoute from "@/app/api/v1/moderation/submissions/[id]/r
 import * as reviewRoute from "@/app/api/v1/moderation/submissions/[id]/route";
 import { stopBoss } from "@/lib/jobs";
 import { approveSubmission } from "@/lib/moderation";
-import type { Role } from "@/lib/vocabulary";
-import { ANONYMOUS, callRoute, sessionCookieFor, testAccount, withCookie } from "@/tests/support/auth";
+import { ANONYMOUS, CALLERS, callRoute, sessionCookieFor, testAccount, withCookie, type Caller, type RouteHandler } from "@/tests/support/auth";
 import { setupTestDatabase } from "@/tests/support/database";
 import { expectError, insertPerson, insertSubmission, setupGroup, writtenState, type Setup } from "./moderation-helpers";
 
@@ -25,13 +24,9 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
-type Caller = Role | "anonymous";
-const CALLERS: Caller[] = ["anonymous", "contributor", "moderator", "admin"];
-type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
-
 type Case = {
   name: string;
-  handler: Handler;
+  handler: RouteHandler;
   minimum: "moderator" | "admin";
   /** Prepares fresh data and returns the request's method, path, params and body. */
   prepare: () => Promise<{ method: string; path: string; params?: Record<string, string>; body?: unknown }>;
@@ -56,21 +51,21 @@ let people = 0;
 const CASES: Case[] = [
   {
     name: "GET /moderation/queue",
-    handler: queueRoute.GET as Handler,
+    handler: queueRoute.GET as RouteHandler,
     minimum: "moderator",
     okStatus: 200,
     prepare: async () => ({ method: "GET", path: "/api/v1/moderation/queue" }),
   },
   {
     name: "GET /moderation/events",
-    handler: eventsRoute.GET as Handler,
+    handler: eventsRoute.GET as RouteHandler,
     minimum: "moderator",
     okStatus: 200,
     prepare: async () => ({ method: "GET", path: "/api/v1/moderation/events" }),
   },
   {
     name: "GET /moderation/submissions/{id}",
-    handler: reviewRoute.GET as Handler,
+    handler: reviewRoute.GET as RouteHandler,
     minimum: "moderator",
     okStatus: 200,
     prepare: async () => {
@@ -86,7 +81,7 @@ const CASES: Case[] = [
     ] as const
   ).map(([segment, handler, body]): Case => ({
     name: `POST /moderation/submissions/{id}/${segment}`,
-    handler: handler as Handler,
+    handler: handler as RouteHandler,
     minimum: "moderator",
     okStatus: 200,
     prepare: async () => {
@@ -96,14 +91,14 @@ const CASES: Case[] = [
   })),
   {
     name: "POST /moderation/bulk-approve",
-    handler: bulkRoute.POST as Handler,
+    handler: bulkRoute.POST as RouteHandler,
     minimum: "moderator",
     okStatus: 200,
     prepare: async () => ({ method: "POST", path: "/api/v1/moderation/bulk-approve", body: { items: [{ id: await pending(), version: 0 }] } }),
   },
   {
     name: "POST /admin/events/{id}/revert",
-    handler: revertRoute.POST as Handler,
+    handler: revertRoute.POST as RouteHandler,
     minimum: "admin",
     okStatus: 200,
     prepare: async () => {
@@ -114,21 +109,21 @@ const CASES: Case[] = [
   },
   {
     name: "GET /admin/users",
-    handler: usersRoute.GET as Handler,
+    handler: usersRoute.GET as RouteHandler,
     minimum: "admin",
     okStatus: 200,
     prepare: async () => ({ method: "GET", path: "/api/v1/admin/users" }),
   },
   {
     name: "GET /admin/users/{id}",
-    handler: userRoute.GET as Handler,
+    handler: userRoute.GET as RouteHandler,
     minimum: "admin",
     okStatus: 200,
     prepare: async () => ({ method: "GET", path: `/api/v1/admin/users/${setup.fx.userId}`, params: { id: setup.fx.userId } }),
   },
   {
     name: "PATCH /admin/users/{id}",
-    handler: userRoute.PATCH as Handler,
+    handler: userRoute.PATCH as RouteHandler,
     minimum: "admin",
     okStatus: 200,
     prepare: async () => {
@@ -177,7 +172,7 @@ describe("writes from another site's page", () => {
       cookies.moderator,
     );
     const before = await writtenState();
-    await expectError(await callRoute(approveRoute.POST as Handler, request, { params: Promise.resolve({ id }) }), 403);
+    await expectError(await callRoute(approveRoute.POST as RouteHandler, request, { params: Promise.resolve({ id }) }), 403);
     expect(await writtenState()).toEqual(before);
   });
 });

@@ -7,19 +7,7 @@ import { getValueHistory } from "@/lib/published/history";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
 import { setupTestDatabase } from "@/tests/support/database";
-import {
-  decideAs,
-  expectError,
-  historyRows,
-  insertSubmission,
-  queuedMails,
-  rebuiltStats,
-  setupGroup,
-  storedStats,
-  submissionRow,
-  writtenState,
-  type Setup,
-} from "./moderation-helpers";
+import * as helpers from "./moderation-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
@@ -29,11 +17,11 @@ vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
-let setup: Setup;
+let setup: helpers.Setup;
 let moderator: string;
 let admin: string;
 beforeAll(async () => {
-  setup = await setupGroup([397, 398, 399, 400, 401, 402, 403]);
+  setup = await helpers.setupGroup([397, 398, 399, 400, 401, 402, 403]);
   moderator = await sessionCookieFor("moderator");
   admin = await sessionCookieFor("admin");
 });
@@ -53,18 +41,18 @@ const revert = (eventId: number | string, body: unknown, cookie = admin) =>
   );
 
 async function approve(value: number) {
-  const id = await insertSubmission(setup.fx, { currentScale: value });
-  const res = await decideAs("approve", id, { version: 0 }, moderator);
+  const id = await helpers.insertSubmission(setup.fx, { currentScale: value });
+  const res = await helpers.decideAs("approve", id, { version: 0 }, moderator);
   expect(res.status).toBe(200);
   return { id, eventId: (await res.json()).event.id as number };
 }
 
 describe("revert", () => {
   it("undoing an approval brings back exactly the earlier published values, in board_stats and in the history", async () => {
-    const published = await storedStats(setup.group);
+    const published = await helpers.storedStats(setup.group);
     const { id, eventId } = await approve(460);
-    expect(await storedStats(setup.group)).not.toEqual(published);
-    const eventsBefore = (await writtenState()).events as number;
+    expect(await helpers.storedStats(setup.group)).not.toEqual(published);
+    const eventsBefore = (await helpers.writtenState()).events as number;
 
     const res = await revert(eventId, { reason: "Approved by mistake: the photo shows another board." });
     expect(res.status).toBe(200);
@@ -79,10 +67,10 @@ describe("revert", () => {
     });
     expect(body.changed).toEqual(["currentScale"]);
 
-    expect(await storedStats(setup.group)).toEqual(published);
-    expect(await storedStats(setup.group)).toEqual(await rebuiltStats(setup.group));
+    expect(await helpers.storedStats(setup.group)).toEqual(published);
+    expect(await helpers.storedStats(setup.group)).toEqual(await helpers.rebuiltStats(setup.group));
     // baseline, the approval, the revert: the newest row equals the baseline's figures
-    const history = await historyRows(setup.group);
+    const history = await helpers.historyRows(setup.group);
     const [baseline, approval, undo] = history.slice(-3);
     expect(baseline.eventId).toBeNull();
     expect(approval.eventId).toBe(eventId);
@@ -97,13 +85,13 @@ describe("revert", () => {
     });
 
     // nothing deleted: the approval is still in the log, marked as reverted
-    expect((await writtenState()).events).toBe(eventsBefore + 1);
+    expect((await helpers.writtenState()).events).toBe(eventsBefore + 1);
     const log = await listAuditEvents({ submission: id });
     expect(log.events.map((e) => [e.action, e.revertedByEventId])).toEqual([
       ["revert", null],
       ["approve", body.event.id],
     ]);
-    const [mail] = (await queuedMails("fixture@example.test")).filter((m) => m.subject.includes(`#${id} is pending review again`));
+    const [mail] = (await helpers.queuedMails("fixture@example.test")).filter((m) => m.subject.includes(`#${id} is pending review again`));
     expect(mail.text).toMatch(/no longer count/);
 
     const timeline = await getValueHistory("fixture-board");
@@ -111,47 +99,47 @@ describe("revert", () => {
   });
 
   it("undoing a rejection restores the pending status and the earlier (empty) note without touching board_stats", async () => {
-    const id = await insertSubmission(setup.fx, { currentScale: 401 });
-    const reject = await (await decideAs("reject", id, { version: 0, reason: "Looks copied." }, moderator)).json();
-    const stats = await storedStats(setup.group);
+    const id = await helpers.insertSubmission(setup.fx, { currentScale: 401 });
+    const reject = await (await helpers.decideAs("reject", id, { version: 0, reason: "Looks copied." }, moderator)).json();
+    const stats = await helpers.storedStats(setup.group);
     const res = await revert(reject.event.id, { reason: "It was not copied; the contributor showed their log." });
     expect(res.status).toBe(200);
-    expect(await submissionRow(id)).toEqual({ status: "pending", version: 2, moderatorNote: null });
-    expect(await storedStats(setup.group)).toEqual(stats);
+    expect(await helpers.submissionRow(id)).toEqual({ status: "pending", version: 2, moderatorNote: null });
+    expect(await helpers.storedStats(setup.group)).toEqual(stats);
   });
 
   it("a revert can itself be reverted (redo), but no event twice", async () => {
     const { id, eventId } = await approve(405);
-    const approvedStats = await storedStats(setup.group);
+    const approvedStats = await helpers.storedStats(setup.group);
     const undo = await (await revert(eventId, { reason: "Checking the photo again." })).json();
-    const before = await writtenState();
-    await expectError(await revert(eventId, { reason: "Again." }), 409);
-    expect(await writtenState()).toEqual(before);
+    const before = await helpers.writtenState();
+    await helpers.expectError(await revert(eventId, { reason: "Again." }), 409);
+    expect(await helpers.writtenState()).toEqual(before);
     const redo = await revert(undo.event.id, { reason: "The photo is fine after all." });
     expect(redo.status).toBe(200);
-    expect(await submissionRow(id)).toMatchObject({ status: "approved", version: 3 });
-    expect(await storedStats(setup.group)).toEqual(approvedStats);
+    expect(await helpers.submissionRow(id)).toMatchObject({ status: "approved", version: 3 });
+    expect(await helpers.storedStats(setup.group)).toEqual(approvedStats);
   });
 
   it("refuses to revert an older action once the submission has moved on, and writes nothing", async () => {
-    const id = await insertSubmission(setup.fx, { currentScale: 402 });
-    const ask = await (await decideAs("request_changes", id, { version: 0, message: "Add a photo." }, moderator)).json();
-    expect((await decideAs("approve", id, { version: 1 }, moderator)).status).toBe(200);
-    const before = await writtenState();
-    const error = await expectError(await revert(ask.event.id, { reason: "Undo the request." }), 409);
+    const id = await helpers.insertSubmission(setup.fx, { currentScale: 402 });
+    const ask = await (await helpers.decideAs("request_changes", id, { version: 0, message: "Add a photo." }, moderator)).json();
+    expect((await helpers.decideAs("approve", id, { version: 1 }, moderator)).status).toBe(200);
+    const before = await helpers.writtenState();
+    const error = await helpers.expectError(await revert(ask.event.id, { reason: "Undo the request." }), 409);
     expect(error.message).toMatch(/changed after this action.*revert its later actions first/);
-    expect(await writtenState()).toEqual(before);
+    expect(await helpers.writtenState()).toEqual(before);
   });
 
   it("refused: no reason (400), unknown or impossible event (404), a user event (409), a moderator (403); nothing written", async () => {
     const { eventId } = await approve(399);
-    const before = await writtenState();
-    await expectError(await revert(eventId, {}), 400, "reason");
-    await expectError(await revert(eventId, { reason: " " }), 400, "reason");
-    await expectError(await revert(999999, { reason: "x" }), 404, "id");
-    await expectError(await revert("abc", { reason: "x" }), 404, "id");
-    await expectError(await revert(eventId, { reason: "x" }, moderator), 403);
-    expect(await writtenState()).toEqual(before);
+    const before = await helpers.writtenState();
+    await helpers.expectError(await revert(eventId, {}), 400, "reason");
+    await helpers.expectError(await revert(eventId, { reason: " " }), 400, "reason");
+    await helpers.expectError(await revert(999999, { reason: "x" }), 404, "id");
+    await helpers.expectError(await revert("abc", { reason: "x" }), 404, "id");
+    await helpers.expectError(await revert(eventId, { reason: "x" }, moderator), 403);
+    expect(await helpers.writtenState()).toEqual(before);
 
     // a role change is not a submission decision
     const [userEvent] = await db().query<{ id: number }>(
@@ -159,8 +147,8 @@ describe("revert", () => {
        SELECT id, 'user_update', 'user', id, '{"trusted": null}', '{"trusted": true}' FROM users WHERE email = 'test-admin@auth.test' RETURNING id`,
       { type: QueryTypes.SELECT },
     );
-    const withEvent = await writtenState();
-    await expectError(await revert(userEvent.id, { reason: "x" }), 409);
-    expect(await writtenState()).toEqual(withEvent);
+    const withEvent = await helpers.writtenState();
+    await helpers.expectError(await revert(userEvent.id, { reason: "x" }), 409);
+    expect(await helpers.writtenState()).toEqual(withEvent);
   });
 });

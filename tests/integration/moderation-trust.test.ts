@@ -8,19 +8,7 @@ import { applyTrustOnCreate, decideTrust, trustOf } from "@/lib/moderation";
 import { db } from "@/models";
 import { callRoute, sessionCookieFor, sessionCookieForAccount, testAccount, withCookie } from "@/tests/support/auth";
 import { setupTestDatabase } from "@/tests/support/database";
-import {
-  expectError,
-  historyRows,
-  insertPerson,
-  insertSubmission,
-  queuedMails,
-  rebuiltStats,
-  setupGroup,
-  storedStats,
-  submissionRow,
-  writtenState,
-  type Setup,
-} from "./moderation-helpers";
+import * as helpers from "./moderation-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
 
@@ -34,19 +22,19 @@ afterEach(() => {
   resetEnvCache();
 });
 
-let setup: Setup;
+let setup: helpers.Setup;
 let admin: string;
 beforeAll(async () => {
   // the fixture person has seven approved values in the group: trusted by record
-  setup = await setupGroup([397, 398, 399, 400, 401, 402, 403]);
+  setup = await helpers.setupGroup([397, 398, 399, 400, 401, 402, 403]);
   admin = await sessionCookieFor("admin");
 });
 
 /** Creates a pending submission and applies trust in one transaction, as the creation code will. */
-async function create(values: Parameters<typeof insertSubmission>[1]) {
+async function create(values: Parameters<typeof helpers.insertSubmission>[1]) {
   let id = 0;
   const outcome = await db().transaction(async (t) => {
-    id = await insertSubmission(setup.fx, values, t);
+    id = await helpers.insertSubmission(setup.fx, values, t);
     return applyTrustOnCreate(id, t);
   });
   return { id, outcome };
@@ -102,13 +90,13 @@ describe("applyTrustOnCreate", () => {
   it("a trusted contributor's unflagged submission is approved at once: event 'auto_approve' without actor, figures, history, mail", async () => {
     const { id, outcome } = await create({ currentScale: 402 });
     expect(outcome).toMatchObject({ autoApproved: true, version: 1 });
-    expect(await submissionRow(id)).toMatchObject({ status: "approved", version: 1 });
+    expect(await helpers.submissionRow(id)).toMatchObject({ status: "approved", version: 1 });
     expect(await events(id)).toEqual([{ action: "auto_approve", actorId: null }]);
-    const stats = await storedStats(setup.group);
-    expect(stats).toEqual(await rebuiltStats(setup.group));
+    const stats = await helpers.storedStats(setup.group);
+    expect(stats).toEqual(await helpers.rebuiltStats(setup.group));
     expect(stats[0]).toMatchObject({ n: 8 });
-    expect((await historyRows(setup.group)).at(-1)).toMatchObject({ n: 8, eventId: outcome.autoApproved ? outcome.eventId : -1 });
-    expect((await queuedMails("fixture@example.test")).some((m) => m.subject.includes(`#${id} approved`))).toBe(true);
+    expect((await helpers.historyRows(setup.group)).at(-1)).toMatchObject({ n: 8, eventId: outcome.autoApproved ? outcome.eventId : -1 });
+    expect((await helpers.queuedMails("fixture@example.test")).some((m) => m.subject.includes(`#${id} approved`))).toBe(true);
   });
 
   it.each([
@@ -117,23 +105,23 @@ describe("applyTrustOnCreate", () => {
   ])("a flagged submission waits for a moderator: %s", async (_name, values) => {
     const { id, outcome } = await create(values);
     expect(outcome).toMatchObject({ autoApproved: false, why: "flagged" });
-    expect(await submissionRow(id)).toMatchObject({ status: "pending", version: 0 });
+    expect(await helpers.submissionRow(id)).toMatchObject({ status: "pending", version: 0 });
     expect(await events(id)).toEqual([]);
   });
 
   it("too few approved values to judge is not a flag", async () => {
     const { id, outcome } = await create({ currentScale: null, voltageScale: 110 });
     expect(outcome.autoApproved).toBe(true);
-    expect((await submissionRow(id)).status).toBe("approved");
+    expect((await helpers.submissionRow(id)).status).toBe("approved");
   });
 
   it("the threshold comes from MODERATION_TRUST_THRESHOLD (default 5)", async () => {
-    const person = await insertPerson("four-approved@example.test", "Four Approved");
-    for (let i = 0; i < 4; i++) await insertSubmission(setup.fx, { currentScale: 400, status: "approved", contributorId: person });
+    const person = await helpers.insertPerson("four-approved@example.test", "Four Approved");
+    for (let i = 0; i < 4; i++) await helpers.insertSubmission(setup.fx, { currentScale: 400, status: "approved", contributorId: person });
     const mine = async () => {
       let id = 0;
       const outcome = await db().transaction(async (t) => {
-        id = await insertSubmission(setup.fx, { currentScale: 400, contributorId: person }, t);
+        id = await helpers.insertSubmission(setup.fx, { currentScale: 400, contributorId: person }, t);
         return applyTrustOnCreate(id, t);
       });
       return outcome;
@@ -145,22 +133,22 @@ describe("applyTrustOnCreate", () => {
   });
 
   it("one rejection ends trust by record", async () => {
-    const person = await insertPerson("once-rejected@example.test", "Once Rejected");
-    for (let i = 0; i < 6; i++) await insertSubmission(setup.fx, { currentScale: 400, status: "approved", contributorId: person });
-    await insertSubmission(setup.fx, { currentScale: 400, status: "rejected", contributorId: person });
+    const person = await helpers.insertPerson("once-rejected@example.test", "Once Rejected");
+    for (let i = 0; i < 6; i++) await helpers.insertSubmission(setup.fx, { currentScale: 400, status: "approved", contributorId: person });
+    await helpers.insertSubmission(setup.fx, { currentScale: 400, status: "rejected", contributorId: person });
     expect(await trustOf(person)).toMatchObject({ trusted: false, reason: "rejected", approved: 6, rejected: 1 });
   });
 
   it("a rolled-back creation leaves nothing behind", async () => {
-    const before = await writtenState();
+    const before = await helpers.writtenState();
     await expect(
       db().transaction(async (t) => {
-        const id = await insertSubmission(setup.fx, { currentScale: 401 }, t);
+        const id = await helpers.insertSubmission(setup.fx, { currentScale: 401 }, t);
         expect((await applyTrustOnCreate(id, t)).autoApproved).toBe(true);
         throw new Error("the photo attach failed");
       }),
     ).rejects.toThrow("the photo attach failed");
-    expect(await writtenState()).toEqual(before);
+    expect(await helpers.writtenState()).toEqual(before);
   });
 });
 
@@ -179,11 +167,11 @@ describe("PATCH /api/v1/admin/users/{id}", () => {
     });
     expect((await create({ currentScale: 400 })).outcome).toMatchObject({ autoApproved: false, why: "not_trusted" });
 
-    const newcomer = await insertPerson("trusted-newcomer@example.test", "Trusted Newcomer");
+    const newcomer = await helpers.insertPerson("trusted-newcomer@example.test", "Trusted Newcomer");
     expect((await patchUser(newcomer, { trusted: true })).status).toBe(200);
     let id = 0;
     const outcome = await db().transaction(async (t) => {
-      id = await insertSubmission(setup.fx, { currentScale: 400, contributorId: newcomer }, t);
+      id = await helpers.insertSubmission(setup.fx, { currentScale: 400, contributorId: newcomer }, t);
       return applyTrustOnCreate(id, t);
     });
     expect(outcome.autoApproved).toBe(true);
@@ -204,12 +192,12 @@ describe("PATCH /api/v1/admin/users/{id}", () => {
   });
 
   it("a change that changes nothing writes nothing", async () => {
-    const person = await insertPerson("unchanged@example.test");
-    const before = await writtenState();
+    const person = await helpers.insertPerson("unchanged@example.test");
+    const before = await helpers.writtenState();
     const res = await patchUser(person, { role: "contributor", trusted: null });
     expect(res.status).toBe(200);
     expect((await res.json()).event).toBeNull();
-    expect(await writtenState()).toEqual(before);
+    expect(await helpers.writtenState()).toEqual(before);
   });
 
   it.each([
@@ -218,23 +206,23 @@ describe("PATCH /api/v1/admin/users/{id}", () => {
     ["trusted as text", { trusted: "yes" }, "trusted"],
     ["a blank reason", { trusted: true, reason: "  " }, "reason"],
   ])("refuses %s with a 400 naming the field, writing nothing", async (_name, body, field) => {
-    const person = await insertPerson(`refused-${field}-${Math.random().toString(36).slice(2)}@example.test`);
-    const before = await writtenState();
-    await expectError(await patchUser(person, body), 400, field);
-    expect(await writtenState()).toEqual(before);
+    const person = await helpers.insertPerson(`refused-${field}-${Math.random().toString(36).slice(2)}@example.test`);
+    const before = await helpers.writtenState();
+    await helpers.expectError(await patchUser(person, body), 400, field);
+    expect(await helpers.writtenState()).toEqual(before);
   });
 
   it("an unknown or impossible user: 404", async () => {
-    await expectError(await patchUser("00000000-0000-4000-8000-000000000000", { trusted: true }), 404, "id");
-    await expectError(await patchUser("not-a-uuid", { trusted: true }), 404, "id");
+    await helpers.expectError(await patchUser("00000000-0000-4000-8000-000000000000", { trusted: true }), 404, "id");
+    await helpers.expectError(await patchUser("not-a-uuid", { trusted: true }), 404, "id");
   });
 
   it("keeps at least one admin, also when two admins demote each other at the same moment", async () => {
     const me = await testAccount("admin");
-    const before = await writtenState();
-    const error = await expectError(await patchUser(me.id, { role: "moderator" }), 409, "role");
+    const before = await helpers.writtenState();
+    const error = await helpers.expectError(await patchUser(me.id, { role: "moderator" }), 409, "role");
     expect(error.message).toMatch(/only admin/);
-    expect(await writtenState()).toEqual(before);
+    expect(await helpers.writtenState()).toEqual(before);
 
     const other = await testAccount("admin", { email: "second-admin@auth.test", name: "Second Admin" });
     const otherCookie = await sessionCookieForAccount(other);

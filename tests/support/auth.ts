@@ -39,6 +39,12 @@ import { runWithRequest } from "./next-headers";
 
 export const ANONYMOUS = "";
 
+/** Who may call a route in the route-by-caller tables: nobody signed in, or a person of each role. */
+export type Caller = Role | "anonymous";
+export const CALLERS: Caller[] = ["anonymous", "contributor", "moderator", "admin"];
+/** A route file's method, as those tables call it. */
+export type RouteHandler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
+
 /** Tests run without npm test (plain vitest) still get a secret; the app under test is then not reachable anyway. */
 function ensureSecret(): void {
   if (!env().NEXTAUTH_SECRET) {

@@ -12,6 +12,7 @@ import { getBoardBySlug } from "@/lib/catalogue/get-board";
 import { kindLabel } from "@/lib/catalogue/kinds";
 import { catalogueQueryString } from "@/lib/catalogue/search-params";
 import { getBoardValues, type BoardValues } from "@/lib/published/board-values";
+import { TitledSection } from "@/components/titled-section";
 
 export const dynamic = "force-dynamic";
 
@@ -166,16 +167,13 @@ export default async function BoardPage({ params, searchParams }: Props) {
         {board.description && <p className="max-w-prose">{board.description}</p>}
       </div>
 
-      <section aria-labelledby="revisions-title" className="space-y-4">
-        <h2 id="revisions-title" className="font-display text-heading uppercase">
-          Revisions and sensor hardware
-        </h2>
+      <TitledSection id="revisions" title="Revisions and sensor hardware" className="space-y-4">
         {board.revisions.length > 0 ? (
           board.revisions.map((revision) => <RevisionHardware key={revision.id} revision={revision} />)
         ) : (
           <p className="sb-unknown">No revision of this board is on record yet.</p>
         )}
-      </section>
+      </TitledSection>
     </div>
   );
 }

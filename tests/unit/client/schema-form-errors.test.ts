@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { errorsOf, flatErrors } from "@/components/hooks/use-schema-form";
+import { errorsOf, flatErrors } from "@/components/form-errors";
 import { ApiFetchError } from "@/lib/client/api-fetch";
 
 // How the forms place messages (our own convention): by field path, every message of a field kept,

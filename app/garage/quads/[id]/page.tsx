@@ -7,6 +7,7 @@ import { requirePageUser } from "@/lib/auth";
 import { getQuad } from "@/lib/garage/quads";
 import { listQuadWorksheets } from "@/lib/worksheets";
 import { WORKSHEET_LABELS } from "@/lib/worksheets/common-input";
+import { TitledSection } from "@/components/titled-section";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Quad" };
@@ -30,10 +31,7 @@ export default async function QuadPage({ params }: Props) {
         <Link href="/garage">← My garage</Link>
       </p>
       <h1 className="font-display text-display uppercase">{quad.name}</h1>
-      <section aria-labelledby="sheets-title" className="space-y-3">
-        <h2 id="sheets-title" className="font-display text-heading uppercase">
-          Worksheets
-        </h2>
+      <TitledSection id="sheets" title="Worksheets" className="space-y-3">
         {sheets.length === 0 ? (
           <p className="text-muted">No worksheets yet.</p>
         ) : (
@@ -67,7 +65,7 @@ export default async function QuadPage({ params }: Props) {
             Bench current check with a clamp meter (props on; most people should not need it) →
           </Link>
         </p>
-      </section>
+      </TitledSection>
     </div>
   );
 }

@@ -33,6 +33,9 @@ const useNoHover = () =>
     () => false,
   );
 
+/** Both axes are drawn alike: muted tick text on the rule colour. */
+const AXIS_LOOK = { tick: { fill: "var(--sb-muted)", fontSize: 13 }, stroke: "var(--sb-rule)" };
+
 function yAxis(q: QuantityValues, data: Datum[]) {
   const ys = [q.median, ...data.map((d) => d.v)];
   if (q.ciLow !== null && q.ciHigh !== null) ys.push(q.ciLow, q.ciHigh);
@@ -155,8 +158,7 @@ export function DistributionChart({ quantity, values: q, units }: { quantity: Qu
             scale="time"
             tickFormatter={(t: number) => monthOf(t)}
             tickCount={4}
-            tick={{ fill: "var(--sb-muted)", fontSize: 13 }}
-            stroke="var(--sb-rule)"
+            {...AXIS_LOOK}
             name="Date"
           />
           <YAxis
@@ -166,8 +168,7 @@ export function DistributionChart({ quantity, values: q, units }: { quantity: Qu
             ticks={y.ticks}
             tickFormatter={(v: number) => settingText(v)}
             width={52}
-            tick={{ fill: "var(--sb-muted)", fontSize: 13 }}
-            stroke="var(--sb-rule)"
+            {...AXIS_LOOK}
             name="Setting"
           />
           <Tooltip

@@ -23,3 +23,29 @@ export function TitledSection({
     </section>
   );
 }
+
+/** A boxed panel inside a section, named by its h3 (aria-labelledby `${id}-title`); `live` re-reads it as it changes. */
+export function TitledPanel({
+  id,
+  title,
+  as: Element = "section",
+  live = false,
+  className,
+  children,
+}: {
+  id: string;
+  title: ReactNode;
+  as?: "section" | "aside";
+  live?: boolean;
+  className: string;
+  children: ReactNode;
+}) {
+  return (
+    <Element aria-labelledby={`${id}-title`} aria-live={live ? "polite" : undefined} className={className}>
+      <h3 id={`${id}-title`} className="font-display text-lg font-bold tracking-wide uppercase">
+        {title}
+      </h3>
+      {children}
+    </Element>
+  );
+}

@@ -7,6 +7,7 @@ import type { QuantityKey, QuantityValues } from "@/lib/published/board-values-t
 import { placeValue } from "@/lib/submissions/placement";
 import { findGroup } from "@/components/values/selection";
 import type { ChosenBoard, FamilyOption, SubmissionDraft } from "./draft";
+import { TitledPanel } from "@/components/titled-section";
 
 // Before sending: where the contributor's values fall among the approved ones for the same board
 // revision and firmware family (GET /api/v1/boards/{slug}/values), as the median, its 95 % range
@@ -67,10 +68,7 @@ export function DistributionPreview({ board, families }: { board: ChosenBoard | 
   const group = values.data ? findGroup(values.data, revision!.label, family!.slug) : null;
 
   return (
-    <section aria-labelledby="placement-title" aria-live="polite" className="rounded-md border-2 border-rule bg-surface p-4">
-      <h3 id="placement-title" className="font-display text-lg font-bold tracking-wide uppercase">
-        How your values compare
-      </h3>
+    <TitledPanel id="placement" title="How your values compare" live className="rounded-md border-2 border-rule bg-surface p-4">
       <p className="mt-1 text-small text-muted">
         Approved values for the {board!.name} revision {revision!.label} under {family!.name}. A different value is not wrong: boards vary, and this is how
         outliers get found.
@@ -85,6 +83,6 @@ export function DistributionPreview({ board, families }: { board: ChosenBoard | 
           ))}
         </ul>
       )}
-    </section>
+    </TitledPanel>
   );
 }

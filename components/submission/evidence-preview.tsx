@@ -4,6 +4,7 @@ import { useWatch } from "react-hook-form";
 import { EVIDENCE_TOLERANCE, summariseEvidence, type EvidenceCheck, type EvidenceSummary } from "@/lib/calibration/evidence";
 import { formatFigure } from "@/lib/catalogue/format";
 import { sectionsFor, type FamilyOption, type SubmissionDraft } from "./draft";
+import { TitledPanel } from "@/components/titled-section";
 
 // "What your evidence implies", recomputed as the form is filled in, with the same functions the
 // server uses to flag a mismatch (lib/calibration/evidence.ts). Rows not yet complete are left out.
@@ -85,10 +86,7 @@ export function EvidencePreview({ family }: { family: FamilyOption | null }) {
     );
   }
   return (
-    <section aria-labelledby="implied-title" aria-live="polite" className="rounded-md border-3 border-verdigris bg-surface p-4">
-      <h3 id="implied-title" className="font-display text-lg font-bold tracking-wide uppercase">
-        What your evidence implies
-      </h3>
+    <TitledPanel id="implied" title="What your evidence implies" live className="rounded-md border-3 border-verdigris bg-surface p-4">
       <ul className="mt-2 space-y-1">
         {lines.map((l) => (
           <li key={l}>{l}</li>
@@ -102,6 +100,6 @@ export function EvidencePreview({ family }: { family: FamilyOption | null }) {
         {formatFigure(s.offsetToleranceFloorSteps, 0)} steps: 10, or what moves the display 0.1 A if that is more) for a closer look. That threshold is our own
         rule, in line with common practice.
       </p>
-    </section>
+    </TitledPanel>
   );
 }

@@ -2,7 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, type DefaultValues, type FieldValues, type Path, type Resolver } from "react-hook-form";
 import { z } from "zod";
 import { asApiFetchError } from "@/components/form-errors";
 import { useRevertEvent, useUpdateUser } from "@/components/hooks/use-moderation";
@@ -27,6 +27,37 @@ function FieldProblem({ message }: { message: string | undefined }) {
   return message ? <p className="w-full text-small font-semibold text-fault">{message}</p> : null;
 }
 
+/**
+ * An admin form's one round: checked in the browser, sent by `send` (which says the success), and a
+ * refusal's message shown as the outcome, its messages about `field` beside that field.
+ */
+function useAdminForm<V extends FieldValues, B>(
+  resolver: Resolver<V, unknown, B>,
+  defaultValues: DefaultValues<V>,
+  field: Path<V>,
+  send: (body: B) => Promise<string>,
+) {
+  const { register, handleSubmit, setError, formState } = useForm<V, unknown, B>({
+    resolver,
+    defaultValues,
+    reValidateMode: "onSubmit",
+    shouldFocusError: false,
+  });
+  const [outcome, setOutcome] = useState<Outcome>(null);
+  const onSubmit = handleSubmit(async (body) => {
+    setOutcome(null);
+    try {
+      setOutcome({ ok: true, message: await send(body) });
+    } catch (error) {
+      const refused = asApiFetchError(error);
+      const messages = refused.fieldErrors[field];
+      if (messages) setError(field, { type: "server", message: messages.join(" ") });
+      setOutcome({ ok: false, message: refused.message });
+    }
+  });
+  return { register, formState, outcome, onSubmit };
+}
+
 const TRUST_CHOICES = ["record", "yes", "no"] as const;
 type UserFormValues = { role: string; trusted: (typeof TRUST_CHOICES)[number]; reason: string };
 
@@ -42,24 +73,15 @@ const UserFormSchema = z
 
 export function UserForm({ user }: { user: { id: string; name: string; role: string; override: boolean | null } }) {
   const updateUser = useUpdateUser(user.id);
-  const { register, handleSubmit, setError, formState } = useForm<UserFormValues, unknown, z.output<typeof UserFormSchema>>({
-    resolver: zodResolver(UserFormSchema),
-    defaultValues: { role: user.role, trusted: user.override === true ? "yes" : user.override === false ? "no" : "record", reason: "" },
-    reValidateMode: "onSubmit",
-    shouldFocusError: false,
-  });
-  const [outcome, setOutcome] = useState<Outcome>(null);
-  const onSubmit = handleSubmit(async (body) => {
-    setOutcome(null);
-    try {
+  const { register, formState, outcome, onSubmit } = useAdminForm<UserFormValues, UserPatchBody>(
+    zodResolver(UserFormSchema),
+    { role: user.role, trusted: user.override === true ? "yes" : user.override === false ? "no" : "record", reason: "" },
+    "role",
+    async (body) => {
       const { user: saved } = await updateUser.mutateAsync(body);
-      setOutcome({ ok: true, message: `Saved: ${saved.name} is now ${saved.role}, ${saved.trust.trusted ? "trusted" : "not trusted"}.` });
-    } catch (error) {
-      const refused = asApiFetchError(error);
-      if (refused.fieldErrors.role) setError("role", { type: "server", message: refused.fieldErrors.role.join(" ") });
-      setOutcome({ ok: false, message: refused.message });
-    }
-  });
+      return `Saved: ${saved.name} is now ${saved.role}, ${saved.trust.trusted ? "trusted" : "not trusted"}.`;
+    },
+  );
   const roleError = formState.errors.role?.message;
   const reasonError = formState.errors.reason?.message;
   return (
@@ -98,24 +120,15 @@ export function UserForm({ user }: { user: { id: string; name: string; role: str
 
 export function RevertForm({ eventId }: { eventId: number }) {
   const revertEvent = useRevertEvent(eventId);
-  const { register, handleSubmit, setError, formState } = useForm<RevertBody>({
-    resolver: zodResolver(RevertBodySchema),
-    defaultValues: { reason: "" },
-    reValidateMode: "onSubmit",
-    shouldFocusError: false,
-  });
-  const [outcome, setOutcome] = useState<Outcome>(null);
-  const onSubmit = handleSubmit(async (body) => {
-    setOutcome(null);
-    try {
+  const { register, formState, outcome, onSubmit } = useAdminForm<RevertBody, RevertBody>(
+    zodResolver(RevertBodySchema),
+    { reason: "" },
+    "reason",
+    async (body) => {
       const { submission } = await revertEvent.mutateAsync(body);
-      setOutcome({ ok: true, message: `Reverted: submission #${submission.id} is ${submission.status.replace("_", " ")} again.` });
-    } catch (error) {
-      const refused = asApiFetchError(error);
-      if (refused.fieldErrors.reason) setError("reason", { type: "server", message: refused.fieldErrors.reason.join(" ") });
-      setOutcome({ ok: false, message: refused.message });
-    }
-  });
+      return `Reverted: submission #${submission.id} is ${submission.status.replace("_", " ")} again.`;
+    },
+  );
   const reasonError = formState.errors.reason?.message;
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-end gap-2" aria-label={`Revert event ${eventId}`}>

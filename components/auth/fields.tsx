@@ -68,6 +68,25 @@ export function FormMessage({ tone, children }: { tone: "fault" | "done"; childr
   );
 }
 
+/** An account form's submit button: off while the form is sending, and saying so when it has a `busyLabel`. */
+export function SubmitButton({
+  submitting,
+  busyLabel,
+  className = "sb-button w-full sm:w-auto",
+  children,
+}: {
+  submitting: boolean;
+  busyLabel?: string;
+  className?: string;
+  children: ReactNode;
+}) {
+  return (
+    <button type="submit" className={className} disabled={submitting}>
+      {submitting && busyLabel ? busyLabel : children}
+    </button>
+  );
+}
+
 /** A new password and the same again (field "confirm"), as every form that sets one asks for them. */
 export function NewPasswordFields<T extends FieldValues>({
   form,

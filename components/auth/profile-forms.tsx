@@ -14,7 +14,7 @@ import {
 } from "@/lib/auth/schemas";
 import { formProblem } from "@/components/form-errors";
 import { useSaveName, useSavePassword } from "@/components/hooks/use-account";
-import { FormMessage, NewPasswordFields, TextField } from "./fields";
+import { FormMessage, NewPasswordFields, SubmitButton, TextField } from "./fields";
 
 export function NameForm({ name }: { name: string }) {
   const router = useRouter();
@@ -48,9 +48,9 @@ export function NameForm({ name }: { name: string }) {
         autoComplete="nickname"
         hint="Shown beside your contributions."
       />
-      <button type="submit" className="sb-button" disabled={formState.isSubmitting}>
+      <SubmitButton submitting={formState.isSubmitting} className="sb-button">
         Save the name
-      </button>
+      </SubmitButton>
     </form>
   );
 }
@@ -97,9 +97,9 @@ export function PasswordForm({ hasPassword }: { hasPassword: boolean }) {
         label="New password"
         hint="At least 10 characters. Other devices are signed out when it changes."
       />
-      <button type="submit" className="sb-button" disabled={formState.isSubmitting}>
+      <SubmitButton submitting={formState.isSubmitting} className="sb-button">
         {hasPassword ? "Change the password" : "Set a password"}
-      </button>
+      </SubmitButton>
     </form>
   );
 }

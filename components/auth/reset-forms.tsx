@@ -5,7 +5,7 @@ import { useState } from "react";
 import { ResetConfirmSchema, ResetRequestSchema, type ResetConfirmInput, type ResetRequestInput } from "@/lib/auth/schemas";
 import { applyFieldErrors, asApiFetchError, formProblem } from "@/components/form-errors";
 import { useCompleteReset, useRequestReset } from "@/components/hooks/use-account";
-import { FormMessage, NewPasswordFields, TextField } from "./fields";
+import { FormMessage, NewPasswordFields, SubmitButton, TextField } from "./fields";
 import { useAccountForm } from "./use-account-form";
 
 /** Step 1: an address; the answer never says whether an account has it. */
@@ -22,9 +22,9 @@ export function ResetRequestForm() {
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {problem && <FormMessage tone="fault">{problem}</FormMessage>}
       <TextField form={fields} idPrefix="rr" name="email" label="E-mail address of the account" type="email" autoComplete="email" />
-      <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? "Sending…" : "Mail me a reset link"}
-      </button>
+      <SubmitButton submitting={formState.isSubmitting} busyLabel="Sending…">
+        Mail me a reset link
+      </SubmitButton>
     </form>
   );
 }
@@ -68,9 +68,9 @@ export function ResetCompleteForm({ token }: { token: string }) {
       )}
       <input type="hidden" {...register("token")} />
       <NewPasswordFields form={fields} idPrefix="rc" name="password" label="New password" hint="At least 10 characters." />
-      <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? "Saving…" : "Set the new password"}
-      </button>
+      <SubmitButton submitting={formState.isSubmitting} busyLabel="Saving…">
+        Set the new password
+      </SubmitButton>
     </form>
   );
 }

@@ -3,7 +3,7 @@
 import { useRouter } from "next/navigation";
 import { applyFieldErrors, asApiFetchError, formProblem } from "@/components/form-errors";
 import { MagicLinkSchema, SignInSchema, type MagicLinkInput, type SignInInput } from "@/lib/auth/schemas";
-import { FormMessage, TextField } from "./fields";
+import { FormMessage, SubmitButton, TextField } from "./fields";
 import { nextAuthPost } from "./next-auth-client";
 import { useAccountForm } from "./use-account-form";
 
@@ -33,9 +33,9 @@ export function PasswordSignInForm({ next }: { next: string }) {
       )}
       <TextField form={fields} idPrefix="pw" name="email" label="E-mail address" type="email" autoComplete="email" />
       <TextField form={fields} idPrefix="pw" name="password" label="Password" type="password" autoComplete="current-password" />
-      <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? "Checking…" : "Sign in"}
-      </button>
+      <SubmitButton submitting={formState.isSubmitting} busyLabel="Checking…">
+        Sign in
+      </SubmitButton>
     </form>
   );
 }
@@ -64,9 +64,9 @@ export function MagicLinkForm({ next }: { next: string }) {
         autoComplete="email"
         hint="We mail you a link that signs you in once, within 15 minutes."
       />
-      <button type="submit" className="sb-button sb-button-quiet w-full sm:w-auto" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? "Sending…" : "Mail me a sign-in link"}
-      </button>
+      <SubmitButton submitting={formState.isSubmitting} className="sb-button sb-button-quiet w-full sm:w-auto" busyLabel="Sending…">
+        Mail me a sign-in link
+      </SubmitButton>
     </form>
   );
 }

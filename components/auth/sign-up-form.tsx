@@ -4,7 +4,7 @@ import Link from "next/link";
 import { applyFieldErrors, asApiFetchError } from "@/components/form-errors";
 import { useSignUp } from "@/components/hooks/use-account";
 import { SignUpSchema, type SignUpInput } from "@/lib/auth/schemas";
-import { FormMessage, NewPasswordFields, TextField } from "./fields";
+import { FormMessage, NewPasswordFields, SubmitButton, TextField } from "./fields";
 import { nextAuthPost } from "./next-auth-client";
 import { useAccountForm } from "./use-account-form";
 
@@ -46,9 +46,9 @@ export function SignUpForm({ next }: { next: string }) {
         hint="For sign-in links and password resets only; never shown."
       />
       <NewPasswordFields form={form} idPrefix="su" name="password" label="Password" hint="At least 10 characters. A few unrelated words work well." />
-      <button type="submit" className="sb-button w-full sm:w-auto" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? "Creating the account…" : "Create my account"}
-      </button>
+      <SubmitButton submitting={formState.isSubmitting} busyLabel="Creating the account…">
+        Create my account
+      </SubmitButton>
       <p className="text-small text-muted">
         Rather not keep a password? <Link href={`/signin?next=${encodeURIComponent(next)}`}>Sign in with an e-mailed link</Link> instead; a new address gets an
         account the same way.

@@ -1,6 +1,6 @@
 import type { ReactNode } from "react";
 import { formatDate, formatFigure, formatOhms, plural } from "@/lib/catalogue/format";
-import type { BoardRevisionDetail } from "@/lib/catalogue/get-board";
+import type { BoardRevisionDetail } from "@/lib/catalogue/board-facts";
 
 const Unknown = () => <span className="sb-unknown">unknown</span>;
 

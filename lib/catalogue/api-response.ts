@@ -1,5 +1,5 @@
 import { badRequest, notFound } from "@/lib/http/errors";
-import { boardFacts } from "./board-facts";
+import { boardFacts, revisionDetail } from "./board-facts";
 import { getBoardBySlug, type BoardDetail } from "./get-board";
 import { listBoards, type CataloguePage, type CatalogueRow } from "./list-boards";
 import { catalogueQueryString, parseCatalogueParams, type CatalogueParams } from "./search-params";
@@ -55,24 +55,7 @@ function boardDetailResponse(board: BoardDetail): BoardDetailResponse {
     description: board.description,
     manufacturer: { slug: board.manufacturer.slug, name: board.manufacturer.name, website: board.manufacturer.website },
     aliases: board.aliases,
-    revisions: board.revisions.map((r) => ({
-      id: r.id,
-      label: r.label,
-      position: r.position,
-      releasedOn: r.releasedOn,
-      dividerTopOhms: r.dividerTopOhms,
-      dividerBottomOhms: r.dividerBottomOhms,
-      dividerRatio: r.dividerRatio,
-      currentSensor: r.currentSensor,
-      shuntMilliohms: r.shuntMilliohms,
-      amplifierGain: r.amplifierGain,
-      hallMvPerAmp: r.hallMvPerAmp,
-      sensitivityMvPerAmp: r.sensitivityMvPerAmp,
-      adcBits: r.adcBits,
-      adcReferenceVolts: r.adcReferenceVolts,
-      notes: r.notes,
-      approvedCount: r.approvedCount,
-    })),
+    revisions: board.revisions.map((r) => revisionDetail(r, r)),
     links: boardLinks(board.slug),
   };
 }

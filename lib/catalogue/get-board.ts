@@ -1,29 +1,7 @@
 import { fn, col } from "sequelize";
 import { revisionDividerRatio, revisionSensitivityMvPerAmp } from "@/lib/calibration/units";
 import { BoardAlias, BoardModel, BoardRevision, Manufacturer, Submission, db } from "@/models";
-import type { CurrentSensorKind } from "@/lib/vocabulary";
-import { boardFacts, type BoardFacts } from "./board-facts";
-
-export type BoardRevisionDetail = {
-  id: number;
-  label: string;
-  position: number;
-  releasedOn: string | null;
-  dividerTopOhms: number | null;
-  dividerBottomOhms: number | null;
-  /** Pack volts per ADC-pin volt, from the two resistors; null when either is unknown. */
-  dividerRatio: number | null;
-  currentSensor: CurrentSensorKind | null;
-  shuntMilliohms: number | null;
-  amplifierGain: number | null;
-  hallMvPerAmp: number | null;
-  /** Sensor output in mV per amp (shunt × gain, or the Hall figure); null when unknown. */
-  sensitivityMvPerAmp: number | null;
-  adcBits: number | null;
-  adcReferenceVolts: number | null;
-  notes: string | null;
-  approvedCount: number;
-};
+import { boardFacts, revisionDetail, type BoardFacts, type BoardRevisionDetail } from "./board-facts";
 
 export type BoardDetail = { id: number } & BoardFacts & {
     description: string | null;
@@ -75,23 +53,12 @@ export async function getBoardBySlug(slug: string): Promise<BoardDetail | null> 
       website: board.manufacturer!.website,
     },
     aliases: (board.aliases ?? []).map((a) => a.alias),
-    revisions: revisions.map((r) => ({
-      id: r.id,
-      label: r.label,
-      position: r.position,
-      releasedOn: r.releasedOn,
-      dividerTopOhms: r.dividerTopOhms,
-      dividerBottomOhms: r.dividerBottomOhms,
-      dividerRatio: revisionDividerRatio(r),
-      currentSensor: r.currentSensor,
-      shuntMilliohms: r.shuntMilliohms,
-      amplifierGain: r.amplifierGain,
-      hallMvPerAmp: r.hallMvPerAmp,
-      sensitivityMvPerAmp: revisionSensitivityMvPerAmp(r),
-      adcBits: r.adcBits,
-      adcReferenceVolts: r.adcReferenceVolts,
-      notes: r.notes,
-      approvedCount: approvedByRevision.get(r.id) ?? 0,
-    })),
+    revisions: revisions.map((r) =>
+      revisionDetail(r, {
+        dividerRatio: revisionDividerRatio(r),
+        sensitivityMvPerAmp: revisionSensitivityMvPerAmp(r),
+        approvedCount: approvedByRevision.get(r.id) ?? 0,
+      }),
+    ),
   };
 }

@@ -1,4 +1,5 @@
 import { QueryTypes } from "sequelize";
+import { whereOf } from "@/lib/db/where";
 import { db } from "@/models";
 import type { BoardFacts } from "./board-facts";
 import type { CatalogueParams, CatalogueSort } from "./search-params";
@@ -75,15 +76,13 @@ const MATCHED_CTE = `
 export async function listBoards(params: CatalogueParams): Promise<CataloguePage> {
   const sequelize = db();
   const bind: Record<string, unknown> = {};
-  const where: string[] = [];
-  if (params.kind) {
-    where.push("bm.kind = $kind");
-    bind.kind = params.kind;
-  }
-  if (params.mounting) {
-    where.push("bm.mounting_pattern = $mounting");
-    bind.mounting = params.mounting;
-  }
+  const whereSql = whereOf(
+    [
+      ["bm.kind = $kind", "kind", params.kind],
+      ["bm.mounting_pattern = $mounting", "mounting", params.mounting],
+    ],
+    bind,
+  );
   const searching = params.q !== undefined && params.q !== "";
   if (searching) {
     bind.q = params.q;
@@ -93,7 +92,6 @@ export async function listBoards(params: CatalogueParams): Promise<CataloguePage
 
   const cte = searching ? MATCHED_CTE : "";
   const joinMatched = searching ? "JOIN matched ON matched.board_model_id = bm.id" : "";
-  const whereSql = where.length ? `WHERE ${where.join(" AND ")}` : "";
 
   const countSql = `${cte} SELECT count(*) AS total FROM board_models bm ${joinMatched} ${whereSql}`;
   const pageSql = `${cte}

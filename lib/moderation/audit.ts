@@ -1,6 +1,7 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
 import { pageParam, pageSizeParam, parseQueryOrRefuse, wholeNumberParam } from "@/lib/http/query";
+import { whereOf } from "@/lib/db/where";
 import { AuditEvent, db } from "@/models";
 import { ACTION_LABELS, AUDIT_ACTIONS, type AuditAction, type AuditEntityType, type Role, type SubmissionStatus } from "@/lib/vocabulary";
 
@@ -135,21 +136,15 @@ export type AuditPage = { events: AuditEventView[]; page: number; pageSize: numb
  */
 export async function listAuditEvents(query: Partial<AuditQuery> = {}): Promise<AuditPage> {
   const q = AuditQuerySchema.parse(query);
-  const where: string[] = [];
   const replacements: Record<string, unknown> = { limit: q.pageSize, offset: (q.page - 1) * q.pageSize };
-  if (q.action) {
-    where.push("e.action = :action");
-    replacements.action = q.action;
-  }
-  if (q.submission) {
-    where.push("e.submission_id = :submission");
-    replacements.submission = q.submission;
-  }
-  if (q.user) {
-    where.push("(e.actor_id = :user OR e.target_user_id = :user)");
-    replacements.user = q.user;
-  }
-  const whereSql = where.length ? `WHERE ${where.join(" AND ")}` : "";
+  const whereSql = whereOf(
+    [
+      ["e.action = :action", "action", q.action],
+      ["e.submission_id = :submission", "submission", q.submission],
+      ["(e.actor_id = :user OR e.target_user_id = :user)", "user", q.user],
+    ],
+    replacements,
+  );
   const sequelize = db();
   const [rows, [{ total }]] = await Promise.all([
     sequelize.query<EventRow>(`${EVENT_SELECT} ${whereSql} ORDER BY e.at DESC, e.id DESC LIMIT :limit OFFSET :offset`, {

@@ -156,21 +156,15 @@ describe("bench worksheet: field-level errors", () => {
     expect(r.ok).toBe(false);
     return r.ok ? [] : r.errors;
   };
+  /** The first error for these points read at scale 250, offset 0 (amps as [measured, reported]). */
+  const firstErrorAt250 = (...points: [number, number][]) =>
+    errorsOf({ scaleUsed: 250, offsetUsed: 0, points: points.map(([measuredAmps, reportedAmps]) => ({ measuredAmps, reportedAmps })) })[0];
 
   it("at least 2 points, at distinct measured currents", () => {
     expect(errorsOf({ scaleUsed: 250, offsetUsed: 0, points: [{ measuredAmps: 5, reportedAmps: 5 }] })).toEqual([
       { field: "points", message: expect.stringMatching(/at least 2/) },
     ]);
-    expect(
-      errorsOf({
-        scaleUsed: 250,
-        offsetUsed: 0,
-        points: [
-          { measuredAmps: 5, reportedAmps: 5 },
-          { measuredAmps: 5, reportedAmps: 6 },
-        ],
-      })[0].message,
-    ).toMatch(/different clamp-meter currents/);
+    expect(firstErrorAt250([5, 5], [5, 6]).message).toMatch(/different clamp-meter currents/);
   });
 
   it("negative clamp-meter current, missing reported current, a fractional scale", () => {
@@ -179,25 +173,7 @@ describe("bench worksheet: field-level errors", () => {
   });
 
   it("a gain outside 0.2–5 cannot be the same current (our own rule, limits.ts)", () => {
-    expect(
-      errorsOf({
-        scaleUsed: 250,
-        offsetUsed: 0,
-        points: [
-          { measuredAmps: 1, reportedAmps: 10 },
-          { measuredAmps: 2, reportedAmps: 70 },
-        ],
-      })[0].message,
-    ).toMatch(/outside 0\.2–5/);
-    expect(
-      errorsOf({
-        scaleUsed: 250,
-        offsetUsed: 0,
-        points: [
-          { measuredAmps: 1, reportedAmps: 10 },
-          { measuredAmps: 2, reportedAmps: 5 },
-        ],
-      })[0].field,
-    ).toBe("points");
+    expect(firstErrorAt250([1, 10], [2, 70]).message).toMatch(/outside 0\.2–5/);
+    expect(firstErrorAt250([1, 10], [2, 5]).field).toBe("points");
   });
 });

@@ -1,7 +1,8 @@
 import type { Transaction } from "sequelize";
 import type { EvidenceSummary } from "@/lib/calibration/evidence";
 import { BoardModel, BoardRevision, FirmwareFamily, Submission, SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading, db } from "@/models";
-import { EDITABLE_STATUSES, type Method, type SensingSource, type SubmissionStatus } from "@/lib/vocabulary";
+import { EDITABLE_STATUSES, type SubmissionStatus } from "@/lib/vocabulary";
+import { claimedValues, type ClaimedValues } from "./claimed";
 import { evidenceFromRows } from "./evidence-rows";
 import type { SubmissionPayload } from "./schema";
 
@@ -9,7 +10,7 @@ import type { SubmissionPayload } from "./schema";
 // edit form's starting values all come from here. Mapped field by field, so a column added to the
 // table does not silently become part of the API.
 
-export type SubmissionView = {
+export type SubmissionView = ClaimedValues & {
   id: number;
   status: SubmissionStatus;
   /** Send it back with PATCH: an edit based on an older version is refused with 409. */
@@ -20,13 +21,6 @@ export type SubmissionView = {
   board: { slug: string; name: string; minCells: number; maxCells: number };
   revision: { id: number; label: string };
   family: { id: number; slug: string; name: string };
-  firmwareVersion: string;
-  sensingSource: SensingSource;
-  method: Method;
-  voltageScale: number | null;
-  currentScale: number | null;
-  currentOffset: number | null;
-  notes: string | null;
   voltageCheck: SubmissionPayload["voltageCheck"];
   cycles: SubmissionPayload["cycles"];
   bench: SubmissionPayload["bench"];
@@ -68,13 +62,7 @@ function toView(s: Loaded): SubmissionView {
     board: { slug: board.slug, name: board.name, minCells: board.minCells, maxCells: board.maxCells },
     revision: { id: s.boardRevision.id, label: s.boardRevision.label },
     family: { id: s.firmwareFamily.id, slug: s.firmwareFamily.slug, name: s.firmwareFamily.name },
-    firmwareVersion: s.firmwareVersion,
-    sensingSource: s.sensingSource,
-    method: s.method,
-    voltageScale: s.voltageScale,
-    currentScale: s.currentScale,
-    currentOffset: s.currentOffset,
-    notes: s.notes,
+    ...claimedValues(s),
     ...evidenceFromRows(s),
     evidence: { mismatch: s.evidenceMismatch, summary: s.evidenceSummary },
     moderatorNote: s.moderatorNote,

@@ -1,5 +1,6 @@
 import { impliedCurrentScaleFromCycle } from "@/lib/calibration/evidence";
 import { roundSetting, sensitivityFromCurrentScaleSetting } from "@/lib/calibration/units";
+import { claimedValues } from "@/lib/submissions/claimed";
 import { evidenceVerdict } from "@/lib/submissions/evidence-rows";
 import type { SubmissionPayload } from "@/lib/submissions/schema";
 import type { BoardKind } from "@/lib/vocabulary";
@@ -203,13 +204,7 @@ export function demoPayload(s: DemoSubmission, evidence: DemoEvidence): Submissi
   return {
     boardRevisionId: 1,
     firmwareFamilyId: 1,
-    firmwareVersion: s.firmwareVersion,
-    sensingSource: s.sensingSource,
-    method: s.method,
-    voltageScale: s.voltageScale,
-    currentScale: s.currentScale,
-    currentOffset: s.currentOffset,
-    notes: s.notes,
+    ...claimedValues(s),
     photoIds: [],
     ...evidence,
   };

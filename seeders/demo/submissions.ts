@@ -1,5 +1,6 @@
 import type { EvidenceSummary } from "@/lib/calibration/evidence";
 import { roundSetting } from "@/lib/calibration/units";
+import type { ClaimedValues } from "@/lib/submissions/claimed";
 import { METHOD_EVIDENCE } from "@/lib/submissions/schema";
 import type { BoardKind, Method, SensingSource, SubmissionStatus } from "@/lib/vocabulary";
 import { DEMO_ACCOUNTS } from "./accounts";
@@ -19,18 +20,11 @@ import { SUBMISSION_WINDOW_MONTHS, daysAfter, monthsBefore, monthsBetween } from
 /** Why a value is deliberately wrong; null for an honest (if noisy) measurement. */
 type Anomaly = "decimal_slip" | "other_board" | "wrong_family" | "firmware_default";
 
-export type DemoSubmission = {
+export type DemoSubmission = ClaimedValues & {
   revisionKey: string;
   familySlug: string;
   contributorId: string;
-  firmwareVersion: string;
-  sensingSource: SensingSource;
-  method: Method;
-  voltageScale: number | null;
-  currentScale: number | null;
-  currentOffset: number | null;
   status: SubmissionStatus;
-  notes: string | null;
   createdAt: Date;
   updatedAt: Date;
   anomaly: Anomaly | null;

@@ -48,89 +48,55 @@ beforeAll(async () => {
 const pending = () => insertSubmission(setup.fx, { currentScale: 401 });
 let people = 0;
 
+/** A route case whose allowed call answers 200 (every one here does). */
+const routeCase = (name: string, handler: unknown, minimum: Case["minimum"], prepare: Case["prepare"]): Case => ({
+  name,
+  handler: handler as RouteHandler,
+  minimum,
+  okStatus: 200,
+  prepare,
+});
+const plainGet = (path: string) => async () => ({ method: "GET", path });
+
 const CASES: Case[] = [
-  {
-    name: "GET /moderation/queue",
-    handler: queueRoute.GET as RouteHandler,
-    minimum: "moderator",
-    okStatus: 200,
-    prepare: async () => ({ method: "GET", path: "/api/v1/moderation/queue" }),
-  },
-  {
-    name: "GET /moderation/events",
-    handler: eventsRoute.GET as RouteHandler,
-    minimum: "moderator",
-    okStatus: 200,
-    prepare: async () => ({ method: "GET", path: "/api/v1/moderation/events" }),
-  },
-  {
-    name: "GET /moderation/submissions/{id}",
-    handler: reviewRoute.GET as RouteHandler,
-    minimum: "moderator",
-    okStatus: 200,
-    prepare: async () => {
-      const id = String(await pending());
-      return { method: "GET", path: `/api/v1/moderation/submissions/${id}`, params: { id } };
-    },
-  },
+  routeCase("GET /moderation/queue", queueRoute.GET, "moderator", plainGet("/api/v1/moderation/queue")),
+  routeCase("GET /moderation/events", eventsRoute.GET, "moderator", plainGet("/api/v1/moderation/events")),
+  routeCase("GET /moderation/submissions/{id}", reviewRoute.GET, "moderator", async () => {
+    const id = String(await pending());
+    return { method: "GET", path: `/api/v1/moderation/submissions/${id}`, params: { id } };
+  }),
   ...(
     [
       ["approve", approveRoute.POST, { version: 0 }],
       ["reject", rejectRoute.POST, { version: 0, reason: "Too far off." }],
       ["request-changes", requestChangesRoute.POST, { version: 0, message: "Add a photo." }],
     ] as const
-  ).map(([segment, handler, body]): Case => ({
-    name: `POST /moderation/submissions/{id}/${segment}`,
-    handler: handler as RouteHandler,
-    minimum: "moderator",
-    okStatus: 200,
-    prepare: async () => {
+  ).map(([segment, handler, body]) =>
+    routeCase(`POST /moderation/submissions/{id}/${segment}`, handler, "moderator", async () => {
       const id = String(await pending());
       return { method: "POST", path: `/api/v1/moderation/submissions/${id}/${segment}`, params: { id }, body };
-    },
+    }),
+  ),
+  routeCase("POST /moderation/bulk-approve", bulkRoute.POST, "moderator", async () => ({
+    method: "POST",
+    path: "/api/v1/moderation/bulk-approve",
+    body: { items: [{ id: await pending(), version: 0 }] },
   })),
-  {
-    name: "POST /moderation/bulk-approve",
-    handler: bulkRoute.POST as RouteHandler,
-    minimum: "moderator",
-    okStatus: 200,
-    prepare: async () => ({ method: "POST", path: "/api/v1/moderation/bulk-approve", body: { items: [{ id: await pending(), version: 0 }] } }),
-  },
-  {
-    name: "POST /admin/events/{id}/revert",
-    handler: revertRoute.POST as RouteHandler,
-    minimum: "admin",
-    okStatus: 200,
-    prepare: async () => {
-      const moderator = await testAccount("moderator");
-      const { event } = await approveSubmission(moderator, await pending(), { version: 0 });
-      return { method: "POST", path: `/api/v1/admin/events/${event.id}/revert`, params: { id: String(event.id) }, body: { reason: "Checking the matrix." } };
-    },
-  },
-  {
-    name: "GET /admin/users",
-    handler: usersRoute.GET as RouteHandler,
-    minimum: "admin",
-    okStatus: 200,
-    prepare: async () => ({ method: "GET", path: "/api/v1/admin/users" }),
-  },
-  {
-    name: "GET /admin/users/{id}",
-    handler: userRoute.GET as RouteHandler,
-    minimum: "admin",
-    okStatus: 200,
-    prepare: async () => ({ method: "GET", path: `/api/v1/admin/users/${setup.fx.userId}`, params: { id: setup.fx.userId } }),
-  },
-  {
-    name: "PATCH /admin/users/{id}",
-    handler: userRoute.PATCH as RouteHandler,
-    minimum: "admin",
-    okStatus: 200,
-    prepare: async () => {
-      const id = await insertPerson(`matrix-${++people}@example.test`);
-      return { method: "PATCH", path: `/api/v1/admin/users/${id}`, params: { id }, body: { trusted: true } };
-    },
-  },
+  routeCase("POST /admin/events/{id}/revert", revertRoute.POST, "admin", async () => {
+    const moderator = await testAccount("moderator");
+    const { event } = await approveSubmission(moderator, await pending(), { version: 0 });
+    return { method: "POST", path: `/api/v1/admin/events/${event.id}/revert`, params: { id: String(event.id) }, body: { reason: "Checking the matrix." } };
+  }),
+  routeCase("GET /admin/users", usersRoute.GET, "admin", plainGet("/api/v1/admin/users")),
+  routeCase("GET /admin/users/{id}", userRoute.GET, "admin", async () => ({
+    method: "GET",
+    path: `/api/v1/admin/users/${setup.fx.userId}`,
+    params: { id: setup.fx.userId },
+  })),
+  routeCase("PATCH /admin/users/{id}", userRoute.PATCH, "admin", async () => {
+    const id = await insertPerson(`matrix-${++people}@example.test`);
+    return { method: "PATCH", path: `/api/v1/admin/users/${id}`, params: { id }, body: { trusted: true } };
+  }),
 ];
 
 function allowed(caller: Caller, minimum: Case["minimum"]): boolean {

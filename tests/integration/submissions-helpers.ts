@@ -5,6 +5,7 @@ import { POST as postRoute } from "@/app/api/v1/submissions/route";
 import type { SubmissionInput } from "@/lib/submissions/schema";
 import { db } from "@/models";
 import { callRoute, withCookie } from "@/tests/support/auth";
+import { flyRechargeBody } from "@/tests/support/submission-body";
 
 // Shared by the submissions-*.test.ts files: a real target in the seeded demo database, a valid
 // body for it, the two routes called in process, and the row counts a refused request must leave.
@@ -28,24 +29,7 @@ export async function pickTarget(): Promise<Target> {
 
 /** A valid fly-and-recharge submission for the target; the implied scale is 400 × 1200/1300 ≈ 369.2. */
 export function validBody(t: Target, overrides: Partial<SubmissionInput> = {}): SubmissionInput {
-  return {
-    boardRevisionId: t.revisionId,
-    firmwareFamilyId: t.familyId,
-    firmwareVersion: "4.5.0",
-    sensingSource: "board_adc",
-    method: "fly_recharge",
-    voltageScale: null,
-    currentScale: 369,
-    currentOffset: null,
-    notes: "Three packs, props off for setup.",
-    voltageCheck: null,
-    cycles: [
-      { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
-      { scaleUsed: 400, reportedMah: 1100, chargedMah: 1192, ratedMah: 1500, cells: 4 },
-    ],
-    bench: null,
-    ...overrides,
-  };
+  return flyRechargeBody({ boardRevisionId: t.revisionId, firmwareFamilyId: t.familyId }, overrides);
 }
 
 export function postRequest(body: unknown, cookie: string, key?: string, raw = false): Request {

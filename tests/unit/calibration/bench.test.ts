@@ -11,6 +11,13 @@ import { ANSCOMBE, OHM, ROUNDING_SIDE, SIMPLE_STATISTICS } from "./sources";
 
 const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // mV/A + mV, A/V + mA, mV/A + mV
 
+/** A bench input read at scale 250, offset 0, with these points as [measured, reported] amps. */
+const at250 = (...points: [number, number][]) => ({
+  scaleUsed: 250,
+  offsetUsed: 0,
+  points: points.map(([measuredAmps, reportedAmps]) => ({ measuredAmps, reportedAmps })),
+});
+
 describe(`bench fit against ${ANSCOMBE}, data from the npm package vega-datasets`, () => {
   // vega-datasets exports only "." (ESM, fetching from a CDN), not even its package.json: resolve
   // the package's build entry and read the JSON beside it from disk
@@ -117,35 +124,13 @@ describe(`bench worksheet on a simulated sensor — ${OHM}; rounding: ${ROUNDING
   );
 
   it("two points fit exactly, and the worksheet says a third would show linearity", () => {
-    const r = benchWorksheet(
-      {
-        scaleUsed: 250,
-        offsetUsed: 0,
-        points: [
-          { measuredAmps: 5, reportedAmps: 5.2 },
-          { measuredAmps: 20, reportedAmps: 20.5 },
-        ],
-      },
-      VORNEL,
-    );
+    const r = benchWorksheet(at250([5, 5.2], [20, 20.5]), VORNEL);
     expect(r.ok).toBe(true);
     expect(r.warnings[0].message).toMatch(/add a third/);
   });
 
   it("carries the props-on cautions (model-flying club rules; smoke stopper common practice)", () => {
-    const r = unwrapWorksheet(
-      benchWorksheet(
-        {
-          scaleUsed: 250,
-          offsetUsed: 0,
-          points: [
-            { measuredAmps: 5, reportedAmps: 5 },
-            { measuredAmps: 20, reportedAmps: 20 },
-          ],
-        },
-        VORNEL,
-      ),
-    );
+    const r = unwrapWorksheet(benchWorksheet(at250([5, 5], [20, 20]), VORNEL));
     expect(r.cautions.map((c) => c.text).join(" ")).toMatch(/Remove the props.*eye protection.*Unplug the battery/s);
   });
 });
@@ -156,21 +141,11 @@ describe("bench worksheet: field-level errors", () => {
     expect(r.ok).toBe(false);
     return r.ok ? [] : r.errors;
   };
+  const firstErrorAt250 = (...points: [number, number][]) => errorsOf(at250(...points))[0];
 
   it("at least 2 points, at distinct measured currents", () => {
-    expect(errorsOf({ scaleUsed: 250, offsetUsed: 0, points: [{ measuredAmps: 5, reportedAmps: 5 }] })).toEqual([
-      { field: "points", message: expect.stringMatching(/at least 2/) },
-    ]);
-    expect(
-      errorsOf({
-        scaleUsed: 250,
-        offsetUsed: 0,
-        points: [
-          { measuredAmps: 5, reportedAmps: 5 },
-          { measuredAmps: 5, reportedAmps: 6 },
-        ],
-      })[0].message,
-    ).toMatch(/different clamp-meter currents/);
+    expect(errorsOf(at250([5, 5]))).toEqual([{ field: "points", message: expect.stringMatching(/at least 2/) }]);
+    expect(firstErrorAt250([5, 5], [5, 6]).message).toMatch(/different clamp-meter currents/);
   });
 
   it("negative clamp-meter current, missing reported current, a fractional scale", () => {
@@ -179,25 +154,7 @@ describe("bench worksheet: field-level errors", () => {
   });
 
   it("a gain outside 0.2–5 cannot be the same current (our own rule, limits.ts)", () => {
-    expect(
-      errorsOf({
-        scaleUsed: 250,
-        offsetUsed: 0,
-        points: [
-          { measuredAmps: 1, reportedAmps: 10 },
-          { measuredAmps: 2, reportedAmps: 70 },
-        ],
-      })[0].message,
-    ).toMatch(/outside 0\.2–5/);
-    expect(
-      errorsOf({
-        scaleUsed: 250,
-        offsetUsed: 0,
-        points: [
-          { measuredAmps: 1, reportedAmps: 10 },
-          { measuredAmps: 2, reportedAmps: 5 },
-        ],
-      })[0].field,
-    ).toBe("points");
+    expect(firstErrorAt250([1, 10], [2, 70]).message).toMatch(/outside 0\.2–5/);
+    expect(firstErrorAt250([1, 10], [2, 5]).field).toBe("points");
   });
 });

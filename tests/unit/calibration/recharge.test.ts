@@ -5,9 +5,13 @@ import { LIPO_BMFA, LIPO_UW, RECHARGE_RULE, ROUNDING_SIDE } from "./sources";
 
 const [VORNEL, SKELMAR] = DEMO_FIRMWARE_FAMILIES; // mV/A (inverse), A/V (proportional)
 
+type Cycles = Parameters<typeof rechargeWorksheet>[0]["cycles"];
+/** The worksheet of these cycles under the mV/A family, unwrapped (throws if it is refused). */
+const vornelSheet = (cycles: Cycles) => unwrapWorksheet(rechargeWorksheet({ cycles }, VORNEL));
+
 describe(`fly-and-recharge worksheet — ${RECHARGE_RULE}`, () => {
   it("inverse unit (mV/A): next = scale × reported ÷ charged", () => {
-    const r = unwrapWorksheet(rechargeWorksheet({ cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }] }, VORNEL));
+    const r = vornelSheet([{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }]);
     expect(r.next.exact).toBeCloseTo((400 * 1200) / 1300, 12);
     expect(r.iterations[0]).toMatchObject({ ratio: 1200 / 1300, usable: true });
     expect(r.iterations[0].errorPercent).toBeCloseTo((1200 / 1300 - 1) * 100, 12);
@@ -20,7 +24,7 @@ describe(`fly-and-recharge worksheet — ${RECHARGE_RULE}`, () => {
 
   it(`rounds on the side that over-reports — ${ROUNDING_SIDE}`, () => {
     // inverse: 400 × 1200 / 1300 = 369.23 → floor 369 makes the displayed current larger
-    const inv = unwrapWorksheet(rechargeWorksheet({ cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }] }, VORNEL));
+    const inv = vornelSheet([{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }]);
     expect(inv.next).toMatchObject({ down: { setting: 369, reads: "high" }, up: { setting: 370, reads: "low" }, safeSide: "down" });
     expect(inv.next.down.readingError).toBeCloseTo((400 * 1200) / 1300 / 369 - 1, 12);
     expect(inv.recommendedSetting).toBe(369);
@@ -37,44 +41,30 @@ describe(`fly-and-recharge worksheet — ${RECHARGE_RULE}`, () => {
       { scaleUsed: 320, reportedMah: 1010, chargedMah: 1000 }, // exactly 1 % over
       { scaleUsed: 320, reportedMah: 1200, chargedMah: 1195 },
     ];
-    const done = unwrapWorksheet(rechargeWorksheet({ cycles }, VORNEL));
+    const done = vornelSheet(cycles);
     expect(done.stop).toMatchObject({ met: true, cycles: [1, 2] });
     expect(done.recommendedSetting).toBe(320); // on the safe side already: keep it
     expect(done.stop.message).toMatch(/Keep 320/);
-    const notYet = unwrapWorksheet(rechargeWorksheet({ cycles: cycles.slice(0, 2) }, VORNEL));
+    const notYet = vornelSheet(cycles.slice(0, 2));
     expect(notYet.stop.met).toBe(false);
-    const drifting = unwrapWorksheet(rechargeWorksheet({ cycles: [cycles[1], { scaleUsed: 320, reportedMah: 1180, chargedMah: 1200 }] }, VORNEL));
+    const drifting = vornelSheet([cycles[1], { scaleUsed: 320, reportedMah: 1180, chargedMah: 1200 }]);
     expect(drifting.stop.met).toBe(false);
   });
 
   it("met but under-reporting: the safe rounding rather than the scale in force", () => {
-    const r = unwrapWorksheet(
-      rechargeWorksheet(
-        {
-          cycles: [
-            { scaleUsed: 320, reportedMah: 995, chargedMah: 1000 },
-            { scaleUsed: 320, reportedMah: 993, chargedMah: 1000 },
-          ],
-        },
-        VORNEL,
-      ),
-    );
+    const r = vornelSheet([
+      { scaleUsed: 320, reportedMah: 995, chargedMah: 1000 },
+      { scaleUsed: 320, reportedMah: 993, chargedMah: 1000 },
+    ]);
     expect(r.stop.met).toBe(true);
     expect(r.recommendedSetting).toBe(Math.floor(320 * 0.993)); // 317: over-reports
   });
 
   it("convergence data for a plot: scale, ratio and error per iteration", () => {
-    const r = unwrapWorksheet(
-      rechargeWorksheet(
-        {
-          cycles: [
-            { scaleUsed: 400, reportedMah: 1000, chargedMah: 1250 },
-            { scaleUsed: 320, reportedMah: 1190, chargedMah: 1200 },
-          ],
-        },
-        VORNEL,
-      ),
-    );
+    const r = vornelSheet([
+      { scaleUsed: 400, reportedMah: 1000, chargedMah: 1250 },
+      { scaleUsed: 320, reportedMah: 1190, chargedMah: 1200 },
+    ]);
     expect(r.convergence.map((c) => [c.scale, Number(c.errorPercent.toFixed(3))])).toEqual([
       [400, -20],
       [320, -0.833],
@@ -82,7 +72,7 @@ describe(`fly-and-recharge worksheet — ${RECHARGE_RULE}`, () => {
   });
 
   it(`carries the charging cautions (${LIPO_BMFA}; ${LIPO_UW})`, () => {
-    const r = unwrapWorksheet(rechargeWorksheet({ cycles: [{ scaleUsed: 400, reportedMah: 1000, chargedMah: 1000 }] }, VORNEL));
+    const r = vornelSheet([{ scaleUsed: 400, reportedMah: 1000, chargedMah: 1000 }]);
     expect(r.cautions.map((c) => c.text).join(" ")).toMatch(/unattended.*fire-retardant.*swollen/s);
   });
 });

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { fieldErrorsOf as fieldErrorsByPath } from "@/lib/http/field-errors";
 import { submissionSchema, type SubmissionInput } from "@/lib/submissions/schema";
+import { flyRechargeBody } from "@/tests/support/submission-body";
 
 // The one schema of a contribution, as the form and the API use it. Each refusal must land on the
 // field the form shows it beside, keyed by the same dotted path the API returns.
@@ -10,23 +11,16 @@ const family = DEMO_FIRMWARE_FAMILIES[0]; // V/V in 0.1, mV/A in 0.1, offset in 
 const board = { minCells: 3, maxCells: 6 };
 const schema = submissionSchema({ family, board });
 
-const base: SubmissionInput = {
-  boardRevisionId: 1,
-  firmwareFamilyId: 1,
-  firmwareVersion: "4.5.0",
-  sensingSource: "board_adc",
-  method: "fly_recharge",
-  voltageScale: null,
-  currentScale: 369,
-  currentOffset: null,
-  notes: "",
-  voltageCheck: null,
-  cycles: [
-    { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
-    { scaleUsed: 369, reportedMah: 1290, chargedMah: 1300, ratedMah: 1500, cells: 4 },
-  ],
-  bench: null,
-};
+const base: SubmissionInput = flyRechargeBody(
+  { boardRevisionId: 1, firmwareFamilyId: 1 },
+  {
+    notes: "",
+    cycles: [
+      { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
+      { scaleUsed: 369, reportedMah: 1290, chargedMah: 1300, ratedMah: 1500, cells: 4 },
+    ],
+  },
+);
 
 function errorsOf(input: unknown, s = schema): Record<string, string[]> {
   const parsed = s.safeParse(input);

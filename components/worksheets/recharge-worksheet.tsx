@@ -191,9 +191,7 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
           <summary className="font-semibold">Charging cautions</summary>
           <ul className="mt-2 list-disc space-y-1 pl-5">
             {(r?.cautions ?? CHARGING_CAUTIONS).map((c) => (
-              <li key={c.text}>
-                {c.text} <span className="text-muted">({c.source})</span>
-              </li>
+              <li key={c.text}>{c.text}</li>
             ))}
           </ul>
         </details>

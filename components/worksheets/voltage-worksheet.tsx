@@ -97,9 +97,7 @@ export function VoltageSheet({ initial }: { initial: VoltageSheetView }) {
             <span className="font-mono">{r.rounding.down.setting}</span>, up <span className="font-mono">{r.rounding.up.setting}</span>; recommended{" "}
             <strong className="font-mono">{r.rounding.recommended.setting}</strong>. {r.rounding.why}
           </p>
-          <p className="text-small text-muted">
-            Tolerance ±{r.tolerance.relative * 100} % ({r.tolerance.source}).
-          </p>
+          <p className="text-small text-muted">Tolerance ±{r.tolerance.relative * 100} %.</p>
         </section>
       )}
       <Warnings items={sheet.warnings} />

@@ -92,7 +92,7 @@ export function packLandingGuide(input: PackLandingGuideInput): WorksheetResult<
   if (estimate != null && estimate > (1 + ESTIMATE_OVER_RATED_WARNING) * ratedMah) {
     warnings.push({
       field: "chargeLog",
-      message: `After full flights the charger puts back ${formatFigure(estimate, 0)} mAh, more than ${ESTIMATE_OVER_RATED_WARNING * 100} % over the ${ratedMah} mAh rating (${SOURCES.ownRule}): check the charger's count; the rating is used`,
+      message: `After full flights the charger puts back ${formatFigure(estimate, 0)} mAh, more than ${ESTIMATE_OVER_RATED_WARNING * 100} % over the ${ratedMah} mAh rating: check the charger's count; the rating is used`,
     });
   }
   if (cycleCount != null && cycleCount < log.length) {

@@ -35,13 +35,13 @@ export type SettingRoundings = {
   recommended: RoundedSetting;
 };
 
-/** The one-sentence why beside a recommended current-scale rounding. */
+/** The one-sentence why beside a recommended current-scale rounding (common practice, no source). */
 export const CURRENT_ROUNDING_WHY =
-  "Rounded so the display over-reports mAh: the consumed-mAh warning then comes early, and the pilot lands early rather than late (common practice, no source).";
+  "Rounded so the display over-reports mAh: the used-capacity alert then comes early, and the pilot lands early rather than late.";
 
-/** The same for the voltage scale, whose safe side is reading low. */
+/** The same for the voltage scale, whose safe side is reading low (our own rule, by analogy with the mAh rule). */
 export const VOLTAGE_ROUNDING_WHY =
-  "Rounded so the display reads slightly low: the low-voltage warning then comes early, and the pilot lands early rather than late (our own rule, by analogy with the mAh rule, common practice, no source).";
+  "Rounded so the display reads slightly low: the land-soon voltage then comes early, and the pilot lands early rather than late.";
 
 export type SettingRange = { min: number; max: number };
 

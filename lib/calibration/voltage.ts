@@ -76,7 +76,8 @@ function readingSchema() {
       if (!(Number.isInteger(v.cells) && v.cells >= MIN_CELLS && v.cells <= MAX_CELLS)) return;
       const [lo, hi] = packVoltsRange(v.cells);
       const span = `${formatFigure(lo, 2)}–${formatFigure(hi, 2)} V`;
-      const limits = `${CELL_VOLTS_FLOOR}–${CELL_VOLTS_CEILING} V a cell: ${SOURCES.bmfa} for the floor under load, 4.35 V full HV cells (${SOURCES.vendorsOnly})`;
+      // the floor under load is BMFA safety guidance; 4.35 V full HV cells is the vendors' figure (common practice)
+      const limits = `${CELL_VOLTS_FLOOR}–${CELL_VOLTS_CEILING} V a cell`;
       if (v.measuredVolts > 0 && (v.measuredVolts < lo || v.measuredVolts > hi)) {
         ctx.addIssue({
           code: "custom",
@@ -126,7 +127,7 @@ export function voltageWorksheet(input: VoltageWorksheetInput, family: Worksheet
   if (pairs.length > 1 && spread > 2 * tolerance * implied) {
     warnings.push({
       field: "readings",
-      message: `The pairs disagree by ${formatFigure((100 * spread) / implied, 1)} % among themselves: read the display and the multimeter at the same moment, with the pack at rest and the meter on the main lead (${SOURCES.ownRule})`,
+      message: `The pairs disagree by ${formatFigure((100 * spread) / implied, 1)} % among themselves: read the display and the multimeter at the same moment, with the pack at rest and the meter on the main lead`,
     });
   }
   const rounding = { ...roundBothWays(implied, response, "low", settingRange(family, "voltageScale")), why: VOLTAGE_ROUNDING_WHY };
@@ -148,7 +149,7 @@ export function voltageWorksheet(input: VoltageWorksheetInput, family: Worksheet
   const pct = formatFigure(100 * Math.abs(readingError), 2);
   const dir = readingError >= 0 ? "high" : "low";
   const message = withinTolerance
-    ? `The display reads ${pct} % ${dir}, within ${formatFigure(100 * tolerance, 2)} % (${SOURCES.commonPractice}): keep ${scaleUsed}.`
+    ? `The display reads ${pct} % ${dir}, within ${formatFigure(100 * tolerance, 2)} %: keep ${scaleUsed}.`
     : `The display reads ${pct} % ${dir} (${formatFigure(Math.abs(errorVoltsPerCell), 3)} V a cell): enter ${rounding.recommended.setting}.`;
   return ok(
     {

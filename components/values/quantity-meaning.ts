@@ -7,14 +7,15 @@ import {
   voltageScaleSettingFromRatio,
 } from "@/lib/calibration/units";
 import type { FamilyUnits, QuantityKey } from "@/lib/published/board-values-types";
+import { QUANTITY_LABELS } from "@/lib/vocabulary";
 
 // What a setting stands for physically, in a family's units: the words under the big number.
 // The conversions are lib/calibration/units.ts'; this file only words them.
 
 export const QUANTITY_TITLES: Record<QuantityKey, string> = {
-  voltageScale: "Voltage scale",
-  currentScale: "Current scale",
-  currentOffset: "Current offset",
+  voltageScale: QUANTITY_LABELS.voltage_scale,
+  currentScale: QUANTITY_LABELS.current_scale,
+  currentOffset: QUANTITY_LABELS.current_offset,
 };
 
 /** The hardware figures a revision's parts list gives, when known. */

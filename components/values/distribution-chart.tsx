@@ -1,7 +1,6 @@
 "use client";
 
-import { useSyncExternalStore, type ReactNode } from "react";
-import { CartesianGrid, ReferenceArea, ReferenceLine, Scatter, ScatterChart, Tooltip, XAxis, YAxis, type TooltipContentProps } from "recharts";
+import { useState, type ReactNode } from "react";
 import type { FamilyUnits, QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
 import type { Method } from "@/lib/vocabulary";
 import { niceAxis } from "./axis";
@@ -13,28 +12,15 @@ import { ValuesTable } from "./values-table";
 // a band, flagged outliers a red cross (shape and colour, so colour is never the only cue).
 // Hovering a dot, or tapping it on a phone, shows its setting, method and date. The chart is an
 // image to assistive technology, named and described by the text summary printed under it; the
-// table of all values below it is the way to reach each value without a pointer.
+// table of all values below it is the way to reach each value without a pointer. Plain SVG in a
+// viewBox that scales with its box: no chart library in the page's JavaScript.
 
 type Datum = { t: number; v: number; method: Method; date: string; outlier: boolean };
 
 const DAY = 86_400_000;
-
-// Phones have no hover: there a tap pins the tooltip until the next tap (recharts' click trigger).
-const NO_HOVER = "(hover: none)";
-function subscribeHover(onChange: () => void) {
-  const mq = window.matchMedia(NO_HOVER);
-  mq.addEventListener("change", onChange);
-  return () => mq.removeEventListener("change", onChange);
-}
-const useNoHover = () =>
-  useSyncExternalStore(
-    subscribeHover,
-    () => window.matchMedia(NO_HOVER).matches,
-    () => false,
-  );
-
-/** Both axes are drawn alike: muted tick text on the rule colour. */
-const AXIS_LOOK = { tick: { fill: "var(--sb-muted)", fontSize: 13 }, stroke: "var(--sb-rule)" };
+const W = 360;
+const H = 224;
+const PAD = { left: 52, right: 10, top: 8, bottom: 26 };
 
 function yAxis(q: QuantityValues, data: Datum[]) {
   const ys = [q.median, ...data.map((d) => d.v)];
@@ -79,9 +65,7 @@ function OutlierMark({ cx = 0, cy = 0 }: ShapeProps) {
   );
 }
 
-function PointTooltip({ active, payload, quantity, units }: TooltipContentProps & { quantity: QuantityKey; units: FamilyUnits }) {
-  const d = active ? (payload?.[0]?.payload as Datum | undefined) : undefined;
-  if (!d) return null;
+function PointTooltip({ d, quantity, units }: { d: Datum; quantity: QuantityKey; units: FamilyUnits }) {
   const meaning = settingMeaning(quantity, d.v, units)[0];
   return (
     <div role="status" className="max-w-64 rounded-md border-2 border-rule bg-surface px-3 py-2 text-small shadow-lg" data-testid="value-tooltip">
@@ -108,79 +92,87 @@ function LegendItem({ children, swatch }: { children: string; swatch: ReactNode 
   );
 }
 
+/** Four evenly spaced dates across the domain, labelled by month. */
+function timeTicks([lo, hi]: [number, number]): number[] {
+  return [0, 1, 2, 3].map((i) => lo + ((hi - lo) * (i + 0.5)) / 4);
+}
+
 export function DistributionChart({ quantity, values: q, units }: { quantity: QuantityKey; values: QuantityValues; units: FamilyUnits }) {
-  const noHover = useNoHover();
+  // the point whose tooltip shows: hovered with a mouse, or tapped on a phone until the next tap
+  const [active, setActive] = useState<number | null>(null);
   const data: Datum[] = (q.points ?? []).map((p) => ({ t: Date.parse(p.date), v: p.value, method: p.method, date: p.date, outlier: p.outlier }));
-  const regular = data.filter((d) => !d.outlier);
   const flagged = data.filter((d) => d.outlier);
   const hasCi = q.ciLow !== null && q.ciHigh !== null;
   const y = yAxis(q, data);
+  const x = xDomain(data);
   const title = `${QUANTITY_TITLES[quantity]}: every approved value`;
   const summary = chartSummary(quantity, q, units);
   const titleId = `chart-${quantity}-title`;
   const summaryId = `chart-${quantity}-summary`;
+  const plotW = W - PAD.left - PAD.right;
+  const plotH = H - PAD.top - PAD.bottom;
+  const xOf = (t: number) => PAD.left + ((t - x[0]) / (x[1] - x[0])) * plotW;
+  const yOf = (v: number) => PAD.top + ((y.domain[1] - v) / (y.domain[1] - y.domain[0] || 1)) * plotH;
+  const shown = active === null ? null : data[active];
 
   return (
     <figure aria-labelledby={titleId} className="min-w-0 rounded-md border-3 border-rule bg-surface px-3 pt-3 pb-4 sm:px-4" data-quantity={quantity}>
       <h4 id={titleId} className="font-display text-lg font-bold tracking-wide uppercase">
         {title}
       </h4>
-      {/* fixed height: no layout jump when the chart mounts after hydration */}
-      <div className="mt-2 h-56 w-full select-none" data-testid={`chart-${quantity}`}>
-        <ScatterChart
-          responsive
-          style={{ width: "100%", height: "100%" }}
-          margin={{ top: 8, right: 8, bottom: 0, left: 0 }}
-          accessibilityLayer={false}
-          role="img"
-          aria-labelledby={titleId}
-          aria-describedby={summaryId}
-          title={title}
-          desc={summary}
-        >
-          <CartesianGrid stroke="var(--sb-rule-soft)" vertical={false} />
+      <div className="relative mt-2 w-full select-none" data-testid={`chart-${quantity}`}>
+        <svg viewBox={`0 0 ${W} ${H}`} className="h-auto w-full" role="img" aria-labelledby={titleId} aria-describedby={summaryId}>
+          {y.ticks.map((t) => (
+            <g key={t}>
+              <line x1={PAD.left} x2={W - PAD.right} y1={yOf(t)} y2={yOf(t)} stroke="var(--sb-rule-soft)" />
+              <text x={PAD.left - 6} y={yOf(t)} dy="0.35em" textAnchor="end" fontSize={12} fill="var(--sb-muted)">
+                {settingText(t)}
+              </text>
+            </g>
+          ))}
+          {timeTicks(x).map((t) => (
+            <text key={t} x={xOf(t)} y={H - 8} textAnchor="middle" fontSize={12} fill="var(--sb-muted)">
+              {monthOf(t)}
+            </text>
+          ))}
+          <line x1={PAD.left} x2={W - PAD.right} y1={PAD.top + plotH} y2={PAD.top + plotH} stroke="var(--sb-rule)" />
           {hasCi && (
-            <ReferenceArea
-              y1={q.ciLow!}
-              y2={q.ciHigh!}
+            <rect
+              x={PAD.left}
+              width={plotW}
+              y={yOf(q.ciHigh!)}
+              height={Math.max(1, yOf(q.ciLow!) - yOf(q.ciHigh!))}
               fill="var(--sb-verdigris)"
               fillOpacity={0.22}
               stroke="var(--sb-verdigris)"
               strokeOpacity={0.5}
-              ifOverflow="extendDomain"
             />
           )}
-          <ReferenceLine y={q.median} stroke="var(--sb-ink)" strokeWidth={2} ifOverflow="extendDomain" />
-          <XAxis
-            type="number"
-            dataKey="t"
-            domain={xDomain(data)}
-            scale="time"
-            tickFormatter={(t: number) => monthOf(t)}
-            tickCount={4}
-            {...AXIS_LOOK}
-            name="Date"
-          />
-          <YAxis
-            type="number"
-            dataKey="v"
-            domain={y.domain}
-            ticks={y.ticks}
-            tickFormatter={(v: number) => settingText(v)}
-            width={52}
-            {...AXIS_LOOK}
-            name="Setting"
-          />
-          <Tooltip
-            content={(props) => <PointTooltip {...props} quantity={quantity} units={units} />}
-            cursor={false}
-            trigger={noHover ? "click" : "hover"}
-            isAnimationActive={false}
-            wrapperStyle={{ zIndex: 5, outline: "none" }}
-          />
-          <Scatter name="Approved value" data={regular} shape={ValueDot} isAnimationActive={false} />
-          <Scatter name="Flagged outlier" data={flagged} shape={OutlierMark} isAnimationActive={false} />
-        </ScatterChart>
+          <line x1={PAD.left} x2={W - PAD.right} y1={yOf(q.median)} y2={yOf(q.median)} stroke="var(--sb-ink)" strokeWidth={2} />
+          {data.map((d, i) => (
+            <g
+              key={i}
+              className="cursor-pointer"
+              onPointerEnter={(e) => e.pointerType === "mouse" && setActive(i)}
+              onPointerLeave={(e) => e.pointerType === "mouse" && setActive(null)}
+              onClick={() => setActive((now) => (now === i ? null : i))}
+            >
+              {d.outlier ? <OutlierMark cx={xOf(d.t)} cy={yOf(d.v)} /> : <ValueDot cx={xOf(d.t)} cy={yOf(d.v)} />}
+            </g>
+          ))}
+        </svg>
+        {shown && (
+          <div
+            className="pointer-events-none absolute z-10"
+            style={{
+              left: `${(xOf(shown.t) / W) * 100}%`,
+              top: `${(yOf(shown.v) / H) * 100}%`,
+              transform: `translate(${xOf(shown.t) > W / 2 ? "-100%" : "0"}, -110%)`,
+            }}
+          >
+            <PointTooltip d={shown} quantity={quantity} units={units} />
+          </div>
+        )}
       </div>
       <ul className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-small" aria-label="Key">
         <LegendItem swatch={<circle cx="11" cy="7" r="5" fill="var(--sb-copper)" />}>Approved value</LegendItem>

@@ -95,7 +95,7 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
     expect(await page.locator("#values").innerText()).not.toMatch(/NaN|undefined|Infinity/);
 
     // tap a dot: the tooltip names its method and date
-    const dot = page.locator('[data-testid="chart-currentScale"] .recharts-scatter-symbol').first();
+    const dot = page.locator('[data-testid="chart-currentScale"] [data-mark]').first();
     await dot.scrollIntoViewIfNeeded();
     await dot.tap();
     const tooltip = page.getByTestId("value-tooltip");
@@ -120,7 +120,7 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
     const page = await browsers.desktop.newPage();
     await page.goto(`/boards/${boardSlug}?revision=${before}&family=vornel`);
     await waitForView(page, before, "vornel");
-    const dot = page.locator('[data-testid="chart-voltageScale"] .recharts-scatter-symbol').first();
+    const dot = page.locator('[data-testid="chart-voltageScale"] [data-mark]').first();
     await dot.hover();
     const tooltip = page.getByTestId("value-tooltip");
     await tooltip.waitFor();

@@ -1,7 +1,6 @@
 "use client";
 
 import { useState } from "react";
-import { CartesianGrid, ReferenceLine, Scatter, ScatterChart, XAxis, YAxis } from "recharts";
 import { BenchCaution } from "@/components/submission/cautions";
 import { formatFigure } from "@/lib/catalogue/format";
 import { benchPointInput, benchStartInput, type BenchSheetView } from "@/lib/worksheets/bench-input";
@@ -9,6 +8,7 @@ import { errorsOf, showServerErrors } from "@/components/form-errors";
 import { useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useSavedWorksheet, useStartWorksheet } from "@/components/hooks/use-worksheet";
 import { FieldError, NumberInput, numberOrUndefined, PublishPanel, SavedEntries, Warnings } from "./saved-worksheet";
+import { ResidualPlot } from "./residual-plot";
 
 // The bench worksheet, saved on the server point by point (lib/worksheets/bench.ts): clamp-meter
 // current beside the display's at several steady throttles, fitted on the server by
@@ -117,15 +117,7 @@ export function BenchSheet({ initial }: { initial: BenchSheetView }) {
             Current offset: enter <strong className="font-mono">{v.offset.setting}</strong> (leaves {formatFigure(v.offset.displayedErrorAmpsAtZero, 3)} A at
             zero current).
           </p>
-          <figure aria-label="Residuals: display minus fitted current at each point" className="h-48 w-full select-none">
-            <ScatterChart responsive style={{ width: "100%", height: "100%" }} margin={{ top: 8, right: 12, bottom: 0, left: 0 }}>
-              <CartesianGrid stroke="var(--sb-rule-soft)" vertical={false} />
-              <ReferenceLine y={0} stroke="var(--sb-ink)" />
-              <XAxis type="number" dataKey="measuredAmps" name="clamp meter" unit=" A" stroke="var(--sb-rule)" tick={{ fill: "var(--sb-muted)" }} />
-              <YAxis type="number" dataKey="residualAmps" name="residual" unit=" A" width={68} stroke="var(--sb-rule)" tick={{ fill: "var(--sb-muted)" }} />
-              <Scatter data={v.residuals} fill="var(--sb-copper)" isAnimationActive={false} />
-            </ScatterChart>
-          </figure>
+          <ResidualPlot residuals={v.residuals} />
         </section>
       )}
       <Warnings items={sheet.warnings} />

@@ -165,7 +165,7 @@ describe("every query an endpoint or page runs has an index behind it", () => {
         name: "Index check sheets",
         boardRevisionId: target.revisionId,
         firmwareFamilyId: target.familyId,
-        firmwareVersion: "1.0.0",
+        firmwareVersion: "avocet",
       }),
       201,
     );

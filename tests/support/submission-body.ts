@@ -11,7 +11,7 @@ export function flyRechargeBody(
   return {
     boardRevisionId: target.boardRevisionId,
     firmwareFamilyId: target.firmwareFamilyId,
-    firmwareVersion: "4.5.0",
+    firmwareVersion: "dunlin",
     sensingSource: "board_adc",
     method: "fly_recharge",
     voltageScale: null,

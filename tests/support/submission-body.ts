@@ -1,8 +1,9 @@
 import type { SubmissionInput } from "@/lib/submissions/schema";
 
 /**
- * A fly-and-recharge submission that passes the schema under the demo's first family (V/V 0.1,
- * mV/A 0.1, offset mV) on a 4S-capable board; the implied scale is 400 × 1200/1300 ≈ 369.2.
+ * A fly-and-recharge submission that passes the schema under the integration tests' fixture family
+ * (tests/support/fixtures.ts) on a 4S-capable board; the implied scale is 400 × 1200/1300 ≈ 369.2.
+ * Unit tests under a demo family override the cycles and the scale with that family's figures.
  */
 export function flyRechargeBody(
   target: Pick<SubmissionInput, "boardRevisionId" | "firmwareFamilyId">,

@@ -67,6 +67,12 @@ const EnvSchema = z.object({
   MODERATION_TRUST_THRESHOLD: z.coerce.number().int().min(1).max(1000).default(5),
   /** `0` keeps the job worker (lib/jobs) out of the app process, e.g. on web-only instances. */
   SHUNTBOOK_JOB_WORKER: z.enum(["0", "1"]).default("1"),
+  /**
+   * How many reverse proxies in front of the app append to X-Forwarded-For (0: none, the app is
+   * reached directly). The client address is read that many entries from the right
+   * (lib/auth/client-address.ts); forwarded host headers are believed only when this is above 0.
+   */
+  TRUSTED_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
   /** Set by `npm test` for the test files: the throwaway cluster and the app under test. */
   SHUNTBOOK_TEST_PG_URL: postgresUrl.optional(),
   SHUNTBOOK_TEST_APP_URL: z.url().optional(),

@@ -12,6 +12,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare role: CreationOptional<Role>;
   /** Sessions from before this moment are refused by the guard (lib/auth/guard.ts). */
   declare passwordChangedAt: CreationOptional<Date | null>;
+  /** Sessions whose JWT carries another number are refused; sign-out adds one (lib/auth/sessions.ts). */
+  declare sessionVersion: CreationOptional<number>;
   /** An admin's word on auto-approval: true trusted regardless, false never, null by the record (lib/moderation/trust.ts). */
   declare trusted: CreationOptional<boolean | null>;
   declare createdAt: CreationOptional<Date>;
@@ -28,6 +30,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         passwordHash: { type: DataTypes.TEXT, allowNull: true },
         role: { type: DataTypes.TEXT, allowNull: false, defaultValue: "contributor" },
         passwordChangedAt: { type: DataTypes.DATE, allowNull: true },
+        sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         trusted: { type: DataTypes.BOOLEAN, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { AccountPage, Card } from "@/components/auth/page-frame";
 import { NameForm, PasswordForm } from "@/components/auth/profile-forms";
+import { SignOutEverywhere } from "@/components/auth/sign-out-everywhere";
 import { hasPassword } from "@/lib/auth/accounts";
 import { requirePageUser } from "@/lib/auth/guard";
 
@@ -40,6 +41,9 @@ export default async function ProfilePage() {
             </p>
           )}
           <PasswordForm hasPassword={withPassword} />
+        </Card>
+        <Card id="sign-out-everywhere" title="Devices">
+          <SignOutEverywhere />
         </Card>
       </div>
       <p>

@@ -2,13 +2,13 @@ import type { ReactNode } from "react";
 import { formatFigure } from "@/lib/catalogue/format";
 import type { PackView } from "@/lib/garage/packs";
 
-// One pack: its log, what the log says about it, and the suggested OSD warnings with where each
-// figure comes from (lib/calibration/pack.ts). The charging cautions come with it.
+// One pack: its log, what the log says about it, and when to land with it (lib/calibration/pack.ts).
+// The charging cautions come with it. Where each figure comes from stays in the code, not on screen.
 
 const v = (volts: number) => `${formatFigure(volts, 2)} V`;
 
 export function PackCard({ pack, children }: { pack: PackView; children?: ReactNode }) {
-  const w = pack.warnings;
+  const w = pack.landing;
   return (
     <article className="space-y-4 rounded-md border-3 border-rule bg-surface p-4 sm:p-5" data-testid={`pack-${pack.id}`}>
       <header>
@@ -36,26 +36,26 @@ export function PackCard({ pack, children }: { pack: PackView; children?: ReactN
             </dd>
           </div>
           <div className="bg-surface px-3 py-2">
-            <dt className="text-small text-muted">OSD mAh warning</dt>
-            <dd className="font-mono text-lg">{w.mahWarning.mah} mAh</dd>
+            <dt className="text-small text-muted">Used-capacity alert</dt>
+            <dd className="font-mono text-lg">{w.usedCapacityAlert.mah} mAh</dd>
             <dd className="text-small text-muted">
-              {w.mahWarning.fraction * 100} % of the {w.capacity.basis} ({w.mahWarning.source})
+              {w.usedCapacityAlert.fraction * 100} % of the {w.capacity.basis}
             </dd>
           </div>
           <div className="bg-surface px-3 py-2">
-            <dt className="text-small text-muted">OSD voltage warning / critical</dt>
+            <dt className="text-small text-muted">Land soon / land now</dt>
             <dd className="font-mono text-lg">
-              {v(w.voltageWarning.pack)} / {v(w.voltageCritical.pack)}
+              {v(w.landSoon.pack)} / {v(w.landNow.pack)}
             </dd>
             <dd className="text-small text-muted">
-              {v(w.voltageWarning.perCell)} / {v(w.voltageCritical.perCell)} a cell under load ({w.voltageWarning.source})
+              {v(w.landSoon.perCell)} / {v(w.landNow.perCell)} a cell under load
             </dd>
           </div>
         </dl>
       )}
       {w && (
         <p className="text-small">
-          Full: <span className="font-mono">{v(w.full.pack)}</span> ({v(w.full.perCell)} a cell; {w.full.source}).
+          Full: <span className="font-mono">{v(w.full.pack)}</span> ({v(w.full.perCell)} a cell).
         </p>
       )}
       {pack.notes.length > 0 && (
@@ -95,9 +95,7 @@ export function PackCard({ pack, children }: { pack: PackView; children?: ReactN
           <summary className="font-semibold">Charging cautions</summary>
           <ul className="mt-2 list-disc space-y-1 pl-5">
             {w.cautions.map((c) => (
-              <li key={c.text}>
-                {c.text} <span className="text-muted">({c.source})</span>
-              </li>
+              <li key={c.text}>{c.text}</li>
             ))}
           </ul>
         </details>

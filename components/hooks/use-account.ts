@@ -22,6 +22,9 @@ export const useSavePassword = () =>
     mutationFn: (values: ChangePasswordInput | SetPasswordInput) => apiFetch<Message>("/api/auth/profile/password", { method: "POST", json: values }),
   });
 
+/** Ends every session of the account (every device, this one too). */
+export const useSignOutEverywhere = () => useMutation({ mutationFn: () => apiFetch<Message>("/api/auth/profile/sign-out-everywhere", { method: "POST" }) });
+
 export const useRequestReset = () =>
   useMutation({ mutationFn: (values: ResetRequestInput) => apiFetch<Message>("/api/auth/password-reset", { method: "POST", json: values }) });
 

@@ -56,7 +56,7 @@ export function BenchCaution() {
       <li>
         Use a clamp meter <strong>rated for DC</strong>: an AC-only clamp reads nothing useful on a battery lead. Close the jaw round one lead only.
       </li>
-      <li>An inline fuse (a &ldquo;smoke stopper&rdquo;) for the first power-up is common practice.</li>
+      <li>Fit an inline fuse (a &ldquo;smoke stopper&rdquo;) for the first power-up.</li>
       <MakerFirst />
     </Caution>
   );

@@ -97,8 +97,7 @@ export function EvidencePreview({ family }: { family: FamilyOption | null }) {
       </ul>
       <p className="mt-2 text-small text-muted">
         We flag a value more than {EVIDENCE_TOLERANCE * 100} % from what its evidence implies (for offsets, also more than{" "}
-        {formatFigure(s.offsetToleranceFloorSteps, 0)} steps: 10, or what moves the display 0.1 A if that is more) for a closer look. That threshold is our own
-        rule, in line with common practice.
+        {formatFigure(s.offsetToleranceFloorSteps, 0)} steps: 10, or what moves the display 0.1 A if that is more) for a closer look.
       </p>
     </TitledPanel>
   );

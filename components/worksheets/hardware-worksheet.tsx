@@ -9,7 +9,6 @@ import {
   HARDWARE_FIELD_PATHS,
   HARDWARE_FIGURE_KEYS,
   hardwareWorksheetInput,
-  PARTS_TOLERANCE_SOURCE,
   type FigureOrigin,
   type HardwareFigureKey,
   type HardwareFigures,
@@ -287,7 +286,7 @@ function Compare({
         from the parts.
       </p>
       <p className="text-small" data-testid={`hardware-${kind}-verdict`}>
-        {message} <span className="text-muted">(tolerance bands: {PARTS_TOLERANCE_SOURCE})</span>
+        {message}
       </p>
     </div>
   );
@@ -320,7 +319,7 @@ function VoltageResult({ v, family, published }: { v: HardwareWorksheet["voltage
         </p>
       )}
       <Compare kind="voltage" nearest={v.nearestSetting} comparison={v.comparison} published={published} />
-      <p className="text-small text-muted">Rule: {v.source}.</p>
+      <p className="text-small text-muted">How: {v.formula}.</p>
     </section>
   );
 }
@@ -355,7 +354,7 @@ function CurrentResult({ c, family, published }: { c: HardwareWorksheet["current
         </p>
       )}
       <Compare kind="current" nearest={c.nearestSetting} comparison={c.comparison} published={published} />
-      <p className="text-small text-muted">Rule: {c.source}.</p>
+      <p className="text-small text-muted">How: {c.formula}.</p>
     </section>
   );
 }

@@ -138,8 +138,8 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
             .
           </p>
           <div className="grid gap-3 sm:grid-cols-2">
-            <Rounding name="down" r={r.next.down} recommended={r.next.safeSide === "down"} />
-            <Rounding name="up" r={r.next.up} recommended={r.next.safeSide === "up"} />
+            <Rounding name="down" r={r.next.down} recommended={r.next.recommendedSide === "down"} />
+            <Rounding name="up" r={r.next.up} recommended={r.next.recommendedSide === "up"} />
           </div>
           <p className="text-small">{r.next.why}</p>
           <p className={`font-semibold ${r.stop.met ? "text-ink" : "text-muted"}`} data-testid="stop">
@@ -191,9 +191,7 @@ export function RechargeWorksheetView({ initial }: { initial: WorksheetView }) {
           <summary className="font-semibold">Charging cautions</summary>
           <ul className="mt-2 list-disc space-y-1 pl-5">
             {(r?.cautions ?? CHARGING_CAUTIONS).map((c) => (
-              <li key={c.text}>
-                {c.text} <span className="text-muted">({c.source})</span>
-              </li>
+              <li key={c.text}>{c.text}</li>
             ))}
           </ul>
         </details>

@@ -10,20 +10,20 @@ import { CHEMISTRY_LIMITS } from "@/lib/calibration/chemistry";
 import { startInput } from "@/lib/worksheets/recharge-input";
 import { numberOrNull } from "./saved-worksheet";
 
-// Starts a fly-and-recharge worksheet on a quad. The starting scale is the board's published value
-// when there is one (the server decides); the builder's own is asked for only as a fallback.
+// Starts a fly-and-recharge worksheet on a quad. The starting scale field offers the board's
+// published value when there is one; whatever the builder leaves there is what the worksheet uses.
 // Choosing one of the builder's packs (GET /api/v1/garage/packs) fills in its cells and rated mAh,
 // which stay editable; which pack it was is not stored, so the worksheet is the same either way.
 
 type StartFields = { cells: string; ratedMah: string; startingScale: string };
 const NO_ANSWER = "The server did not answer; try again.";
 
-export function StartWorksheet({ quadId }: { quadId: number }) {
+export function StartWorksheet({ quadId, publishedScale }: { quadId: number; publishedScale: number | null }) {
   const router = useRouter();
   const [packId, setPackId] = useState("");
   const packs = usePacks();
   const { form, errors } = useSchemaForm<StartFields>(startInput, {
-    defaultValues: { cells: "", ratedMah: "", startingScale: "" },
+    defaultValues: { cells: "", ratedMah: "", startingScale: publishedScale == null ? "" : String(publishedScale) },
     toBody: (v) => ({ quadId, ratedMah: numberOrNull(v.ratedMah), cells: numberOrNull(v.cells), startingScale: numberOrNull(v.startingScale) }),
     raw: true,
   });
@@ -101,7 +101,13 @@ export function StartWorksheet({ quadId }: { quadId: number }) {
       <div className="grid gap-3 sm:grid-cols-3">
         {field("cells", "Pack cells (S)")}
         {field("ratedMah", "Pack rated mAh")}
-        {field("startingScale", "Current scale flown now", "Only needed when nothing is published for this board yet")}
+        {field(
+          "startingScale",
+          "Current scale flown now",
+          publishedScale == null
+            ? "Nothing is published for this board yet: enter the scale your quad flies with."
+            : "The board's published value; change it if your quad flies with another.",
+        )}
       </div>
       <button type="submit" className="sb-button" disabled={busy}>
         {busy ? "Starting…" : "Start worksheet"}

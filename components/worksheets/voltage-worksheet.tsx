@@ -89,17 +89,17 @@ export function VoltageSheet({ initial }: { initial: VoltageSheetView }) {
       {r && (
         <section aria-labelledby="v-result" className="space-y-2 rounded-md border-3 border-rule bg-surface p-4" data-testid="voltage-result">
           <h2 id="v-result" className="font-display text-heading uppercase">
-            {r.verdict === "keep" ? "Keep the scale" : "Change the scale"}
+            {r.verdict === "keep" ? "Keep" : "Enter"}{" "}
+            <span className="font-mono" data-testid="voltage-answer">
+              {r.answer}
+            </span>
           </h2>
           <p>{r.message}</p>
           <p className="text-small">
-            Exact scale <span className="font-mono">{formatFigure(r.impliedScale, 2)}</span> ({r.combination}); down{" "}
-            <span className="font-mono">{r.rounding.down.setting}</span>, up <span className="font-mono">{r.rounding.up.setting}</span>; recommended{" "}
-            <strong className="font-mono">{r.rounding.recommended.setting}</strong>. {r.rounding.why}
+            Exact scale <span className="font-mono">{formatFigure(r.impliedScale, 2)}</span> (the median of your pairs).
+            {r.verdict === "change" && <> {r.rounding.why}</>}
           </p>
-          <p className="text-small text-muted">
-            Tolerance ±{r.tolerance.relative * 100} % ({r.tolerance.source}).
-          </p>
+          <p className="text-small text-muted">Tolerance ±{r.tolerance.relative * 100} %.</p>
         </section>
       )}
       <Warnings items={sheet.warnings} />

@@ -14,7 +14,8 @@ import { decodeSessionToken, parseCookieHeader, sessionTokenFrom } from "./sessi
 // user id), but the role is re-read from the users table (a primary-key lookup) on every guarded
 // request, so a promotion or demotion applies to the very next request with the same cookie. The
 // role inside the JWT is only a hint for display. A deleted user's cookie stops working the same way,
-// and so does every session that signed in before the user's last password change.
+// and so does every session that signed in before the user's last password change, or before
+// the user last signed out (users.session_version, ./sessions.ts).
 
 export type SessionUser = { id: string; email: string; name: string; role: Role };
 
@@ -25,11 +26,13 @@ async function userForToken(token: string | undefined): Promise<SessionUser | nu
   // a uuid check first, so that a token from elsewhere never reaches PostgreSQL as a bad uuid
   if (!id || !/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id)) return null;
   db();
-  const user = await User.findByPk(id, { attributes: ["id", "email", "name", "role", "passwordChangedAt"] });
+  const user = await User.findByPk(id, { attributes: ["id", "email", "name", "role", "passwordChangedAt", "sessionVersion"] });
   if (!user) return null;
   // a password change (or reset) ends every session signed in before it
   const authTime = typeof claims?.authTime === "number" ? claims.authTime : 0;
   if (user.passwordChangedAt && authTime < user.passwordChangedAt.getTime()) return null;
+  // a sign-out (here or "everywhere") ends every session issued before it (./sessions.ts)
+  if ((claims?.sessionVersion ?? 0) !== user.sessionVersion) return null;
   return { id: user.id, email: user.email, name: user.name, role: user.role };
 }
 

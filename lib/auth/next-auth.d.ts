@@ -16,5 +16,7 @@ declare module "next-auth/jwt" {
     role?: Role;
     /** Epoch ms of the sign-in this session came from (see lib/auth/guard.ts). */
     authTime?: number;
+    /** users.session_version when this session began; a sign-out moves the user's on (lib/auth/sessions.ts). */
+    sessionVersion?: number;
   }
 }

@@ -7,7 +7,9 @@ import { magicLinkMail } from "@/lib/mail/templates";
 import { smtpUrl } from "@/lib/mail/transport";
 import { authenticate } from "./accounts";
 import { shuntbookAdapter } from "./adapter";
+import { isOwnCallbackUrl } from "./next-auth-input";
 import { SignInSchema } from "./schemas";
+import { currentSessionVersion, endSessions } from "./sessions";
 import { authSecret, SESSION_MAX_AGE_SECONDS } from "./session-cookie";
 
 // next-auth's configuration: two ways in (a magic link by e-mail, or e-mail and password), one
@@ -47,6 +49,12 @@ export function authOptions(): NextAuthOptions {
         },
       }),
     ],
+    events: {
+      // ends this session on the server, and with it the account's others (./sessions.ts)
+      async signOut({ token }) {
+        if (token?.sub) await endSessions(token.sub);
+      },
+    },
     callbacks: {
       async jwt({ token, user }) {
         // `user` is there only at sign-in (from the adapter or from authorize)
@@ -56,8 +64,18 @@ export function authOptions(): NextAuthOptions {
           token.email = user.email ?? token.email;
           token.role = user.role ?? "contributor";
           token.authTime = Date.now();
+          token.sessionVersion = await currentSessionVersion(user.id);
+        } else if (!token.sub || (token.sessionVersion ?? 0) !== (await currentSessionVersion(token.sub))) {
+          // next-auth's session endpoint: a session ended by a sign-out is refused here too; a throw
+          // makes next-auth answer "no session" and delete the cookie (core/routes/session.js)
+          throw new Error("this session was ended by a sign-out");
         }
         return token;
+      },
+      // next-auth's default throws on a callback URL that does not parse (a 500); only our own pages
+      async redirect({ url, baseUrl }) {
+        if (!isOwnCallbackUrl(url)) return baseUrl;
+        return url.startsWith("/") ? `${baseUrl}${url}` : url;
       },
       async session({ session, token }) {
         session.user = {

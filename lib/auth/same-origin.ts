@@ -1,4 +1,5 @@
 import { ApiError } from "@/lib/http/errors";
+import { requestHost } from "./client-address";
 
 // A second lock against cross-site requests, beside the session cookie's SameSite=Lax: a browser
 // names the page's origin on every POST/PATCH/PUT/DELETE, and it must be this site. Requests
@@ -10,7 +11,8 @@ export function assertSameOrigin(request: Request): void {
   if (SAFE.has(request.method)) return;
   const origin = request.headers.get("origin");
   if (!origin) return;
-  const host = request.headers.get("x-forwarded-host")?.split(",")[0]?.trim() || request.headers.get("host");
+  // X-Forwarded-Host is the client's to write unless a trusted proxy sets it (TRUSTED_PROXY_HOPS)
+  const host = requestHost(request.headers);
   let originHost: string | undefined;
   try {
     originHost = new URL(origin).host;

@@ -71,6 +71,8 @@ export type SessionClaims = {
   role: Role;
   /** When this person signed in (epoch ms). Sessions from before their last password change stop working. */
   authTime: number;
+  /** users.session_version at sign-in; the session ends when the user's moves on. */
+  sessionVersion?: number;
 };
 
 export async function encodeSessionToken(claims: SessionClaims, maxAgeSeconds = SESSION_MAX_AGE_SECONDS): Promise<string> {

@@ -101,7 +101,7 @@ export function benchWorksheet(input: BenchWorksheetInput, family: WorksheetFami
   } else if (r2 < BENCH_MIN_R_SQUARED) {
     warnings.push({
       field: "points",
-      message: `r² is ${formatFigure(r2, 4)}, below ${BENCH_MIN_R_SQUARED} (${SOURCES.ownRule}): hold each throttle steady until both readings settle, zero the clamp meter first, and see the residual plot for the odd point`,
+      message: `r² is ${formatFigure(r2, 4)}, below ${BENCH_MIN_R_SQUARED}: hold each throttle steady until both readings settle, zero the clamp meter first, and see the residual plot for the odd point`,
     });
   }
 

@@ -98,7 +98,6 @@ export function figureOrigin(fromBoard: number | null, inForce: number | null): 
  */
 const PARTS_TOLERANCE_PERCENT = 3;
 const DIFFERENT_PART_PERCENT = 10;
-export const PARTS_TOLERANCE_SOURCE = "common practice, no source";
 
 export type ComparisonVerdict = "same-setting" | "within-tolerance" | "beyond-tolerance" | "different-part";
 

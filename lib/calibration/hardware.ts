@@ -47,6 +47,8 @@ export type HardwareWorksheet = {
       minimumRatio: number | null;
       saturates: boolean | null;
     } | null;
+    /** The arithmetic in words, for the page; `source` names where it comes from, for code and docs. */
+    formula: string;
     source: string;
   } | null;
   current: {
@@ -56,6 +58,7 @@ export type HardwareWorksheet = {
     comparison: Comparison;
     /** Sensor output at atAmps, and for a shunt the heat in it (I²R). */
     atAmps: { amps: number; outputVolts: number; shuntWatts: number | null } | null;
+    formula: string;
     source: string;
   } | null;
 };
@@ -118,7 +121,7 @@ export function hardwareWorksheet(input: HardwareWorksheetInput, family: Workshe
       if (needed != null && needed > fullScale) {
         warnings.push({
           field: "divider",
-          message: `A ÷${formatFigure(ratio, 2)} divider reads at most ${formatFigure(fullScale, 2)} V on a ${adc.vrefVolts} V ADC, below a full ${maxCells}S HV pack (${formatFigure(needed, 2)} V at 4.35 V a cell, ${SOURCES.vendorsOnly}): the display would stick at the top`,
+          message: `A ÷${formatFigure(ratio, 2)} divider reads at most ${formatFigure(fullScale, 2)} V on a ${adc.vrefVolts} V ADC, below a full ${maxCells}S HV pack (${formatFigure(needed, 2)} V at 4.35 V a cell): the display would stick at the top`,
         });
       }
     }
@@ -128,6 +131,7 @@ export function hardwareWorksheet(input: HardwareWorksheetInput, family: Workshe
       nearestSetting: roundSetting(exact),
       comparison: compare(published?.voltageScale, exact),
       headroom,
+      formula: "divider ratio = (top resistor + bottom resistor) ÷ bottom resistor",
       source: SOURCES.divider,
     };
   }
@@ -158,12 +162,13 @@ export function hardwareWorksheet(input: HardwareWorksheetInput, family: Workshe
       nearestSetting: roundSetting(exact),
       comparison: compare(published?.currentScale, exact),
       atAmps: at,
+      formula: currentSensor.kind === "shunt" ? "mV/A = shunt mΩ × amplifier gain" : "mV/A as the Hall sensor's datasheet gives it",
       source: currentSensor.kind === "shunt" ? SOURCES.ohm : "Hall sensor datasheet sensitivity (mV/A)",
     };
     if (sensitivity < 2 || sensitivity > 200) {
       warnings.push({
         field: "currentSensor",
-        message: `${formatFigure(sensitivity, 3)} mV/A is outside the 2–200 mV/A usual for hobby boards (${SOURCES.commonPractice}): check the figures`,
+        message: `${formatFigure(sensitivity, 3)} mV/A is outside the 2–200 mV/A usual for hobby boards: check the figures`,
       });
     }
   }

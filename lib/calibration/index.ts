@@ -16,7 +16,7 @@ export {
 } from "./recharge";
 export { hardwareWorksheet, type HardwareWorksheet } from "./hardware";
 export { adcLsbVolts, adcCountToVolts, packVoltsFromAdcCount } from "./adc";
-export { packWarnings, MAH_WARNING_FRACTION, type PackWarnings } from "./pack";
+export { packLandingGuide, USED_CAPACITY_ALERT_FRACTION, type PackLandingGuide } from "./pack";
 export { CHEMISTRY_LIMITS } from "./chemistry";
 export { roundBothWays, predictedReadingError, safeRoundingSide, type RoundedSetting } from "./rounding";
 

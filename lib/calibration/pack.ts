@@ -7,18 +7,19 @@ import { cellsField, mahField, numberField } from "./fields";
 import { failed, ok, parseInput, type FieldIssue, type WorksheetResult } from "./result";
 import { SOURCES } from "./sources";
 
-// Suggested OSD warnings for one pack: a consumed-mAh warning and per-cell voltage limits for its
-// chemistry, from its rating or, better, from what the charger has been putting back.
+// When to land with one pack: a used-capacity alert (consumed mAh) and "land soon" / "land now"
+// voltages per cell for its chemistry, from its rating or, better, from what the charger has been
+// putting back. The builder copies these figures into their own OSD.
 
-/** Warn at 80 % of usable capacity (common practice, no source). */
-export const MAH_WARNING_FRACTION = 0.8;
+/** Alert at 80 % of usable capacity (common practice, no source). */
+export const USED_CAPACITY_ALERT_FRACTION = 0.8;
 /** The estimate is the median of the last 5 charges after full flights, once there are 3 (our own rule). */
 const RECENT_CHARGES = 5;
 const MIN_CHARGES_FOR_ESTIMATE = 3;
 /** A charge-log estimate this far over the rating means the charger or the label is off (our own rule). */
 const ESTIMATE_OVER_RATED_WARNING = 0.1;
 
-export type PackWarningsInput = {
+export type PackLandingGuideInput = {
   chemistry: Chemistry;
   cells: number;
   ratedMah: number;
@@ -30,7 +31,7 @@ export type PackWarningsInput = {
 
 type Volts = { perCell: number; pack: number; source: string };
 
-export type PackWarnings = {
+export type PackLandingGuide = {
   chemistry: Chemistry;
   label: string;
   cells: number;
@@ -39,16 +40,16 @@ export type PackWarnings = {
     /** Median of recent charges after full flights, or null with too few of them. */
     estimatedUsableMah: number | null;
     chargesUsed: number;
-    /** What the mAh warning is set from: the smaller of the estimate and the rating, the safe side. */
+    /** What the used-capacity alert is set from: the smaller of the estimate and the rating, the safe side. */
     basisMah: number;
     basis: "charge log" | "rating";
     cycleCount: number;
   };
-  /** The consumed-mAh warning, rounded down to a whole mAh so that it comes early rather than late. */
-  mahWarning: { mah: number; fraction: number; source: string };
-  /** Suggested OSD voltage warnings, read under load: the top and bottom of the landing range. */
-  voltageWarning: Volts;
-  voltageCritical: Volts;
+  /** The used-capacity alert in consumed mAh, rounded down to a whole mAh so that it comes early rather than late. */
+  usedCapacityAlert: { mah: number; fraction: number; source: string };
+  /** Read under load: "land soon" at the top of the landing range, "land now" at its bottom. */
+  landSoon: Volts;
+  landNow: Volts;
   /** The chemistry's limits per cell, and for the whole pack. */
   limits: ChemistryLimits;
   full: Volts;
@@ -73,7 +74,7 @@ const schema = z.object({
 
 const volts = (perCell: number, cells: number, source: string): Volts => ({ perCell, pack: perCell * cells, source });
 
-export function packWarnings(input: PackWarningsInput): WorksheetResult<PackWarnings> {
+export function packLandingGuide(input: PackLandingGuideInput): WorksheetResult<PackLandingGuide> {
   const parsed = parseInput(schema, input);
   if ("errors" in parsed) return failed(parsed.errors);
   const { chemistry, cells, ratedMah, chargeLog, cycleCount } = parsed.data;
@@ -91,7 +92,7 @@ export function packWarnings(input: PackWarningsInput): WorksheetResult<PackWarn
   if (estimate != null && estimate > (1 + ESTIMATE_OVER_RATED_WARNING) * ratedMah) {
     warnings.push({
       field: "chargeLog",
-      message: `After full flights the charger puts back ${formatFigure(estimate, 0)} mAh, more than ${ESTIMATE_OVER_RATED_WARNING * 100} % over the ${ratedMah} mAh rating (${SOURCES.ownRule}): check the charger's count; the rating is used`,
+      message: `After full flights the charger puts back ${formatFigure(estimate, 0)} mAh, more than ${ESTIMATE_OVER_RATED_WARNING * 100} % over the ${ratedMah} mAh rating: check the charger's count; the rating is used`,
     });
   }
   if (cycleCount != null && cycleCount < log.length) {
@@ -116,9 +117,9 @@ export function packWarnings(input: PackWarningsInput): WorksheetResult<PackWarn
         basis: estimate != null && estimate < ratedMah ? "charge log" : "rating",
         cycleCount: Math.max(cycleCount ?? 0, log.length),
       },
-      mahWarning: { mah: Math.floor(MAH_WARNING_FRACTION * basisMah), fraction: MAH_WARNING_FRACTION, source: SOURCES.commonPractice },
-      voltageWarning: volts(limits.landUnderLoad.high, cells, limits.landUnderLoad.source),
-      voltageCritical: volts(limits.landUnderLoad.low, cells, limits.landUnderLoad.source),
+      usedCapacityAlert: { mah: Math.floor(USED_CAPACITY_ALERT_FRACTION * basisMah), fraction: USED_CAPACITY_ALERT_FRACTION, source: SOURCES.commonPractice },
+      landSoon: volts(limits.landUnderLoad.high, cells, limits.landUnderLoad.source),
+      landNow: volts(limits.landUnderLoad.low, cells, limits.landUnderLoad.source),
       limits,
       full: volts(limits.full.volts, cells, limits.full.source),
       cautions: CHARGING_CAUTIONS,

@@ -7,7 +7,6 @@ import { CHARGING_CAUTIONS, type Caution } from "./cautions";
 import { mahField, settingField, settingRange, type WorksheetFamily } from "./fields";
 import { failed, ok, parseInput, type FieldIssue, type WorksheetResult } from "./result";
 import { CURRENT_ROUNDING_WHY, predictedReadingError, roundBothWays, type SettingRoundings } from "./rounding";
-import { SOURCES } from "./sources";
 
 // Fly-and-recharge worksheet (issue "Calibration worksheets", section 4). Each row: the current
 // scale flown with, the mAh the OSD showed at landing, the mAh the charger put back. The charger is
@@ -36,7 +35,8 @@ export const CHARGED_OVER_RATED_WARNING = 0.1;
 const INCOMPLETE_SHORTFALL = 0.1;
 const STABLE_SPREAD = 0.03;
 
-const STOP_RULE_TEXT = `Done when the display is within ${STOP_TOLERANCE * 100} % of the charger (|reported ÷ charged − 1| ≤ ${STOP_TOLERANCE * 100} %) on ${STOP_CYCLES} usable cycles in a row (${SOURCES.ownRuleByPractice}).`;
+// The stop rule is our own, in line with common practice (no source).
+const STOP_RULE_TEXT = `Done when the display is within ${STOP_TOLERANCE * 100} % of the charger (|reported ÷ charged − 1| ≤ ${STOP_TOLERANCE * 100} %) on ${STOP_CYCLES} usable cycles in a row.`;
 
 export type RechargeCycleInput = {
   scaleUsed: number;
@@ -104,7 +104,7 @@ function schemaFor(family: WorksheetFamily) {
           ctx.addIssue({
             code: "custom",
             path: ["cycles", i, "reportedMah"],
-            message: `The display reported ${formatFigure(ratio, 2)} × what the charger put back; outside ${MIN_READING_RATIO}–${MAX_READING_RATIO} × the two cannot be the same flight — check both figures (${SOURCES.ownRule})`,
+            message: `The display reported ${formatFigure(ratio, 2)} × what the charger put back; outside ${MIN_READING_RATIO}–${MAX_READING_RATIO} × the two cannot be the same flight — check both figures`,
           });
         }
         const rated = c.ratedMah ?? v.ratedMah;
@@ -138,7 +138,7 @@ export function rechargeWorksheet(input: RechargeWorksheetInput, family: Workshe
     if (rated != null && c.chargedMah > (1 + CHARGED_OVER_RATED_WARNING) * rated) {
       warnings.push({
         field: `cycles.${index}.chargedMah`,
-        message: `${c.chargedMah} mAh is more than ${CHARGED_OVER_RATED_WARNING * 100} % over the pack's ${rated} mAh rating (${SOURCES.ownRule}): check the charger's reading and the pack`,
+        message: `${c.chargedMah} mAh is more than ${CHARGED_OVER_RATED_WARNING * 100} % over the pack's ${rated} mAh rating: check the charger's reading and the pack`,
       });
     }
     return {
@@ -170,7 +170,7 @@ export function rechargeWorksheet(input: RechargeWorksheetInput, family: Workshe
     it.excludedBecause = "suspected short recharge";
     warnings.push({
       field: `cycles.${it.index}.chargedMah`,
-      message: `The charger put back more than ${INCOMPLETE_SHORTFALL * 100} % less than the other cycles imply for this scale (${SOURCES.ownRule}): was the pack fully recharged, charger finished and cells balanced? Cycle ${it.index + 1} is left out`,
+      message: `The charger put back more than ${INCOMPLETE_SHORTFALL * 100} % less than the other cycles imply for this scale: was the pack fully recharged, charger finished and cells balanced? Cycle ${it.index + 1} is left out`,
     });
   }
 

@@ -2,8 +2,10 @@ import { recommendValue } from "@/lib/stats";
 import type { Response } from "@/lib/vocabulary";
 
 // A worksheet's exact next setting is rarely a whole number, and the firmware stores whole steps.
-// Both neighbours are offered with the reading error each leaves, and the one on the safe side is
-// recommended (common practice, no source).
+// Both neighbours are offered with the reading error each leaves. The current scale takes the one on
+// the safe side, over-reporting mAh (common practice, no source). The voltage scale takes the
+// nearest step unless that reads high by more than a small allowance, then the step that reads
+// lower (our own rule): a step reading 0.01 % high is practically exact and beats one reading 0.9 % low.
 //
 // The reading error of a setting s against the exact setting s* (which makes the display read the
 // truth): the display is proportional to the setting, or to its reciprocal —
@@ -32,16 +34,23 @@ export type SettingRoundings = {
   up: RoundedSetting;
   /** The rounding that keeps the display on the safe side. */
   safeSide: "down" | "up";
+  /** The rounding recommended: the safe side, or the nearest step when it errs by no more than the allowance. */
+  recommendedSide: "down" | "up";
   recommended: RoundedSetting;
 };
 
-/** The one-sentence why beside a recommended current-scale rounding. */
+/** The one-sentence why beside a recommended current-scale rounding (common practice, no source). */
 export const CURRENT_ROUNDING_WHY =
-  "Rounded so the display over-reports mAh: the consumed-mAh warning then comes early, and the pilot lands early rather than late (common practice, no source).";
+  "Rounded so the display over-reports mAh: the used-capacity alert then comes early, and the pilot lands early rather than late.";
 
-/** The same for the voltage scale, whose safe side is reading low. */
-export const VOLTAGE_ROUNDING_WHY =
-  "Rounded so the display reads slightly low: the low-voltage warning then comes early, and the pilot lands early rather than late (our own rule, by analogy with the mAh rule, common practice, no source).";
+/**
+ * How far the voltage scale's nearest step may read high and still be chosen: 0.1 %, about one
+ * display digit (0.01 V) on a 4S–6S pack (our own rule).
+ */
+export const VOLTAGE_HIGH_ALLOWANCE = 0.001;
+
+/** The same for the voltage scale (our own rule, by analogy with the mAh rule). */
+export const VOLTAGE_ROUNDING_WHY = `The nearest whole step, unless it makes the display read more than ${VOLTAGE_HIGH_ALLOWANCE * 100} % high; then the step that reads lower, so the land-soon voltage comes early rather than late.`;
 
 export type SettingRange = { min: number; max: number };
 
@@ -64,16 +73,22 @@ function rounded(setting: number, exact: number, response: Response, range?: Set
 }
 
 /**
- * Both whole-step neighbours of an exact setting, their reading errors, and the safe one.
+ * Both whole-step neighbours of an exact setting, their reading errors, and the recommended one:
+ * the safe side, unless the other neighbour errs on the unsafe side by no more than
+ * `unsafeAllowance` (a fraction; 0 = always the safe side) and is nearer.
  * The exact value is cut to 12 significant digits first (lib/stats recommendValue), so that
  * 367.00000000000006 counts as 367 rather than offering 368.
  */
-export function roundBothWays(exact: number, response: Response, safeReading: SafeReading, range?: SettingRange): SettingRoundings {
+export function roundBothWays(exact: number, response: Response, safeReading: SafeReading, range?: SettingRange, unsafeAllowance = 0): SettingRoundings {
   const down = recommendValue(exact, 1, "down")!.setting;
   const up = recommendValue(exact, 1, "up")!.setting;
   const whole = down === up ? down : null;
   const exactOrWhole = whole ?? exact; // a value that rounds to a whole step reads true there
   const pair = { down: rounded(down, exactOrWhole, response, range), up: rounded(up, exactOrWhole, response, range) };
   const safeSide = safeRoundingSide(response, safeReading);
-  return { exact, ...pair, safeSide, recommended: pair[safeSide] };
+  const otherSide = safeSide === "down" ? "up" : "down";
+  const other = pair[otherSide];
+  const nearer = Math.abs(other.setting - exactOrWhole) < Math.abs(pair[safeSide].setting - exactOrWhole);
+  const recommendedSide = nearer && Math.abs(other.readingError ?? Infinity) <= unsafeAllowance ? otherSide : safeSide;
+  return { exact, ...pair, safeSide, recommendedSide, recommended: pair[recommendedSide] };
 }

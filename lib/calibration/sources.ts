@@ -1,4 +1,5 @@
-// Where each rule and figure in the worksheets comes from, as the words a page shows beside it.
+// Where each rule and figure in the worksheets comes from. Results carry these for code, tests,
+// docs and API readers; pages never show them (the owner's rule: source notes stay off screen).
 // Each names its reference itself; a trade habit with no citable source says so, and a figure
 // recalled rather than looked up says "from memory".
 

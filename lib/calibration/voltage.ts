@@ -5,7 +5,7 @@ import { medianOfSorted, sortedCopy } from "@/lib/stats";
 import { CELL_VOLTS_CEILING, CELL_VOLTS_FLOOR, MAX_CELLS, MAX_READINGS, MIN_CELLS, REPORTED_VOLTS_SLACK, packVoltsRange } from "@/lib/submissions/limits";
 import { cellsField, positiveNumber, settingField, settingRange, type WorksheetFamily } from "./fields";
 import { failed, ok, parseInput, type FieldIssue, type WorksheetResult } from "./result";
-import { VOLTAGE_ROUNDING_WHY, predictedReadingError, roundBothWays, type SettingRoundings } from "./rounding";
+import { VOLTAGE_HIGH_ALLOWANCE, VOLTAGE_ROUNDING_WHY, predictedReadingError, roundBothWays, type SettingRoundings } from "./rounding";
 import { SOURCES } from "./sources";
 
 // Voltage worksheet (issue "Calibration worksheets", section 2): the OSD's pack voltage beside a
@@ -57,10 +57,12 @@ export type VoltageWorksheet = {
   tolerance: { relative: number; source: string };
   /** How the display reads with the scale in force. */
   now: { readingError: number; errorVoltsPerCell: number; withinTolerance: boolean };
-  /** Floor and ceil of the exact setting; the recommended one makes the display read low. */
+  /** Floor and ceil of the exact setting, and the recommended one (VOLTAGE_ROUNDING_WHY). */
   rounding: SettingRoundings & { why: string };
-  /** "keep": the scale in force is already within tolerance; "change": enter rounding.recommended. */
+  /** "keep": the scale in force is already within tolerance (or is the recommended step); "change": enter rounding.recommended. */
   verdict: "keep" | "change";
+  /** The one setting this worksheet answers with: the headline's, and what Publish sends. */
+  answer: number;
   message: string;
 };
 
@@ -76,7 +78,8 @@ function readingSchema() {
       if (!(Number.isInteger(v.cells) && v.cells >= MIN_CELLS && v.cells <= MAX_CELLS)) return;
       const [lo, hi] = packVoltsRange(v.cells);
       const span = `${formatFigure(lo, 2)}–${formatFigure(hi, 2)} V`;
-      const limits = `${CELL_VOLTS_FLOOR}–${CELL_VOLTS_CEILING} V a cell: ${SOURCES.bmfa} for the floor under load, 4.35 V full HV cells (${SOURCES.vendorsOnly})`;
+      // the floor under load is BMFA safety guidance; 4.35 V full HV cells is the vendors' figure (common practice)
+      const limits = `${CELL_VOLTS_FLOOR}–${CELL_VOLTS_CEILING} V a cell`;
       if (v.measuredVolts > 0 && (v.measuredVolts < lo || v.measuredVolts > hi)) {
         ctx.addIssue({
           code: "custom",
@@ -126,10 +129,10 @@ export function voltageWorksheet(input: VoltageWorksheetInput, family: Worksheet
   if (pairs.length > 1 && spread > 2 * tolerance * implied) {
     warnings.push({
       field: "readings",
-      message: `The pairs disagree by ${formatFigure((100 * spread) / implied, 1)} % among themselves: read the display and the multimeter at the same moment, with the pack at rest and the meter on the main lead (${SOURCES.ownRule})`,
+      message: `The pairs disagree by ${formatFigure((100 * spread) / implied, 1)} % among themselves: read the display and the multimeter at the same moment, with the pack at rest and the meter on the main lead`,
     });
   }
-  const rounding = { ...roundBothWays(implied, response, "low", settingRange(family, "voltageScale")), why: VOLTAGE_ROUNDING_WHY };
+  const rounding = { ...roundBothWays(implied, response, "low", settingRange(family, "voltageScale"), VOLTAGE_HIGH_ALLOWANCE), why: VOLTAGE_ROUNDING_WHY };
   if (!rounding.recommended.withinRange) {
     warnings.push({
       field: "scaleUsed",
@@ -147,8 +150,9 @@ export function voltageWorksheet(input: VoltageWorksheetInput, family: Worksheet
   const errorVoltsPerCell = median(pairs.map((p) => p.errorVoltsPerCell));
   const pct = formatFigure(100 * Math.abs(readingError), 2);
   const dir = readingError >= 0 ? "high" : "low";
-  const message = withinTolerance
-    ? `The display reads ${pct} % ${dir}, within ${formatFigure(100 * tolerance, 2)} % (${SOURCES.commonPractice}): keep ${scaleUsed}.`
+  const keep = withinTolerance || rounding.recommended.setting === scaleUsed;
+  const message = keep
+    ? `The display reads ${pct} % ${dir}, within ${formatFigure(100 * tolerance, 2)} %: keep ${scaleUsed}.`
     : `The display reads ${pct} % ${dir} (${formatFigure(Math.abs(errorVoltsPerCell), 3)} V a cell): enter ${rounding.recommended.setting}.`;
   return ok(
     {
@@ -159,7 +163,8 @@ export function voltageWorksheet(input: VoltageWorksheetInput, family: Worksheet
       tolerance: { relative: tolerance, source: VOLTAGE_TOLERANCE_SOURCE },
       now: { readingError, errorVoltsPerCell, withinTolerance },
       rounding,
-      verdict: withinTolerance ? "keep" : "change",
+      verdict: keep ? "keep" : "change",
+      answer: keep ? scaleUsed : rounding.recommended.setting,
       message,
     },
     warnings,

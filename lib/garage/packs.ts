@@ -1,11 +1,11 @@
-import { packWarnings, type PackWarnings } from "@/lib/calibration";
+import { packLandingGuide, type PackLandingGuide } from "@/lib/calibration";
 import type { FieldIssue } from "@/lib/calibration";
 import { db, Pack, PackCharge } from "@/models";
 import { notYours, parseOrThrow } from "./owned";
 import { chargeInput, packInput } from "./schemas";
 
 // A builder's packs and their charge logs. The cycle count, the usable-capacity estimate and the
-// suggested OSD warnings come from lib/calibration/pack.ts; nothing is re-derived here.
+// landing figures (used-capacity alert, land soon / land now) come from lib/calibration/pack.ts; nothing is re-derived here.
 
 type ChargeView = { id: number; chargedOn: string; chargedMah: number; restingVoltsPerCell: number | null; afterFullFlight: boolean };
 export type PackView = {
@@ -16,8 +16,8 @@ export type PackView = {
   ratedMah: number;
   purchasedOn: string | null;
   charges: ChargeView[];
-  /** packWarnings' result: null only if the stored pack itself no longer passes its rules. */
-  warnings: PackWarnings | null;
+  /** packLandingGuide's result: null only if the stored pack itself no longer passes its rules. */
+  landing: PackLandingGuide | null;
   notes: FieldIssue[];
 };
 
@@ -30,7 +30,7 @@ const chargeView = (c: PackCharge): ChargeView => ({
 });
 
 function view(pack: Pack, charges: PackCharge[]): PackView {
-  const result = packWarnings({
+  const result = packLandingGuide({
     chemistry: pack.chemistry,
     cells: pack.cells,
     ratedMah: pack.ratedMah,
@@ -44,7 +44,7 @@ function view(pack: Pack, charges: PackCharge[]): PackView {
     ratedMah: pack.ratedMah,
     purchasedOn: pack.purchasedOn,
     charges: charges.map(chargeView),
-    warnings: result.ok ? result.value : null,
+    landing: result.ok ? result.value : null,
     notes: result.ok ? result.warnings : result.errors,
   };
 }

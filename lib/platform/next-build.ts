@@ -48,3 +48,12 @@ export function buildIfNeeded(root: string, env: NodeJS.ProcessEnv): void {
   if (r.status !== 0) throw new Error("next build failed; see the output above");
   log(`built in ${Math.round((Date.now() - started) / 1000)} s`);
 }
+
+/**
+ * The environment for the app's server process: NODE_OPTIONS gains lib/platform/peer-address.cjs,
+ * which records each request's socket address in X-Forwarded-For (lib/auth/client-address.ts).
+ */
+export function serverEnv<E extends NodeJS.ProcessEnv>(root: string, env: E): E {
+  const preload = `--require ${JSON.stringify(path.join(root, "lib", "platform", "peer-address.cjs"))}`;
+  return { ...env, NODE_OPTIONS: [env.NODE_OPTIONS, preload].filter(Boolean).join(" ") };
+}

@@ -6,7 +6,7 @@ import { prepareDatabase } from "./database";
 import { startFakes } from "./fakes";
 import { Lifecycle } from "./lifecycle";
 import { log } from "./log";
-import { buildIfNeeded, nextBin } from "./next-build";
+import { buildIfNeeded, nextBin, serverEnv } from "./next-build";
 import { describeCluster, ensureDatabase, initCluster, isClusterRunning, startCluster, stopCluster } from "./postgres-cluster";
 
 /**
@@ -35,7 +35,7 @@ export async function runApp(mode: "start" | "dev"): Promise<number> {
     const app = spawnGroup(process.execPath, [nextBin(root), mode, "-H", "127.0.0.1", "-p", String(e.PORT)], {
       cwd: root,
       stdio: "inherit",
-      env: { ...appEnv, NODE_ENV: mode === "start" ? "production" : "development" },
+      env: serverEnv(root, { ...appEnv, NODE_ENV: mode === "start" ? "production" : "development" }),
     });
     lifecycle.onStop("the app", () => stopGroup(app));
     log(`Shuntbook: http://127.0.0.1:${e.PORT}  (Ctrl-C stops the app and the database)`);

@@ -10,7 +10,7 @@ import { spawnGroup, stopGroup, waitForExit } from "./child-process";
 import { startFakes } from "./fakes";
 import { Lifecycle } from "./lifecycle";
 import { log } from "./log";
-import { buildIfNeeded, nextBin } from "./next-build";
+import { buildIfNeeded, nextBin, serverEnv } from "./next-build";
 import { aptInstall, isRoot } from "./postgres-binaries";
 import { describeCluster, ensureDatabase, initCluster, startCluster, stopCluster, type Cluster } from "./postgres-cluster";
 import { freePort, waitForHttp } from "./wait-for-http";
@@ -123,7 +123,7 @@ async function startAppUnderTest(root: string, cluster: Cluster, services: Recor
   const app = spawnGroup(process.execPath, [nextBin(root), "start", "-H", "127.0.0.1", "-p", String(port)], {
     cwd: root,
     stdio: ["ignore", "ignore", "inherit"],
-    env: appEnv,
+    env: serverEnv(root, appEnv),
   });
   lifecycle.onStop("the app under test", () => stopGroup(app));
   await waitForHttp(url);

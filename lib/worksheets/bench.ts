@@ -4,7 +4,7 @@ import { benchWorksheet, type FieldIssue } from "@/lib/calibration";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { db, FirmwareFamily, Quad, Worksheet, WorksheetBenchPoint } from "@/models";
 import { benchPointInput, benchStartInput, type BenchPointRow, type BenchSheetView } from "./bench-input";
-import { assertOpen, checkSetting, entriesOf, newEntryErrors, ownSheet, publishedSetting, quadContext, takeBackLast } from "./shared";
+import { assertOpen, checkSetting, entriesOf, ownSheet, publishedSetting, quadContext, takeBackLast } from "./shared";
 
 // Server side of the bench worksheet: start it on a quad with the current scale and offset in
 // force, add one clamp-meter point per request (fitted with every earlier point by
@@ -17,6 +17,13 @@ const rowOf = (p: WorksheetBenchPoint): BenchPointRow => ({ position: p.position
 /** Until two different clamp-meter currents are in, there is no line to fit yet: not an error, a next step. */
 const fittable = (points: ReadonlyArray<{ measuredAmps: number }>) => new Set(points.map((p) => p.measuredAmps)).size >= 2;
 const NEEDS_ANOTHER: FieldIssue = { field: "points", message: "Add a point at another steady throttle: a line needs two different clamp-meter currents" };
+/**
+ * Whether the display and the clamp meter can be the same current is judged on all points once
+ * there are this many: any order of the same points then gets the same verdict, and a point is
+ * never refused for what the points before it happened to fit.
+ */
+const POINTS_TO_JUDGE = 3;
+const NEEDS_THIRD: FieldIssue = { field: "points", message: "Add a third point at another steady throttle: the fit is judged once there are three" };
 
 const compute = (sheet: Worksheet, points: ReadonlyArray<{ measuredAmps: number; reportedAmps: number }>, family: FirmwareFamily) =>
   benchWorksheet(
@@ -72,6 +79,7 @@ export async function getBenchWorksheet(ownerId: string, id: number, transaction
     Quad.findByPk(sheet.quadId, { transaction }),
   ]);
   const result = fittable(live) ? compute(sheet, live, family!) : null;
+  const notes = !result ? (live.length ? [NEEDS_ANOTHER] : []) : result.ok ? result.warnings : live.length < POINTS_TO_JUDGE ? [NEEDS_THIRD] : result.errors;
   return {
     kind: "bench",
     id: sheet.id,
@@ -84,7 +92,7 @@ export async function getBenchWorksheet(ownerId: string, id: number, transaction
     points: live.map(rowOf),
     removed: removed.map((p) => ({ ...rowOf(p), removedAt: p.removedAt!.toISOString() })),
     result: result?.ok ? result.value : null,
-    warnings: result ? (result.ok ? result.warnings : result.errors) : live.length ? [NEEDS_ANOTHER] : [],
+    warnings: notes,
     submissionId: sheet.submissionId,
     createdAt: sheet.createdAt.toISOString(),
   };
@@ -97,12 +105,7 @@ export async function addBenchPoint(ownerId: string, id: number, input: unknown)
     const sheet = await ownBenchSheet(ownerId, id, transaction);
     assertOpen(sheet, "points");
     const { live } = await entriesOf<WorksheetBenchPoint>(WorksheetBenchPoint, sheet.id, transaction);
-    const points = [...live, point];
-    // the point on its own passed benchPointInput above; with a line to fit, the fit judges them all
-    if (fittable(points)) {
-      const result = compute(sheet, points, (await FirmwareFamily.findByPk(sheet.firmwareFamilyId, { transaction }))!);
-      if (!result.ok) throw badRequest(newEntryErrors(result.errors, `points.${live.length}.`));
-    }
+    // the point passed its own limits (benchPointInput above); the fit of all points is judged on the worksheet (POINTS_TO_JUDGE)
     await WorksheetBenchPoint.create({ worksheetId: sheet.id, position: live.length, ...point }, { transaction });
     await sheet.update({ updatedAt: new Date() }, { transaction });
   });
@@ -118,7 +121,12 @@ export async function removeBenchPoint(ownerId: string, id: number, position: nu
 /** The submission body (for a firmware version) a finished bench worksheet becomes: method "bench_clamp", the points as its evidence. */
 export function benchSubmissionBody(view: BenchSheetView, quad: Quad, firmwareFamilyId: number) {
   const r = view.result;
-  if (!r) throw badRequest({ points: ["Add points at two or more different throttles before publishing"] });
+  if (!r) {
+    const why = view.warnings.filter((w) => w.field === "points" || w.field.startsWith("points.")).map((w) => w.message);
+    throw badRequest({
+      points: view.points.length >= POINTS_TO_JUDGE && why.length ? why : ["Add points at two or more different throttles before publishing"],
+    });
+  }
   return (opts: { firmwareVersion: string; notes?: string | null }) => ({
     boardRevisionId: quad.boardRevisionId,
     firmwareFamilyId,

@@ -2,7 +2,7 @@ import { ApiError, badRequest } from "@/lib/http/errors";
 import { rechargeWorksheet } from "@/lib/calibration";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { startInput, stepInput, type RechargeStepRow, type WorksheetView } from "./recharge-input";
-import { entriesOf, newEntryErrors, ownSheet, publishedSetting, quadContext, takeBackLast } from "./shared";
+import { checkSetting, entriesOf, newEntryErrors, ownSheet, publishedSetting, quadContext, takeBackLast } from "./shared";
 import { db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
 
 // Server side of the fly-and-recharge worksheet: start it on a quad, add one iteration per request
@@ -14,10 +14,12 @@ export async function startRechargeWorksheet(ownerId: string, input: unknown): P
   const data = parseOrThrow(startInput, input);
   const { quad, family, revision } = await quadContext(ownerId, data.quadId);
   const published = await publishedSetting(revision.boardModel.slug, revision.label, family.slug, "currentScale");
-  const startingScale = published ?? data.startingScale;
+  // the builder's own scale is kept; the form only offers the published one as a starting point
+  const startingScale = data.startingScale ?? published;
   if (startingScale == null) {
     throw badRequest({ startingScale: ["Nothing is published for this board and family yet: enter the current scale the quad flies with now"] });
   }
+  checkSetting(startingScale, "The starting current scale", family, "currentScale", "startingScale");
   const sheet = await Worksheet.create({
     ownerId,
     quadId: quad.id,
@@ -26,7 +28,7 @@ export async function startRechargeWorksheet(ownerId: string, input: unknown): P
     ratedMah: data.ratedMah,
     cells: data.cells,
     startingScale,
-    startingSource: published != null ? "published" : "own",
+    startingSource: published != null && startingScale === published ? "published" : "own",
   });
   return getRechargeWorksheet(ownerId, sheet.id);
 }

@@ -113,7 +113,7 @@ export function voltageSubmissionBody(view: VoltageSheetView, quad: Quad, firmwa
     sensingSource: "board_adc",
     method: "multimeter",
     // within tolerance the scale in force is the measured, verified value; otherwise the safe rounding
-    voltageScale: r.verdict === "keep" ? view.scaleUsed : r.rounding.recommended.setting,
+    voltageScale: r.answer,
     currentScale: null,
     currentOffset: null,
     notes: opts.notes ?? `From a voltage worksheet in the garage: ${view.readings.length} display/multimeter pairs.`,

@@ -55,7 +55,7 @@ describe("garage quads (app/api/v1/garage/quads)", () => {
 });
 
 describe("garage packs and charge logs", () => {
-  it("counts cycles and estimates usable capacity from the log through packWarnings", async () => {
+  it("counts cycles and estimates usable capacity from the log through packLandingGuide", async () => {
     const alice = await sessionCookieFor("contributor", { email: "alice@garage.test" });
     const res = await callRoute(
       postPack,
@@ -79,10 +79,10 @@ describe("garage packs and charge logs", () => {
     const { pack: after } = await (await callRoute(getPackRoute, json(`/api/v1/garage/packs/${id}`, alice, "GET"), params({ id }))).json();
     // median of 1300, 1350, 1250 is 1300 (definition of the median); 80 % of it is 1040 mAh
     // (the 80 % warning: common practice, no source)
-    expect(after.warnings.capacity).toMatchObject({ cycleCount: 3, estimatedUsableMah: 1300, basis: "charge log" });
-    expect(after.warnings.mahWarning.mah).toBe(1040);
+    expect(after.landing.capacity).toMatchObject({ cycleCount: 3, estimatedUsableMah: 1300, basis: "charge log" });
+    expect(after.landing.usedCapacityAlert.mah).toBe(1040);
     // 4.2 V a cell full for LiPo (UW EH&S battery guidance): 16.8 V for 4S
-    expect(after.warnings.full.pack).toBeCloseTo(16.8, 10);
+    expect(after.landing.full.pack).toBeCloseTo(16.8, 10);
   });
 
   it("implausible readings get a field-level explanation and nothing is saved", async () => {

@@ -1,3 +1,6 @@
+import { readFileSync } from "node:fs";
+import { createRequire } from "node:module";
+import path from "node:path";
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -13,6 +16,7 @@ import { db, Submission, SubmissionBenchPoint, SubmissionVoltageReading, Workshe
 import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
 import { setupTestDatabase } from "@/tests/support/database";
 import { insertFixture, type Fixture } from "@/tests/support/fixtures";
+import { ANSCOMBE } from "@/tests/unit/calibration/sources";
 
 // The voltage and bench worksheets saved step by step (lib/worksheets/voltage.ts, bench.ts) and
 // publishing of every kind in one transaction (lib/worksheets/publish.ts).
@@ -186,27 +190,53 @@ describe("bench worksheet, saved point by point", () => {
     expect(evidence.map((p) => [p.scaleUsed, p.offsetUsed, p.measuredAmps, p.reportedAmps])).toEqual(points.map(([m, r]) => [400, 0, m, r]));
   });
 
-  it("a point that breaks the fit or its own limits is refused by field and not stored; the last point can be taken back", async () => {
+  it("a point past its own limits is refused by field and not stored; one that breaks the fit is kept, the fit is judged on all points from three, and the last can be taken back", async () => {
     const sheet = await start(owner, { kind: "bench", scaleUsed: 400, offsetUsed: 0 });
     await added(sheet.id, { measuredAmps: 10, reportedAmps: 11 });
     const negative = await add(sheet.id, { measuredAmps: -5, reportedAmps: 11 });
     expect((await negative.json()).error.fieldErrors.measuredAmps[0]).toMatch(/cannot be negative/);
-    // 10 A → 11 A and 20 A → 300 A: a gain of 28.9, not the same current
-    const wild = await add(sheet.id, { measuredAmps: 20, reportedAmps: 300 });
-    expect(wild.status).toBe(400);
-    expect((await wild.json()).error.fieldErrors.points[0]).toMatch(/cannot be the same current/);
     const empty = await add(sheet.id, { measuredAmps: "", reportedAmps: null });
     expect(Object.keys((await empty.json()).error.fieldErrors).sort()).toEqual(["measuredAmps", "reportedAmps"]);
     db();
     expect(await WorksheetBenchPoint.count({ where: { worksheetId: sheet.id } })).toBe(1);
+    // 10 A → 11 A and 20 A → 300 A: a gain of 28.9. Two points are not judged yet (the daily-paths
+    // issue: plausibility on all points once there are three), so the point is kept and a third asked for
+    const two = await added(sheet.id, { measuredAmps: 20, reportedAmps: 300 });
+    expect(two).toMatchObject({ result: null, warnings: [{ field: "points", message: expect.stringMatching(/third point/) }] });
+    const three = await added(sheet.id, { measuredAmps: 30, reportedAmps: 600 }); // all three fit a gain of 29.5
+    expect(three.result).toBeNull();
+    expect(three.warnings[0]).toMatchObject({ field: "points", message: expect.stringMatching(/cannot be the same current/) });
+    // such a worksheet cannot be published, and says why
+    const implausible = await callRoute(publish, req(owner, {}), params(sheet.id));
+    expect(implausible.status).toBe(400);
+    expect((await implausible.json()).error.fieldErrors.points[0]).toMatch(/cannot be the same current/);
 
-    const res = await callRoute(removeStep, req(owner, undefined, "DELETE"), params(sheet.id, 0));
-    expect(res.status).toBe(200);
-    expect((await res.json()).worksheet).toMatchObject({ points: [], removed: [{ position: 0, measuredAmps: 10 }] });
+    for (const position of [2, 1, 0]) expect((await callRoute(removeStep, req(owner, undefined, "DELETE"), params(sheet.id, position))).status).toBe(200);
+    const res = await callRoute(getSheet, req(owner, undefined, "GET"), params(sheet.id));
+    const after = (await res.json()).worksheet;
+    expect(after.points).toEqual([]);
+    expect(after.removed).toHaveLength(3);
+    expect(after.removed).toContainEqual(expect.objectContaining({ position: 0, measuredAmps: 10 }));
     // an unfinished worksheet cannot be published
     const early = await callRoute(publish, req(owner, {}), params(sheet.id));
     expect(early.status).toBe(400);
     expect((await early.json()).error.fieldErrors.points[0]).toMatch(/two or more different throttles/);
+  });
+});
+
+describe(`the clamp-meter fit does not depend on the order of the points — ${ANSCOMBE}, data from the npm package vega-datasets`, () => {
+  // Set I in its published order: the first three points alone fit a gain of 0.10 (implausible),
+  // all eleven fit 0.500 (Anscombe's published slope). Every point is kept and the final fit is judged.
+  const require = createRequire(__filename);
+  const file = path.join(path.dirname(require.resolve("vega-datasets")), "../data/anscombe.json");
+  const setI = (JSON.parse(readFileSync(file, "utf8")) as Array<{ Series: string; X: number; Y: number }>).filter((r) => r.Series === "I");
+
+  it("accepts Anscombe's set I point by point in its published order", async () => {
+    const sheet = await start(owner, { kind: "bench", scaleUsed: 400, offsetUsed: 0 });
+    let view = sheet;
+    for (const r of setI) view = await added(sheet.id, { measuredAmps: r.X, reportedAmps: r.Y });
+    expect(view.points).toHaveLength(11);
+    expect(view.result.fit.gain).toBeCloseTo(0.5, 2);
   });
 });
 

@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { predictedReadingError, roundBothWays, safeRoundingSide } from "@/lib/calibration";
+import { VOLTAGE_HIGH_ALLOWANCE } from "@/lib/calibration/rounding";
 import { ROUNDING_SIDE } from "./sources";
 
 describe(`both roundings and the safe side — ${ROUNDING_SIDE}`, () => {
@@ -49,6 +50,56 @@ describe(`both roundings and the safe side — ${ROUNDING_SIDE}`, () => {
           const err = predictedReadingError(r.recommended.setting, exact, response);
           if (safe === "high") expect(err).toBeGreaterThanOrEqual(-1e-9);
           else expect(err).toBeLessThanOrEqual(1e-9);
+        },
+      ),
+    );
+  });
+});
+
+// The voltage scale's rule (our own rule, from the daily-paths issue): the nearest whole step unless it
+// reads high by more than VOLTAGE_HIGH_ALLOWANCE (0.1 %), then the step that reads lower. Worked by hand.
+describe("voltage rounding: nearest step unless it reads more than 0.1 % high (our own rule)", () => {
+  it("proportional (V/V): exact 105.9857 → 106, reading 0.0135 % high, beats 105 reading 0.93 % low", () => {
+    const exact = 105 / (1 - 0.0093); // 105 reads 0.93 % low
+    const r = roundBothWays(exact, "proportional", "low", undefined, VOLTAGE_HIGH_ALLOWANCE);
+    expect(r.down.readingError).toBeCloseTo(-0.0093, 12);
+    expect(r.up.readingError).toBeCloseTo(106 / exact - 1, 12);
+    expect(r.up.readingError!).toBeLessThan(0.0002);
+    expect(r.recommendedSide).toBe("up");
+    expect(r.recommended.setting).toBe(106);
+  });
+
+  it("proportional (V/V): exact 105.8 → 105, since 106 would read 0.19 % high", () => {
+    const r = roundBothWays(105.8, "proportional", "low", undefined, VOLTAGE_HIGH_ALLOWANCE);
+    expect(r.up.readingError).toBeCloseTo(106 / 105.8 - 1, 12); // +0.189 %
+    expect(r.recommended).toMatchObject({ setting: 105, reads: "low" });
+  });
+
+  it("inverse (mV/V): exact 250.02 → 250, reading 0.008 % high (250.02 ÷ 250 − 1), beats 251 reading 0.39 % low", () => {
+    const r = roundBothWays(250.02, "inverse", "low", undefined, VOLTAGE_HIGH_ALLOWANCE);
+    expect(r.down.readingError).toBeCloseTo(250.02 / 250 - 1, 12);
+    expect(r.safeSide).toBe("up");
+    expect(r.recommendedSide).toBe("down");
+    expect(r.recommended.setting).toBe(250);
+  });
+
+  it("inverse (mV/V): exact 250.4 → 251 (nearest is 250, but it reads 0.16 % high)", () => {
+    const r = roundBothWays(250.4, "inverse", "low", undefined, VOLTAGE_HIGH_ALLOWANCE);
+    expect(r.recommended).toMatchObject({ setting: 251, reads: "low" });
+  });
+
+  it("property: within one step, never more than the allowance on the unsafe side, and the nearer step unless it errs past it", () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 10, max: 1e5, noNaN: true }),
+        fc.constantFrom("inverse" as const, "proportional" as const),
+        fc.constantFrom(0, VOLTAGE_HIGH_ALLOWANCE, 0.01),
+        (exact, response, allowance) => {
+          const r = roundBothWays(exact, response, "low", undefined, allowance);
+          expect(Math.abs(r.recommended.setting - exact)).toBeLessThanOrEqual(1);
+          expect(predictedReadingError(r.recommended.setting, exact, response)).toBeLessThanOrEqual(allowance + 1e-9);
+          const other = r.recommendedSide === "down" ? r.up : r.down;
+          if (Math.abs(other.setting - exact) < Math.abs(r.recommended.setting - exact)) expect(other.readingError!).toBeGreaterThan(allowance);
         },
       ),
     );

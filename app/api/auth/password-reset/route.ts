@@ -1,6 +1,7 @@
 import { route, routes, privateJson, tooManyRequests } from "@/lib/http";
 import { requestPasswordReset, RESET_TOKEN_MINUTES } from "@/lib/auth/password-reset";
-import { clientIp, limitKey, spendAttempt } from "@/lib/auth/rate-limit";
+import { clientAddress } from "@/lib/auth/client-address";
+import { accountKey, limitKey, spendAttempts } from "@/lib/auth/rate-limit";
 import { ACCOUNT_BODY_BYTES, ResetRequestSchema } from "@/lib/auth/schemas";
 
 // POST /api/auth/password-reset {email}: mails a reset link if an account has that address. The
@@ -9,7 +10,8 @@ export const dynamic = "force-dynamic";
 
 export const { GET, POST, PUT, PATCH, DELETE } = routes({
   POST: route({ auth: "public", body: ResetRequestSchema, maxBytes: ACCOUNT_BODY_BYTES }, async ({ req, body: { email } }) => {
-    const verdict = await spendAttempt("passwordReset", limitKey(clientIp(req.headers), email));
+    const address = clientAddress(req.headers);
+    const verdict = await spendAttempts(["resetAddress", address], ["passwordReset", limitKey(address, email)], ["resetMailbox", accountKey(email)]);
     if (!verdict.ok) return tooManyRequests(verdict.message, verdict.retryAfterSeconds);
     await requestPasswordReset(email);
     const message = `If an account uses ${email}, a reset link is on its way. It works for ${RESET_TOKEN_MINUTES} minutes.`;

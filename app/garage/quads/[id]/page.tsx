@@ -4,8 +4,8 @@ import { notFound } from "next/navigation";
 import { StartWorksheet } from "@/components/worksheets/start-worksheet";
 import { ApiError } from "@/lib/http/errors";
 import { requirePageUser } from "@/lib/auth";
-import { getQuad } from "@/lib/garage/quads";
 import { listQuadWorksheets } from "@/lib/worksheets";
+import { quadWorksheetContext } from "@/lib/worksheets/page-context";
 import { WORKSHEET_LABELS } from "@/lib/worksheets/common-input";
 import { TitledSection } from "@/components/titled-section";
 
@@ -20,7 +20,7 @@ export default async function QuadPage({ params }: Props) {
   const user = await requirePageUser(`/garage/quads/${id}`);
   const quadId = Number(id);
   if (!Number.isSafeInteger(quadId) || quadId <= 0) notFound();
-  const quad = await getQuad(user.id, quadId).catch((e) => {
+  const { quad, published } = await quadWorksheetContext(user.id, quadId).catch((e) => {
     if (e instanceof ApiError && e.status === 404) notFound();
     throw e;
   });
@@ -49,7 +49,7 @@ export default async function QuadPage({ params }: Props) {
             ))}
           </ul>
         )}
-        <StartWorksheet quadId={quad.id} />
+        <StartWorksheet quadId={quad.id} publishedScale={published.currentScale} />
         <p>
           <Link href={`/garage/quads/${quad.id}/voltage`} className="font-semibold">
             Check the voltage scale with a multimeter →

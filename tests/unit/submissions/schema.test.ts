@@ -15,7 +15,6 @@ const base: SubmissionInput = flyRechargeBody(
   { boardRevisionId: 1, firmwareFamilyId: 1 },
   {
     notes: "",
-    currentScale: 1846, // 2000 × 1200 / 1300 = 1846.2 (40 mV/A in Vornel's 0.02 mV/A steps, read 8 % low)
     cycles: [
       { scaleUsed: 2000, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
       { scaleUsed: 1846, reportedMah: 1290, chargedMah: 1300, ratedMah: 1500, cells: 4 },

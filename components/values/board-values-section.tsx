@@ -3,14 +3,17 @@
 import Link from "next/link";
 import { useMemo, useState, type ReactNode } from "react";
 import { useBoardValues } from "@/components/hooks/use-board-values";
-import { plural } from "@/lib/catalogue/format";
-import type { BoardValues, QuantityKey } from "@/lib/published/board-values-types";
+import type { BoardValues, FamilyUnits, QuantityKey } from "@/lib/published/board-values-types";
+import type { HistorySeries } from "@/lib/published/history";
 import { describeDifference, revisionDifferences, type RevisionFacts } from "@/lib/published/revision-differences";
 import { DifferenceNotes } from "./difference-notes";
+import { BoardActions } from "./board-actions";
 import { DistributionChart } from "./distribution-chart";
-import type { PartsFigures } from "./quantity-meaning";
+import { FromParts } from "./from-parts";
+import type { PartsDetail } from "./quantity-meaning";
 import { RecommendedValue } from "./recommended-value";
-import { findGroup, groupSize, type Selection } from "./selection";
+import { CHOSEN_BECAUSE, findGroup, groupSize, type ChosenBecause, type Selection } from "./selection";
+import { ValueHistoryList } from "./value-history-timeline";
 import { dayOf } from "./summary";
 import { ValuePicker } from "./value-picker";
 
@@ -34,6 +37,12 @@ type Props = {
   initial: { selection: Selection; values: BoardValues } | null;
   /** Why the address bar's choice was not used, if it was not. */
   notices: string[];
+  /** Why the first view shows the revision and family it does. */
+  chosenBecause: ChosenBecause;
+  /** Every recorded change of the board's published values; the selected group's come first. */
+  history: HistorySeries[];
+  /** Every family's units, for settings computed from the parts where nothing is published. */
+  families: FamilyUnits[];
   /** The safety box, kept beside the numbers. */
   safety: ReactNode;
 };
@@ -52,16 +61,26 @@ function Heading({ children }: { children?: ReactNode }) {
 /** The empty state; the contribution form (/submit) opens on this board. */
 function NoValues({ slug, what }: { slug: string; what: string }) {
   return (
-    <div className="rounded-md border-3 border-dashed border-rule bg-surface px-4 py-5" data-testid="no-values">
-      <p className="text-lead font-semibold">
-        No published values yet for {what} &mdash; <Link href={`/submit?board=${encodeURIComponent(slug)}`}>be the first to contribute</Link>.
+    <div className="rounded-md border-3 border-dashed border-rule bg-surface px-4 py-4" data-testid="no-values">
+      <p className="font-semibold">
+        No published values yet for {what} &mdash; <Link href={`/submit?board=${encodeURIComponent(slug)}`}>be the first to send yours</Link>.
       </p>
-      <p className="mt-1 text-muted">Calibrate your own board with a multimeter and a charger, and share what you measured.</p>
     </div>
   );
 }
 
+const partsOf = (r: RevisionEntry | undefined): PartsDetail => ({
+  dividerRatio: r?.dividerRatio ?? null,
+  sensitivityMvPerAmp: r?.sensitivityMvPerAmp ?? null,
+  currentSensor: r?.currentSensor ?? null,
+  shuntMilliohms: r?.shuntMilliohms ?? null,
+  amplifierGain: r?.amplifierGain ?? null,
+});
+const hasParts = (r: RevisionEntry | undefined) => r?.dividerRatio != null || r?.sensitivityMvPerAmp != null;
+
 export function BoardValuesSection(props: Props) {
+  // nothing published on the whole board: the newest revision whose parts are on record, worked out in every family
+  const newestWithParts = [...props.revisions].sort((a, b) => b.position - a.position).find(hasParts);
   return (
     <section aria-labelledby="values-title" className="space-y-4" id="values">
       {props.initial ? (
@@ -70,7 +89,13 @@ export function BoardValuesSection(props: Props) {
         <>
           <Heading />
           <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem] lg:items-start">
-            <NoValues slug={props.slug} what="this board" />
+            <div className="min-w-0 space-y-3">
+              <NoValues slug={props.slug} what="this board" />
+              {newestWithParts && props.families.length > 0 && (
+                <FromParts revision={newestWithParts.label} parts={partsOf(newestWithParts)} families={props.families} />
+              )}
+              <BoardActions slug={props.slug} />
+            </div>
             {props.safety}
           </div>
         </>
@@ -79,13 +104,27 @@ export function BoardValuesSection(props: Props) {
   );
 }
 
-function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }: Props & { initial: NonNullable<Props["initial"]> }) {
+/** Which revision and family are shown, why, and the two drop-downs that change them. */
+function SelectionBar({ why, children }: { why: string; children: ReactNode }) {
+  return (
+    <div className="space-y-1" data-testid="selection-bar">
+      {children}
+      <p className="text-small text-muted" data-testid="chosen-because">
+        Shown: {why}.
+      </p>
+    </div>
+  );
+}
+
+function ValuesExplorer({ slug, revisions, overview, initial, notices, safety, chosenBecause, history }: Props & { initial: NonNullable<Props["initial"]> }) {
   const [selection, setSelection] = useState<Selection>(initial.selection);
+  const [picked, setPicked] = useState(false);
   const isInitial = selection.revision === initial.selection.revision && selection.family === initial.selection.family;
   const query = useBoardValues(slug, selection, { initial: isInitial ? initial.values : undefined, keepPrevious: true });
 
   function choose(next: Selection) {
     setSelection(next);
+    setPicked(true);
     const url = new URL(window.location.href);
     url.searchParams.set("revision", next.revision);
     url.searchParams.set("family", next.family);
@@ -96,11 +135,11 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
 
   const revisionOptions = revisions.map((r) => {
     const n = groupSize(findGroup(overview, r.label, selection.family));
-    return { value: r.label, label: r.label, hint: n > 0 ? plural(n, "value") : "none yet" };
+    return { value: r.label, label: r.label, hint: String(n) };
   });
   const familyOptions = overview.families.map((f) => {
     const n = groupSize(findGroup(overview, selection.revision, f.slug));
-    return { value: f.slug, label: f.name, hint: n > 0 ? plural(n, "value") : "none yet" };
+    return { value: f.slug, label: f.name, hint: String(n) };
   });
 
   const notes = useMemo(() => {
@@ -119,7 +158,7 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
   const loading = !current && !query.isError;
   const group = shownRevision?.families[0] ?? null;
   const revisionEntry = revisions.find((r) => r.label === shownRevision?.label);
-  const parts: PartsFigures = { dividerRatio: revisionEntry?.dividerRatio ?? null, sensitivityMvPerAmp: revisionEntry?.sensitivityMvPerAmp ?? null };
+  const parts = partsOf(revisionEntry);
   const otherFamilies = (overview.revisions.find((r) => r.label === selection.revision)?.families ?? [])
     .filter((g) => g.family !== selection.family)
     .map((g) => familyName(g.family));
@@ -140,7 +179,9 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
         </p>
       )}
 
-      <ValuePicker selection={selection} revisions={revisionOptions} families={familyOptions} onChange={choose} />
+      <SelectionBar why={picked ? "as you chose" : CHOSEN_BECAUSE[chosenBecause]}>
+        <ValuePicker selection={selection} revisions={revisionOptions} families={familyOptions} onChange={choose} />
+      </SelectionBar>
 
       <p className="sr-only" aria-live="polite">
         {loading
@@ -164,28 +205,27 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
             units &&
             shownRevision && (
               <div aria-busy={loading} data-testid="values-view" data-shown={`${shownRevision.label}|${units.slug}`}>
-                <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
-                  <h3 className={`font-display text-xl font-bold tracking-wide uppercase ${loading ? "opacity-45" : ""}`}>
-                    <span className="font-mono normal-case">{shownRevision.label}</span> with {units.name}
-                  </h3>
-                  {loading && (
-                    <span className="rounded-full bg-ink px-3 py-0.5 text-small font-semibold text-paper">
-                      Loading {selection.revision} with {familyName(selection.family)}…
-                    </span>
-                  )}
-                </div>
+                {/* the drop-downs above already say what is shown; the heading is for screen readers' outline */}
+                <h3 className="sr-only">
+                  {shownRevision.label} with {units.name}
+                </h3>
+                {loading && (
+                  <span className="mb-2 inline-block rounded-full bg-ink px-3 py-0.5 text-small font-semibold text-paper">
+                    Loading {selection.revision} with {familyName(selection.family)}…
+                  </span>
+                )}
                 {/* the previous view stays while the next loads, dimmed and labelled with what it is */}
                 <div className={`transition-opacity ${loading ? "opacity-45" : ""}`}>
-                  {units.description && <p className="mt-1 max-w-prose text-small text-muted">{units.description}</p>}
                   {group ? (
-                    <div className="mt-3 grid gap-3 sm:grid-cols-3">
+                    <div className="grid gap-3 sm:grid-cols-3">
                       {QUANTITY_KEYS.map((k) => (
                         <RecommendedValue key={k} quantity={k} values={group[k]} units={units} parts={parts} />
                       ))}
                     </div>
                   ) : (
-                    <div className="mt-3">
+                    <div className="mt-3 space-y-3">
                       <NoValues slug={slug} what="this revision and firmware family" />
+                      {hasParts(revisionEntry) && <FromParts revision={shownRevision.label} parts={parts} families={[units]} />}
                       {otherFamilies.length > 0 && (
                         <p className="mt-2">
                           <span className="font-mono">{selection.revision}</span> has values under{" "}
@@ -194,11 +234,17 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
                       )}
                     </div>
                   )}
+                  {units.description && (
+                    <p className="mt-2 max-w-prose text-small text-muted">
+                      {units.name}: {units.description}
+                    </p>
+                  )}
                 </div>
               </div>
             )
           )}
           <DifferenceNotes notes={notes} />
+          <BoardActions slug={slug} />
         </div>
         {safety}
       </div>
@@ -214,6 +260,7 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety }:
           </div>
         </div>
       )}
+      <ValueHistoryList series={history} selection={selection} />
     </>
   );
 }

@@ -13,7 +13,7 @@ const LOOK: Record<ConfidenceLabel, { pips: number; className: string }> = {
 export function ConfidenceBadge({ label, title, n }: { label: ConfidenceLabel; title: string; n: number }) {
   const look = LOOK[label] ?? LOOK.too_few;
   return (
-    <p className={`inline-flex flex-wrap items-center gap-x-2 rounded-md border-2 bg-surface px-2.5 py-1 ${look.className}`}>
+    <p className={`inline-flex flex-wrap items-center gap-x-2 rounded-md border-2 bg-surface px-2.5 py-1 ${look.className}`} data-testid="confidence">
       <span aria-hidden="true" className="inline-flex items-end gap-0.5">
         {[1, 2, 3].map((i) => (
           <span

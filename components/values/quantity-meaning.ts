@@ -75,3 +75,32 @@ export function settingFromParts(quantity: QuantityKey, parts: PartsFigures, uni
   }
   return null;
 }
+
+/** The sensor parts behind PartsFigures, for spelling out the arithmetic. */
+export type PartsDetail = PartsFigures & { currentSensor: "shunt" | "hall" | null; shuntMilliohms: number | null; amplifierGain: number | null };
+
+/**
+ * How settingFromParts got its number, in one line a builder can check with a calculator
+ * (divider formula and Ohm's law as lib/calibration/units.ts applies them); null when it has none.
+ */
+export function partsArithmetic(quantity: QuantityKey, parts: PartsDetail, units: FamilyUnits): string | null {
+  const setting = settingFromParts(quantity, parts, units);
+  if (setting === null) return null;
+  const f = (n: number) => formatFigure(n, 3);
+  if (quantity === "voltageScale") {
+    const { unit, step } = units.voltageScale;
+    const ratio = parts.dividerRatio!;
+    return unit === "V/V"
+      ? `divider ratio ÷${f(ratio)} ÷ ${f(step)} V/V a step = ${setting}`
+      : `1000 ÷ ${f(ratio)} = ${f(1000 / ratio)} mV/V, ÷ ${f(step)} mV/V a step = ${setting}`;
+  }
+  const { unit, step } = units.currentScale;
+  const mv = parts.sensitivityMvPerAmp!;
+  const source =
+    parts.currentSensor === "shunt" && parts.shuntMilliohms !== null && parts.amplifierGain !== null
+      ? `${f(parts.shuntMilliohms)} mΩ shunt × gain ${f(parts.amplifierGain)} = ${f(mv)} mV/A`
+      : `${f(mv)} mV/A from the Hall sensor`;
+  return unit === "mV/A"
+    ? `${source}, ÷ ${f(step)} mV/A a step = ${setting}`
+    : `${source}; 1000 ÷ ${f(mv)} = ${f(1000 / mv)} A/V, ÷ ${f(step)} A/V a step = ${setting}`;
+}

@@ -22,33 +22,36 @@ export function RecommendedValue({
   const headingId = `rec-${quantity}`;
   const expected = settingFromParts(quantity, parts, units);
   return (
-    <article aria-labelledby={headingId} className="flex flex-col gap-2 rounded-md border-3 border-rule bg-surface px-4 py-3" data-quantity={quantity}>
+    <article aria-labelledby={headingId} className="flex flex-col gap-1.5 rounded-md border-3 border-rule bg-surface px-4 py-3" data-quantity={quantity}>
       <h3 id={headingId} className="font-display text-lg font-bold tracking-wide uppercase">
         {QUANTITY_TITLES[quantity]}
       </h3>
       {q ? (
         <>
-          <p className="flex flex-col">
-            <span className="text-small text-muted">Setting to enter</span>
-            <span
-              className={`font-mono text-display font-bold tabular-nums ${q.n < MIN_VALUES_TO_JUDGE ? "text-muted" : "text-ink"}`}
-              data-testid={`setting-${quantity}`}
-            >
-              {settingText(q.recommended.setting)}
-            </span>
-          </p>
+          {/* number and confidence side by side: on a phone both scales fit the first screen */}
+          <div className="flex flex-wrap items-center gap-x-4 gap-y-1">
+            <p className="flex flex-col">
+              <span className="sr-only">Setting to enter</span>
+              <span
+                className={`font-mono text-title leading-none font-bold tabular-nums sm:text-display ${q.n < MIN_VALUES_TO_JUDGE ? "text-muted" : "text-ink"}`}
+                data-testid={`setting-${quantity}`}
+              >
+                {settingText(q.recommended.setting)}
+              </span>
+            </p>
+            <ConfidenceBadge label={q.confidence.label} title={q.confidence.title} n={q.n} />
+          </div>
           <ul className="text-small">
             {settingMeaning(quantity, q.recommended.setting, units).map((line) => (
               <li key={line}>{line}</li>
             ))}
+            {expected !== null && (
+              <li className="text-muted">
+                The parts list works out at <span className="font-mono font-bold text-ink">{settingText(expected)}</span>.
+              </li>
+            )}
           </ul>
-          <ConfidenceBadge label={q.confidence.label} title={q.confidence.title} n={q.n} />
-          <p className="text-small">{q.confidence.explanation}</p>
-          {expected !== null && (
-            <p className="border-t border-rule-soft pt-2 text-small text-muted">
-              This revision&rsquo;s parts list works out at <span className="font-mono font-bold text-ink">{settingText(expected)}</span>.
-            </p>
-          )}
+          <p className="text-small leading-snug text-muted">{q.confidence.explanation}</p>
         </>
       ) : (
         <p className="sb-unknown">Nobody has published a {QUANTITY_TITLES[quantity].toLowerCase()} for this revision and firmware family yet.</p>

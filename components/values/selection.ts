@@ -5,6 +5,13 @@ import type { BoardValues, GroupValues, QuantityKey } from "@/lib/published/boar
 // family with the most values in it. Pure, so the server page and the client agree.
 
 export type Selection = { revision: string; family: string };
+
+/** Why the page opened on its selection, in words for the page: the builder did not pick it. */
+export const CHOSEN_BECAUSE = {
+  link: "as the link asked",
+  likeliest: "the newest revision with values, in its most used firmware family",
+} as const;
+export type ChosenBecause = keyof typeof CHOSEN_BECAUSE;
 export type RevisionOption = { label: string; position: number };
 
 const KEYS: QuantityKey[] = ["voltageScale", "currentScale", "currentOffset"];
@@ -28,10 +35,10 @@ export function resolveSelection(
   revisions: readonly RevisionOption[],
   overview: BoardValues,
   asked: { revision?: string; family?: string },
-): { selection: Selection | null; notices: string[] } {
+): { selection: Selection | null; notices: string[]; chosenBecause: ChosenBecause } {
   const notices: string[] = [];
   const families = overview.families;
-  if (revisions.length === 0 || families.length === 0) return { selection: null, notices };
+  if (revisions.length === 0 || families.length === 0) return { selection: null, notices, chosenBecause: "likeliest" };
 
   const byNewest = [...revisions].sort((a, b) => b.position - a.position);
   let revision: string | undefined;
@@ -59,5 +66,6 @@ export function resolveSelection(
     const name = families.find((f) => f.slug === family)!.name;
     notices.push(`Showing ${revision} with ${name} instead.`);
   }
-  return { selection: { revision, family }, notices };
+  const chosenBecause: ChosenBecause = asked.revision && asked.family && notices.length === 0 ? "link" : "likeliest";
+  return { selection: { revision, family }, notices, chosenBecause };
 }

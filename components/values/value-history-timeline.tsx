@@ -1,18 +1,14 @@
 import { formatFigure, plural } from "@/lib/catalogue/format";
-import { getValueHistory, type HistoryPoint } from "@/lib/published/history";
-import { ACTION_LABELS, type Quantity, QUANTITY_LABELS } from "@/lib/vocabulary";
-import { TitledSection } from "@/components/titled-section";
+import type { HistoryPoint, HistorySeries } from "@/lib/published/history";
+import { ACTION_LABELS } from "@/lib/vocabulary";
+import { QUANTITY_TITLES } from "./quantity-meaning";
+import type { Selection } from "./selection";
 
-// How each published value got where it is: one timeline per revision, firmware family and
-// quantity, newest change first, with the value, n, interval, when and which kind of event moved
-// it. Public: names and moderators' reasons are not shown (lib/published/history leaves them out).
+// How each published value got where it is, newest change first, with the value, n, interval,
+// when and which kind of event moved it. The selected revision and family come first; every other
+// series waits behind one disclosure. Public: names and moderators' reasons are not part of it.
 
 const dateTime = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
-const LABEL_BY_KEY: Record<string, string> = {
-  voltageScale: QUANTITY_LABELS.voltage_scale,
-  currentScale: QUANTITY_LABELS.current_scale,
-  currentOffset: QUANTITY_LABELS.current_offset,
-} satisfies Record<string, (typeof QUANTITY_LABELS)[Quantity]>;
 
 function Point({ p }: { p: HistoryPoint }) {
   const what = p.event ? ACTION_LABELS[p.event.action] : "Published before changes were recorded";
@@ -32,27 +28,51 @@ function Point({ p }: { p: HistoryPoint }) {
   );
 }
 
-export async function ValueHistoryTimeline({ slug }: { slug: string }) {
-  const history = await getValueHistory(slug);
-  if (!history || history.series.length === 0) return null;
+function Series({ s, withGroup }: { s: HistorySeries; withGroup: boolean }) {
+  const title = withGroup ? `${QUANTITY_TITLES[s.quantity]} · ${s.revision.label} · ${s.family.name}` : QUANTITY_TITLES[s.quantity];
   return (
-    <TitledSection id="history" title="How the values changed" className="space-y-3">
-      <p className="max-w-prose text-muted">Every change to a published value: approvals move them, and so can a reverted decision.</p>
-      <div className="space-y-2">
-        {history.series.map((s) => (
-          <details key={`${s.revision.id}-${s.family.id}-${s.quantity}`} className="rounded-md border-2 border-rule bg-surface p-3">
-            <summary className="cursor-pointer font-semibold">
-              {LABEL_BY_KEY[s.quantity]} · rev {s.revision.label} · {s.family.name}{" "}
-              <span className="text-small text-muted">({plural(s.points.length, "change")})</span>
-            </summary>
-            <ol className="mt-3" aria-label={`${LABEL_BY_KEY[s.quantity]} history, newest first`}>
-              {[...s.points].reverse().map((p, i) => (
-                <Point key={i} p={p} />
-              ))}
-            </ol>
-          </details>
+    <details className="rounded-md border-2 border-rule bg-surface p-3">
+      <summary className="cursor-pointer font-semibold">
+        {title} <span className="text-small text-muted">({plural(s.points.length, "change")})</span>
+      </summary>
+      <ol className="mt-3" aria-label={`${title} history, newest first`}>
+        {[...s.points].reverse().map((p, i) => (
+          <Point key={i} p={p} />
         ))}
-      </div>
-    </TitledSection>
+      </ol>
+    </details>
+  );
+}
+
+export function ValueHistoryList({ series, selection }: { series: HistorySeries[]; selection: Selection }) {
+  if (series.length === 0) return null;
+  const shown = series.filter((s) => s.revision.label === selection.revision && s.family.slug === selection.family);
+  const rest = series.filter((s) => !shown.includes(s));
+  return (
+    <section aria-labelledby="history-title" className="space-y-3" id="history" data-testid="value-history">
+      <h3 id="history-title" className="font-display text-xl font-bold tracking-wide uppercase">
+        How the values changed
+      </h3>
+      <p className="max-w-prose text-small text-muted">Every change to a published value: approvals move them, and so can a reverted decision.</p>
+      {shown.length > 0 ? (
+        <div className="space-y-2">
+          {shown.map((s) => (
+            <Series key={`${s.revision.id}-${s.family.id}-${s.quantity}`} s={s} withGroup={false} />
+          ))}
+        </div>
+      ) : (
+        <p className="text-small text-muted">No recorded changes for this revision and firmware family.</p>
+      )}
+      {rest.length > 0 && (
+        <details className="rounded-md border-2 border-rule-soft p-3">
+          <summary className="cursor-pointer font-semibold">Other revisions and firmware families ({plural(rest.length, "series", "series")})</summary>
+          <div className="mt-3 space-y-2">
+            {rest.map((s) => (
+              <Series key={`${s.revision.id}-${s.family.id}-${s.quantity}`} s={s} withGroup />
+            ))}
+          </div>
+        </details>
+      )}
+    </section>
   );
 }

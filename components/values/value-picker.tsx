@@ -3,10 +3,12 @@
 import { useSyncExternalStore } from "react";
 import type { Selection } from "./selection";
 
-// Revision and firmware family as two rows of radio chips. It is a real GET form: before the
-// script runs (or without it) "Show values" reloads the page for the choice; once hydrated a
-// change switches in place and the button goes away. Navigation only, so no react-hook-form.
+// Revision and firmware family as two native drop-downs side by side: one row on a phone, and one
+// tap opens the phone's own chooser. It is a real GET form: before the script runs (or without it)
+// "Show values" reloads the page for the choice; once hydrated a change switches in place and the
+// button goes away. Navigation only, so no react-hook-form.
 
+/** hint: how many values the choice has, or "none yet". */
 export type PickerOption = { value: string; label: string; hint?: string };
 
 const noop = () => () => {};
@@ -17,41 +19,30 @@ const useHydrated = () =>
     () => false,
   );
 
-function ChipGroup({
-  legend,
+function Choice({
+  label,
   name,
   options,
   value,
   onChange,
 }: {
-  legend: string;
+  label: string;
   name: keyof Selection;
   options: PickerOption[];
   value: string;
   onChange: (value: string) => void;
 }) {
   return (
-    <fieldset className="min-w-0">
-      <legend className="mb-1 font-display text-base font-bold tracking-wide text-muted uppercase">{legend}</legend>
-      <div className="flex flex-wrap gap-2">
+    <label className="block min-w-0">
+      <span className="mb-1 block font-display text-base font-bold tracking-wide text-muted uppercase">{label}</span>
+      <select name={name} value={value} onChange={(e) => onChange(e.target.value)} className={`sb-field ${name === "revision" ? "font-mono" : ""}`}>
         {options.map((o) => (
-          <label key={o.value} className="relative">
-            <input
-              type="radio"
-              name={name}
-              value={o.value}
-              checked={o.value === value}
-              onChange={() => onChange(o.value)}
-              className="peer absolute inset-0 z-10 cursor-pointer opacity-0"
-            />
-            <span className="inline-flex min-h-11 items-center gap-2 rounded-md border-2 border-rule bg-surface px-3 font-semibold peer-checked:border-ink peer-checked:bg-ink peer-checked:text-paper peer-hover:bg-sunken peer-checked:peer-hover:bg-ink peer-focus-visible:shadow-[0_0_0_3px_var(--sb-paper),0_0_0_7px_var(--sb-signal)]">
-              <span className={name === "revision" ? "font-mono" : ""}>{o.label}</span>
-              {o.hint && <span className="text-small font-normal opacity-80">{o.hint}</span>}
-            </span>
-          </label>
+          <option key={o.value} value={o.value}>
+            {o.hint ? `${o.label} (${o.hint})` : o.label}
+          </option>
         ))}
-      </div>
-    </fieldset>
+      </select>
+    </label>
   );
 }
 
@@ -72,18 +63,12 @@ export function ValuePicker({
       method="get"
       aria-label="Choose revision and firmware family"
       onSubmit={(e) => e.preventDefault()}
-      className="flex flex-col gap-3 sm:flex-row sm:flex-wrap sm:items-end sm:gap-6"
+      className="grid grid-cols-2 items-end gap-3 sm:max-w-xl"
     >
-      <ChipGroup
-        legend="Revision"
-        name="revision"
-        options={revisions}
-        value={selection.revision}
-        onChange={(revision) => onChange({ ...selection, revision })}
-      />
-      <ChipGroup legend="Firmware family" name="family" options={families} value={selection.family} onChange={(family) => onChange({ ...selection, family })} />
+      <Choice label="Revision" name="revision" options={revisions} value={selection.revision} onChange={(revision) => onChange({ ...selection, revision })} />
+      <Choice label="Firmware family" name="family" options={families} value={selection.family} onChange={(family) => onChange({ ...selection, family })} />
       {!hydrated && (
-        <button type="submit" className="sb-button sb-button-quiet self-start">
+        <button type="submit" className="sb-button sb-button-quiet col-span-2 justify-self-start">
           Show values
         </button>
       )}

@@ -92,6 +92,11 @@ function familyUnits(f: FamilyRow): FamilyUnits {
   };
 }
 
+/** Every firmware family's units, for a board with nothing published yet (settings from its parts). */
+export async function readFamilyUnits(sequelize: Sequelize): Promise<FamilyUnits[]> {
+  return (await sequelize.query<FamilyRow>(FAMILIES_SQL, { type: QueryTypes.SELECT })).map(familyUnits);
+}
+
 const UNIT_OF: Record<Quantity, (u: FamilyUnits) => { unit: string; step: number }> = {
   voltage_scale: (u) => u.voltageScale,
   current_scale: (u) => u.currentScale,

@@ -1,5 +1,7 @@
 import type { BoardValues, BoardValuesFilter, RevisionValues } from "./board-values-types";
 import { cachedBoard, cachedStamp, type CachedBoard } from "./values-cache";
+import { readFamilyUnits } from "./board-values-load";
+import { db } from "@/models";
 
 export * from "./board-values-types";
 export { checkBoardValuesFeed, invalidateBoardValues } from "./values-cache";
@@ -46,6 +48,11 @@ function snapshotOf(entry: CachedBoard): BoardValuesSnapshot {
 export async function loadBoardValues(slug: string, { points = false }: { points?: boolean } = {}): Promise<BoardValuesSnapshot | null> {
   const entry = await cachedBoard(slug, points);
   return entry ? snapshotOf(entry) : null;
+}
+
+/** Every firmware family's units: what a board with nothing published can be computed in. */
+export function listFamilyUnits() {
+  return readFamilyUnits(db());
 }
 
 /** The board page's entry point: the values narrowed by `filter`, or null for an unknown board. */

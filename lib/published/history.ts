@@ -97,7 +97,7 @@ export type HistoryPoint = {
   event: { id: number; action: AuditAction } | null;
 };
 
-type HistorySeries = {
+export type HistorySeries = {
   revision: { id: number; label: string };
   family: { id: number; slug: string; name: string };
   quantity: QuantityKey;

@@ -64,7 +64,7 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
     // a marker on window survives only if the page is never reloaded
     await page.evaluate(() => ((window as unknown as { __valuesMarker: string }).__valuesMarker = "still here"));
 
-    await page.getByRole("radio", { name: new RegExp(`^${after}\\b`) }).click();
+    await page.getByLabel("Revision", { exact: true }).selectOption(after);
     await waitForView(page, after, "vornel");
     const v2 = await apiGroup(after, "vornel");
     const v2Shown = await shownSettings(page);
@@ -74,7 +74,7 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
     expect(await page.getByText(`${after} reads about half the current of ${before} at the same current scale`).isVisible()).toBe(true);
     expect(new URL(page.url()).searchParams.get("revision")).toBe(after);
 
-    await page.getByRole("radio", { name: /^Skelmar\b/ }).click();
+    await page.getByLabel("Firmware family", { exact: true }).selectOption("skelmar");
     await waitForView(page, after, "skelmar");
     const skelmar = await apiGroup(after, "skelmar");
     const skShown = await shownSettings(page);
@@ -145,13 +145,34 @@ describe.skipIf(!appUrl)("board page: published starting values", () => {
     await page.close();
   });
 
+  it("phone, first screen: the voltage and current settings with their confidence, and why this revision and family", async () => {
+    const page = await browsers.phone.newPage();
+    await page.goto(`/boards/${boardSlug}`);
+    await page.locator('[data-testid="values-view"][aria-busy="false"]').waitFor();
+    const fold = page.viewportSize()!.height;
+    for (const k of ["voltageScale", "currentScale"] as const) {
+      const box = await page.getByTestId(`setting-${k}`).boundingBox();
+      expect(box, k).not.toBeNull();
+      expect(box!.y + box!.height, `${k} ends above the fold`).toBeLessThanOrEqual(fold);
+      const badge = await page.locator(`article[data-quantity="${k}"] [data-testid="confidence"]`).boundingBox();
+      expect(badge!.y + badge!.height, `${k} confidence above the fold`).toBeLessThanOrEqual(fold);
+    }
+    // it says the builder did not pick this view, and why it was picked
+    expect(await page.getByTestId("chosen-because").innerText()).toMatch(/newest revision with values/);
+    await shot(page, "board-first-screen-phone-light");
+    await page.close();
+  });
+
   it("a revision with no values, and one with too few to judge, say so in words", async () => {
     const page = await browsers.phone.newPage();
     const none = DEMO_LANDMARKS.sparseRevisions.none[0];
     await page.goto(`/boards/${none.boardSlug}?revision=${encodeURIComponent(none.label)}`);
     await page.getByText("No published values yet for this revision and firmware family").waitFor();
     // the empty state invites a contribution on the contribution form, opened on this board
-    expect(await page.getByRole("link", { name: "be the first to contribute" }).getAttribute("href")).toBe(`/submit?board=${none.boardSlug}`);
+    expect(await page.getByRole("link", { name: "be the first to send yours" }).getAttribute("href")).toBe(`/submit?board=${none.boardSlug}`);
+    // every board page offers both ways to add to its values
+    expect(await page.getByRole("link", { name: "Send your values" }).getAttribute("href")).toBe(`/submit?board=${none.boardSlug}`);
+    expect(await page.getByRole("link", { name: "Calibrate this board" }).getAttribute("href")).toBe(`/garage?board=${none.boardSlug}`);
     expect(await page.locator("#values").innerText()).not.toMatch(/NaN|undefined/);
     await shot(page, "board-values-empty-phone-light");
 

@@ -5,13 +5,13 @@ import { cache, type ReactNode } from "react";
 import { RevisionHardware } from "@/components/revision-hardware";
 import { SafetyNote } from "@/components/safety-note";
 import { BoardValuesSection, type RevisionEntry } from "@/components/values/board-values-section";
-import { ValueHistoryTimeline } from "@/components/values/value-history-timeline";
 import { resolveSelection } from "@/components/values/selection";
 import { formatCells, formatMounting } from "@/lib/catalogue/format";
 import { getBoardBySlug } from "@/lib/catalogue/get-board";
 import { kindLabel } from "@/lib/catalogue/kinds";
 import { catalogueQueryString } from "@/lib/catalogue/search-params";
-import { getBoardValues, type BoardValues } from "@/lib/published/board-values";
+import { getBoardValues, listFamilyUnits, type BoardValues } from "@/lib/published/board-values";
+import { getValueHistory } from "@/lib/published/history";
 import { TitledSection } from "@/components/titled-section";
 
 export const dynamic = "force-dynamic";
@@ -29,13 +29,13 @@ async function loadValues(slug: string, asked: { revision?: string; family?: str
   const overviewResult = await getBoardValues(slug);
   if (!overviewResult?.ok) return null;
   const overview = overviewResult.values;
-  const { selection, notices } = resolveSelection(overview.revisions, overview, asked);
+  const { selection, notices, chosenBecause } = resolveSelection(overview.revisions, overview, asked);
   let initial: { selection: NonNullable<typeof selection>; values: BoardValues } | null = null;
   if (selection) {
     const view = await getBoardValues(slug, { ...selection, points: true });
     if (view?.ok) initial = { selection, values: view.values };
   }
-  return { overview, initial, notices };
+  return { overview, initial, notices, chosenBecause };
 }
 
 // metadata and the page read the same board: one query per request
@@ -56,7 +56,12 @@ export default async function BoardPage({ params, searchParams }: Props) {
   const board = await loadBoard((await params).slug);
   if (!board) notFound();
   const query = await searchParams;
-  const values = await loadValues(board.slug, { revision: firstString(query.revision), family: firstString(query.family) });
+  const [values, history] = await Promise.all([
+    loadValues(board.slug, { revision: firstString(query.revision), family: firstString(query.family) }),
+    getValueHistory(board.slug),
+  ]);
+  // only a board with nothing published needs every family, for its settings computed from the parts
+  const families = values?.initial ? [] : await listFamilyUnits();
   const revisionEntries: RevisionEntry[] = board.revisions.map((r) => ({
     label: r.label,
     position: r.position,
@@ -86,8 +91,9 @@ export default async function BoardPage({ params, searchParams }: Props) {
   ];
 
   return (
-    <div className="space-y-8">
-      <nav aria-label="Breadcrumb">
+    <div className="space-y-5 sm:space-y-8">
+      {/* on a phone the menu's "Boards" is the way back, and the first screen is kept for the values */}
+      <nav aria-label="Breadcrumb" className="hidden sm:block">
         <ol className="flex flex-wrap items-center gap-2 text-small">
           <li>
             <Link href="/boards">Boards</Link>
@@ -102,13 +108,11 @@ export default async function BoardPage({ params, searchParams }: Props) {
       </nav>
 
       <header>
-        <p className="font-display text-lg font-bold tracking-wider uppercase">
-          <Link href={`/boards${catalogueQueryString({ kind: board.kind })}`} className="no-underline hover:underline">
-            {kindLabel(board.kind)}
-          </Link>
-        </p>
         <h1 className="font-display text-title uppercase">{board.name}</h1>
-        <p className="mt-2 text-lead">
+        <p className="mt-1 sm:text-lead">
+          <Link href={`/boards${catalogueQueryString({ kind: board.kind })}`} className="font-display font-bold tracking-wider uppercase">
+            {kindLabel(board.kind)}
+          </Link>{" "}
           by{" "}
           {board.manufacturer.website ? (
             <a href={board.manufacturer.website} rel="external noopener noreferrer" className="font-semibold">
@@ -120,16 +124,7 @@ export default async function BoardPage({ params, searchParams }: Props) {
         </p>
       </header>
 
-      <dl className="grid grid-cols-2 gap-px overflow-hidden rounded-md border-3 border-rule bg-rule sm:grid-cols-4">
-        {facts.map((f) => (
-          <div key={f.term} className="bg-surface px-4 py-3">
-            <dt className="font-display text-base font-semibold tracking-wide text-muted uppercase">{f.term}</dt>
-            <dd className="mt-1 font-mono text-lg">{f.value}</dd>
-          </div>
-        ))}
-      </dl>
-
-      {/* the numbers a pilot came for, with the safety box beside them */}
+      {/* the numbers a pilot came for, first on a phone, with the safety box beside them; the facts follow */}
       <BoardValuesSection
         slug={board.slug}
         revisions={revisionEntries}
@@ -143,10 +138,20 @@ export default async function BoardPage({ params, searchParams }: Props) {
         }
         initial={values?.initial ?? null}
         notices={values?.notices ?? []}
+        chosenBecause={values?.chosenBecause ?? "likeliest"}
+        history={history?.series ?? []}
+        families={families}
         safety={<SafetyNote />}
       />
 
-      <ValueHistoryTimeline slug={board.slug} />
+      <dl className="grid grid-cols-2 gap-px overflow-hidden rounded-md border-3 border-rule bg-rule sm:grid-cols-4">
+        {facts.map((f) => (
+          <div key={f.term} className="bg-surface px-4 py-3">
+            <dt className="font-display text-base font-semibold tracking-wide text-muted uppercase">{f.term}</dt>
+            <dd className="mt-1 font-mono text-lg">{f.value}</dd>
+          </div>
+        ))}
+      </dl>
 
       <div className="space-y-6">
         <div>

@@ -12,7 +12,7 @@ import { ErrorText, NumberField, SelectField, fieldId, useFieldError, type Draft
 // The three kinds of evidence, each with its cautions beside it. Rows are added and removed with
 // react-hook-form's field arrays; field names are the schema's paths ("cycles.2.chargedMah").
 
-/** "× 0.1 V/V" beside a setting box: what one step is worth. */
+/** "× 0.02 V/V" beside a setting box: what one step is worth. */
 const stepUnit = (step: number, unit: string) => `× ${formatFigure(step, 6)} ${unit}`;
 
 type Setting = "voltage" | "current" | "offset";

@@ -204,7 +204,7 @@ export function SubmissionForm({
                 hint={family?.description ?? "Values are only comparable within one family: each stores its settings in its own units."}
                 options={familyOptions}
               />
-              <TextField name="firmwareVersion" label="Firmware version" placeholder="e.g. 4.5.0" hint="As the firmware reports it." />
+              <TextField name="firmwareVersion" label="Firmware version" placeholder="e.g. dunlin" hint="As the firmware reports it." />
             </div>
           </div>
         </Step>

@@ -45,7 +45,7 @@ export const settingRange = (family: WorksheetFamily, kind: SettingKind) => {
   return { min, max };
 };
 
-/** "1 step = 0.1 mV/A" */
+/** "1 step = 0.02 mV/A" */
 const stepText = (family: WorksheetFamily, kind: SettingKind) => {
   const r = rangeOf(family, kind);
   return `1 step = ${formatFigure(r.step, 6)} ${r.unit}`;

@@ -218,10 +218,10 @@ export function submissionSchema(context: SchemaContext = {}) {
           firmwareVersion: z
             .string({ error: "Enter the firmware version" })
             .trim()
-            .min(1, "Enter the firmware version, like 4.5.0")
+            .min(1, "Enter the firmware version, like dunlin")
             .regex(
               FIRMWARE_VERSION_RE,
-              "A firmware version is up to 32 letters, digits, dots, plus or minus signs, starting with a letter or digit, like 4.5.0",
+              "A firmware version is up to 32 letters, digits, dots, plus or minus signs, starting with a letter or digit, like dunlin",
             ),
           sensingSource: z.enum(SENSING_SOURCES, { error: "Choose where the readings come from" }),
           method: z.enum(METHODS, { error: "Choose how you checked the values" }),

@@ -4,7 +4,7 @@ import { z } from "zod";
 export const publishInput = z.object(
   {
     firmwareVersion: z
-      .string({ error: "The firmware version is text, like 4.5.0" })
+      .string({ error: "The firmware version is text, like dunlin" })
       .trim()
       .nullish()
       .transform((v) => (v ? v : null)),

@@ -41,12 +41,27 @@ export type BoardSpec = {
 };
 
 const div = (topOhms: number, bottomOhms: number): DividerSpec => ({ topOhms, bottomOhms });
-const D5 = div(10_000, 2_200); // ÷5.55, up to 4S HV
-const D9 = div(10_000, 1_200); // ÷9.33, up to 7S HV
-const D11 = div(10_000, 1_000); // ÷11, up to 8S HV
-const D11B = div(100_000, 10_000); // ÷11 with lower standing drain
-const D11C = div(47_000, 4_700); // ÷11
-const D16 = div(15_000, 1_000); // ÷16, up to 12S HV
+// Several distinct ratios, as real makers fit whatever pair their parts list already holds
+// (resistor values from the E12/E24 series; common practice, no source).
+const D5_55 = div(10_000, 2_200); // ÷5.55, up to 4S HV (needs 5.27)
+const D5_81 = div(13_000, 2_700); // ÷5.81
+const D6_56 = div(10_000, 1_800); // ÷6.56
+const D7_06 = div(20_000, 3_300); // ÷7.06
+const D9_20 = div(8_200, 1_000); // ÷9.2, up to 6S HV (needs 7.91)
+const D9_33 = div(10_000, 1_200); // ÷9.33
+const D9_46 = div(33_000, 3_900); // ÷9.46
+const D10 = div(27_000, 3_000); // ÷10
+const D10_23 = div(12_000, 1_300); // ÷10.23
+const D11 = div(10_000, 1_000); // ÷11, up to 8S HV (needs 10.55)
+const D11_93 = div(47_000, 4_300); // ÷11.93
+const D12_82 = div(39_000, 3_300); // ÷12.82
+const D13 = div(12_000, 1_000); // ÷13
+const D13_LOW_DRAIN = div(120_000, 10_000); // ÷13 with ten times less standing drain
+const D13_20 = div(100_000, 8_200); // ÷13.2
+const D14_33 = div(20_000, 1_500); // ÷14.33
+const D15_36 = div(56_000, 3_900); // ÷15.36
+const D16 = div(18_000, 1_200); // ÷16
+const D19_18 = div(20_000, 1_100); // ÷19.18, up to 14S HV (needs 18.45)
 const shunt = (milliohms: number | null, gain: number | null): SensorSpec => ({ kind: "shunt", milliohms, gain });
 const hall = (mvPerAmp: number | null): SensorSpec => ({ kind: "hall", mvPerAmp });
 
@@ -72,9 +87,9 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     aliases: ["BW F7 Mini", "Bracken Mini", "BWF7M"],
     description: "Compact flight controller with an onboard battery divider; current comes from the stacked ESC.",
     revisions: [
-      rev("v1", 34, D11, null),
-      rev("v1.1", 20, D11B, null, { notes: "Same ratio as v1 with larger resistors, so the divider draws less from the pack." }),
-      rev("v2", 2, D16, null, { submissions: 0, notes: "v2 moves to a ÷16 divider for 12S support: v1 voltage scales do not carry over." }),
+      rev("v1", 34, D13, null),
+      rev("v1.1", 20, D13_LOW_DRAIN, null, { notes: "Same ratio as v1 with larger resistors, so the divider draws less from the pack." }),
+      rev("v2", 2, D19_18, null, { submissions: 0, notes: "v2 moves to a ÷19.2 divider for 14S support: v1 voltage scales do not carry over." }),
     ],
   },
   {
@@ -99,8 +114,8 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     aliases: ["Tinsel AIO", "BW Tinsel"],
     description: "Whoop-size all-in-one with flight controller and 4-in-1 ESC on one board.",
     revisions: [
-      rev("v1", 28, D5, shunt(0.5, 50)),
-      rev("v2", 12, D5, shunt(0.25, 50), { notes: "v2 halves the shunt to 0.25 mΩ for cooler running; current scales from v1 read half the real current." }),
+      rev("v1", 28, D6_56, shunt(0.6, 45)),
+      rev("v2", 12, D6_56, shunt(0.3, 45), { notes: "v2 halves the shunt to 0.3 mΩ for cooler running; current scales from v1 read half the real current." }),
     ],
   },
   {
@@ -112,7 +127,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Ravel 45"],
-    revisions: [rev("v1", 26, null, shunt(0.5, 40), { adcKnown: false })],
+    revisions: [rev("v1", 26, null, shunt(0.4, 50), { adcKnown: false })],
   },
   {
     maker: "brackenwell",
@@ -123,7 +138,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Ravel 60", "Ravel Sixty"],
-    revisions: [rev("v1", 22, null, shunt(0.25, 40), { adcKnown: false }), rev("rev B", 9, null, shunt(0.25, 50), { adcKnown: false })],
+    revisions: [rev("v1", 22, null, shunt(0.25, 60), { adcKnown: false }), rev("rev B", 9, null, shunt(0.25, 75), { adcKnown: false })],
   },
   {
     maker: "brackenwell",
@@ -134,7 +149,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Quarry H7"],
-    revisions: [rev("v1", 16, D11C, null)],
+    revisions: [rev("v1", 16, D12_82, null)],
   },
   {
     maker: "brackenwell",
@@ -145,7 +160,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "niche",
     aliases: [],
-    revisions: [rev("v1", 24, D9, hall(40), { adcKnown: false })],
+    revisions: [rev("v1", 24, D9_46, hall(28), { adcKnown: false })],
   },
 
   // ── Fernhollow Circuits ──────────────────────────────────────────────────────────────
@@ -159,7 +174,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     tier: "hot",
     aliases: ["Wisp16", "FH Wisp"],
     description: "Tiny all-in-one for 2–3 inch builds.",
-    revisions: [rev("v1", 32, D5, shunt(1, 20)), rev("v1.1", 18, D5, shunt(1, 20)), rev("v2", 7, D5, shunt(0.5, 40))],
+    revisions: [rev("v1", 32, D7_06, shunt(1, 25)), rev("v1.1", 18, D7_06, shunt(1, 25)), rev("v2", 7, D7_06, shunt(0.5, 50))],
   },
   {
     maker: "fernhollow",
@@ -170,7 +185,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Wisp20"],
-    revisions: [rev("v1", 21, D9, shunt(0.5, 50))],
+    revisions: [rev("v1", 21, D10_23, shunt(0.4, 60))],
   },
   {
     maker: "fernhollow",
@@ -181,7 +196,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Bramble4"],
-    revisions: [rev("v1", 35, D11, null), rev("v2", 17, D9, null)],
+    revisions: [rev("v1", 35, D10_23, null), rev("v2", 17, D9_20, null)],
   },
   {
     maker: "fernhollow",
@@ -192,7 +207,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "hot",
     aliases: ["Bramble7", "FH Bramble F7"],
-    revisions: [rev("v1", 29, D11, null), rev("v1.1", 13, D11, null)],
+    revisions: [rev("v1", 29, D14_33, null), rev("v1.1", 13, D14_33, null)],
   },
   {
     maker: "fernhollow",
@@ -214,7 +229,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Thicket 50"],
-    revisions: [rev("v1", 27, null, shunt(0.5, 20), { adcKnown: false }), rev("v1.1", 11, null, shunt(0.5, 20), { adcKnown: false })],
+    revisions: [rev("v1", 27, null, shunt(0.5, 30), { adcKnown: false }), rev("v1.1", 11, null, shunt(0.5, 30), { adcKnown: false })],
   },
   {
     maker: "fernhollow",
@@ -236,7 +251,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "niche",
     aliases: ["Loam board"],
-    revisions: [rev("v1", 33, null, hall(20), { adcKnown: false })],
+    revisions: [rev("v1", 33, null, hall(33), { adcKnown: false })],
   },
 
   // ── Kestrune Labs ────────────────────────────────────────────────────────────────────
@@ -249,7 +264,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Vantle4"],
-    revisions: [rev("v1", 31, D9, null), rev("v1.1", 16, D9, null)],
+    revisions: [rev("v1", 31, D9_46, null), rev("v1.1", 16, D9_46, null)],
   },
   {
     maker: "kestrune",
@@ -260,7 +275,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Vantle7", "KL Vantle"],
-    revisions: [rev("v1", 25, D11, null)],
+    revisions: [rev("v1", 25, D15_36, null)],
   },
   {
     maker: "kestrune",
@@ -271,7 +286,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "niche",
     aliases: [],
-    revisions: [rev("rev A", 12, D11, null), rev("rev B", 4, D11, null, { submissions: 2 })],
+    revisions: [rev("rev A", 12, D11_93, null), rev("rev B", 4, D11_93, null, { submissions: 2 })],
   },
   {
     maker: "kestrune",
@@ -282,7 +297,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 4,
     tier: "hot",
     aliases: ["Corrie 25", "Kestrune Whoop AIO"],
-    revisions: [rev("v1", 30, D5, shunt(0.5, 40)), rev("v2", 10, D5, shunt(0.5, 40))],
+    revisions: [rev("v1", 30, D5_81, shunt(0.75, 40)), rev("v2", 10, D5_81, shunt(0.75, 40))],
   },
   {
     maker: "kestrune",
@@ -293,7 +308,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Corrie Slim"],
-    revisions: [rev("v1", 18, D9, shunt(0.5, 50))],
+    revisions: [rev("v1", 18, D9_20, shunt(0.5, 35))],
   },
   {
     maker: "kestrune",
@@ -304,7 +319,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 4,
     tier: "common",
     aliases: [],
-    revisions: [rev("v1", 15, D5, shunt(1, 25))],
+    revisions: [rev("v1", 15, D6_56, shunt(1, 40))],
   },
   {
     maker: "kestrune",
@@ -315,7 +330,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Skerry 55"],
-    revisions: [rev("v1", 28, null, shunt(0.25, 100), { adcKnown: false })],
+    revisions: [rev("v1", 28, null, shunt(0.3, 100), { adcKnown: false })],
   },
   {
     maker: "kestrune",
@@ -327,8 +342,8 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     tier: "common",
     aliases: ["Skerry Eighty"],
     revisions: [
-      rev("v1", 20, null, shunt(0.25, 50), { adcKnown: false }),
-      rev("v2", 6, null, hall(13.3), { adcKnown: false, notes: "v2 swaps the shunt for a Hall sensor." }),
+      rev("v1", 20, null, shunt(0.25, 80), { adcKnown: false }),
+      rev("v2", 6, null, hall(10), { adcKnown: false, notes: "v2 swaps the shunt for a Hall sensor." }),
     ],
   },
   {
@@ -340,7 +355,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Gully"],
-    revisions: [rev("v1", 26, D11, hall(20), { adcKnown: false })],
+    revisions: [rev("v1", 26, D16, hall(20), { adcKnown: false })],
   },
 
   // ── Marlpit Electric ─────────────────────────────────────────────────────────────────
@@ -354,7 +369,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     tier: "hot",
     aliases: ["Ember4", "Marlpit E4"],
     description: "Long-running budget flight controller.",
-    revisions: [rev("v1", 36, D11, null), rev("v2", 22, D11, null), rev("v3", 8, D9, null)],
+    revisions: [rev("v1", 36, D11, null), rev("v2", 22, D11, null), rev("v3", 8, D10_23, null)],
   },
   {
     maker: "marlpit",
@@ -376,7 +391,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 4,
     tier: "common",
     aliases: ["Ember Nano"],
-    revisions: [rev("v1", 21, D5, null)],
+    revisions: [rev("v1", 21, D7_06, null)],
   },
   {
     maker: "marlpit",
@@ -387,7 +402,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 4,
     tier: "niche",
     aliases: ["Ember Whoop"],
-    revisions: [rev("v1", 23, D5, null), rev("v1.1", 10, D5, null)],
+    revisions: [rev("v1", 23, D5_55, null), rev("v1.1", 10, D5_55, null)],
   },
   {
     maker: "marlpit",
@@ -398,7 +413,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "niche",
     aliases: [],
-    revisions: [rev("v1", 7, D11, null)],
+    revisions: [rev("v1", 7, D12_82, null)],
   },
   {
     maker: "marlpit",
@@ -409,7 +424,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Cinder 35"],
-    revisions: [rev("v1", 23, null, shunt(0.5, 50), { adcKnown: false })],
+    revisions: [rev("v1", 23, null, shunt(0.5, 25), { adcKnown: false })],
   },
   {
     maker: "marlpit",
@@ -431,7 +446,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Hearth"],
-    revisions: [rev("v1", 33, D11, shunt(0.5, 20), { adcKnown: false })],
+    revisions: [rev("v1", 33, D14_33, shunt(0.4, 25), { adcKnown: false })],
   },
   {
     maker: "marlpit",
@@ -442,7 +457,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 4,
     tier: "common",
     aliases: ["Flint AIO"],
-    revisions: [rev("v1", 17, D5, shunt(1, 40))],
+    revisions: [rev("v1", 17, D5_81, shunt(0.75, 50))],
   },
 
   // ── Tarnwick Avionics ────────────────────────────────────────────────────────────────
@@ -455,7 +470,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "hot",
     aliases: ["Osprel Seven", "TW Osprel"],
-    revisions: [rev("v1", 27, D11C, null), rev("v1.1", 14, D11C, null)],
+    revisions: [rev("v1", 27, D13_20, null), rev("v1.1", 14, D13_20, null)],
   },
   {
     maker: "tarnwick",
@@ -466,7 +481,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Osprel Mini"],
-    revisions: [rev("v1", 20, D9, null)],
+    revisions: [rev("v1", 20, D9_33, null)],
   },
   {
     maker: "tarnwick",
@@ -477,7 +492,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: [],
-    revisions: [rev("v1", 11, D11, null)],
+    revisions: [rev("v1", 11, D13, null)],
   },
   {
     maker: "tarnwick",
@@ -488,7 +503,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 4,
     tier: "common",
     aliases: ["Pibble"],
-    revisions: [rev("v1", 25, D5, shunt(0.5, 60)), rev("v2", 9, D5, shunt(null, null), { notes: "The maker has not published the v2 shunt." })],
+    revisions: [rev("v1", 25, D6_56, shunt(0.5, 60)), rev("v2", 9, D6_56, shunt(null, null), { notes: "The maker has not published the v2 shunt." })],
   },
   {
     maker: "tarnwick",
@@ -499,7 +514,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Gantry 40"],
-    revisions: [rev("v1", 22, null, shunt(0.5, 40), { adcKnown: false })],
+    revisions: [rev("v1", 22, null, shunt(0.3, 50), { adcKnown: false })],
   },
   {
     maker: "tarnwick",
@@ -510,7 +525,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "niche",
     aliases: [],
-    revisions: [rev("v1", 10, null, shunt(0.25, 40), { adcKnown: false })],
+    revisions: [rev("v1", 10, null, shunt(0.25, 100), { adcKnown: false })],
   },
   {
     maker: "tarnwick",
@@ -521,7 +536,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Tollgate"],
-    revisions: [rev("v1", 29, D11, shunt(0.5, 20), { adcKnown: false })],
+    revisions: [rev("v1", 29, D15_36, shunt(0.5, 20), { adcKnown: false })],
   },
 
   // ── Duskwren Devices ─────────────────────────────────────────────────────────────────
@@ -534,7 +549,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Gloamie", "DW Gloam"],
-    revisions: [rev("v1", 30, D9, null), rev("v2", 12, D9, null)],
+    revisions: [rev("v1", 30, D9_20, null), rev("v2", 12, D9_20, null)],
   },
   {
     maker: "duskwren",
@@ -545,7 +560,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Gloam Seven"],
-    revisions: [rev("v1", 18, D11, null)],
+    revisions: [rev("v1", 18, D11_93, null)],
   },
   {
     maker: "duskwren",
@@ -556,7 +571,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 4,
     tier: "common",
     aliases: ["Murmur"],
-    revisions: [rev("v1", 24, D5, shunt(1, 50))],
+    revisions: [rev("v1", 24, D7_06, shunt(1, 60))],
   },
   {
     maker: "duskwren",
@@ -567,7 +582,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "niche",
     aliases: [],
-    revisions: [rev("v1", 13, D9, shunt(0.5, 50))],
+    revisions: [rev("v1", 13, D10_23, shunt(0.5, 50))],
   },
   {
     maker: "duskwren",
@@ -578,7 +593,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Hush 45"],
-    revisions: [rev("v1", 26, null, shunt(0.5, 40), { adcKnown: false })],
+    revisions: [rev("v1", 26, null, shunt(0.4, 40), { adcKnown: false })],
   },
   {
     maker: "duskwren",
@@ -589,7 +604,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "niche",
     aliases: [],
-    revisions: [rev("v1", 8, null, shunt(0.5, 40), { adcKnown: false, submissions: 1 })],
+    revisions: [rev("v1", 8, null, shunt(0.4, 40), { adcKnown: false, submissions: 1 })],
   },
   {
     maker: "duskwren",
@@ -613,7 +628,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Copper Bus", "CL Bus 120"],
-    revisions: [rev("v1", 34, D11, shunt(0.25, 20), { adcKnown: false }), rev("v2", 14, D11, hall(20), { adcKnown: false })],
+    revisions: [rev("v1", 34, D16, shunt(0.25, 25), { adcKnown: false }), rev("v2", 14, D16, hall(13.3), { adcKnown: false })],
   },
   {
     maker: "copperlode",
@@ -624,7 +639,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "niche",
     aliases: [],
-    revisions: [rev("rev A", 3, D11, hall(13.3), { adcKnown: false, submissions: 0 })],
+    revisions: [rev("rev A", 3, D16, hall(8), { adcKnown: false, submissions: 0 })],
   },
   {
     maker: "copperlode",
@@ -635,7 +650,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Tap module"],
-    revisions: [rev("v1", 32, D11, hall(40), { adcKnown: false }), rev("v1.1", 16, D11, hall(40), { adcKnown: false })],
+    revisions: [rev("v1", 32, D12_82, hall(24), { adcKnown: false }), rev("v1.1", 16, D12_82, hall(24), { adcKnown: false })],
   },
   {
     maker: "copperlode",
@@ -646,7 +661,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "niche",
     aliases: [],
-    revisions: [rev("v1", 12, D9, hall(66), { adcKnown: false })],
+    revisions: [rev("v1", 12, D9_46, hall(66), { adcKnown: false })],
   },
   {
     maker: "copperlode",
@@ -668,7 +683,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "niche",
     aliases: [],
-    revisions: [rev("v1", 28, D9, null)],
+    revisions: [rev("v1", 28, D9_33, null)],
   },
 
   // ── Ivelmoor Hobby Works ─────────────────────────────────────────────────────────────
@@ -681,7 +696,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 4,
     tier: "common",
     aliases: ["Sprig"],
-    revisions: [rev("v1", 27, D5, shunt(1, 30)), rev("v1.1", 13, D5, shunt(1, 30))],
+    revisions: [rev("v1", 27, D5_55, shunt(1, 30)), rev("v1.1", 13, D5_55, shunt(1, 30))],
   },
   {
     maker: "ivelmoor",
@@ -692,7 +707,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Sprig+"],
-    revisions: [rev("v1", 15, D9, shunt(0.5, 60))],
+    revisions: [rev("v1", 15, D10, shunt(0.5, 60))],
   },
   {
     maker: "ivelmoor",
@@ -703,7 +718,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "common",
     aliases: ["Fennel Four"],
-    revisions: [rev("v1", 26, D9, null)],
+    revisions: [rev("v1", 26, D9_46, null)],
   },
   {
     maker: "ivelmoor",
@@ -714,7 +729,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 8,
     tier: "common",
     aliases: ["Fennel Seven"],
-    revisions: [rev("v1", 19, D11B, null), rev("v2", 5, D11B, null)],
+    revisions: [rev("v1", 19, D13_20, null), rev("v2", 5, D13_20, null)],
   },
   {
     maker: "ivelmoor",
@@ -736,7 +751,7 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "niche",
     aliases: ["Quern board"],
-    revisions: [rev("v1", 30, null, shunt(0.5, 50), { adcKnown: false })],
+    revisions: [rev("v1", 30, null, shunt(0.5, 30), { adcKnown: false })],
   },
   {
     maker: "ivelmoor",
@@ -747,6 +762,6 @@ export const DEMO_BOARDS: readonly BoardSpec[] = [
     maxCells: 6,
     tier: "niche",
     aliases: [],
-    revisions: [rev("v1", 17, D9, shunt(0.5, 100), { adcKnown: false, submissions: 2 })],
+    revisions: [rev("v1", 17, D10_23, shunt(0.5, 100), { adcKnown: false, submissions: 2 })],
   },
 ];

@@ -155,7 +155,9 @@ const next = (response: Response, scaleUsed: number, reportedMah: number, charge
 function bench(rng: Rng, fam: DemoFirmwareFamily, kind: BoardKind, target: { scale: number; offset: number }, noise: number): BenchEvidence {
   const response = fam.currentScaleResponse;
   const scaleUsed = startingSetting(rng, response, fam.defaults.currentScale, target.scale, [fam.currentScaleMin, fam.currentScaleMax]);
-  const offsetUsed = rng.chance(0.7) ? 0 : clamp(roundSetting(target.offset + 5 * rng.normal()), fam.currentOffsetMin, fam.currentOffsetMax);
+  const offsetUsed = rng.chance(0.7)
+    ? fam.defaults.currentOffset
+    : clamp(roundSetting(target.offset + 5 * rng.normal()), fam.currentOffsetMin, fam.currentOffsetMax);
   const gain = displayFactor(response, scaleUsed, target.scale);
   const intercept =
     fam.currentOffsetUnit === "mV"

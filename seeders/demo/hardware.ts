@@ -48,17 +48,20 @@ export function publishedHardware(spec: RevisionSpec): PublishedHardware {
   };
 }
 
-// Parts a maker might plausibly have fitted when it did not say which (common practice, no source).
+// Parts a maker might plausibly have fitted when it did not say which: E12/E24 resistor pairs from
+// ÷6.56 to ÷15.67, 0.25–1 mΩ shunts behind 20–100 V/V amplifiers, and Hall sensors of 10–40 mV/A
+// (common practice, no source). physicalTruth keeps only the dividers legal for the board's cells.
 const HIDDEN_DIVIDERS: ReadonlyArray<readonly [number, number]> = [
-  [10_000, 2_200],
-  [10_000, 1_200],
-  [10_000, 1_000],
-  [20_000, 2_000],
-  [15_000, 1_000],
+  [10_000, 1_800],
+  [10_000, 1_500],
+  [8_200, 1_000],
+  [39_000, 3_300],
+  [12_000, 1_000],
+  [22_000, 1_500],
 ];
-const HIDDEN_SHUNT_MILLIOHMS = [0.25, 0.5, 1] as const;
-const HIDDEN_GAINS = [20, 40, 50, 60] as const;
-const HIDDEN_HALL_MV_PER_AMP = [13.3, 20, 40] as const;
+const HIDDEN_SHUNT_MILLIOHMS = [0.25, 0.3, 0.5, 0.75, 1] as const;
+const HIDDEN_GAINS = [20, 25, 40, 50, 60, 100] as const;
+const HIDDEN_HALL_MV_PER_AMP = [10, 13.3, 20, 28, 40] as const;
 
 export function physicalTruth(hw: PublishedHardware, maxCells: number, rng: Rng): PhysicalTruth {
   const knownRatio = revisionDividerRatio(hw);

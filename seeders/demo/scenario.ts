@@ -74,7 +74,7 @@ export const DEMO_LANDMARKS = {
     "marlpit-ember-f4",
     "tarnwick-osprel-f7",
   ],
-  /** v2 changed the shunt from 0.5 mΩ to 0.25 mΩ: v1's current scale is wrong for v2 */
+  /** v2 halved the shunt, from 0.6 mΩ to 0.3 mΩ: v1's current scale is wrong for v2 */
   hardwareChange: { boardSlug: "brackenwell-tinsel-25-aio", before: "v1", after: "v2" },
   /** revisions with exactly this many submissions */
   sparseRevisions: {

@@ -206,12 +206,12 @@ function drawSubmission(ctx: Context, d: Draw): DemoSubmission {
   let currentScale = hasCurrentValue ? scatter(truth.currentScale, currentSd, "currentScale") : null;
   let currentOffset: number | null = null;
   if (hasCurrentValue && rng.chance(0.6)) {
-    // many people leave the offset at zero unless they measured it
+    // many people leave the offset at the firmware's default unless they measured it
     const measured = method !== "unverified" && (method !== "fly_recharge" || rng.chance(0.5));
     const zeroErrorMv = d.truth.physical.zeroErrorMv + OFFSET_SPREAD_MV[method] * rng.normal();
     currentOffset = measured
       ? clampToRange(roundSetting(offsetSetting({ ...d.truth.physical, zeroErrorMv }, fam)), fam.currentOffsetMin, fam.currentOffsetMax)
-      : 0;
+      : fam.defaults.currentOffset;
   }
 
   let anomaly: Anomaly | null = null;
@@ -219,6 +219,7 @@ function drawSubmission(ctx: Context, d: Draw): DemoSubmission {
     // sent in the firmware's out-of-the-box values without measuring anything
     if (voltageScale != null) voltageScale = fam.defaults.voltageScale;
     if (currentScale != null) currentScale = fam.defaults.currentScale;
+    if (currentOffset != null) currentOffset = fam.defaults.currentOffset;
     const off = (v: number | null, exact: number) => v != null && Math.abs(v - exact) / exact > 0.03;
     if (off(voltageScale, truth.voltageScale) || off(currentScale, truth.currentScale)) anomaly = "firmware_default";
   }

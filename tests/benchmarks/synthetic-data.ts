@@ -110,8 +110,8 @@ const SQL_SEED = 0.4242;
 
 // Values are whole settings (the firmware stores integers) scattered about ±1 % around a per
 // revision "true" setting, which is the family's shipped setting moved by a hash of the revision
-// id (its hardware). About 3 % are careless submissions that send the shipped setting unchanged,
-// so the outlier rules have work to do. The sum of three uniforms is a cheap bell shape.
+// id (its hardware). About 3 % are careless submissions that send the shipped settings unchanged
+// (the families' invented, non-round defaults, offset included), so the outlier rules have work to do. The sum of three uniforms is a cheap bell shape.
 const SUBMISSIONS_SQL = `
 WITH revs AS (SELECT id, (row_number() OVER (ORDER BY id) - 1)::int AS k FROM board_revisions),
 people AS (SELECT id, (row_number() OVER (ORDER BY id) - 1)::int AS k FROM users),
@@ -152,7 +152,7 @@ SELECT revision_id, id,
             ELSE greatest(vmin, least(vmax, round(dv * (0.7 + 0.6 * hw_v) * (1 + 0.02 * n_v)))) END,
        CASE WHEN u_cnull < 0.25 AND u_vnull >= 0.05 THEN NULL WHEN u_careless < 0.03 THEN dc
             ELSE greatest(cmin, least(cmax, round(dc * (0.5 + hw_c) * (1 + 0.02 * n_c)))) END,
-       CASE WHEN u_onull < 0.40 THEN NULL
+       CASE WHEN u_onull < 0.40 THEN NULL WHEN u_careless < 0.03 THEN doff
             ELSE greatest(omin, least(omax, round(doff + 40 * (hw_o - 0.5) + 3 * n_o))) END,
        CASE WHEN u_status < 0.85 THEN 'approved' WHEN u_status < 0.93 THEN 'pending' WHEN u_status < 0.98 THEN 'rejected' ELSE 'changes_requested' END,
        created, created + interval '1 hour' * (72 * u_edit)

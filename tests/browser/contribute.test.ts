@@ -17,7 +17,7 @@ const scenario = buildDemoScenario();
 const boardSlug = DEMO_LANDMARKS.popularBoards[0];
 const board = scenario.boardModels.find((b) => b.slug === boardSlug)!;
 const revision = scenario.boardRevisions.find((r) => r.boardSlug === boardSlug)!;
-const family = DEMO_FIRMWARE_FAMILIES[0]; // V/V in 0.1, mV/A in 0.1: the figures below are in its steps
+const family = DEMO_FIRMWARE_FAMILIES[0]; // V/V in 0.02, mV/A in 0.02: the figures below are in its steps (the board's ÷13 is 650)
 const email = `journey-${Date.now()}@example.test`;
 
 /** Signs in with a magic link: through the /signin page when it offers one, else through next-auth's own form post. */
@@ -89,11 +89,11 @@ describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () =
     await page.getByLabel("I also checked the pack voltage with a multimeter").check();
     expect(await page.getByRole("heading", { name: "Measuring pack voltage" }).isVisible()).toBe(true);
 
-    await page.getByLabel("Voltage scale set while you measured").fill("105");
+    await page.getByLabel("Voltage scale set while you measured").fill("625");
     await page.locator("#f-voltageCheck-readings-0-cells").fill("4");
-    await page.locator("#f-voltageCheck-readings-0-reportedVolts").fill("16.04");
+    await page.locator("#f-voltageCheck-readings-0-reportedVolts").fill("16.15");
     await page.locator("#f-voltageCheck-readings-0-measuredVolts").fill("16,8"); // a decimal comma, as many phones type it
-    await page.locator("#f-cycles-0-scaleUsed").fill("120");
+    await page.locator("#f-cycles-0-scaleUsed").fill("1500");
     await page.locator("#f-cycles-0-reportedMah").fill("1100");
     await page.locator("#f-cycles-0-ratedMah").fill("1500");
     await page.locator("#f-cycles-0-cells").fill("4");
@@ -105,14 +105,14 @@ describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () =
       .getByText(/cannot have put 2500 mAh into a 1500 mAh pack/)
       .waitFor();
     await page.locator("#f-cycles-0-chargedMah").fill("1290");
-    await page.getByLabel("Voltage scale", { exact: true }).fill("110");
-    await page.getByLabel("Current scale", { exact: true }).fill("102");
+    await page.getByLabel("Voltage scale", { exact: true }).fill("650");
+    await page.getByLabel("Current scale", { exact: true }).fill("1279");
     await page.getByLabel("Current offset", { exact: true }).click();
 
-    // fly-and-recharge rule (common practice, no source): 120 × 1100 / 1290 = 102.3; voltage: 105 × 16.8 / 16.04 = 110.0
+    // fly-and-recharge rule (common practice, no source): 1500 × 1100 / 1290 = 1279.1; voltage: 625 × 16.8 / 16.15 = 650.2
     const implied = page.getByRole("region", { name: "What your evidence implies" });
-    await implied.getByText("a current scale of 102.3").waitFor();
-    expect(await implied.innerText()).toMatch(/voltage scale of 110/);
+    await implied.getByText("a current scale of 1279.1").waitFor();
+    expect(await implied.innerText()).toMatch(/voltage scale of 650\.2/);
     const compare = page.getByRole("region", { name: "How your values compare" });
     await compare
       .getByText(/approved value/)
@@ -139,11 +139,11 @@ describe.skipIf(!appUrl)("contribute: a contributor's journey in Chromium", () =
   it("the edit link opens the form on the stored values", async () => {
     const id = new URL(page.url()).searchParams.get("sent");
     await Promise.all([page.waitForURL(new RegExp(`/my/submissions/${id}/edit$`)), page.getByRole("link", { name: `Edit submission #${id}` }).click()]);
-    expect(await page.getByLabel("Current scale", { exact: true }).inputValue()).toBe("102");
+    expect(await page.getByLabel("Current scale", { exact: true }).inputValue()).toBe("1279");
     expect(await page.locator("#f-cycles-0-chargedMah").inputValue()).toBe("1290");
-    await page.getByLabel("Current scale", { exact: true }).fill("103");
+    await page.getByLabel("Current scale", { exact: true }).fill("1280");
     await Promise.all([page.waitForURL(/\/my\/submissions\?updated=\d+/), page.getByRole("button", { name: "Save changes" }).click()]);
-    expect(await page.locator(`#submission-${id}`).innerText()).toMatch(/103/);
+    expect(await page.locator(`#submission-${id}`).innerText()).toMatch(/1280/);
   });
 
   it("the same pages on a desktop in dark mode, signed in as the same person", async () => {

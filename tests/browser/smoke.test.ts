@@ -53,8 +53,8 @@ describe.skipIf(!appUrl)("smoke: Shuntbook's first pages in Chromium", () => {
     expect(await page.getByRole("heading", { level: 3, name: /^Revision / }).count()).toBe(
       scenario.boardRevisions.filter((r) => r.boardSlug === boardSlug).length,
     );
-    // 0.5 mΩ × 50 = 25 mV/A (Ohm's law: sensitivity = R_shunt × gain), computed by lib/calibration/units.ts
-    expect(await page.getByText("25 mV/A").first().isVisible()).toBe(true);
+    // 0.6 mΩ × 45 = 27 mV/A (Ohm's law: sensitivity = R_shunt × gain), computed by lib/calibration/units.ts
+    expect(await page.getByText("27 mV/A").first().isVisible()).toBe(true);
     await shot(page, "board-desktop-dark");
     await page.close();
   });

@@ -268,20 +268,20 @@ describe("board page data", () => {
 
   it("derives divider ratio and sensitivity from the hardware (handbook and Ohm's-law worked examples)", async () => {
     // Voltage divider, Vout = Vin·R2/(R1+R2) (Horowitz & Hill, The Art of Electronics, §1.2.3; from
-    // memory): 10 kΩ over 1 kΩ divides by 11. brackenwell-f7-mini v1 uses that pair.
-    const mini = (await getBoardBySlug("brackenwell-f7-mini"))!;
-    const v1 = mini.revisions.find((r) => r.label === "v1")!;
+    // memory): 10 kΩ over 1 kΩ divides by 11. brackenwell-f7-wide v1 uses that pair.
+    const wide = (await getBoardBySlug("brackenwell-f7-wide"))!;
+    const v1 = wide.revisions.find((r) => r.label === "v1")!;
     expect([v1.dividerTopOhms, v1.dividerBottomOhms]).toEqual([10_000, 1_000]);
     expect(v1.dividerRatio).toBeCloseTo(11, 12);
-    // Shunt and amplifier, sensitivity = R × gain (Ohm's law): 0.5 mΩ × 50 = 25 mV/A, and
-    // 0.25 mΩ × 50 = 12.5 mV/A (Ohm's law: sensitivity = R_shunt × gain). The hardware-change landmark has both.
+    // Shunt and amplifier, sensitivity = R × gain (Ohm's law): 0.6 mΩ × 45 = 27 mV/A, and
+    // 0.3 mΩ × 45 = 13.5 mV/A (Ohm's law: sensitivity = R_shunt × gain). The hardware-change landmark has both.
     const tinsel = (await getBoardBySlug(DEMO_LANDMARKS.hardwareChange.boardSlug))!;
     const [before, after] = [DEMO_LANDMARKS.hardwareChange.before, DEMO_LANDMARKS.hardwareChange.after].map((label) =>
       tinsel.revisions.find((r) => r.label === label)!,
     );
-    expect(before).toMatchObject({ currentSensor: "shunt", shuntMilliohms: 0.5, amplifierGain: 50 });
-    expect(before.sensitivityMvPerAmp).toBeCloseTo(25, 12);
-    expect(after.sensitivityMvPerAmp).toBeCloseTo(12.5, 12);
+    expect(before).toMatchObject({ currentSensor: "shunt", shuntMilliohms: 0.6, amplifierGain: 45 });
+    expect(before.sensitivityMvPerAmp).toBeCloseTo(27, 12);
+    expect(after.sensitivityMvPerAmp).toBeCloseTo(13.5, 12);
   });
 
   it("keeps unknown hardware as null rather than inventing it", async () => {

@@ -165,12 +165,12 @@ describe("every query an endpoint or page runs has an index behind it", () => {
         name: "Index check sheets",
         boardRevisionId: target.revisionId,
         firmwareFamilyId: target.familyId,
-        firmwareVersion: "1.0.0",
+        firmwareVersion: "avocet",
       }),
       201,
     );
     const { worksheet } = await ok(
-      send(worksheetsRoute.POST, "POST", "/api/v1/garage/worksheets", contributor, { kind: "voltage", quadId: quad.id, scaleUsed: 110 }),
+      send(worksheetsRoute.POST, "POST", "/api/v1/garage/worksheets", contributor, { kind: "voltage", quadId: quad.id, scaleUsed: 550 }), // ÷11 in Vornel's 0.02 steps
       201,
     );
     const sheetId = String(worksheet.id);
@@ -202,7 +202,13 @@ describe("every query an endpoint or page runs has an index behind it", () => {
     await contributorRecord((await testAccount("contributor")).id);
     await ok(send(approveRoute.POST, "POST", `/api/v1/moderation/submissions/${id}/approve`, moderator, { version: created.submission.version }, { id }));
     const second = await ok(
-      send(submissionsRoute.POST, "POST", "/api/v1/submissions", contributor, validBody(target, { currentScale: (validBody(target).currentScale ?? 400) + 1 })),
+      send(
+        submissionsRoute.POST,
+        "POST",
+        "/api/v1/submissions",
+        contributor,
+        validBody(target, { currentScale: (validBody(target).currentScale ?? 2000) + 1 }),
+      ),
       201,
     );
     const secondId = String(second.submission.id);

@@ -33,10 +33,10 @@ describe("a valid submission", () => {
     expect(res.headers.get("cache-control")).toBe("no-store");
     const { submission } = await res.json();
     expect(res.headers.get("location")).toBe(`/api/v1/submissions/${submission.id}`);
-    expect(submission).toMatchObject({ status: "pending", version: 0, editable: true, method: "fly_recharge", currentScale: 369, moderatorNote: null });
+    expect(submission).toMatchObject({ status: "pending", version: 0, editable: true, method: "fly_recharge", currentScale: 1846, moderatorNote: null });
     expect(submission.cycles).toHaveLength(2);
-    // fly-and-recharge rule (common practice, no source): 400 × 1200 / 1300 and 400 × 1100 / 1192, median of the two
-    const implied = (400 * 1200) / 1300 / 2 + (400 * 1100) / 1192 / 2;
+    // fly-and-recharge rule (common practice, no source): 2000 × 1200 / 1300 and 2000 × 1100 / 1192, median of the two
+    const implied = (2000 * 1200) / 1300 / 2 + (2000 * 1100) / 1192 / 2;
     expect(submission.evidence.summary.cycles.implied).toBeCloseTo(implied, 9);
     expect(submission.evidence.mismatch).toBe(false);
 
@@ -53,12 +53,12 @@ describe("a valid submission", () => {
   });
 
   it("a claimed value more than 2 % from what the evidence implies is stored flagged, not refused", async () => {
-    const res = await post(validBody(target, { currentScale: 400 }), cookie); // implied ≈ 369.1: 8 % off
+    const res = await post(validBody(target, { currentScale: 2000 }), cookie); // implied ≈ 1845.9: 8 % off
     expect(res.status).toBe(201);
     const { submission } = await res.json();
     expect(submission.evidence.mismatch).toBe(true);
     const check = submission.evidence.summary.checks[0];
-    expect(check).toMatchObject({ quantity: "current_scale", source: "recharge_cycles", claimed: 400, mismatch: true });
+    expect(check).toMatchObject({ quantity: "current_scale", source: "recharge_cycles", claimed: 2000, mismatch: true });
     const [{ mismatch }] = await db().query<{ mismatch: boolean }>("SELECT evidence_mismatch AS mismatch FROM submissions WHERE id = $1", {
       bind: [submission.id],
       type: QueryTypes.SELECT,
@@ -67,25 +67,27 @@ describe("a valid submission", () => {
   });
 
   it("a multimeter check and a bench fit are stored as rows and summarised through the family's units", async () => {
-    // V/V proportional: 100 × 16.8 / 15.27 ≈ 110.0 (voltage divider 10 k / 1 k: Vout = Vin·R2/(R1+R2), Horowitz & Hill §1.2.3, from memory)
-    const voltageCheck = { scaleUsed: 100, readings: [{ cells: 4, reportedVolts: 15.27, measuredVolts: 16.8, measuredAt: "balance_outer_pins" as const }] };
-    const multimeter = await post(validBody(target, { method: "multimeter", voltageScale: 110, currentScale: null, cycles: [], voltageCheck }), cookie);
+    // V/V proportional in Vornel's 0.02 steps: 500 × 16.8 / 15.27 ≈ 550.1, i.e. ÷11
+    // (voltage divider 10 k / 1 k: Vout = Vin·R2/(R1+R2), Horowitz & Hill §1.2.3, from memory)
+    const voltageCheck = { scaleUsed: 500, readings: [{ cells: 4, reportedVolts: 15.27, measuredVolts: 16.8, measuredAt: "balance_outer_pins" as const }] };
+    const multimeter = await post(validBody(target, { method: "multimeter", voltageScale: 550, currentScale: null, cycles: [], voltageCheck }), cookie);
     expect(multimeter.status).toBe(201);
     const m = (await multimeter.json()).submission;
     expect(m.voltageCheck).toEqual(voltageCheck);
-    expect(m.evidence.summary.voltage.implied).toBeCloseTo((100 * 16.8) / 15.27, 9);
+    expect(m.evidence.summary.voltage.implied).toBeCloseTo((500 * 16.8) / 15.27, 9);
 
-    // 25 mV/A true (0.5 mΩ × 50, Ohm's law) read with 40 mV/A set: reported = 0.625 × measured + 12/40
+    // 25 mV/A true (0.5 mΩ × 50, Ohm's law) read with 40 mV/A set: reported = 0.625 × measured + 12/40;
+    // in Vornel's steps 25 mV/A is 1250, 40 mV/A is 2000, and the 12 mV zero error is 24 steps of 0.5 mV
     const points = [5, 10, 20].map((measuredAmps) => ({ measuredAmps, reportedAmps: 0.625 * measuredAmps + 0.3 }));
     const bench = await post(
-      validBody(target, { method: "bench_clamp", currentScale: 250, currentOffset: 12, cycles: [], bench: { scaleUsed: 400, offsetUsed: 0, points } }),
+      validBody(target, { method: "bench_clamp", currentScale: 1250, currentOffset: 24, cycles: [], bench: { scaleUsed: 2000, offsetUsed: 0, points } }),
       cookie,
     );
     expect(bench.status).toBe(201);
     const b = (await bench.json()).submission;
     expect(b.bench.points).toEqual(points);
-    expect(b.evidence.summary.bench.impliedScale).toBeCloseTo(250, 9);
-    expect(b.evidence.summary.bench.impliedOffset).toBeCloseTo(12, 9);
+    expect(b.evidence.summary.bench.impliedScale).toBeCloseTo(1250, 9);
+    expect(b.evidence.summary.bench.impliedOffset).toBeCloseTo(24, 9);
     expect(b.evidence.mismatch).toBe(false);
   });
 });
@@ -109,23 +111,27 @@ describe("a refused submission writes nothing", () => {
     ["a scale that is not positive", (t) => validBody(t, { currentScale: 0 }), "currentScale"],
     [
       "a reported-to-charged ratio outside 0.2–5",
-      (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 9000, chargedMah: 1300, ratedMah: 1500, cells: 4 }] }),
+      (t) => validBody(t, { cycles: [{ scaleUsed: 2000, reportedMah: 9000, chargedMah: 1300, ratedMah: 1500, cells: 4 }] }),
       "cycles.0.reportedMah",
     ],
-    ["negative mAh", (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: -1, ratedMah: 1500, cells: 4 }] }), "cycles.0.chargedMah"],
+    [
+      "negative mAh",
+      (t) => validBody(t, { cycles: [{ scaleUsed: 2000, reportedMah: 1200, chargedMah: -1, ratedMah: 1500, cells: 4 }] }),
+      "cycles.0.chargedMah",
+    ],
     [
       "a cell count that is not possible",
-      (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 15 }] }),
+      (t) => validBody(t, { cycles: [{ scaleUsed: 2000, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 15 }] }),
       "cycles.0.cells",
     ],
     [
       "a cell count outside the board's range",
-      (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: t.maxCells + 1 }] }),
+      (t) => validBody(t, { cycles: [{ scaleUsed: 2000, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: t.maxCells + 1 }] }),
       "cycles.0.cells",
     ],
     [
       "charged mAh more than 1.5 × rated",
-      (t) => validBody(t, { cycles: [{ scaleUsed: 400, reportedMah: 2000, chargedMah: 2400, ratedMah: 1500, cells: 4 }] }),
+      (t) => validBody(t, { cycles: [{ scaleUsed: 2000, reportedMah: 2000, chargedMah: 2400, ratedMah: 1500, cells: 4 }] }),
       "cycles.0.chargedMah",
     ],
     [
@@ -133,13 +139,13 @@ describe("a refused submission writes nothing", () => {
       (t) =>
         validBody(t, {
           method: "multimeter",
-          voltageScale: 110,
+          voltageScale: 550,
           cycles: [],
-          voltageCheck: { scaleUsed: 100, readings: [{ cells: 4, reportedVolts: 80, measuredVolts: 16.8, measuredAt: "main_lead" }] },
+          voltageCheck: { scaleUsed: 500, readings: [{ cells: 4, reportedVolts: 80, measuredVolts: 16.8, measuredAt: "main_lead" }] },
         }),
       "voltageCheck.readings.0.reportedVolts",
     ],
-    ["a scale outside the family's range", (t) => validBody(t, { currentScale: 20001 }), "currentScale"],
+    ["a scale outside the family's range", (t) => validBody(t, { currentScale: 12501 }), "currentScale"],
     ["no value at all", (t) => validBody(t, { method: "unverified", currentScale: null, cycles: [] }), "voltageScale"],
     ["an unknown board revision", (t) => validBody(t, { boardRevisionId: 999_999 }), "boardRevisionId"],
     ["an unknown family", (t) => validBody(t, { firmwareFamilyId: 999_999 }), "firmwareFamilyId"],
@@ -160,7 +166,7 @@ describe("a refused submission writes nothing", () => {
         validBody(target, {
           firmwareVersion: "not a version",
           cycles: [
-            { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
+            { scaleUsed: 2000, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
             { scaleUsed: 0, reportedMah: -3, chargedMah: 1300, ratedMah: 1500, cells: 4 },
           ],
         }),

@@ -38,13 +38,13 @@ describe("editing one's own submission", () => {
     const s = await created();
     const mails = (await mailsTo(ownerAccount.email)).length;
     const body = {
-      ...validBody(target, { currentScale: 368, cycles: [{ scaleUsed: 400, reportedMah: 1150, chargedMah: 1250, ratedMah: 1500, cells: 4 }] }),
+      ...validBody(target, { currentScale: 1840, cycles: [{ scaleUsed: 2000, reportedMah: 1150, chargedMah: 1250, ratedMah: 1500, cells: 4 }] }),
       version: s.version,
     };
     const res = await patch(s.id, body, owner);
     expect(res.status).toBe(200);
     const { submission } = await res.json();
-    expect(submission).toMatchObject({ id: s.id, version: s.version + 1, status: "pending", currentScale: 368 });
+    expect(submission).toMatchObject({ id: s.id, version: s.version + 1, status: "pending", currentScale: 1840 });
     expect(submission.cycles).toHaveLength(1);
     const [{ n }] = await db().query<{ n: number }>("SELECT count(*)::int AS n FROM submission_cycles WHERE submission_id = $1", {
       bind: [s.id],
@@ -66,20 +66,20 @@ describe("editing one's own submission", () => {
 
   it("a stale version is a 409 naming version, and changes nothing", async () => {
     const s = await created();
-    expect((await patch(s.id, { ...validBody(target, { currentScale: 366 }), version: s.version }, owner)).status).toBe(200);
+    expect((await patch(s.id, { ...validBody(target, { currentScale: 1830 }), version: s.version }, owner)).status).toBe(200);
     const before = await rowCounts();
-    const error = await expectError(await patch(s.id, { ...validBody(target, { currentScale: 365 }), version: s.version }, owner), 409, "version");
+    const error = await expectError(await patch(s.id, { ...validBody(target, { currentScale: 1825 }), version: s.version }, owner), 409, "version");
     expect(error.code).toBe("conflict");
     expect(error.message).toMatch(/changed since you loaded it/);
     expect(await rowCounts()).toEqual(before);
-    expect((await getOwnSubmission(ownerAccount.id, s.id))!.currentScale).toBe(366);
+    expect((await getOwnSubmission(ownerAccount.id, s.id))!.currentScale).toBe(1830);
   });
 
   it("two edits from the same version at the same instant: one wins, the other gets 409", async () => {
     const s = await created();
     const [a, b] = await Promise.all([
-      patch(s.id, { ...validBody(target, { currentScale: 360 }), version: s.version }, owner),
-      patch(s.id, { ...validBody(target, { currentScale: 361 }), version: s.version }, owner),
+      patch(s.id, { ...validBody(target, { currentScale: 1800 }), version: s.version }, owner),
+      patch(s.id, { ...validBody(target, { currentScale: 1805 }), version: s.version }, owner),
     ]);
     expect([a.status, b.status].sort()).toEqual([200, 409]);
     expect((await getOwnSubmission(ownerAccount.id, s.id))!.version).toBe(s.version + 1);
@@ -97,7 +97,7 @@ describe("editing one's own submission", () => {
     await expectError(
       await patch(
         s.id,
-        { ...validBody(target, { cycles: [{ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 99 }] }), version: s.version },
+        { ...validBody(target, { cycles: [{ scaleUsed: 2000, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 99 }] }), version: s.version },
         owner,
       ),
       400,

@@ -12,7 +12,7 @@ import { flyRechargeBody } from "@/tests/support/submission-body";
 
 export type Target = { revisionId: number; familyId: number; boardSlug: string; minCells: number; maxCells: number; familySlug: string };
 
-/** A board revision of a 4S-capable board and the demo's first family (V/V 0.1, mV/A 0.1, offset mV). */
+/** A board revision of a 4S-capable board and the demo's first family (V/V 0.02, mV/A 0.02, offset 0.5 mV). */
 export async function pickTarget(): Promise<Target> {
   const [row] = await db().query<Target>(
     `SELECT br.id AS "revisionId", f.id AS "familyId", bm.slug AS "boardSlug", bm.min_cells AS "minCells",
@@ -27,7 +27,7 @@ export async function pickTarget(): Promise<Target> {
   return row;
 }
 
-/** A valid fly-and-recharge submission for the target; the implied scale is 400 × 1200/1300 ≈ 369.2. */
+/** A valid fly-and-recharge submission for the target; the implied scale is 2000 × 1200/1300 ≈ 1846.2. */
 export function validBody(t: Target, overrides: Partial<SubmissionInput> = {}): SubmissionInput {
   return flyRechargeBody({ boardRevisionId: t.revisionId, firmwareFamilyId: t.familyId }, overrides);
 }

@@ -49,7 +49,7 @@ describe("Idempotency-Key", () => {
   });
 
   it("key order in the JSON does not make a different body", async () => {
-    const body = validBody(target, { currentScale: 368 });
+    const body = validBody(target, { currentScale: 1840 });
     const first = await (await post(body, alice, "order-key")).json();
     const reordered = Object.fromEntries(Object.entries(body).reverse());
     const again = await post(reordered, alice, "order-key");
@@ -60,7 +60,7 @@ describe("Idempotency-Key", () => {
   it("the same key with a different body is a 422 naming the header, and writes nothing", async () => {
     expect((await post(validBody(target), alice, "changed-body-key")).status).toBe(201);
     const before = await rowCounts();
-    const error = await expectError(await post(validBody(target, { currentScale: 370 }), alice, "changed-body-key"), 422, "Idempotency-Key");
+    const error = await expectError(await post(validBody(target, { currentScale: 1850 }), alice, "changed-body-key"), 422, "Idempotency-Key");
     expect(error.code).toBe("unprocessable_content");
     expect(error.message).toMatch(/different request body/);
     expect(await rowCounts()).toEqual(before);
@@ -85,7 +85,7 @@ describe("Idempotency-Key", () => {
       { bind: [aliceId] },
     );
     const count = await submissionsOf(aliceId);
-    const fresh = await post(validBody(target, { currentScale: 371 }), alice, "ttl-key");
+    const fresh = await post(validBody(target, { currentScale: 1855 }), alice, "ttl-key");
     expect(fresh.status).toBe(201);
     expect(fresh.headers.get("idempotent-replayed")).toBeNull();
     expect(await submissionsOf(aliceId)).toBe(count + 1);
@@ -105,7 +105,7 @@ describe("Idempotency-Key", () => {
 
   it("two identical requests at the same instant create one row and both get its response", async () => {
     const count = await submissionsOf(aliceId);
-    const body = validBody(target, { currentScale: 367 });
+    const body = validBody(target, { currentScale: 1835 });
     const responses = await Promise.all(Array.from({ length: 4 }, () => post(body, alice, "same-instant")));
     expect(responses.map((r) => r.status)).toEqual([201, 201, 201, 201]);
     const ids = new Set(await Promise.all(responses.map(async (r) => (await r.json()).submission.id)));
@@ -129,8 +129,8 @@ describe("the hourly purge of expired keys", () => {
     );
 
   it("is scheduled every hour and, when worked, deletes only the keys past their time", async () => {
-    expect((await post(validBody(target, { currentScale: 372 }), bob, "purge-live")).status).toBe(201);
-    expect((await post(validBody(target, { currentScale: 373 }), bob, "purge-dead")).status).toBe(201);
+    expect((await post(validBody(target, { currentScale: 1860 }), bob, "purge-live")).status).toBe(201);
+    expect((await post(validBody(target, { currentScale: 1865 }), bob, "purge-dead")).status).toBe(201);
     await db().query(
       "UPDATE idempotency_keys SET created_at = now() - interval '25 hours', expires_at = now() - interval '1 hour' WHERE user_id = $1 AND key = 'purge-dead'",
       { bind: [await bobId()] },

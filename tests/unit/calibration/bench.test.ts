@@ -9,11 +9,11 @@ import { BENCH_MIN_R_SQUARED, benchWorksheet, unwrapWorksheet } from "@/lib/cali
 import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { ANSCOMBE, OHM, ROUNDING_SIDE, SIMPLE_STATISTICS } from "./sources";
 
-const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // mV/A + mV, A/V + mA, mV/A + mV
+const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // mV/A in 0.02 + mV in 0.5, A/V in 0.005 + mA in 10, mV/A in 0.04 + mV in 0.25
 
-/** A bench input read at scale 250, offset 0, with these points as [measured, reported] amps. */
-const at250 = (...points: [number, number][]) => ({
-  scaleUsed: 250,
+/** A Vornel bench input read at scale 1250 (25 mV/A / 0.02), offset 0, with these points as [measured, reported] amps. */
+const at1250 = (...points: [number, number][]) => ({
+  scaleUsed: 1250,
   offsetUsed: 0,
   points: points.map(([measuredAmps, reportedAmps]) => ({ measuredAmps, reportedAmps })),
 });
@@ -34,7 +34,7 @@ describe(`bench fit against ${ANSCOMBE}, data from the npm package vega-datasets
     ["III", 0.4997, 3.0025, 0.8163],
     ["IV", 0.4999, 3.0017, 0.8165],
   ])("set %s: gain %s, intercept %s, r %s", (series, slope, intercept, r) => {
-    const result = benchWorksheet({ scaleUsed: 250, offsetUsed: 0, points: points(series) }, VORNEL);
+    const result = benchWorksheet({ scaleUsed: 1250, offsetUsed: 0, points: points(series) }, VORNEL);
     const { fit, residuals } = unwrapWorksheet(result);
     expect(fit.n).toBe(11);
     for (const [got, want, tol] of [
@@ -70,7 +70,7 @@ describe(`bench fit against ${ANSCOMBE}, data from the npm package vega-datasets
           const ref = linearRegression(pairs);
           fc.pre(ref.m >= 0.2 && ref.m <= 5 && pairs.every((p) => p[1] >= -1000));
           const got = unwrapWorksheet(
-            benchWorksheet({ scaleUsed: 250, offsetUsed: 0, points: pairs.map(([measuredAmps, reportedAmps]) => ({ measuredAmps, reportedAmps })) }, VORNEL),
+            benchWorksheet({ scaleUsed: 1250, offsetUsed: 0, points: pairs.map(([measuredAmps, reportedAmps]) => ({ measuredAmps, reportedAmps })) }, VORNEL),
           );
           expect(got.fit.gain).toBeCloseTo(ref.m, 9);
           expect(got.fit.interceptAmps).toBeCloseTo(ref.b, 9);
@@ -124,13 +124,13 @@ describe(`bench worksheet on a simulated sensor — ${OHM}; rounding: ${ROUNDING
   );
 
   it("two points fit exactly, and the worksheet says a third would show linearity", () => {
-    const r = benchWorksheet(at250([5, 5.2], [20, 20.5]), VORNEL);
+    const r = benchWorksheet(at1250([5, 5.2], [20, 20.5]), VORNEL);
     expect(r.ok).toBe(true);
     expect(r.warnings[0].message).toMatch(/add a third/);
   });
 
   it("carries the props-on cautions (model-flying club rules; smoke stopper common practice)", () => {
-    const r = unwrapWorksheet(benchWorksheet(at250([5, 5], [20, 20]), VORNEL));
+    const r = unwrapWorksheet(benchWorksheet(at1250([5, 5], [20, 20]), VORNEL));
     expect(r.cautions.map((c) => c.text).join(" ")).toMatch(/Remove the props.*eye protection.*Unplug the battery/s);
   });
 });
@@ -141,20 +141,20 @@ describe("bench worksheet: field-level errors", () => {
     expect(r.ok).toBe(false);
     return r.ok ? [] : r.errors;
   };
-  const firstErrorAt250 = (...points: [number, number][]) => errorsOf(at250(...points))[0];
+  const firstErrorAt1250 = (...points: [number, number][]) => errorsOf(at1250(...points))[0];
 
   it("at least 2 points, at distinct measured currents", () => {
-    expect(errorsOf(at250([5, 5]))).toEqual([{ field: "points", message: expect.stringMatching(/at least 2/) }]);
-    expect(firstErrorAt250([5, 5], [5, 6]).message).toMatch(/different clamp-meter currents/);
+    expect(errorsOf(at1250([5, 5]))).toEqual([{ field: "points", message: expect.stringMatching(/at least 2/) }]);
+    expect(firstErrorAt1250([5, 5], [5, 6]).message).toMatch(/different clamp-meter currents/);
   });
 
   it("negative clamp-meter current, missing reported current, a fractional scale", () => {
-    const errors = errorsOf({ scaleUsed: 250.5, offsetUsed: 0, points: [{ measuredAmps: -1, reportedAmps: 5 }, { measuredAmps: 10 }] });
+    const errors = errorsOf({ scaleUsed: 1250.5, offsetUsed: 0, points: [{ measuredAmps: -1, reportedAmps: 5 }, { measuredAmps: 10 }] });
     expect(errors.map((e) => e.field)).toEqual(["scaleUsed", "points.0.measuredAmps", "points.1.reportedAmps"]);
   });
 
   it("a gain outside 0.2–5 cannot be the same current (our own rule, limits.ts)", () => {
-    expect(firstErrorAt250([1, 10], [2, 70]).message).toMatch(/outside 0\.2–5/);
-    expect(firstErrorAt250([1, 10], [2, 5]).field).toBe("points");
+    expect(firstErrorAt1250([1, 10], [2, 70]).message).toMatch(/outside 0\.2–5/);
+    expect(firstErrorAt1250([1, 10], [2, 5]).field).toBe("points");
   });
 });

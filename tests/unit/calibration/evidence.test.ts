@@ -34,6 +34,8 @@ const OHM_SOURCE = "Ohm's law: sensitivity = R_shunt × gain";
 const ANSCOMBE_SOURCE = "Anscombe, 'Graphs in Statistical Analysis', The American Statistician 27(1), 1973";
 
 // The three demo families cover every unit pair: V/V + mV/A + mV, V/V + A/V + mA, mV/V + mV/A + mV.
+// Their steps (seeders/demo/firmware-families.ts): V/V 0.02, mV/A 0.02, mV 0.5; V/V 0.025, A/V 0.005, mA 10;
+// mV/V 0.05, mV/A 0.04, mV 0.25. So ÷11 is 550 steps of the first, 25 mV/A 1250 steps and 40 mV/A 2000.
 const [VV_MVA_MV, VV_AV_MA, MVV_MVA_MV] = DEMO_FIRMWARE_FAMILIES;
 const units = (f: (typeof DEMO_FIRMWARE_FAMILIES)[number]): EvidenceUnits & typeof f => f;
 
@@ -55,18 +57,18 @@ describe(`voltage check — ${DIVIDER_SOURCE}`, () => {
   });
 
   it("proportional: new = old × measured ÷ reported; inverse divides instead (common practice, no source)", () => {
-    expect(impliedVoltageScale(100, 15.2727, 16.8, "proportional")).toBeCloseTo((100 * 16.8) / 15.2727, 12);
-    expect(impliedVoltageScale(1000, 15.2727, 16.8, "inverse")).toBeCloseTo((1000 * 15.2727) / 16.8, 12);
+    expect(impliedVoltageScale(500, 15.2727, 16.8, "proportional")).toBeCloseTo((500 * 16.8) / 15.2727, 12);
+    expect(impliedVoltageScale(2000, 15.2727, 16.8, "inverse")).toBeCloseTo((2000 * 15.2727) / 16.8, 12);
   });
 });
 
 describe(`fly-and-recharge cycles — ${RECHARGE_SOURCE}`, () => {
   it("inverse unit: next scale = old × reported mAh ÷ charged mAh", () => {
-    expect(impliedCurrentScaleFromCycle({ scaleUsed: 400, reportedMah: 1200, chargedMah: 1300 }, "inverse")).toBeCloseTo((400 * 1200) / 1300, 12);
+    expect(impliedCurrentScaleFromCycle({ scaleUsed: 2000, reportedMah: 1200, chargedMah: 1300 }, "inverse")).toBeCloseTo((2000 * 1200) / 1300, 12);
   });
 
   it("proportional unit: the rule inverts (old × charged ÷ reported)", () => {
-    expect(impliedCurrentScaleFromCycle({ scaleUsed: 2500, reportedMah: 1200, chargedMah: 1300 }, "proportional")).toBeCloseTo((2500 * 1300) / 1200, 12);
+    expect(impliedCurrentScaleFromCycle({ scaleUsed: 4800, reportedMah: 1200, chargedMah: 1300 }, "proportional")).toBeCloseTo((4800 * 1300) / 1200, 12);
   });
 
   // A 0.5 mΩ shunt behind a ×50 amplifier is 25 mV/A (Ohm's law).
@@ -97,7 +99,7 @@ describe(`bench points — least squares; ${OHM_SOURCE}`, () => {
 
   it.each([VV_MVA_MV, VV_AV_MA, MVV_MVA_MV])("$slug ($currentScaleUnit, offset in $currentOffsetUnit): recovers the true scale and offset", (family) => {
     const scaleUsed = Math.round(currentScaleSettingFromSensitivity(40, family));
-    const offsetUsed = family.currentOffsetUnit === "mA" ? 100 : 5;
+    const offsetUsed = Math.round((family.currentOffsetUnit === "mA" ? 100 : 5) / family.currentOffsetStep); // 100 mA or 5 mV, in the family's steps
     const points = currents.map((measuredAmps) => ({ measuredAmps, reportedAmps: displayed(family, scaleUsed, offsetUsed, measuredAmps) }));
     const implied = impliedFromBench({ scaleUsed, offsetUsed, points }, family);
     expect(implied.impliedScale).toBeCloseTo(currentScaleSettingFromSensitivity(sensitivity, family), 6);
@@ -115,7 +117,7 @@ describe(`bench points — least squares; ${OHM_SOURCE}`, () => {
           fc.pre(Math.max(...pairs.map((p) => p[0])) - Math.min(...pairs.map((p) => p[0])) > 1e-3);
           const points = pairs.map(([measuredAmps, reportedAmps]) => ({ measuredAmps, reportedAmps }));
           fc.pre(linearRegression(pairs).m > 1e-3);
-          const got = impliedFromBench({ scaleUsed: 400, offsetUsed: 0, points }, VV_MVA_MV);
+          const got = impliedFromBench({ scaleUsed: 2000, offsetUsed: 0, points }, VV_MVA_MV);
           const ref = linearRegression(pairs);
           expect(got.gain).toBeCloseTo(ref.m, 9);
           expect(got.interceptAmps).toBeCloseTo(ref.b, 9);
@@ -193,55 +195,56 @@ describe(`mismatch flag — a ${EVIDENCE_TOLERANCE * 100} % tolerance (our own r
   const base = { voltageScale: null, currentScale: null, currentOffset: null, voltageCheck: null, cycles: [], bench: null };
 
   it("a claimed voltage scale within 2 % of the implied one passes, beyond it is flagged", () => {
-    const voltageCheck = { scaleUsed: 100, readings: [{ cells: 4, reportedVolts: 16, measuredVolts: 16.8, measuredAt: "main_lead" }] };
-    // implied: 100 × 16.8 / 16 = 105
-    const ok = summariseEvidence({ ...base, voltageScale: 107, voltageCheck }, family);
-    expect(ok.voltage!.implied).toBeCloseTo(105, 12);
+    const voltageCheck = { scaleUsed: 500, readings: [{ cells: 4, reportedVolts: 16, measuredVolts: 16.8, measuredAt: "main_lead" }] };
+    // implied: 500 × 16.8 / 16 = 525; 535 is 1.9 % over it, 536 is 2.1 %
+    const ok = summariseEvidence({ ...base, voltageScale: 535, voltageCheck }, family);
+    expect(ok.voltage!.implied).toBeCloseTo(525, 12);
     expect(ok.mismatch).toBe(false);
-    const off = summariseEvidence({ ...base, voltageScale: 108, voltageCheck }, family);
+    const off = summariseEvidence({ ...base, voltageScale: 536, voltageCheck }, family);
     expect(off.mismatch).toBe(true);
-    expect(off.checks[0]).toMatchObject({ quantity: "voltage_scale", source: "voltage_check", claimed: 108 });
-    expect(off.checks[0].relativeDifference).toBeCloseTo(3 / 105, 12);
+    expect(off.checks[0]).toMatchObject({ quantity: "voltage_scale", source: "voltage_check", claimed: 536 });
+    expect(off.checks[0].relativeDifference).toBeCloseTo(11 / 525, 12);
   });
 
   it("several cycles combine by their median, so one misread cycle does not move it", () => {
     const cycles = [
-      { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
-      { scaleUsed: 370, reportedMah: 1290, chargedMah: 1300, ratedMah: 1500, cells: 4 },
-      { scaleUsed: 368, reportedMah: 600, chargedMah: 1300, ratedMah: 1500, cells: 4 },
+      { scaleUsed: 2000, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 }, // implies 1846.2
+      { scaleUsed: 1850, reportedMah: 1290, chargedMah: 1300, ratedMah: 1500, cells: 4 }, // implies 1835.8
+      { scaleUsed: 1840, reportedMah: 600, chargedMah: 1300, ratedMah: 1500, cells: 4 }, // misread: implies 849.2
     ];
-    const s = summariseEvidence({ ...base, currentScale: 367, cycles }, family);
+    const s = summariseEvidence({ ...base, currentScale: 1835, cycles }, family);
     expect(s.cycles!.perCycle).toHaveLength(3);
-    expect(s.cycles!.implied).toBeCloseTo((370 * 1290) / 1300, 9);
+    expect(s.cycles!.implied).toBeCloseTo((1850 * 1290) / 1300, 9);
     expect(s.mismatch).toBe(false);
   });
 
   it(`an offset may differ by ${OFFSET_TOLERANCE_FLOOR_STEPS} steps near zero before it is flagged`, () => {
     const points = [0, 10, 20].map((measuredAmps) => ({ measuredAmps, reportedAmps: measuredAmps + 0.1 })); // intercept 0.1 A
-    const bench = { scaleUsed: 250, offsetUsed: 0, points };
-    // mV family: new offset = 0 + 0.1 A × 25 mV/A = 2.5 mV
-    const near = summariseEvidence({ ...base, currentScale: 250, currentOffset: 12, bench }, family);
-    expect(near.bench!.impliedOffset).toBeCloseTo(2.5, 9);
+    const bench = { scaleUsed: 1250, offsetUsed: 0, points };
+    // mV family: new offset = 0 + 0.1 A × 25 mV/A = 2.5 mV = 5 steps of 0.5 mV; 14 is 9 steps away and passes,
+    // 16 is 11 away and does not (15 would sit on the floor itself, where the fit's last bit decides)
+    const near = summariseEvidence({ ...base, currentScale: 1250, currentOffset: 14, bench }, family);
+    expect(near.bench!.impliedOffset).toBeCloseTo(5, 9);
     expect(near.checks.map((c) => c.mismatch)).toEqual([false, false]);
-    const far = summariseEvidence({ ...base, currentScale: 250, currentOffset: 13, bench }, family);
+    const far = summariseEvidence({ ...base, currentScale: 1250, currentOffset: 16, bench }, family);
     expect(far.checks.find((c) => c.quantity === "current_offset")!.mismatch).toBe(true);
   });
 
   it(`an offset counted in mA may differ by what moves the display ${OFFSET_TOLERANCE_FLOOR_AMPS} A (an OSD shows current to 0.1 A: common practice, no source)`, () => {
-    const ma = units(VV_AV_MA); // A/V scale, offset in mA steps of 1
+    const ma = units(VV_AV_MA); // A/V scale in steps of 0.005 (8000 = 40 A/V = 25 mV/A), offset in mA steps of 10
     expect(ma.currentOffsetUnit).toBe("mA");
-    expect(offsetFloorSteps(100, ma)).toBeCloseTo((OFFSET_TOLERANCE_FLOOR_AMPS * 1000) / ma.currentOffsetStep, 9);
+    expect(offsetFloorSteps(8000, ma)).toBeCloseTo((OFFSET_TOLERANCE_FLOOR_AMPS * 1000) / ma.currentOffsetStep, 9);
     // display reads 0.05 A high at every load, the scale right: the fit puts the offset 50 mA off,
     // inside what a 0.1 A display can tell, so a claim of the offset in force is not flagged
     const points = [0, 10, 20].map((measuredAmps) => ({ measuredAmps, reportedAmps: measuredAmps + 0.05 }));
-    const bench = { scaleUsed: 100, offsetUsed: 0, points };
-    const s = summariseEvidence({ ...base, currentScale: 100, currentOffset: 0, bench }, ma);
+    const bench = { scaleUsed: 8000, offsetUsed: 0, points };
+    const s = summariseEvidence({ ...base, currentScale: 8000, currentOffset: 0, bench }, ma);
     expect(Math.abs(s.bench!.impliedOffset)).toBeCloseTo(50 / ma.currentOffsetStep, 6);
     expect(s.offsetToleranceFloorSteps).toBeCloseTo(100 / ma.currentOffsetStep, 9);
     expect(s.checks.find((c) => c.quantity === "current_offset")!.mismatch).toBe(false);
     // 0.3 A off is more than the display's resolution: flagged
     const far = summariseEvidence(
-      { ...base, currentScale: 100, currentOffset: 0, bench: { ...bench, points: [0, 10, 20].map((m) => ({ measuredAmps: m, reportedAmps: m + 0.3 })) } },
+      { ...base, currentScale: 8000, currentOffset: 0, bench: { ...bench, points: [0, 10, 20].map((m) => ({ measuredAmps: m, reportedAmps: m + 0.3 })) } },
       ma,
     );
     expect(far.checks.find((c) => c.quantity === "current_offset")!.mismatch).toBe(true);
@@ -249,12 +252,12 @@ describe(`mismatch flag — a ${EVIDENCE_TOLERANCE * 100} % tolerance (our own r
 
   it("the 0.1 A floor never makes an offset in mV stricter than the 10-step floor", () => {
     const mv = units(VV_MVA_MV);
-    // 25 mV/A: 0.1 A is 2.5 mV, under 10 steps of 1 mV, so 10 steps stand
-    expect(offsetFloorSteps(250, mv)).toBe(Math.max(OFFSET_TOLERANCE_FLOOR_STEPS, (OFFSET_TOLERANCE_FLOOR_AMPS * 25) / mv.currentOffsetStep));
+    // 25 mV/A (1250 steps): 0.1 A is 2.5 mV = 5 steps of 0.5 mV, under 10 steps, so 10 steps stand
+    expect(offsetFloorSteps(1250, mv)).toBe(Math.max(OFFSET_TOLERANCE_FLOOR_STEPS, (OFFSET_TOLERANCE_FLOOR_AMPS * 25) / mv.currentOffsetStep));
   });
 
   it("evidence with nothing claimed beside it is summarised but not checked", () => {
-    const s = summariseEvidence({ ...base, voltageScale: 110, voltageCheck: null }, family);
+    const s = summariseEvidence({ ...base, voltageScale: 550, voltageCheck: null }, family);
     expect(s).toMatchObject({ voltage: null, cycles: null, bench: null, checks: [], mismatch: false });
   });
 });

@@ -4,7 +4,7 @@ import { comparisonVerdict, figureOrigin, HARDWARE_FIELD_PATHS, hardwareFiguresF
 import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { DIVIDER, OHM } from "./sources";
 
-const [VORNEL] = DEMO_FIRMWARE_FAMILIES; // V/V in tenths, mV/A in tenths
+const [VORNEL] = DEMO_FIRMWARE_FAMILIES; // V/V in fiftieths, mV/A in fiftieths: ÷11 is 11 / 0.02 = 550 steps, 25 mV/A is 25 / 0.02 = 1250
 
 const shuntRevision = {
   dividerTopOhms: 10_000,
@@ -19,19 +19,19 @@ const shuntRevision = {
 
 describe("from the hardware: a board revision row as the worksheet's figures", () => {
   it(`a known revision gives the whole input: ÷11 (${DIVIDER}) and 0.5 mΩ × 50 = 25 mV/A (${OHM})`, () => {
-    const input = hardwareWorksheetInput(hardwareFiguresFromRevision(shuntRevision, 8), { published: { voltageScale: 110, currentScale: null } });
+    const input = hardwareWorksheetInput(hardwareFiguresFromRevision(shuntRevision, 8), { published: { voltageScale: 550, currentScale: null } });
     expect(input).toEqual({
       divider: { topOhms: 10_000, bottomOhms: 1_000 },
       currentSensor: { kind: "shunt", shuntMilliohms: 0.5, amplifierGain: 50 },
       adc: { vrefVolts: 3.3, bits: 12 },
       maxCells: 8,
-      published: { voltageScale: 110, currentScale: null },
+      published: { voltageScale: 550, currentScale: null },
       atAmps: null,
     });
     const sheet = unwrapWorksheet(hardwareWorksheet(input, VORNEL));
-    expect(sheet.voltage!.nearestSetting).toBe(110);
+    expect(sheet.voltage!.nearestSetting).toBe(550);
     expect(sheet.voltage!.comparison!.differencePercent).toBeCloseTo(0, 12);
-    expect(sheet.current!.nearestSetting).toBe(250);
+    expect(sheet.current!.nearestSetting).toBe(1250);
   });
 
   it("unknown parts (null in the record) are left out, not treated as zero", () => {
@@ -79,17 +79,18 @@ describe("from the hardware: where a figure came from", () => {
 
 describe("from the hardware: what a difference from the published value means (thresholds: common practice, no source)", () => {
   it.each([
-    [110, 110, 0, "same-setting"],
-    [110, 112, 1.8, "within-tolerance"],
-    [110, 118, 7.3, "beyond-tolerance"],
-    [110, 160, 45, "different-part"],
-    [250, 235, -6, "beyond-tolerance"],
+    // the differences are published ÷ nearest − 1 in per cent: 561 / 550 → 2, 590 / 550 → 7.3, 800 / 550 → 45.5, 1175 / 1250 → −6
+    [550, 550, 0, "same-setting"],
+    [550, 561, 2, "within-tolerance"],
+    [550, 590, 7.3, "beyond-tolerance"],
+    [550, 800, 45.5, "different-part"],
+    [1250, 1175, -6, "beyond-tolerance"],
   ] as const)("parts %s, published %s (%s %) → %s", (nearest, published, differencePercent, verdict) => {
     expect(comparisonVerdict("voltage", nearest, { published, differencePercent }).verdict).toBe(verdict);
   });
 
   it("for current, a far difference mentions a stacked ESC's sensor", () => {
-    expect(comparisonVerdict("current", 250, { published: 400, differencePercent: 60 }).message).toMatch(/stacked ESC/);
-    expect(comparisonVerdict("voltage", 110, { published: 160, differencePercent: 45 }).message).not.toMatch(/stacked ESC/);
+    expect(comparisonVerdict("current", 1250, { published: 2000, differencePercent: 60 }).message).toMatch(/stacked ESC/);
+    expect(comparisonVerdict("voltage", 550, { published: 800, differencePercent: 45.5 }).message).not.toMatch(/stacked ESC/);
   });
 });

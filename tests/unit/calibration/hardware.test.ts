@@ -3,7 +3,7 @@ import { adcCountToVolts, adcLsbVolts, hardwareWorksheet, packVoltsFromAdcCount,
 import { DEMO_FIRMWARE_FAMILIES } from "@/seeders/demo/firmware-families";
 import { ADC, DIVIDER, OHM } from "./sources";
 
-const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // V/V + mV/A, V/V + A/V, mV/V + mV/A
+const [VORNEL, SKELMAR, QUAYSEL] = DEMO_FIRMWARE_FAMILIES; // V/V + mV/A in fiftieths, V/V in fortieths + A/V in 1/200ths, mV/V in twentieths + mV/A in 1/25ths
 
 describe(`from the hardware: the divider — ${DIVIDER}`, () => {
   // worked by hand from the divider formula: Vin, R1, R2 → Vout
@@ -17,18 +17,19 @@ describe(`from the hardware: the divider — ${DIVIDER}`, () => {
     expect(voltage!.dividerRatio).toBeCloseTo(11, 12); // all three are ÷11: "1:10" is ambiguous
   });
 
-  it("in each family's unit: ÷11 is 110 tenths of V/V, 1100 hundredths, or 909.09 tenths of mV/V", () => {
+  // steps from seeders/demo/firmware-families.ts: 11 / 0.02 = 550, 11 / 0.025 = 440, (1000 / 11) / 0.05 = 1818.18
+  it("in each family's unit: ÷11 is 550 fiftieths of V/V, 440 fortieths, or 1818.18 twentieths of mV/V", () => {
     const divider = { topOhms: 10_000, bottomOhms: 1_000 };
-    expect(unwrapWorksheet(hardwareWorksheet({ divider }, VORNEL)).voltage!.exactSetting).toBeCloseTo(110, 9);
-    expect(unwrapWorksheet(hardwareWorksheet({ divider }, SKELMAR)).voltage!.exactSetting).toBeCloseTo(1100, 9);
+    expect(unwrapWorksheet(hardwareWorksheet({ divider }, VORNEL)).voltage!.exactSetting).toBeCloseTo(550, 9);
+    expect(unwrapWorksheet(hardwareWorksheet({ divider }, SKELMAR)).voltage!.exactSetting).toBeCloseTo(440, 9);
     const q = unwrapWorksheet(hardwareWorksheet({ divider }, QUAYSEL)).voltage!;
-    expect(q.exactSetting).toBeCloseTo(10_000 / 11, 9); // 1000 mV / 11 at the pin per pack volt, in 0.1 mV steps
-    expect(q.nearestSetting).toBe(909);
+    expect(q.exactSetting).toBeCloseTo(20_000 / 11, 9); // 1000 mV / 11 at the pin per pack volt, in 0.05 mV steps
+    expect(q.nearestSetting).toBe(1818);
   });
 
   it("compares with a published value in per cent of the hardware's", () => {
-    const { voltage } = unwrapWorksheet(hardwareWorksheet({ divider: { topOhms: 10_000, bottomOhms: 1_000 }, published: { voltageScale: 112 } }, VORNEL));
-    expect(voltage!.comparison!.differencePercent).toBeCloseTo((2 / 110) * 100, 9);
+    const { voltage } = unwrapWorksheet(hardwareWorksheet({ divider: { topOhms: 10_000, bottomOhms: 1_000 }, published: { voltageScale: 561 } }, VORNEL));
+    expect(voltage!.comparison!.differencePercent).toBeCloseTo((11 / 550) * 100, 9); // 561 against ÷11's 550 steps: +2 %
   });
 
   // Divider headroom with a 3.3 V ADC (derived from the divider formula): ÷10 saturates on a full
@@ -59,18 +60,20 @@ describe(`from the hardware: the current sensor — ${OHM}`, () => {
     expect(current!.atAmps!.shuntWatts).toBeCloseTo(watts, 12);
   });
 
-  it("25 mV/A is 250 tenths of mV/A, or 40 A/V = 4000 hundredths of A/V", () => {
+  // 25 / 0.02 = 1250; 1000 / 25 = 40 A/V, / 0.005 = 8000; 7800 is 2.5 % under 8000
+  it("25 mV/A is 1250 fiftieths of mV/A, or 40 A/V = 8000 two-hundredths of A/V", () => {
     const sensor = { kind: "shunt" as const, shuntMilliohms: 0.5, amplifierGain: 50 };
-    expect(unwrapWorksheet(hardwareWorksheet({ currentSensor: sensor }, VORNEL)).current!.exactSetting).toBeCloseTo(250, 9);
-    expect(unwrapWorksheet(hardwareWorksheet({ currentSensor: sensor, published: { currentScale: 3900 } }, SKELMAR)).current).toMatchObject({
-      nearestSetting: 4000,
-      comparison: { published: 3900, differencePercent: -2.5 },
+    expect(unwrapWorksheet(hardwareWorksheet({ currentSensor: sensor }, VORNEL)).current!.exactSetting).toBeCloseTo(1250, 9);
+    expect(unwrapWorksheet(hardwareWorksheet({ currentSensor: sensor, published: { currentScale: 7800 } }, SKELMAR)).current).toMatchObject({
+      nearestSetting: 8000,
+      comparison: { published: 7800, differencePercent: -2.5 },
     });
   });
 
   it("a Hall sensor's datasheet mV/A is used as it is, with no shunt heat", () => {
     const { current } = unwrapWorksheet(hardwareWorksheet({ currentSensor: { kind: "hall", mvPerAmp: 40 }, atAmps: 50 }, QUAYSEL));
-    expect(current).toMatchObject({ sensitivityMvPerAmp: 40, nearestSetting: 4000, atAmps: { outputVolts: 2, shuntWatts: null } });
+    // 40 mV/A / 0.04 mV/A a step = 1000 steps; 50 A × 40 mV/A = 2 V
+    expect(current).toMatchObject({ sensitivityMvPerAmp: 40, nearestSetting: 1000, atAmps: { outputVolts: 2, shuntWatts: null } });
   });
 
   it("warns outside the 2–200 mV/A usual for hobby boards (common practice, no source) and when the amplifier clips the ADC", () => {

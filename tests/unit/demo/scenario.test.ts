@@ -153,23 +153,25 @@ describe("catalogue rows satisfy the schema", () => {
 });
 
 describe("true settings come from the hardware (lib/calibration/units.ts)", () => {
-  // divider formula: a 10 k / 1 k pair divides by 11; 0.5 mΩ × 50 V/V = 25 mV/A (Ohm's law)
-  it("a ÷11 revision's true voltage scale is 110 / 1100 / 909.09 steps in the three families", () => {
-    const r = scenario.boardRevisions.find((x) => x.dividerTopOhms === 10_000 && x.dividerBottomOhms === 1_000)!;
-    expect(revisionDividerRatio(r)).toBe(dividerRatio(10_000, 1_000));
+  // divider formula: a 12 k / 1 k pair divides by (12 + 1) / 1 = 13; 0.75 mΩ × 40 V/V = 30 mV/A (Ohm's law).
+  // In steps (seeders/demo/firmware-families.ts): 13 / 0.02 = 650, 13 / 0.025 = 520, 1000 / 13 mV/V / 0.05 = 1538.46.
+  it("a ÷13 revision's true voltage scale is 650 / 520 / 1538.46 steps in the three families", () => {
+    const r = scenario.boardRevisions.find((x) => x.dividerTopOhms === 12_000 && x.dividerBottomOhms === 1_000)!;
+    expect(revisionDividerRatio(r)).toBe(dividerRatio(12_000, 1_000));
     const t = truthByKey.get(r.key)!.settings;
-    expect(t.vornel.voltageScale).toBeCloseTo(110, 9);
-    expect(t.skelmar.voltageScale).toBeCloseTo(1100, 9);
-    expect(t.quaysel.voltageScale).toBeCloseTo(909.0909, 3);
+    expect(t.vornel.voltageScale).toBeCloseTo(650, 9);
+    expect(t.skelmar.voltageScale).toBeCloseTo(520, 9);
+    expect(t.quaysel.voltageScale).toBeCloseTo(20_000 / 13, 9);
   });
 
-  it("a 0.5 mΩ × 50 revision's true current scale is 250 / 4000 (40 A/V) / 2500 steps", () => {
-    const r = scenario.boardRevisions.find((x) => x.shuntMilliohms === 0.5 && x.amplifierGain === 50)!;
-    expect(revisionSensitivityMvPerAmp(r)).toBe(25);
+  // 30 mV/A: 30 / 0.02 = 1500; 1000 / 30 = 33.33 A/V, / 0.005 = 6666.67; 30 / 0.04 = 750
+  it("a 0.75 mΩ × 40 revision's true current scale is 1500 / 6666.67 (33.33 A/V) / 750 steps", () => {
+    const r = scenario.boardRevisions.find((x) => x.shuntMilliohms === 0.75 && x.amplifierGain === 40)!;
+    expect(revisionSensitivityMvPerAmp(r)).toBe(30);
     const t = truthByKey.get(r.key)!.settings;
-    expect(t.vornel.currentScale).toBeCloseTo(250, 9);
-    expect(t.skelmar.currentScale).toBeCloseTo(4000, 9);
-    expect(t.quaysel.currentScale).toBeCloseTo(2500, 9);
+    expect(t.vornel.currentScale).toBeCloseTo(1500, 9);
+    expect(t.skelmar.currentScale).toBeCloseTo(20_000 / 3, 9);
+    expect(t.quaysel.currentScale).toBeCloseTo(750, 9);
   });
 
   it("published hardware is what the truth uses", () => {
@@ -208,13 +210,13 @@ describe("submissions", () => {
     }
   });
 
-  it("use only allowed enum values and firmware versions like 4.2.1", () => {
+  it("use only allowed enum values and their family's release codenames, like dunlin", () => {
     for (const s of scenario.submissions) {
       expect(STATUSES).toContain(s.status);
       expect(METHODS).toContain(s.method);
       expect(SENSING_SOURCES).toContain(s.sensingSource);
       expect(s.firmwareVersion).toMatch(FIRMWARE_VERSION);
-      expect(s.firmwareVersion).toMatch(/^\d+\.\d+\.\d+$/);
+      expect(familyBySlug.get(s.familySlug)!.versions.map((v) => v.version)).toContain(s.firmwareVersion);
       expect(s.notes === null || s.notes.length <= 10_000).toBe(true);
     }
   });
@@ -264,10 +266,13 @@ describe("submissions", () => {
     expect(checked).toBeGreaterThan(10);
   });
 
+  // within 10 mV at the sensor, in each mV family's own step (0.5 mV, 0.25 mV)
   it("current offsets stay small around zero for most submissions", () => {
-    const offsets = scenario.submissions.filter((s) => s.currentOffset !== null && s.familySlug !== "skelmar").map((s) => s.currentOffset!);
-    expect(offsets.length).toBeGreaterThan(200);
-    expect(offsets.filter((o) => Math.abs(o) <= 10).length / offsets.length).toBeGreaterThan(0.9);
+    const offsetsMv = scenario.submissions
+      .filter((s) => s.currentOffset !== null && s.familySlug !== "skelmar")
+      .map((s) => s.currentOffset! * familyBySlug.get(s.familySlug)!.currentOffsetStep);
+    expect(offsetsMv.length).toBeGreaterThan(200);
+    expect(offsetsMv.filter((o) => Math.abs(o) <= 10).length / offsetsMv.length).toBeGreaterThan(0.9);
   });
 
   it("include deliberate outliers, each well away from the truth", () => {
@@ -317,8 +322,8 @@ describe("landmarks (DEMO_LANDMARKS)", () => {
     const { boardSlug, before, after } = DEMO_LANDMARKS.hardwareChange;
     const b = scenario.boardRevisions.find((r) => r.key === key(boardSlug, before))!;
     const a = scenario.boardRevisions.find((r) => r.key === key(boardSlug, after))!;
-    expect(revisionSensitivityMvPerAmp(b)).toBe(25);
-    expect(revisionSensitivityMvPerAmp(a)).toBe(12.5);
+    expect(revisionSensitivityMvPerAmp(b)).toBe(27); // 0.6 mΩ × 45 (Ohm's law)
+    expect(revisionSensitivityMvPerAmp(a)).toBe(13.5); // 0.3 mΩ × 45
     expect((countByRevision.get(b.key) ?? 0) >= 10 && (countByRevision.get(a.key) ?? 0) >= 10).toBe(true);
   });
 

@@ -19,15 +19,16 @@ import {
 //  - Non-overlapping 95 % intervals as a conservative sign of a real difference: Schenker &
 //    Gentleman, The American Statistician 55(3), 2001 (from memory).
 
+// As the demo families (seeders/demo/firmware-families.ts): Vornel's offset in 0.5 mV, Skelmar's in 10 mA.
 const VORNEL_LIKE: FamilyResponse = {
   voltageScale: { response: "proportional" }, // divider ratio in V/V
   currentScale: { response: "inverse" }, // mV/A: more mV per amp means the firmware divides more
-  currentOffset: { unit: "mV", step: 1 },
+  currentOffset: { unit: "mV", step: 0.5 },
 };
 const SKELMAR_LIKE: FamilyResponse = {
   voltageScale: { response: "proportional" },
   currentScale: { response: "proportional" }, // A/V: more amps per volt means a bigger reading
-  currentOffset: { unit: "mA", step: 1 },
+  currentOffset: { unit: "mA", step: 10 },
 };
 
 const fig = (median: number, ciLow: number | null, ciHigh: number | null, n = 12): QuantityFigures => ({ n, median, ciLow, ciHigh });
@@ -46,15 +47,19 @@ function revision(label: string, position: number, over: Partial<RevisionFacts> 
   };
 }
 
-describe("the demo's halved shunt (Tinsel 25 AIO v1 → v2), Ohm's law: 0.5 mΩ × 50 = 25 mV/A, 0.25 mΩ × 50 = 12.5 mV/A", () => {
-  // figures as the seeded demo publishes them under the V/V + mV/A family
+describe("the demo's halved shunt (Tinsel 25 AIO v1 → v2), Ohm's law: 0.6 mΩ × 45 = 27 mV/A, 0.3 mΩ × 45 = 13.5 mV/A", () => {
+  // figures as the seeded demo publishes them under the V/V + mV/A family (Vornel, steps of 0.02):
+  // ÷6.56 (10 k / 1.8 k) is 327.8 steps, 27 mV/A 1350 and 13.5 mV/A 675; offsets near its default of −3
+  const tinsel = { dividerRatio: dividerRatio(10_000, 1_800), shuntMilliohms: 0.6, amplifierGain: 45, sensitivityMvPerAmp: shuntSensitivityMvPerAmp(0.6, 45) };
   const v1 = revision("v1", 1, {
-    values: { voltageScale: fig(55, 55, 56), currentScale: fig(249, 245, 252), currentOffset: fig(0, 0, 1) },
+    ...tinsel,
+    values: { voltageScale: fig(328, 327, 329), currentScale: fig(1347, 1330, 1362), currentOffset: fig(-3, -3, -1) },
   });
   const v2 = revision("v2", 2, {
-    shuntMilliohms: 0.25,
-    sensitivityMvPerAmp: shuntSensitivityMvPerAmp(0.25, 50),
-    values: { voltageScale: fig(55, 55, 56), currentScale: fig(127, 120, 131), currentOffset: fig(-1, -3, 2) },
+    ...tinsel,
+    shuntMilliohms: 0.3,
+    sensitivityMvPerAmp: shuntSensitivityMvPerAmp(0.3, 45),
+    values: { voltageScale: fig(328, 327, 329), currentScale: fig(683, 648, 700), currentOffset: fig(-3, -6, 1) },
   });
 
   const diffs = revisionDifferences([v2, v1], VORNEL_LIKE);
@@ -63,21 +68,21 @@ describe("the demo's halved shunt (Tinsel 25 AIO v1 → v2), Ohm's law: 0.5 mΩ 
     expect(diffs).toHaveLength(1);
     const [d] = diffs;
     expect(d).toMatchObject({ quantity: "currentScale", a: "v1", b: "v2", valuesDisagree: true, published: { a: true, b: true } });
-    expect(d.hardware).toEqual([{ part: "shunt", a: "0.5 mΩ", b: "0.25 mΩ" }]);
-    // 12.5 / 25 mV/A: the v2 board makes half the sensor voltage per amp
+    expect(d.hardware).toEqual([{ part: "shunt", a: "0.6 mΩ", b: "0.3 mΩ" }]);
+    // 13.5 / 27 mV/A: the v2 board makes half the sensor voltage per amp
     expect(d.readingRatio).toBeCloseTo(0.5, 12);
   });
 
   it("says it plainly from v2's side and from v1's", () => {
     expect(describeDifference(diffs[0], "v2")).toBe(
-      "v2 reads about half the current of v1 at the same current scale (its shunt is 0.25 mΩ, v1's 0.5 mΩ; the published values differ too): use v2's values for a v2 board.",
+      "v2 reads about half the current of v1 at the same current scale (its shunt is 0.3 mΩ, v1's 0.6 mΩ; the published values differ too): use v2's values for a v2 board.",
     );
     expect(describeDifference(diffs[0], "v1")).toBe(
-      "v1 reads about twice the current of v2 at the same current scale (its shunt is 0.5 mΩ, v2's 0.25 mΩ; the published values differ too): use v1's values for a v1 board.",
+      "v1 reads about twice the current of v2 at the same current scale (its shunt is 0.6 mΩ, v2's 0.3 mΩ; the published values differ too): use v1's values for a v1 board.",
     );
   });
 
-  it("without a parts list the values alone give the same answer under the inverse mV/A setting (127 / 249 ≈ 0.51)", () => {
+  it("without a parts list the values alone give the same answer under the inverse mV/A setting (683 / 1347 ≈ 0.51)", () => {
     const bare = { dividerRatio: null, currentSensor: null, shuntMilliohms: null, amplifierGain: null, sensitivityMvPerAmp: null };
     const [d] = revisionDifferences(
       [
@@ -87,7 +92,7 @@ describe("the demo's halved shunt (Tinsel 25 AIO v1 → v2), Ohm's law: 0.5 mΩ 
       VORNEL_LIKE,
     );
     expect(d.hardware).toEqual([]);
-    expect(d.readingRatio).toBeCloseTo(127 / 249, 12);
+    expect(d.readingRatio).toBeCloseTo(683 / 1347, 12);
     expect(describeDifference(d, "v2")).toBe(
       "v2 reads about half the current of v1 at the same current scale (their published values differ by more than their spread allows): use v2's values for a v2 board.",
     );
@@ -123,21 +128,22 @@ describe("values only: which way the ratio goes depends on the family's response
 });
 
 describe("no note on noise or on missing evidence (non-overlap is the conservative test, Schenker & Gentleman 2001)", () => {
+  // figures in Vornel's 0.02 steps: ÷11 is 550, 25 mV/A is 1250 (seeders/demo/firmware-families.ts)
   it("overlapping intervals raise nothing", () => {
-    const a = revision("v1", 1, { values: { voltageScale: fig(110, 108, 112) } });
-    const b = revision("v2", 2, { values: { voltageScale: fig(113, 111, 115) } });
+    const a = revision("v1", 1, { values: { voltageScale: fig(550, 540, 560) } });
+    const b = revision("v2", 2, { values: { voltageScale: fig(565, 555, 575) } });
     expect(revisionDifferences([a, b], VORNEL_LIKE)).toEqual([]);
   });
 
   it("touching intervals count as overlapping", () => {
-    const a = revision("v1", 1, { values: { voltageScale: fig(110, 108, 111) } });
-    const b = revision("v2", 2, { values: { voltageScale: fig(113, 111, 115) } });
+    const a = revision("v1", 1, { values: { voltageScale: fig(550, 540, 555) } });
+    const b = revision("v2", 2, { values: { voltageScale: fig(565, 555, 575) } });
     expect(revisionDifferences([a, b], VORNEL_LIKE)).toEqual([]);
   });
 
   it("without an interval (fewer than 6 values) far-apart medians raise nothing", () => {
-    const a = revision("v1", 1, { values: { voltageScale: fig(110, null, null, 4) } });
-    const b = revision("v2", 2, { values: { voltageScale: fig(220, null, null, 5) } });
+    const a = revision("v1", 1, { values: { voltageScale: fig(550, null, null, 4) } });
+    const b = revision("v2", 2, { values: { voltageScale: fig(1100, null, null, 5) } });
     expect(revisionDifferences([a, b], VORNEL_LIKE)).toEqual([]);
   });
 
@@ -148,18 +154,18 @@ describe("no note on noise or on missing evidence (non-overlap is the conservati
   });
 
   it("parts within 1 % tolerance are the same part (common practice, no source)", () => {
-    const a = revision("v1", 1, { dividerRatio: 11, values: { voltageScale: fig(110, 108, 112) } });
-    const b = revision("v2", 2, { dividerRatio: 11.05, values: { voltageScale: fig(110, 108, 112) } });
+    const a = revision("v1", 1, { dividerRatio: 11, values: { voltageScale: fig(550, 540, 560) } });
+    const b = revision("v2", 2, { dividerRatio: 11.05, values: { voltageScale: fig(550, 540, 560) } });
     expect(revisionDifferences([a, b], VORNEL_LIKE)).toEqual([]);
   });
 
   it("a halved shunt with a doubled gain reads the same (Ohm's law: 0.25 mΩ × 100 = 0.5 mΩ × 50 = 25 mV/A)", () => {
-    const a = revision("v1", 1, { values: { currentScale: fig(250, 247, 253) } });
+    const a = revision("v1", 1, { values: { currentScale: fig(1250, 1235, 1265) } });
     const b = revision("v2", 2, {
       shuntMilliohms: 0.25,
       amplifierGain: 100,
       sensitivityMvPerAmp: shuntSensitivityMvPerAmp(0.25, 100),
-      values: { currentScale: fig(250, 246, 254) },
+      values: { currentScale: fig(1250, 1230, 1270) },
     });
     expect(revisionDifferences([a, b], VORNEL_LIKE)).toEqual([]);
   });
@@ -167,7 +173,7 @@ describe("no note on noise or on missing evidence (non-overlap is the conservati
 
 describe("hardware notes", () => {
   it("a ÷11 divider (10 k / 1 k, divider formula) against ÷5.55 (10 k / 2.2 k): the ÷5.55 board reads about twice the voltage", () => {
-    const a = revision("rev A", 1, { dividerRatio: dividerRatio(10_000, 1_000), values: { voltageScale: fig(110, 109, 111) } });
+    const a = revision("rev A", 1, { dividerRatio: dividerRatio(10_000, 1_000), values: { voltageScale: fig(550, 545, 555) } });
     const b = revision("rev B", 2);
     const [d] = revisionDifferences([a, b], VORNEL_LIKE);
     expect(d.quantity).toBe("voltageScale");
@@ -180,13 +186,13 @@ describe("hardware notes", () => {
   });
 
   it("a change from shunt to Hall sensor flags the current scale and the offset", () => {
-    const a = revision("v1", 1, { values: { currentScale: fig(250, 247, 253), currentOffset: fig(0, -1, 1) } });
+    const a = revision("v1", 1, { values: { currentScale: fig(1250, 1235, 1265), currentOffset: fig(0, -1, 1) } });
     const b = revision("v2", 2, {
       currentSensor: "hall",
       shuntMilliohms: null,
       amplifierGain: null,
       sensitivityMvPerAmp: 37.5,
-      values: { currentScale: fig(400, 395, 404), currentOffset: fig(0, -2, 2) },
+      values: { currentScale: fig(2000, 1975, 2020), currentOffset: fig(0, -2, 2) },
     });
     const diffs = revisionDifferences([a, b], VORNEL_LIKE);
     expect(diffs.map((d) => d.quantity)).toEqual(["currentScale", "currentOffset"]);
@@ -199,14 +205,15 @@ describe("hardware notes", () => {
   });
 
   it("an offset that moved: the shift is b's median minus a's, in the family's unit", () => {
-    const a = revision("v1", 1, { values: { currentOffset: fig(7.5, 5, 10) } });
-    const b = revision("v2", 2, { values: { currentOffset: fig(-59, -70, -50) } });
+    // in Skelmar's 10 mA steps: (−6 − 0.5) × 10 mA = −65 mA
+    const a = revision("v1", 1, { values: { currentOffset: fig(0.5, 0, 1) } });
+    const b = revision("v2", 2, { values: { currentOffset: fig(-6, -7, -5) } });
     const [d] = revisionDifferences([a, b], SKELMAR_LIKE);
-    expect(d).toMatchObject({ quantity: "currentOffset", offsetShift: -66.5, offsetUnit: "mA", readingRatio: null });
+    expect(d).toMatchObject({ quantity: "currentOffset", offsetShift: -65, offsetUnit: "mA", readingRatio: null });
     expect(describeDifference(d, "v2")).toBe(
-      "v2's current offset sits about 66.5 mA lower than v1's (their published values differ by more than their spread allows): use v2's values for a v2 board.",
+      "v2's current offset sits about 65 mA lower than v1's (their published values differ by more than their spread allows): use v2's values for a v2 board.",
     );
-    expect(describeDifference(d, "v1")).toMatch(/^v1's current offset sits about 66.5 mA higher than v2's/);
+    expect(describeDifference(d, "v1")).toMatch(/^v1's current offset sits about 65 mA higher than v2's/);
   });
 });
 

@@ -7,7 +7,7 @@ import { flyRechargeBody } from "@/tests/support/submission-body";
 // The one schema of a contribution, as the form and the API use it. Each refusal must land on the
 // field the form shows it beside, keyed by the same dotted path the API returns.
 
-const family = DEMO_FIRMWARE_FAMILIES[0]; // V/V in 0.1, mV/A in 0.1, offset in mV; ranges 10–2550, 1–20000, ±3300
+const family = DEMO_FIRMWARE_FAMILIES[0]; // V/V in 0.02, mV/A in 0.02, offset in 0.5 mV; ranges 50–2500, 50–12500, ±6600 (÷11 = 550, 25 mV/A = 1250)
 const board = { minCells: 3, maxCells: 6 };
 const schema = submissionSchema({ family, board });
 
@@ -16,8 +16,8 @@ const base: SubmissionInput = flyRechargeBody(
   {
     notes: "",
     cycles: [
-      { scaleUsed: 400, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
-      { scaleUsed: 369, reportedMah: 1290, chargedMah: 1300, ratedMah: 1500, cells: 4 },
+      { scaleUsed: 2000, reportedMah: 1200, chargedMah: 1300, ratedMah: 1500, cells: 4 },
+      { scaleUsed: 1846, reportedMah: 1290, chargedMah: 1300, ratedMah: 1500, cells: 4 },
     ],
   },
 );
@@ -64,19 +64,19 @@ describe("settings: whole steps inside the family's range", () => {
   });
 
   it("a fraction is refused: the firmware stores integers", () => {
-    expect(errorsOf({ ...base, currentScale: 36.9 }).currentScale?.[0]).toMatch(/whole number of setting steps \(1 step = 0.1 mV\/A\)/);
+    expect(errorsOf({ ...base, currentScale: 1846.5 }).currentScale?.[0]).toMatch(/whole number of setting steps \(1 step = 0.02 mV\/A\)/);
   });
 
   it("outside the family's min/max is refused, naming the family", () => {
     expect(errorsOf({ ...base, method: "unverified", cycles: [], voltageScale: 3000 }).voltageScale).toEqual([
-      "Voltage scale must be between 10 and 2550 in Vornel (1 step = 0.1 V/V)",
+      "Voltage scale must be between 50 and 2500 in Vornel (1 step = 0.02 V/V)",
     ]);
   });
 
   it("an offset may be zero or negative, within its range", () => {
     expect(errorsOf({ ...base, currentOffset: -12 })).toEqual({});
     expect(errorsOf({ ...base, currentOffset: 0 })).toEqual({});
-    expect(errorsOf({ ...base, currentOffset: -4000 }).currentOffset?.[0]).toMatch(/between -3300 and 3300/);
+    expect(errorsOf({ ...base, currentOffset: -7000 }).currentOffset?.[0]).toMatch(/between -6600 and 6600/);
   });
 
   it("text where a number belongs says so", () => {
@@ -114,7 +114,7 @@ describe("fly-and-recharge cycles: impossible figures refused", () => {
 
   it("the fly-and-recharge method needs a cycle and a current scale", () => {
     expect(errorsOf({ ...base, cycles: [] }).cycles?.[0]).toMatch(/at least one fly-and-recharge cycle/);
-    expect(errorsOf({ ...base, currentScale: null, voltageScale: 110 }).currentScale?.[0]).toMatch(/current scale your measurements led to/);
+    expect(errorsOf({ ...base, currentScale: null, voltageScale: 550 }).currentScale?.[0]).toMatch(/current scale your measurements led to/);
   });
 });
 
@@ -123,8 +123,8 @@ describe("voltage check readings", () => {
     ...base,
     method: "multimeter",
     cycles: [],
-    voltageScale: 110,
-    voltageCheck: { scaleUsed: 100, readings: [{ cells: 4, reportedVolts: 15.3, measuredVolts: 16.8, measuredAt: "main_lead", ...reading }] },
+    voltageScale: 550, // the check implies 500 × 16.8 / 15.3 = 549.0
+    voltageCheck: { scaleUsed: 500, readings: [{ cells: 4, reportedVolts: 15.3, measuredVolts: 16.8, measuredAt: "main_lead", ...reading }] },
   });
 
   it("a plausible 4S reading passes", () => {
@@ -155,9 +155,9 @@ describe("bench points", () => {
     ...base,
     method: "bench_clamp",
     cycles: [],
-    currentScale: 250,
-    currentOffset: 3,
-    bench: { scaleUsed: 400, offsetUsed: 0, points },
+    currentScale: 1250,
+    currentOffset: 6,
+    bench: { scaleUsed: 2000, offsetUsed: 0, points },
   });
 
   it("two points at different currents pass", () => {

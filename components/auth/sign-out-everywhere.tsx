@@ -27,6 +27,7 @@ export function SignOutEverywhere() {
             return setProblem(asApiFetchError(error).message);
           }
           // a whole new document: the header and the query cache still hold the signed-in user
+          // eslint-disable-next-line @next/next/no-location-assign-relative-destination
           window.location.assign("/");
         }}
       >

@@ -4,6 +4,7 @@
 // always the peer's, whatever the client sent (see lib/auth/client-address.ts). Node publishes
 // "http.server.request.start" before the server's "request" event (Node's diagnostics_channel
 // documentation, "HTTP" built-in channels), so no server code is patched.
+// eslint-disable-next-line @typescript-eslint/no-require-imports -- a --require preload is CommonJS: import is not available here
 const channel = require("node:diagnostics_channel");
 
 channel.subscribe("http.server.request.start", ({ request, socket }) => {

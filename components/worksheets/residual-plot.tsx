@@ -42,7 +42,9 @@ export function ResidualPlot({ residuals }: { residuals: BenchWorksheet["residua
           </circle>
         ))}
       </svg>
-      <figcaption className="text-small text-muted">Display minus the fitted line at each point; an even scatter round zero is what a steady reading gives.</figcaption>
+      <figcaption className="text-small text-muted">
+        Display minus the fitted line at each point; an even scatter round zero is what a steady reading gives.
+      </figcaption>
     </figure>
   );
 }

@@ -82,7 +82,7 @@ export function BoardValuesSection(props: Props) {
   // nothing published on the whole board: the newest revision whose parts are on record, worked out in every family
   const newestWithParts = [...props.revisions].sort((a, b) => b.position - a.position).find(hasParts);
   return (
-    <section aria-labelledby="values-title" className="space-y-4" id="values">
+    <section aria-labelledby="values-title" className="space-y-3 sm:space-y-4" id="values">
       {props.initial ? (
         <ValuesExplorer {...props} initial={props.initial} />
       ) : (

@@ -47,7 +47,7 @@ export function RecommendedValue({
             ))}
             {expected !== null && (
               <li className="text-muted">
-                The parts list works out at <span className="font-mono font-bold text-ink">{settingText(expected)}</span>.
+                Parts list: <span className="font-mono font-bold text-ink">{settingText(expected)}</span>
               </li>
             )}
           </ul>

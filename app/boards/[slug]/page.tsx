@@ -91,7 +91,7 @@ export default async function BoardPage({ params, searchParams }: Props) {
   ];
 
   return (
-    <div className="space-y-5 sm:space-y-8">
+    <div className="space-y-4 sm:space-y-8">
       {/* on a phone the menu's "Boards" is the way back, and the first screen is kept for the values */}
       <nav aria-label="Breadcrumb" className="hidden sm:block">
         <ol className="flex flex-wrap items-center gap-2 text-small">
@@ -108,7 +108,7 @@ export default async function BoardPage({ params, searchParams }: Props) {
       </nav>
 
       <header>
-        <h1 className="font-display text-title uppercase">{board.name}</h1>
+        <h1 className="font-display text-heading uppercase sm:text-title">{board.name}</h1>
         <p className="mt-1 sm:text-lead">
           <Link href={`/boards${catalogueQueryString({ kind: board.kind })}`} className="font-display font-bold tracking-wider uppercase">
             {kindLabel(board.kind)}

@@ -134,7 +134,13 @@ describe("finding 5: sign-out ends the session on the server", () => {
     const account = await testAccount("contributor", { email: "everywhere@example.test" });
     const phone = await sessionCookieForAccount(account);
     const laptop = await sessionCookieForAccount(account);
-    const res = await callRoute(signOutEverywhere, withCookie(new Request(`${base()}/api/auth/profile/sign-out-everywhere`, { method: "POST" }), laptop));
+    const res = await callRoute(
+      signOutEverywhere,
+      withCookie(
+        new Request(`${base()}/api/auth/profile/sign-out-everywhere`, { method: "POST", headers: { "content-type": "application/json" }, body: "{}" }),
+        laptop,
+      ),
+    );
     expect(res.status).toBe(200);
     expect(res.headers.get("set-cookie")).toMatch(/Max-Age=0/);
     for (const cookie of [phone, laptop]) expect(await inRequest(withCookie(new Request(`${base()}/profile`), cookie), currentUser)).toBeNull();

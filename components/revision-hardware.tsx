@@ -1,5 +1,6 @@
 import type { ReactNode } from "react";
-import { formatDate, formatFigure, formatOhms, plural } from "@/lib/catalogue/format";
+import { formatFigure, formatOhms, plural } from "@/lib/catalogue/format";
+import { When } from "@/components/when";
 import type { BoardRevisionDetail } from "@/lib/catalogue/board-facts";
 
 const Unknown = () => <span className="sb-unknown">unknown</span>;
@@ -33,7 +34,7 @@ export function RevisionHardware({ revision: r }: { revision: BoardRevisionDetai
         </h3>
         <p className="text-small">
           <span className="text-muted">Released </span>
-          {r.releasedOn ? <time dateTime={r.releasedOn}>{formatDate(r.releasedOn)}</time> : <Unknown />}
+          {r.releasedOn ? <When at={r.releasedOn} /> : <Unknown />}
           <span className="mx-2 text-muted" aria-hidden="true">
             ·
           </span>

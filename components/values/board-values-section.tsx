@@ -14,7 +14,7 @@ import type { PartsDetail } from "./quantity-meaning";
 import { RecommendedValue } from "./recommended-value";
 import { CHOSEN_BECAUSE, findGroup, groupSize, type ChosenBecause, type Selection } from "./selection";
 import { ValueHistoryList } from "./value-history-timeline";
-import { dayOf } from "./summary";
+import { formatDate } from "@/lib/dates/format";
 import { ValuePicker } from "./value-picker";
 
 // The board page's published starting values. The server renders the first view (initial); a
@@ -168,7 +168,7 @@ function ValuesExplorer({ slug, revisions, overview, initial, notices, safety, c
       <Heading>
         {current && group && (
           <p className="text-small text-muted">
-            Last change <time dateTime={group.lastChangeAt}>{dayOf(group.lastChangeAt)}</time>
+            Last change <time dateTime={group.lastChangeAt}>{formatDate(group.lastChangeAt)}</time>
           </p>
         )}
       </Heading>

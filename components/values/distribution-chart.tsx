@@ -5,7 +5,8 @@ import type { FamilyUnits, QuantityKey, QuantityValues } from "@/lib/published/b
 import type { Method } from "@/lib/vocabulary";
 import { niceAxis } from "./axis";
 import { QUANTITY_TITLES, settingMeaning, settingText } from "./quantity-meaning";
-import { chartSummary, dayOf, methodLabel, monthOf } from "./summary";
+import { formatDate, formatMonth } from "@/lib/dates/format";
+import { chartSummary, methodLabel } from "./summary";
 import { ValuesTable } from "./values-table";
 
 // One quantity's approved values over time: each value a dot, the median a line, its 95 % range
@@ -74,7 +75,7 @@ function PointTooltip({ d, quantity, units }: { d: Datum; quantity: QuantityKey;
       <p className="mt-1">
         <span className="font-semibold">{methodLabel(d.method)}</span>
         <br />
-        <time dateTime={d.date}>{dayOf(d.date)}</time>
+        <time dateTime={d.date}>{formatDate(d.date)}</time>
       </p>
       {d.outlier && <p className="mt-1 font-bold text-fault">✕ Flagged as an outlier</p>}
     </div>
@@ -132,7 +133,7 @@ export function DistributionChart({ quantity, values: q, units }: { quantity: Qu
           ))}
           {timeTicks(x).map((t) => (
             <text key={t} x={xOf(t)} y={H - 8} textAnchor="middle" fontSize={12} fill="var(--sb-muted)">
-              {monthOf(t)}
+              {formatMonth(t)}
             </text>
           ))}
           <line x1={PAD.left} x2={W - PAD.right} y1={PAD.top + plotH} y2={PAD.top + plotH} stroke="var(--sb-rule)" />

@@ -1,4 +1,5 @@
-import { formatDate, plural } from "@/lib/catalogue/format";
+import { plural } from "@/lib/catalogue/format";
+import { formatDate, formatMonth } from "@/lib/dates/format";
 import type { FamilyUnits, QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
 import { MIN_VALUES_TO_JUDGE } from "@/lib/stats/spread";
 import { minimumCountForCi } from "@/lib/stats/median-ci";
@@ -9,10 +10,6 @@ import { figureText, settingMeaning } from "./quantity-meaning";
 // n, the median, its 95 % range and the flagged values. Never prints NaN or undefined: every
 // figure that can be missing has its own sentence.
 
-export const dayOf = (iso: string) => formatDate(iso.slice(0, 10));
-const monthFormat = new Intl.DateTimeFormat("en-GB", { month: "short", year: "numeric", timeZone: "UTC" });
-export const monthOf = (iso: string | number) => monthFormat.format(new Date(iso));
-
 export function methodLabel(method: Method): string {
   return METHOD_LABELS[method] ?? method;
 }
@@ -22,9 +19,9 @@ export function chartSummary(quantity: QuantityKey, q: QuantityValues, units: Fa
   const parts: string[] = [];
   const span =
     points.length > 1
-      ? `, from ${monthOf(points[0].date)} to ${monthOf(points[points.length - 1].date)}`
+      ? `, from ${formatMonth(points[0].date)} to ${formatMonth(points[points.length - 1].date)}`
       : points.length === 1
-        ? `, from ${monthOf(points[0].date)}`
+        ? `, from ${formatMonth(points[0].date)}`
         : "";
   parts.push(`${plural(q.n, "approved value")}${span}.`);
   const meaning = settingMeaning(quantity, q.median, units)[0];
@@ -39,7 +36,7 @@ export function chartSummary(quantity: QuantityKey, q: QuantityValues, units: Fa
   if (flagged.length === 0) {
     parts.push(q.n < MIN_VALUES_TO_JUDGE ? "Outliers are not judged below 3 values." : "No value is flagged as an outlier.");
   } else {
-    const listed = flagged.slice(0, 5).map((p) => `${figureText(p.value)} (${methodLabel(p.method)}, ${dayOf(p.date)})`);
+    const listed = flagged.slice(0, 5).map((p) => `${figureText(p.value)} (${methodLabel(p.method)}, ${formatDate(p.date)})`);
     const more = flagged.length > 5 ? ` and ${flagged.length - 5} more` : "";
     parts.push(`${plural(flagged.length, "flagged outlier")}: ${listed.join("; ")}${more}.`);
   }

@@ -1,14 +1,13 @@
 import { formatFigure, plural } from "@/lib/catalogue/format";
 import type { HistoryPoint, HistorySeries } from "@/lib/published/history";
 import { ACTION_LABELS } from "@/lib/vocabulary";
+import { When } from "@/components/when";
 import { QUANTITY_TITLES } from "./quantity-meaning";
 import type { Selection } from "./selection";
 
 // How each published value got where it is, newest change first, with the value, n, interval,
 // when and which kind of event moved it. The selected revision and family come first; every other
 // series waits behind one disclosure. Public: names and moderators' reasons are not part of it.
-
-const dateTime = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
 
 function Point({ p }: { p: HistoryPoint }) {
   const what = p.event ? ACTION_LABELS[p.event.action] : "Published before changes were recorded";
@@ -22,7 +21,7 @@ function Point({ p }: { p: HistoryPoint }) {
         {p.ciLow !== null && p.ciHigh !== null ? ` · 95 % interval for the median ${formatFigure(p.ciLow)}–${formatFigure(p.ciHigh)}` : " · no interval yet"}
       </p>
       <p className="text-small text-muted">
-        <time dateTime={p.at}>{dateTime.format(new Date(p.at))}</time> · {what}
+        <When at={p.at} /> · {what}
       </p>
     </li>
   );

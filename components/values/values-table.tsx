@@ -2,7 +2,8 @@ import { ColumnHeads } from "@/components/column-heads";
 import type { QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
 import { plural } from "@/lib/catalogue/format";
 import { QUANTITY_TITLES, settingText } from "./quantity-meaning";
-import { dayOf, methodLabel } from "./summary";
+import { formatDate } from "@/lib/dates/format";
+import { methodLabel } from "./summary";
 
 /**
  * Every approved value of a quantity as a table, newest first, folded away by default: the chart's
@@ -29,7 +30,7 @@ export function ValuesTable({ quantity, values: q }: { quantity: QuantityKey; va
             {points.map((p, i) => (
               <tr key={`${p.date}-${i}`} className="border-b border-rule-soft">
                 <td className="py-1 pr-2 whitespace-nowrap">
-                  <time dateTime={p.date}>{dayOf(p.date)}</time>
+                  <time dateTime={p.date}>{formatDate(p.date)}</time>
                 </td>
                 <td className="py-1 pr-2">{methodLabel(p.method)}</td>
                 <td className="py-1 text-right font-mono whitespace-nowrap">

@@ -25,12 +25,6 @@ export function formatCells(min: number, max: number): string {
   return min === max ? `${max}S` : `${min}–${max}S`;
 }
 
-/** A stored YYYY-MM-DD date as "15 Nov 2025"; read as a calendar date, never shifted by time zone. */
-export function formatDate(isoDate: string): string {
-  const [y, m, d] = isoDate.split("-").map(Number);
-  return new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(new Date(Date.UTC(y, m - 1, d)));
-}
-
 /** "1 value" / "3 values" — counts read as words on the page. */
 export function plural(n: number, one: string, many = `${one}s`): string {
   return `${new Intl.NumberFormat("en").format(n)} ${n === 1 ? one : many}`;

@@ -5,15 +5,13 @@ import { requirePageUser } from "@/lib/auth";
 import { formatFigure } from "@/lib/catalogue/format";
 import { renderMarkdown } from "@/lib/content/markdown";
 import { listOwnSubmissions, type SubmissionView } from "@/lib/submissions";
+import { When } from "@/components/when";
 import { METHOD_LABELS, SENSING_SOURCE_LABELS } from "@/lib/vocabulary";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "My submissions" };
 
 type Props = { searchParams: Promise<{ sent?: string; updated?: string }> };
-
-const dateTime = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
-const when = (iso: string) => `${dateTime.format(new Date(iso))} UTC`;
 
 // Contributors' and moderators' Markdown goes through the one sanitising renderer.
 function Markdown({ text, className = "" }: { text: string; className?: string }) {
@@ -86,8 +84,13 @@ function SubmissionCard({ s, highlight }: { s: SubmissionView; highlight: boolea
       )}
       <div className="flex flex-wrap items-center justify-between gap-3 text-small text-muted">
         <span>
-          Sent {when(s.createdAt)}
-          {s.updatedAt !== s.createdAt ? ` · last changed ${when(s.updatedAt)}` : ""}
+          Sent <When at={s.createdAt} time />
+          {s.updatedAt !== s.createdAt && (
+            <>
+              {" "}
+              · last changed <When at={s.updatedAt} time />
+            </>
+          )}
         </span>
         {s.links.edit && (
           <Link href={s.links.edit} className="sb-button sb-button-quiet min-h-11 text-body" aria-label={`Edit submission #${s.id}`}>

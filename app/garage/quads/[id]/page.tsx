@@ -8,6 +8,7 @@ import { listQuadWorksheets } from "@/lib/worksheets";
 import { quadWorksheetContext } from "@/lib/worksheets/page-context";
 import { WORKSHEET_LABELS } from "@/lib/worksheets/common-input";
 import { TitledSection } from "@/components/titled-section";
+import { When } from "@/components/when";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Quad" };
@@ -39,7 +40,7 @@ export default async function QuadPage({ params }: Props) {
             {sheets.map((s) => (
               <li key={s.id}>
                 <Link href={`/garage/worksheets/${s.id}`} className="font-semibold">
-                  {WORKSHEET_LABELS[s.kind].title}, {s.createdAt.slice(0, 10)}
+                  {WORKSHEET_LABELS[s.kind].title}, <When at={s.createdAt} />
                 </Link>{" "}
                 <span className="text-small text-muted">
                   {s.entries} {WORKSHEET_LABELS[s.kind].entries}

@@ -41,7 +41,7 @@ export default async function GaragePage() {
   const [quads, packs, lists] = await Promise.all([listQuads(user.id), listPacks(user.id), choices()]);
   const today = new Date().toISOString().slice(0, 10);
   return (
-    <div className="mx-auto max-w-page space-y-8 px-4 py-6 sm:px-6">
+    <div className="space-y-8">
       <header>
         <h1 className="font-display text-display uppercase">My garage</h1>
         <p className="mt-2 max-w-prose">

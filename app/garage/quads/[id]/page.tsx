@@ -27,7 +27,7 @@ export default async function QuadPage({ params }: Props) {
   });
   const sheets = await listQuadWorksheets(user.id, quad.id);
   return (
-    <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
+    <div className="space-y-6">
       <p>
         <Link href="/garage">← My garage</Link>
       </p>

@@ -33,7 +33,7 @@ export async function QuadWorksheetPage(props: {
   const openId = props.section === "hardware" ? null : await openWorksheetId(user.id, quad.id, props.section);
   const open = openId == null ? null : await getWorksheet(user.id, openId);
   return (
-    <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
+    <div className="space-y-6">
       <p>
         <Link href={`/garage/quads/${quad.id}`}>← {quad.name}</Link>
       </p>

@@ -25,7 +25,7 @@ export default async function WorksheetPage({ params }: Props) {
     throw e;
   });
   return (
-    <div className="mx-auto max-w-page space-y-6 px-4 py-6 sm:px-6">
+    <div className="space-y-6">
       <p>
         <Link href={`/garage/quads/${sheet.quadId}`}>← {sheet.quadName}</Link>
       </p>

@@ -47,6 +47,8 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
 
     const quadForm = page.getByTestId("quad-form");
     await quadForm.getByRole("button", { name: "Save quad" }).click();
+    // the check runs on submit (react-hook-form's resolver is async): wait for its message, then assert it shows
+    await quadForm.getByText("Enter the quad's name").waitFor();
     expect(await quadForm.getByText("Enter the quad's name").isVisible()).toBe(true);
     const name = `Test quad ${Date.now()}`;
     await quadForm.getByLabel("Name").fill(name);
@@ -151,5 +153,5 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
     await page.getByTestId("bench-result").waitFor();
     await shot(page, "worksheet-bench-phone");
     await context.close();
-  });
+  }, 120_000); // one long journey through six pages; 30 s was too tight on a loaded 2-core machine
 });

@@ -4,6 +4,7 @@ import { AccountPage, Card } from "@/components/auth/page-frame";
 import { MagicLinkForm, PasswordSignInForm } from "@/components/auth/sign-in-forms";
 import { FormMessage } from "@/components/auth/fields";
 import { signInErrorMessage } from "@/components/auth/next-auth-client";
+import { signInReason } from "@/components/auth/sign-in-reason";
 import { currentUser } from "@/lib/auth/guard";
 import { safeNextPath } from "@/lib/auth/safe-next";
 
@@ -32,9 +33,16 @@ export default async function SignInPage({ searchParams }: Props) {
   const params = await searchParams;
   const next = nextFrom(one(params.next), one(params.callbackUrl));
   const problem = signInErrorMessage(one(params.error));
+  // only a page that sent the visitor here explains itself; the plain sign-in link needs no reason
+  const reason = one(params.next) || one(params.callbackUrl) ? signInReason(next) : null;
   const user = await currentUser();
   return (
     <AccountPage kicker="Account" title="Sign in" lead="Sign in to send the values you measured and to follow what moderators say about them.">
+      {reason && !user && (
+        <p className="rounded-md border-2 border-rule bg-sunken px-3 py-2 font-semibold" data-testid="sign-in-reason">
+          {reason}
+        </p>
+      )}
       {problem && <FormMessage tone="fault">{problem}</FormMessage>}
       {user && (
         <FormMessage tone="done">

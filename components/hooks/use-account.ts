@@ -23,7 +23,8 @@ export const useSavePassword = () =>
   });
 
 /** Ends every session of the account (every device, this one too). */
-export const useSignOutEverywhere = () => useMutation({ mutationFn: () => apiFetch<Message>("/api/auth/profile/sign-out-everywhere", { method: "POST", json: {} }) });
+export const useSignOutEverywhere = () =>
+  useMutation({ mutationFn: () => apiFetch<Message>("/api/auth/profile/sign-out-everywhere", { method: "POST", json: {} }) });
 
 export const useRequestReset = () =>
   useMutation({ mutationFn: (values: ResetRequestInput) => apiFetch<Message>("/api/auth/password-reset", { method: "POST", json: values }) });

@@ -14,6 +14,14 @@ const EnvSchema = z.object({
   SHUNTBOOK_PG_PORT: port.default(54329),
   /** Folder for the embedded cluster and other local state, relative to the project. */
   SHUNTBOOK_DATA_DIR: z.string().min(1).default(".data"),
+  /**
+   * `1` lets the embedded cluster's superuser make replication connections from 127.0.0.1 (for a
+   * standby or pg_basebackup); `0`, the default, leaves pg_hba.conf without a replication entry.
+   */
+  SHUNTBOOK_PG_REPLICATION: z
+    .enum(["0", "1"])
+    .default("0")
+    .transform((v) => v === "1"),
   /** Folder holding initdb and pg_ctl, when they are not in Debian's place. */
   SHUNTBOOK_PG_BIN: z.string().min(1).optional(),
   /** Port the web app listens on. */
@@ -46,7 +54,8 @@ const EnvSchema = z.object({
     .string()
     .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, "must be a valid bucket name")
     .default("shuntbook-evidence"),
-  // s3rver's fixed credentials; a real store gets its own through the environment
+  // The launcher sets both to the key pair its private S3 fake accepts (lib/platform/fakes.ts);
+  // a real store gets its own through the environment. The defaults open nothing.
   S3_ACCESS_KEY_ID: z.string().min(1).default("S3RVER"),
   S3_SECRET_ACCESS_KEY: z.string().min(1).default("S3RVER"),
   SHUNTBOOK_S3_PORT: port.default(4569),
@@ -103,7 +112,11 @@ export function resetEnvCache(): void {
   cached = undefined;
 }
 
-/** The database the app talks to: DATABASE_URL, or the embedded cluster's database. */
+/**
+ * The database the app talks to: DATABASE_URL. The launcher always sets it (for the embedded
+ * cluster: the app's role with its password, lib/platform/postgres-cluster.ts); the fallback
+ * names the embedded cluster's database for code run without the launcher.
+ */
 export function databaseUrl(e: Env = env()): string {
   return e.DATABASE_URL ?? `postgres://shuntbook@127.0.0.1:${e.SHUNTBOOK_PG_PORT}/shuntbook`;
 }

@@ -1,5 +1,6 @@
 import path from "node:path";
 import { env } from "@/lib/env";
+import { NO_TELEMETRY } from "./next-build";
 import { runApp } from "./run-app";
 import { runLookupBenchmark } from "@/tests/benchmarks/run";
 import { runStatsRebuild } from "./run-task";
@@ -19,5 +20,8 @@ export async function runCommand(name: string, args: string[]): Promise<void> {
   if (!command) throw new Error(`unknown command '${name}'; expected one of ${Object.keys(COMMANDS).join(", ")}`);
   env(); // fail fast, with the variable named, on a bad environment
   process.env.SHUNTBOOK_ROOT ??= path.resolve(".");
+  // Nothing leaves the machine unasked: every child (next build, next start, vitest, the
+  // benchmarks' servers) inherits this and Next.js sends no telemetry (nextjs.org/telemetry)
+  Object.assign(process.env, NO_TELEMETRY);
   process.exit(await command(args));
 }

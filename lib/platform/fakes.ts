@@ -11,6 +11,13 @@ import { waitForHttp } from "./wait-for-http";
 
 type MailCatcher = { smtpUrl: string; inboxUrl: string };
 type ObjectStore = { endpoint: string };
+/** The key pair the S3 fake accepts (and nothing else). */
+export type ObjectStoreKeys = { accessKeyId: string; secretAccessKey: string };
+
+/** A key pair for the S3 fake: the secret from `secret` (persistent or random), a fixed-looking key id. */
+export function objectStoreKeys(secret: string): ObjectStoreKeys {
+  return { accessKeyId: "SHUNTBOOKLOCAL", secretAccessKey: secret };
+}
 
 function nodeBin(root: string, relative: string): string {
   return path.join(root, "node_modules", relative);
@@ -44,28 +51,24 @@ async function startMailCatcher(root: string, opts: { smtpPort: number; webPort:
   return { smtpUrl: `smtp://127.0.0.1:${opts.smtpPort}`, inboxUrl };
 }
 
-async function startObjectStore(root: string, opts: { port: number; dataDir: string; bucket: string; lifecycle: Lifecycle }): Promise<ObjectStore> {
+/**
+ * s3rver behind lib/platform/s3-fake.cjs, which refuses every request not signed with this run's
+ * key pair: the bucket is private, as a real one is.
+ */
+async function startObjectStore(
+  root: string,
+  opts: { port: number; dataDir: string; bucket: string; keys: ObjectStoreKeys; lifecycle: Lifecycle },
+): Promise<ObjectStore> {
   mkdirSync(opts.dataDir, { recursive: true });
-  const child = spawnGroup(
-    process.execPath,
-    [
-      nodeBin(root, "s3rver/bin/s3rver.js"),
-      "--address",
-      "127.0.0.1",
-      "--port",
-      String(opts.port),
-      "--directory",
-      opts.dataDir,
-      "--configure-bucket",
-      opts.bucket,
-      "--silent",
-    ],
-    { cwd: root, stdio: ["ignore", "ignore", "inherit"] },
-  );
+  const child = spawnGroup(process.execPath, [path.join(root, "lib/platform/s3-fake.cjs"), "127.0.0.1", String(opts.port), opts.dataDir, opts.bucket], {
+    cwd: root,
+    stdio: ["ignore", "ignore", "inherit"],
+    env: { ...process.env, S3_FAKE_ACCESS_KEY_ID: opts.keys.accessKeyId, S3_FAKE_SECRET_ACCESS_KEY: opts.keys.secretAccessKey },
+  });
   opts.lifecycle.onStop("the object store", () => stopGroup(child));
   const endpoint = `http://127.0.0.1:${opts.port}`;
   await waitForHttp(endpoint, 30_000);
-  log(`object store (S3 fake): ${endpoint}, bucket ${opts.bucket}`);
+  log(`object store (S3 fake, private bucket ${opts.bucket}): ${endpoint}`);
   return { endpoint };
 }
 
@@ -82,6 +85,8 @@ export async function startFakes(
     webPort: number;
     s3Port: number;
     bucket: string;
+    /** The S3 fake's key pair: kept in the data folder by npm start, fresh per run in npm test. */
+    s3Keys: ObjectStoreKeys;
     /** Variables that may already name real services (then no fake is started). */
     env: Partial<Record<"SMTP_URL" | "S3_ENDPOINT", string | undefined>>;
   },
@@ -98,8 +103,16 @@ export async function startFakes(
     out.MAIL_INBOX_URL = mail.inboxUrl;
   }
   if (!opts.env.S3_ENDPOINT) {
-    const store = await startObjectStore(root, { port: opts.s3Port, dataDir: path.join(opts.stateDir, "s3"), bucket: opts.bucket, lifecycle });
+    const store = await startObjectStore(root, {
+      port: opts.s3Port,
+      dataDir: path.join(opts.stateDir, "s3"),
+      bucket: opts.bucket,
+      keys: opts.s3Keys,
+      lifecycle,
+    });
     out.S3_ENDPOINT = store.endpoint;
+    out.S3_ACCESS_KEY_ID = opts.s3Keys.accessKeyId;
+    out.S3_SECRET_ACCESS_KEY = opts.s3Keys.secretAccessKey;
   }
   return out;
 }

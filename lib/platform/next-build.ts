@@ -35,6 +35,9 @@ function buildIsStale(root: string): boolean {
   return BUILD_INPUTS.some((input) => newestMtime(path.join(root, input)) > builtAt);
 }
 
+/** Next.js's documented switch for its anonymous telemetry (nextjs.org/telemetry); set for every child the launcher starts. */
+export const NO_TELEMETRY = { NEXT_TELEMETRY_DISABLED: "1" } as const;
+
 export function nextBin(root: string): string {
   return path.join(root, "node_modules", "next", "dist", "bin", "next");
 }
@@ -44,16 +47,17 @@ export function buildIfNeeded(root: string, env: NodeJS.ProcessEnv): void {
   if (!buildIsStale(root)) return;
   log("building the app (next build) ...");
   const started = Date.now();
-  const r = spawnSync(process.execPath, [nextBin(root), "build"], { cwd: root, stdio: "inherit", env });
+  const r = spawnSync(process.execPath, [nextBin(root), "build"], { cwd: root, stdio: "inherit", env: { ...env, ...NO_TELEMETRY } });
   if (r.status !== 0) throw new Error("next build failed; see the output above");
   log(`built in ${Math.round((Date.now() - started) / 1000)} s`);
 }
 
 /**
  * The environment for the app's server process: NODE_OPTIONS gains lib/platform/peer-address.cjs,
- * which records each request's socket address in X-Forwarded-For (lib/auth/client-address.ts).
+ * which records each request's socket address in X-Forwarded-For (lib/auth/client-address.ts);
+ * Next.js's telemetry is off.
  */
 export function serverEnv<E extends NodeJS.ProcessEnv>(root: string, env: E): E {
   const preload = `--require ${JSON.stringify(path.join(root, "lib", "platform", "peer-address.cjs"))}`;
-  return { ...env, NODE_OPTIONS: [env.NODE_OPTIONS, preload].filter(Boolean).join(" ") };
+  return { ...env, ...NO_TELEMETRY, NODE_OPTIONS: [env.NODE_OPTIONS, preload].filter(Boolean).join(" ") };
 }

@@ -1,13 +1,16 @@
 import path from "node:path";
-import { persistentAuthSecret } from "@/lib/auth/secret-file";
-import { databaseUrl, env } from "@/lib/env";
+import { persistentAuthSecret, persistentSecret } from "./secret-files";
+import { env } from "@/lib/env";
 import { spawnGroup, stopGroup, waitForExit } from "./child-process";
 import { prepareDatabase } from "./database";
-import { startFakes } from "./fakes";
+import { objectStoreKeys, startFakes } from "./fakes";
 import { Lifecycle } from "./lifecycle";
 import { log } from "./log";
 import { buildIfNeeded, nextBin, serverEnv } from "./next-build";
-import { describeCluster, ensureDatabase, initCluster, isClusterRunning, startCluster, stopCluster } from "./postgres-cluster";
+import { createAppDatabase, describeCluster, initCluster, isClusterRunning, secureCluster, startCluster, stopCluster } from "./postgres-cluster";
+
+/** The app's database in the embedded cluster. */
+const EMBEDDED_DATABASE = "shuntbook";
 
 /**
  * `npm start` / `npm run dev`: bring up PostgreSQL (the embedded cluster in .data unless
@@ -28,6 +31,7 @@ export async function runApp(mode: "start" | "dev"): Promise<number> {
       webPort: e.SHUNTBOOK_MAIL_WEB_PORT,
       s3Port: e.SHUNTBOOK_S3_PORT,
       bucket: e.S3_BUCKET,
+      s3Keys: objectStoreKeys(persistentSecret(path.resolve(root, e.SHUNTBOOK_DATA_DIR), "s3-fake-secret-key")),
       env: { SMTP_URL: e.SMTP_URL, S3_ENDPOINT: e.S3_ENDPOINT },
     });
     const appEnv = { ...process.env, ...services, ...authEnv(root), DATABASE_URL: url, PORT: String(e.PORT) };
@@ -71,7 +75,7 @@ export async function bringUpDatabase(root: string, lifecycle: Lifecycle): Promi
     log("DATABASE_URL is set: using that server, not the embedded cluster");
     return e.DATABASE_URL;
   }
-  const cluster = describeCluster(path.resolve(root, e.SHUNTBOOK_DATA_DIR), e.SHUNTBOOK_PG_PORT);
+  const cluster = describeCluster(path.resolve(root, e.SHUNTBOOK_DATA_DIR), e.SHUNTBOOK_PG_PORT, { allowReplication: e.SHUNTBOOK_PG_REPLICATION });
   initCluster(cluster);
   if (isClusterRunning(cluster) && lifecycle.mayShareRunningCluster) {
     log("PostgreSQL is already running for this project; using it");
@@ -79,7 +83,7 @@ export async function bringUpDatabase(root: string, lifecycle: Lifecycle): Promi
     startCluster(cluster);
     lifecycle.onStop("PostgreSQL", () => stopCluster(cluster));
   }
-  const url = databaseUrl(e);
-  await ensureDatabase(url, new URL(url).pathname.slice(1));
-  return url;
+  await secureCluster(cluster);
+  await createAppDatabase(cluster, EMBEDDED_DATABASE);
+  return cluster.url(EMBEDDED_DATABASE);
 }

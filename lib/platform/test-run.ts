@@ -1,18 +1,18 @@
 import { existsSync, mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { randomAuthSecret } from "@/lib/auth/secret-file";
+import { randomSecret } from "./secret-files";
 import { createSequelize } from "@/lib/db/sequelize";
 import { env } from "@/lib/env";
 import { migrateUp, seedUp } from "@/lib/db/migrate";
 import { TEMPLATE_DATABASES } from "./test-templates";
 import { spawnGroup, stopGroup, waitForExit } from "./child-process";
-import { startFakes } from "./fakes";
+import { objectStoreKeys, startFakes } from "./fakes";
 import { Lifecycle } from "./lifecycle";
 import { log } from "./log";
-import { buildIfNeeded, nextBin, serverEnv } from "./next-build";
+import { NO_TELEMETRY, buildIfNeeded, nextBin, serverEnv } from "./next-build";
 import { aptInstall, isRoot } from "./postgres-binaries";
-import { describeCluster, ensureDatabase, initCluster, startCluster, stopCluster, type Cluster } from "./postgres-cluster";
+import { createAppDatabase, describeCluster, initCluster, secureCluster, startCluster, stopCluster, type Cluster } from "./postgres-cluster";
 import { freePort, waitForHttp } from "./wait-for-http";
 
 const CHROMIUM = "/usr/bin/chromium";
@@ -39,12 +39,13 @@ export async function runTests(vitestArgs: string[]): Promise<number> {
       webPort: await freePort(),
       s3Port: await freePort(),
       bucket: env().S3_BUCKET,
+      s3Keys: objectStoreKeys(randomSecret()),
       env: {},
     });
 
     // one session secret for the app under test and the test files, so that tests/support/auth.ts
     // can sign session cookies the app accepts; fresh per run
-    const authSecret = randomAuthSecret();
+    const authSecret = randomSecret();
     const appUrl =
       env().SHUNTBOOK_TEST_APP === "1" ? await startAppUnderTest(root, cluster, { ...services, NEXTAUTH_SECRET: authSecret }, lifecycle) : undefined;
     const vitest = spawnGroup(process.execPath, [path.join(root, "node_modules/vitest/vitest.mjs"), "run", ...vitestArgs], {
@@ -53,6 +54,7 @@ export async function runTests(vitestArgs: string[]): Promise<number> {
       env: {
         ...process.env,
         ...services,
+        ...NO_TELEMETRY,
         NODE_ENV: "test",
         SHUNTBOOK_TEST_PG_URL: cluster.url("postgres"),
         NEXTAUTH_SECRET: authSecret,
@@ -83,15 +85,17 @@ async function startThrowawayCluster(scratch: string, lifecycle: Lifecycle): Pro
   initCluster(cluster);
   startCluster(cluster, { durable: false });
   lifecycle.onStop("PostgreSQL", () => stopCluster(cluster));
+  // the test files clone their databases from the templates as the app's role (tests/support/database.ts)
+  await secureCluster(cluster, { appMayCreateDatabases: true });
   return cluster;
 }
 
 /** Migrations from zero into one template, then a copy of it with the demo scenario seeded. */
 async function prepareTemplates(cluster: Cluster): Promise<void> {
   const started = Date.now();
-  await ensureDatabase(cluster.url("postgres"), TEMPLATE_DATABASES.migrated);
+  await createAppDatabase(cluster, TEMPLATE_DATABASES.migrated);
   await withSequelize(cluster.url(TEMPLATE_DATABASES.migrated), (s) => migrateUp(s));
-  await ensureDatabase(cluster.url("postgres"), TEMPLATE_DATABASES.seeded, TEMPLATE_DATABASES.migrated);
+  await createAppDatabase(cluster, TEMPLATE_DATABASES.seeded, TEMPLATE_DATABASES.migrated);
   await withSequelize(cluster.url(TEMPLATE_DATABASES.seeded), (s) => seedUp(s));
   log(`test templates ready in ${Date.now() - started} ms`);
 }
@@ -108,7 +112,7 @@ async function withSequelize<T>(url: string, fn: (s: ReturnType<typeof createSeq
 /** The production build, served on its own seeded database, for the browser and HTTP tests. */
 async function startAppUnderTest(root: string, cluster: Cluster, services: Record<string, string>, lifecycle: Lifecycle): Promise<string> {
   const database = "shuntbook_app_under_test";
-  await ensureDatabase(cluster.url("postgres"), database, TEMPLATE_DATABASES.seeded);
+  await createAppDatabase(cluster, database, TEMPLATE_DATABASES.seeded);
   const port = await freePort();
   const url = `http://127.0.0.1:${port}`;
   const appEnv = {

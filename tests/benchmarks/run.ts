@@ -7,7 +7,7 @@ import { createSequelize } from "@/lib/db/sequelize";
 import { Lifecycle } from "@/lib/platform/lifecycle";
 import { log } from "@/lib/platform/log";
 import { buildIfNeeded } from "@/lib/platform/next-build";
-import { describeCluster, ensureDatabase, initCluster, startCluster, stopCluster, type Cluster } from "@/lib/platform/postgres-cluster";
+import { createAppDatabase, describeCluster, initCluster, secureCluster, startCluster, stopCluster, type Cluster } from "@/lib/platform/postgres-cluster";
 import { freePort } from "@/lib/platform/wait-for-http";
 import { refreshGroups } from "@/lib/published/refresh";
 import { sample, uniformPicker, warmUp, type Pick } from "./drive";
@@ -43,7 +43,7 @@ async function rebuildStats(sequelize: Sequelize, stock: boolean): Promise<numbe
 
 async function prepareSize(root: string, cluster: Cluster, options: BenchmarkOptions, submissions: number): Promise<PreparedSize> {
   const database = `benchmark_lookup_${submissions}`;
-  await ensureDatabase(cluster.url("postgres"), database);
+  await createAppDatabase(cluster, database);
   const sequelize = createSequelize(cluster.url(database), { poolMax: 2 });
   try {
     await migrateUp(sequelize, root);
@@ -200,6 +200,7 @@ export async function runLookupBenchmark(args: string[]): Promise<number> {
     initCluster(cluster);
     startCluster(cluster, { durable: false });
     lifecycle.onStop("PostgreSQL", () => stopCluster(cluster));
+    await secureCluster(cluster);
     // built with a database that has no tables: a page that wrongly read data at build time fails here
     buildIfNeeded(root, { ...process.env, NODE_ENV: "production", DATABASE_URL: cluster.url("postgres") });
 

@@ -3,7 +3,7 @@ import { createRequire } from "node:module";
 import path from "node:path";
 import { spawnGroup, stopGroup } from "@/lib/platform/child-process";
 import type { Lifecycle } from "@/lib/platform/lifecycle";
-import { nextBin } from "@/lib/platform/next-build";
+import { NO_TELEMETRY, nextBin } from "@/lib/platform/next-build";
 import { freePort, waitForHttp } from "@/lib/platform/wait-for-http";
 import type { StoredResponse } from "./bare-server";
 
@@ -18,7 +18,7 @@ export async function startNextApp(root: string, databaseUrl: string, lifecycle:
   const app = spawnGroup(process.execPath, [nextBin(root), "start", "-H", "127.0.0.1", "-p", String(port)], {
     cwd: root,
     stdio: ["ignore", "ignore", "inherit"],
-    env: { ...process.env, NODE_ENV: "production", DATABASE_URL: databaseUrl, PORT: String(port) },
+    env: { ...process.env, ...NO_TELEMETRY, NODE_ENV: "production", DATABASE_URL: databaseUrl, PORT: String(port) },
   });
   const stop = () => stopGroup(app);
   lifecycle.onStop("the app under benchmark", stop);
@@ -41,7 +41,7 @@ export async function startBareServerProcess(
   const child = spawnGroup(process.execPath, ["--require", tsxCjs, path.join(root, "tests/benchmarks/bare-server.ts"), file, String(port)], {
     cwd: root,
     stdio: ["ignore", "ignore", "inherit"],
-    env: { ...process.env, NODE_ENV: "production" },
+    env: { ...process.env, ...NO_TELEMETRY, NODE_ENV: "production" },
   });
   const stop = () => stopGroup(child);
   lifecycle.onStop("the bare node:http server", stop);

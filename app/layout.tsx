@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from "next";
+import { headers } from "next/headers";
 import type { ReactNode } from "react";
 import { Providers } from "@/components/providers";
 import { SiteFooter } from "@/components/site-footer";
@@ -23,12 +24,15 @@ export const viewport: Viewport = {
   ],
 };
 
-export default function RootLayout({ children }: { children: ReactNode }) {
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  // the per-request script nonce from proxy.ts (reading it also renders every page per request,
+  // as nonces need: a page prerendered at build time would carry none)
+  const nonce = (await headers()).get("x-nonce") ?? undefined;
   return (
     // data-theme is set before hydration by the boot script, hence suppressHydrationWarning
     <html lang="en" className={`${bodyFont.variable} ${displayFont.variable} ${monoFont.variable}`} suppressHydrationWarning>
       <head>
-        <script dangerouslySetInnerHTML={{ __html: THEME_BOOT_SCRIPT }} />
+        <script nonce={nonce} dangerouslySetInnerHTML={{ __html: THEME_BOOT_SCRIPT }} />
       </head>
       <body className="flex min-h-dvh flex-col bg-paper font-body text-body text-ink">
         <a href="#main" className="sb-skip">

@@ -79,6 +79,14 @@ export async function encodeSessionToken(claims: SessionClaims, maxAgeSeconds = 
   return encode({ token: { ...claims } satisfies JWT, secret: authSecret(), maxAge: maxAgeSeconds });
 }
 
+/**
+ * The Set-Cookie value that deletes the session cookie. Over https it must carry Secure too: a
+ * browser ignores a __Secure- cookie set (or cleared) without it.
+ */
+export function sessionClearCookie(): string {
+  return sessionSetCookie("", 0);
+}
+
 /** A Set-Cookie value next-auth would accept as its own session cookie (same name and flags). */
 export function sessionSetCookie(token: string, maxAgeSeconds = SESSION_MAX_AGE_SECONDS): string {
   const secure = usesSecureCookies() ? "; Secure" : "";

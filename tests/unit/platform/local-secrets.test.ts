@@ -46,7 +46,8 @@ describe("pg_hba.conf of the embedded cluster", () => {
 describe("Next.js telemetry (issue 12, item 9)", () => {
   it("is off in the app server's environment (nextjs.org/telemetry: NEXT_TELEMETRY_DISABLED=1)", () => {
     expect(NO_TELEMETRY.NEXT_TELEMETRY_DISABLED).toBe("1");
-    expect(serverEnv("/repo", { PATH: "/bin" }).NEXT_TELEMETRY_DISABLED).toBe("1");
+    const childEnv: NodeJS.ProcessEnv = serverEnv("/repo", { NODE_ENV: "production", PATH: "/bin" });
+    expect(childEnv.NEXT_TELEMETRY_DISABLED).toBe("1");
   });
 
   it("is off for this test process too, because npm test sets it for every child", () => {

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { route, routes, privateJson } from "@/lib/http";
-import { sessionCookieName } from "@/lib/auth/session-cookie";
+import { sessionClearCookie } from "@/lib/auth/session-cookie";
 import { endSessions } from "@/lib/auth/sessions";
 
 // POST /api/auth/profile/sign-out-everywhere: ends every session of the signed-in account, on
@@ -12,7 +12,7 @@ export const { GET, POST, PUT, PATCH, DELETE } = routes({
   POST: route({ auth: "user", body: z.object({}, { error: "Send an empty JSON object" }) }, async ({ user }) => {
     await endSessions(user.id);
     return privateJson({ message: "Every device is signed out, this one too." }, 200, {
-      "Set-Cookie": `${sessionCookieName()}=; Path=/; HttpOnly; SameSite=Lax; Max-Age=0`,
+      "Set-Cookie": sessionClearCookie(),
     });
   }),
 });

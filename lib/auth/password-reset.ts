@@ -1,7 +1,7 @@
 import { createHash, randomBytes } from "node:crypto";
 import { Op } from "sequelize";
 import { ApiError } from "@/lib/http/errors";
-import { enqueue } from "@/lib/jobs";
+import { JOB_PRIORITY, enqueue } from "@/lib/jobs";
 import { passwordChangedMail, passwordResetMail } from "@/lib/mail/templates";
 import { db, PasswordResetToken, User } from "@/models";
 import { byEmail } from "./accounts";
@@ -35,7 +35,11 @@ export async function requestPasswordReset(email: string): Promise<string | null
       { transaction },
     );
     const url = siteUrl(`/reset-password?token=${encodeURIComponent(token)}`);
-    await enqueue("mail.send", { to: user.email, ...passwordResetMail({ name: user.name, url, minutes: RESET_TOKEN_MINUTES }) }, { transaction });
+    await enqueue(
+      "mail.send",
+      { to: user.email, ...passwordResetMail({ name: user.name, url, minutes: RESET_TOKEN_MINUTES }) },
+      { transaction, priority: JOB_PRIORITY.urgent },
+    );
   });
   return token;
 }
@@ -61,7 +65,11 @@ export async function completePasswordReset(token: string, newPassword: string):
     await PasswordResetToken.update({ usedAt: now }, { where: { userId: user.id, usedAt: null }, transaction });
     // passwordChangedAt ends every session from before now, including any an intruder holds
     await User.scope("withPassword").update({ passwordHash: newHash, passwordChangedAt: now }, { where: { id: user.id }, transaction });
-    await enqueue("mail.send", { to: user.email, ...passwordChangedMail({ name: user.name, signInUrl: siteUrl("/signin") }) }, { transaction });
+    await enqueue(
+      "mail.send",
+      { to: user.email, ...passwordChangedMail({ name: user.name, signInUrl: siteUrl("/signin") }) },
+      { transaction, priority: JOB_PRIORITY.urgent },
+    );
     return { email: user.email };
   });
 }

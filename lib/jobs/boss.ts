@@ -21,7 +21,8 @@ export function boss(): Promise<PgBoss> {
   const instance = new PgBoss({
     connectionString: url,
     schema: BOSS_SCHEMA,
-    max: 3,
+    // the mail pollers (lib/jobs/handlers.ts drain settings) fetch, complete and fail on it
+    max: 5,
     // maintenance: a job whose worker died is expired and retried, old jobs are archived; several
     // instances may all supervise (pg-boss takes an advisory lock for it)
     supervise: true,

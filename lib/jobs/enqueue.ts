@@ -11,7 +11,7 @@ type Executor = { executeSql(text: string, values: unknown[]): Promise<{ rows: u
  * transaction writes: a status change and the mail that tells someone about it commit as one, and
  * a mail that later fails to send is retried by the queue without touching the status change.
  */
-function inTransaction(transaction: Transaction): Executor {
+export function inTransaction(transaction: Transaction): Executor {
   return {
     executeSql: async (text, values) => {
       // Sequelize refuses undefined binds, pg-boss leaves unset options undefined: both mean NULL
@@ -22,12 +22,23 @@ function inTransaction(transaction: Transaction): Executor {
   };
 }
 
+/**
+ * Queue priorities: the worker takes higher first (pg-boss orders due jobs by priority, then age).
+ * Urgent: what someone is waiting for with the page open (a reset link, a sign-in link).
+ */
+export const JOB_PRIORITY = { normal: 0, urgent: 10 } as const;
+
 /** Puts a job on the queue (inside `opts.transaction` when given). Throws on an unknown job or bad data. */
-export async function enqueue(name: string, data: object, opts: { transaction?: Transaction } = {}): Promise<void> {
+export async function enqueue(
+  name: string,
+  data: object,
+  opts: { transaction?: Transaction; priority?: (typeof JOB_PRIORITY)[keyof typeof JOB_PRIORITY] } = {},
+): Promise<void> {
   if (!isJobName(name)) throw new Error(`unknown job '${name}': add it to lib/jobs/handlers.ts`);
   const checked = JOBS[name].parse(data) as object; // refuse bad data now, not at 3 a.m. in the worker
   const queue = await boss();
-  const id = await queue.send(name, checked, opts.transaction ? { db: inTransaction(opts.transaction) } : {});
+  const priority = opts.priority ?? JOB_PRIORITY.normal;
+  const id = await queue.send(name, checked, opts.transaction ? { priority, db: inTransaction(opts.transaction) } : { priority });
   // pg-boss returns null when the insert matched no queue row; never drop a job silently
   if (!id) throw new Error(`job '${name}' was not enqueued: its queue does not exist`);
 }

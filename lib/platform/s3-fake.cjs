@@ -50,7 +50,9 @@ function canonicalQuery(rawQuery) {
 function refusal(req) {
   const auth = req.headers.authorization;
   if (!auth) return "anonymous access is not allowed";
-  const m = /^AWS4-HMAC-SHA256 Credential=([^/]+)\/(\d{8})\/([^/]+)\/([^/]+)\/aws4_request, ?SignedHeaders=([a-z0-9;-]+), ?Signature=([0-9a-f]{64})$/.exec(auth);
+  const m = /^AWS4-HMAC-SHA256 Credential=([^/]+)\/(\d{8})\/([^/]+)\/([^/]+)\/aws4_request, ?SignedHeaders=([a-z0-9;-]+), ?Signature=([0-9a-f]{64})$/.exec(
+    auth,
+  );
   if (!m) return "only Signature Version 4 in the Authorization header is accepted";
   const [, keyId, date, region, service, signedHeaders, signature] = m;
   if (keyId !== accessKeyId) return "unknown access key";
@@ -62,7 +64,14 @@ function refusal(req) {
   const names = signedHeaders.split(";");
   if (!names.includes("host")) return "host must be signed";
   const [rawPath, rawQuery = ""] = req.url.split(/\?(.*)/s);
-  const headers = names.map((name) => `${name}:${String(req.headers[name] ?? "").trim().replace(/\s+/g, " ")}\n`).join("");
+  const headers = names
+    .map(
+      (name) =>
+        `${name}:${String(req.headers[name] ?? "")
+          .trim()
+          .replace(/\s+/g, " ")}\n`,
+    )
+    .join("");
   const canonicalRequest = [req.method, rawPath, canonicalQuery(rawQuery), headers, signedHeaders, payloadHash].join("\n");
   const scope = `${date}/${region}/${service}/aws4_request`;
   const stringToSign = ["AWS4-HMAC-SHA256", amzDate, scope, sha256(canonicalRequest)].join("\n");

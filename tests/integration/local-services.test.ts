@@ -47,9 +47,7 @@ describe("the embedded PostgreSQL cluster", () => {
       expect(rows[0]).toMatchObject({ rolsuper: false, rolreplication: false, rolcreaterole: false });
       expect(rows[0].owner).toBe(rows[0].me);
       // the migrations ran as the owner: every table of ours, and pg-boss's, belongs to it
-      const others = await client.query(
-        "SELECT tablename FROM pg_tables WHERE schemaname IN ('public', 'pgboss') AND tableowner <> current_user",
-      );
+      const others = await client.query("SELECT tablename FROM pg_tables WHERE schemaname IN ('public', 'pgboss') AND tableowner <> current_user");
       expect(others.rows).toEqual([]);
       await expect(client.query("SELECT pg_read_file('pg_hba.conf')")).rejects.toThrow(/permission denied/);
     } finally {

@@ -32,7 +32,7 @@ export type JobDefinition = {
  * waiting, else after `pollingIntervalSeconds`. So a backlog drains at up to
  * workers × batchSize jobs per round, a round lasting the polling interval or the batch's run time.
  */
-export type DrainSettings = { workers: number; batchSize: number; concurrency: number; pollingIntervalSeconds: number };
+type DrainSettings = { workers: number; batchSize: number; concurrency: number; pollingIntervalSeconds: number };
 
 function job<T>(
   def: { parse: (data: unknown) => T; run: (data: T) => Promise<void>; holdBack?: (data: T) => Promise<number> } & Omit<

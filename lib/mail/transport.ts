@@ -23,7 +23,7 @@ export function smtpUrl(): string {
  * already in SMTP_URL win. Short timeouts: a job that hangs on a dead relay should fail and be
  * retried, not sit.
  */
-export function transportUrl(url: string): string {
+function transportUrl(url: string): string {
   const parsed = new URL(url);
   const defaults = { pool: "true", maxConnections: String(SMTP_CONNECTIONS), connectionTimeout: "10000", greetingTimeout: "10000", socketTimeout: "20000" };
   for (const [key, value] of Object.entries(defaults)) if (!parsed.searchParams.has(key)) parsed.searchParams.set(key, value);

@@ -78,7 +78,8 @@ describe.skipIf(!appUrl)("security headers from next start", () => {
     for (const [path, status] of [
       ["/api/v1/boards?pageSize=1", 200],
       ["/api/v1/boards?page=abc", 400],
-      ["/api/v1/photos/1", 401],
+      ["/api/v1/garage/quads", 401],
+      ["/api/v1/photos/1", 404],
       ["/api/v1/no-such-endpoint", 404],
     ] as const) {
       const res = await get(path);

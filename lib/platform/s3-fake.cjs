@@ -12,6 +12,7 @@
 // sign, signing key HMAC chain. The payload hash is taken from x-amz-content-sha256 as signed;
 // the body is not re-hashed (a fake on loopback; the signature already binds the header).
 "use strict";
+/* eslint-disable @typescript-eslint/no-require-imports -- a plain Node script started by path, CommonJS like peer-address.cjs */
 
 const { createHash, createHmac, timingSafeEqual } = require("node:crypto");
 const http = require("node:http");

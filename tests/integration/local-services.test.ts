@@ -16,7 +16,14 @@ setupOwnBucket();
 
 async function connect(url: string): Promise<pg.Client> {
   const client = new pg.Client({ connectionString: url, connectionTimeoutMillis: 10_000 });
-  await client.connect();
+  try {
+    await client.connect();
+  } catch (error) {
+    // a refusal by pg itself (no password for the SCRAM challenge) leaves the socket open, and the
+    // server's half-authenticated backend would hold the test database for authentication_timeout
+    await client.end().catch(() => undefined);
+    throw error;
+  }
   return client;
 }
 

@@ -1,6 +1,7 @@
 import { Account } from "./Account";
 import { AuditEvent } from "./AuditEvent";
 import { AuthSession } from "./AuthSession";
+import { EndedSession } from "./EndedSession";
 import { BoardAlias, BoardModel, BoardRevision } from "./Board";
 import { BoardStat } from "./BoardStat";
 import { EvidencePhoto } from "./EvidencePhoto";
@@ -65,6 +66,8 @@ export function associate(): void {
   Account.belongsTo(User, { foreignKey: "userId", as: "user" });
   User.hasMany(AuthSession, { foreignKey: "userId", as: "authSessions" });
   AuthSession.belongsTo(User, { foreignKey: "userId", as: "user" });
+  User.hasMany(EndedSession, { foreignKey: "userId", as: "endedSessions" });
+  EndedSession.belongsTo(User, { foreignKey: "userId", as: "user" });
   User.hasMany(PasswordResetToken, { foreignKey: "userId", as: "passwordResetTokens" });
   PasswordResetToken.belongsTo(User, { foreignKey: "userId", as: "user" });
 

@@ -6,6 +6,7 @@ import { AuthSession } from "./AuthSession";
 import { BoardAlias, BoardModel, BoardRevision } from "./Board";
 import { BoardStat, type BoardStatRow } from "./BoardStat";
 import { getSequelize } from "./connection";
+import { EndedSession } from "./EndedSession";
 import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { IdempotencyKey } from "./IdempotencyKey";
@@ -29,7 +30,7 @@ import { WorksheetVoltageReading } from "./WorksheetVoltageReading";
 
 export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, Manufacturer, Submission, User };
 export { SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
-export { Account, AuthSession, PasswordResetToken, VerificationToken };
+export { Account, AuthSession, EndedSession, PasswordResetToken, VerificationToken };
 export { Pack, PackCharge, Quad, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint };
 export { familyUnitFieldsOf } from "./FirmwareFamily";
 export { AuditEvent, BoardStat, PublishedValueHistory, type BoardStatRow };
@@ -55,6 +56,7 @@ export function db(): Sequelize {
       IdempotencyKey,
       Account,
       AuthSession,
+      EndedSession,
       VerificationToken,
       PasswordResetToken,
       RateLimit,

@@ -130,6 +130,22 @@ describe("finding 5: sign-out ends the session on the server", () => {
     expect(await read.json()).toEqual({});
   });
 
+  it("signing out on one device leaves the account's other sessions signed in (only 'sign out everywhere' ends them all)", async () => {
+    const account = DEMO_ACCOUNTS.admin;
+    const cookieOf = (res: Response) =>
+      res.headers
+        .getSetCookie()
+        .find((c) => c.startsWith(`${sessionCookieName()}=`))!
+        .split(";")[0];
+    const phone = cookieOf(await passwordAttempt(account.email, account.password, "192.0.2.95"));
+    const laptop = cookieOf(await passwordAttempt(account.email, account.password, "192.0.2.96"));
+    const { token, cookie } = await csrf();
+    const out = await nextAuth("POST", "signout", new URLSearchParams({ csrfToken: token, json: "true" }).toString(), { cookie: `${cookie}; ${phone}` });
+    expect(out.status).toBe(200);
+    expect(await inRequest(withCookie(new Request(`${base()}/profile`), phone), currentUser)).toBeNull();
+    expect(await inRequest(withCookie(new Request(`${base()}/profile`), laptop), currentUser)).toMatchObject({ email: account.email });
+  });
+
   it("sign out everywhere ends every device's session", async () => {
     const account = await testAccount("contributor", { email: "everywhere@example.test" });
     const phone = await sessionCookieForAccount(account);

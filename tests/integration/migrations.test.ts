@@ -17,6 +17,7 @@ const EXPECTED_TABLES = [
   "board_models",
   "board_revisions",
   "board_stats",
+  "ended_sessions",
   "evidence_photos",
   "firmware_families",
   "idempotency_keys",

@@ -64,10 +64,16 @@ function errorBody(error: ApiError): ErrorBody {
   return { error: { status: error.status, code: error.code, message: error.message, fieldErrors: error.fieldErrors } };
 }
 
+/**
+ * After a 413 the rest of the body is still on its way, unread (lib/http/body-stream.ts): the
+ * connection is closed once the answer is out instead of kept alive to drain it.
+ */
+const closeAfter = (error: ApiError): Record<string, string> => (error.status === 413 ? { Connection: "close" } : {});
+
 export function errorResponse(error: ApiError, extraHeaders: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(errorBody(error)), {
     status: error.status,
-    headers: { ...CORS_HEADERS, "Content-Type": JSON_TYPE, "Cache-Control": ERROR_CACHE_CONTROL, ...extraHeaders },
+    headers: { ...CORS_HEADERS, "Content-Type": JSON_TYPE, "Cache-Control": ERROR_CACHE_CONTROL, ...closeAfter(error), ...extraHeaders },
   });
 }
 

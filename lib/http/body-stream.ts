@@ -1,10 +1,12 @@
 import { contentTooLarge, type ApiError } from "./errors";
 
 // The one way a request body is read: as it streams, never past its cap. A body with a
-// Content-Length over the cap is refused before a byte is read; one without (chunked) is read
-// chunk by chunk and refused the moment it passes the cap, so memory holds at most the cap plus
-// one chunk whatever the client sends. Request.text(), .json(), .formData() and .arrayBuffer()
-// read the whole body first, so no route reads a request with them.
+// Content-Length over the cap is refused before a byte is read (Node then discards what the client
+// still sends, keeping the connection, so a browser's upload gets the answer cleanly); one without
+// (chunked) is read chunk by chunk and refused the moment it passes the cap, so memory holds at most
+// the cap plus one chunk whatever the client sends, and the connection is closed after the 413
+// rather than drained. Request.text(), .json(), .formData() and .arrayBuffer() read the whole body
+// first, so no route reads a request with them.
 
 export type TooLarge = (maxBytes: number) => ApiError;
 
@@ -15,11 +17,21 @@ export function formatCap(maxBytes: number): string {
 
 const bodyTooLarge: TooLarge = (maxBytes) => contentTooLarge(`The body is larger than ${formatCap(maxBytes)}, the limit here.`);
 
-/** Stops reading without draining: the rest stays in the client's socket, which lib/http closes after the 413. */
-function abandon(reader: ReadableStreamDefaultReader<Uint8Array>): void {
-  // releaseLock, not cancel: cancelling the platform's stream destroys the socket before the
-  // 413 can be written (Node destroys an unfinished IncomingMessage's socket).
+/** Refusals that stopped a body mid-stream: their answer closes the connection (lib/http/respond.ts). */
+const leftUnread = new WeakSet<ApiError>();
+
+/** Whether `error` refused a body part-way through, leaving the rest of it in the socket. */
+export function refusedMidStream(error: ApiError): boolean {
+  return leftUnread.has(error);
+}
+
+/** Stops reading without draining: the rest stays in the client's socket, closed after the 413. */
+function abandon(reader: ReadableStreamDefaultReader<Uint8Array>, error: ApiError): ApiError {
+  // releaseLock, not cancel: cancelling the platform's stream destroys the socket before the 413
+  // can be written (Node destroys an unfinished IncomingMessage's socket); tried against next start.
   reader.releaseLock();
+  leftUnread.add(error);
+  return error;
 }
 
 /**
@@ -37,10 +49,7 @@ export async function readBodyBytes(request: Request, maxBytes: number, tooLarge
     const { done, value } = await reader.read();
     if (done) break;
     total += value.byteLength;
-    if (total > maxBytes) {
-      abandon(reader);
-      throw tooLarge(maxBytes);
-    }
+    if (total > maxBytes) throw abandon(reader, tooLarge(maxBytes));
     chunks.push(value);
   }
   const bytes = new Uint8Array(total);

@@ -51,7 +51,7 @@ export function badRequest(fieldErrors: FieldErrors): ApiError {
 
 /**
  * 413 for a body past `maxBytes`, named by `field` ("body", or the upload's "file"); the message
- * says the cap so a client knows how far to shrink. Sent with Connection: close by lib/http.
+ * says the cap so a client knows how far to shrink.
  */
 export function contentTooLarge(message: string, field = "body"): ApiError {
   return new ApiError(413, message, { [field]: [message] });

@@ -1,3 +1,4 @@
+import { refusedMidStream } from "./body-stream";
 import { ApiError } from "./errors";
 import { etagOf, ifNoneMatchHits } from "./etag";
 import type { ErrorBody } from "./error-body";
@@ -65,10 +66,11 @@ function errorBody(error: ApiError): ErrorBody {
 }
 
 /**
- * After a 413 the rest of the body is still on its way, unread (lib/http/body-stream.ts): the
- * connection is closed once the answer is out instead of kept alive to drain it.
+ * After a body was refused part-way through, the rest of it is still on its way, unread
+ * (lib/http/body-stream.ts): the connection is closed once the answer is out instead of kept
+ * alive to drain it.
  */
-const closeAfter = (error: ApiError): Record<string, string> => (error.status === 413 ? { Connection: "close" } : {});
+const closeAfter = (error: ApiError): Record<string, string> => (refusedMidStream(error) ? { Connection: "close" } : {});
 
 export function errorResponse(error: ApiError, extraHeaders: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(errorBody(error)), {

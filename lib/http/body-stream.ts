@@ -11,7 +11,7 @@ import { contentTooLarge, type ApiError } from "./errors";
 export type TooLarge = (maxBytes: number) => ApiError;
 
 /** "8 kB", "256 kB", "8.1 MB": caps are binary units, as the platform counts them. */
-export function formatCap(maxBytes: number): string {
+function formatCap(maxBytes: number): string {
   return maxBytes < 1024 * 1024 ? `${Math.round(maxBytes / 1024)} kB` : `${Number((maxBytes / (1024 * 1024)).toFixed(1))} MB`;
 }
 

@@ -158,7 +158,7 @@ function buildDocument(): OpenAPIObject {
         content: json(SubmissionResponseSchema),
       },
       400: error(
-        "The body is refused: fieldErrors is keyed by each field's dotted path, like cycles.2.chargedMah (JSON nested more than 32 levels deep: under body). Nothing is stored.",
+        `The body is refused: fieldErrors is keyed by each field's dotted path, like cycles.2.chargedMah (JSON nested more than ${MAX_JSON_DEPTH} levels deep: under body). Nothing is stored.`,
       ),
       ...signedIn,
       ...bodyCapped,

@@ -33,7 +33,7 @@ export function SignUpConfirmForm({ token }: { token: string }) {
         () => true,
         () => false,
       );
-      if (signedIn) window.location.assign(AFTER_SIGN_UP);
+      if (signedIn) window.location.assign(target);
     },
     (error) => {
       const refusal = asApiFetchError(error);

@@ -12,7 +12,8 @@ import { db } from "@/models";
 //    unlimited new ones.
 // The address is the one lib/auth/client-address.ts gives, never a header the client chose.
 
-export type LimitName = "signIn" | "signInAddress" | "accountFailures" | "accountLock" | "passwordReset" | "resetMailbox" | "resetAddress" | "signUp" | "signUpMailbox";
+export type LimitName =
+  "signIn" | "signInAddress" | "accountFailures" | "accountLock" | "passwordReset" | "resetMailbox" | "resetAddress" | "signUp" | "signUpMailbox";
 
 /** Points per window; each attempt costs one point. */
 export const LIMITS: Record<LimitName, { points: number; durationSeconds: number; what: string }> = {

@@ -21,7 +21,7 @@ function job<T>(def: { parse: (data: unknown) => T; run: (data: T) => Promise<vo
   return def as unknown as JobDefinition;
 }
 
-export const JOBS = {
+const JOBS = {
   /** One mail: { to, subject, text, html? }. Retried for about an hour of relay trouble (30 s · 2^n, 7 tries). */
   "mail.send": job({
     parse: (data) => MailMessageSchema.parse(data),
@@ -33,9 +33,9 @@ export const JOBS = {
   }),
 } as const satisfies Record<string, JobDefinition>;
 
-export type JobName = keyof typeof JOBS;
+type JobName = keyof typeof JOBS;
 
-export function isJobName(name: string): name is JobName {
+function isJobName(name: string): name is JobName {
   return Object.hasOwn(JOBS, name);
 }
 
@@ -46,7 +46,10 @@ export function isJobName(name: string): name is JobName {
 const defined = new Map<string, JobDefinition>();
 
 /** Adds a concept's job and returns its name (for enqueue). A reload of the concept's module replaces it. */
-export function defineJob<T>(name: string, def: { parse: (data: unknown) => T; run: (data: T) => Promise<void> } & Omit<JobDefinition, "parse" | "run">): string {
+export function defineJob<T>(
+  name: string,
+  def: { parse: (data: unknown) => T; run: (data: T) => Promise<void> } & Omit<JobDefinition, "parse" | "run">,
+): string {
   if (isJobName(name)) throw new Error(`job '${name}' is already in JOBS`);
   defined.set(name, job(def));
   return name;

@@ -36,7 +36,8 @@ const post = (url: string, body: unknown) =>
     body: JSON.stringify(body),
   });
 
-const signUp = (email: string, password = PASSWORD) => callRoute(signUpRoute, post("/api/auth/sign-up", { name: "Someone", email, password, confirm: password }));
+const signUp = (email: string, password = PASSWORD) =>
+  callRoute(signUpRoute, post("/api/auth/sign-up", { name: "Someone", email, password, confirm: password }));
 const reset = (email: string) => callRoute(resetRequest, post("/api/auth/password-reset", { email }));
 const confirm = (token: string, password = PASSWORD) => callRoute(signUpConfirmRoute, post("/api/auth/sign-up/confirm", { token, password }));
 

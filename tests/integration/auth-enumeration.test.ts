@@ -106,7 +106,7 @@ describe("finding 9: password reset answers alike, in the same time", () => {
     expect(known).toEqual(unknown);
   });
 
-  it("takes the same time for either address: median of 21 each, ratio within 1.5 (it was about 2)", async () => {
+  it("takes the same time for either address: median of 21 each, ratio within 1.5 (3.1 with the lookup in the request)", async () => {
     await reset("warm-up@example.test");
     const { known, unknown } = await medianTimes(reset, [["resetMailbox", "*"]], 21);
     expect(Math.max(known, unknown) / Math.min(known, unknown)).toBeLessThan(1.5);

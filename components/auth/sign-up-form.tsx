@@ -28,13 +28,7 @@ export function SignUpForm({ next }: { next: string }) {
       if (rest.length || !Object.keys(refusal.fieldErrors).length || refusal.status === 429) setProblem(refusal.message);
     },
   );
-  if (sent) {
-    return (
-      <FormMessage tone="done">
-        {sent} Check the spam folder too. Nothing came? <Link href={`/signin?next=${encodeURIComponent(next)}`}>Sign in</Link> if you already have an account.
-      </FormMessage>
-    );
-  }
+  if (sent) return <FormMessage tone="done">{sent} Check the spam folder too.</FormMessage>;
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {problem && <FormMessage tone="fault">{problem}</FormMessage>}

@@ -17,6 +17,7 @@ import { PasswordResetToken } from "./PasswordResetToken";
 import { PublishedValueHistory } from "./PublishedValueHistory";
 import { Quad } from "./Quad";
 import { RateLimit } from "./RateLimit";
+import { SignUpToken } from "./SignUpToken";
 import { Submission } from "./Submission";
 import { SubmissionBenchPoint } from "./SubmissionBenchPoint";
 import { SubmissionCycle } from "./SubmissionCycle";
@@ -30,7 +31,7 @@ import { WorksheetVoltageReading } from "./WorksheetVoltageReading";
 
 export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, Manufacturer, Submission, User };
 export { SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
-export { Account, AuthSession, EndedSession, PasswordResetToken, VerificationToken };
+export { Account, AuthSession, EndedSession, PasswordResetToken, SignUpToken, VerificationToken };
 export { Pack, PackCharge, Quad, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint };
 export { familyUnitFieldsOf } from "./FirmwareFamily";
 export { AuditEvent, BoardStat, PublishedValueHistory, type BoardStatRow };
@@ -59,6 +60,7 @@ export function db(): Sequelize {
       EndedSession,
       VerificationToken,
       PasswordResetToken,
+      SignUpToken,
       RateLimit,
       Quad,
       Pack,

@@ -1,7 +1,7 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { db } from "@/models";
-import { boss } from "./boss";
-import { isJobName, JOBS } from "./handlers";
+import { bossWithQueue } from "./boss";
+import { jobDefinition } from "./handlers";
 
 type Executor = { executeSql(text: string, values: unknown[]): Promise<{ rows: unknown[] }> };
 
@@ -24,9 +24,10 @@ function inTransaction(transaction: Transaction): Executor {
 
 /** Puts a job on the queue (inside `opts.transaction` when given). Throws on an unknown job or bad data. */
 export async function enqueue(name: string, data: object, opts: { transaction?: Transaction } = {}): Promise<void> {
-  if (!isJobName(name)) throw new Error(`unknown job '${name}': add it to lib/jobs/handlers.ts`);
-  const checked = JOBS[name].parse(data) as object; // refuse bad data now, not at 3 a.m. in the worker
-  const queue = await boss();
+  const def = jobDefinition(name);
+  if (!def) throw new Error(`unknown job '${name}': add it to lib/jobs/handlers.ts`);
+  const checked = def.parse(data) as object; // refuse bad data now, not at 3 a.m. in the worker
+  const queue = await bossWithQueue(name);
   const id = await queue.send(name, checked, opts.transaction ? { db: inTransaction(opts.transaction) } : {});
   // pg-boss returns null when the insert matched no queue row; never drop a job silently
   if (!id) throw new Error(`job '${name}' was not enqueued: its queue does not exist`);

@@ -1,31 +1,37 @@
 import type PgBoss from "pg-boss";
+import { AUTH_JOBS } from "@/lib/auth/jobs";
 import { registerModerationJobs } from "@/lib/moderation/jobs";
 import { registerSubmissionJobs } from "@/lib/submissions/jobs";
-import { boss } from "./boss";
-import { JOBS, type JobName } from "./handlers";
+import { bossWithQueue } from "./boss";
+import { jobDefinition, jobNames } from "./handlers";
 
 // The job worker. In the app it runs inside the Next.js server process (instrumentation.ts starts
 // it once per process); several app instances may each run one, since pg-boss hands every job to
 // exactly one fetcher (SELECT … FOR UPDATE SKIP LOCKED). Tests call drainJobsOnce() instead.
 
-async function runOne(name: JobName, data: unknown): Promise<void> {
-  const def = JOBS[name];
+// Every job this process works: lib/auth's sign-up and reset requests (defined by their modules,
+// see defineJob) first, since they enqueue mails, so one drainJobsOnce() also sends those mails.
+const workedHere = () => [...new Set([...AUTH_JOBS, ...jobNames()])];
+
+async function runOne(name: string, data: unknown): Promise<void> {
+  const def = jobDefinition(name)!;
   await def.run(def.parse(data) as never);
 }
 
-/** Starts polling every queue in JOBS (every 2 s). Safe to call twice: the second call does nothing. */
+/** Starts polling every job's queue (every 2 s). Safe to call twice: the second call does nothing. */
 export async function startJobWorker(): Promise<void> {
   const g = globalThis as unknown as { shuntbookWorker?: Promise<void> };
   g.shuntbookWorker ??= (async () => {
-    const queue = await boss();
-    for (const name of Object.keys(JOBS) as JobName[]) {
+    let queue: PgBoss | undefined;
+    for (const name of workedHere()) {
+      queue = await bossWithQueue(name);
       // a throw fails the job; pg-boss then retries it per the queue's policy
       await queue.work(name, { pollingIntervalSeconds: 2, batchSize: 1 }, async ([job]) => runOne(name, job.data));
     }
     // scheduled jobs with their own queue policies: the moderators' daily digest, the hourly key purge
-    await registerModerationJobs(queue);
-    await registerSubmissionJobs(queue);
-    console.log(`[jobs] worker polling ${Object.keys(JOBS).join(", ")}, the moderation digest and the idempotency-key purge`);
+    await registerModerationJobs(queue!);
+    await registerSubmissionJobs(queue!);
+    console.log(`[jobs] worker polling ${workedHere().join(", ")}, the moderation digest and the idempotency-key purge`);
   })();
   try {
     await g.shuntbookWorker;
@@ -42,9 +48,9 @@ export type DrainResult = { completed: number; failed: number; errors: string[] 
  * (failed jobs with retries left come back after their delay). For tests and one-off scripts.
  */
 export async function drainJobsOnce(): Promise<DrainResult> {
-  const queue = await boss();
   const result: DrainResult = { completed: 0, failed: 0, errors: [] };
-  for (const name of Object.keys(JOBS) as JobName[]) {
+  for (const name of workedHere()) {
+    const queue = await bossWithQueue(name);
     let jobs: PgBoss.Job<object>[];
     while ((jobs = await queue.fetch<object>(name, { batchSize: 20 })).length > 0) {
       for (const job of jobs) {

@@ -29,6 +29,7 @@ const EXPECTED_TABLES = [
   "quads",
   "rate_limits",
   "sessions",
+  "sign_up_tokens",
   "submission_bench_points",
   "submission_cycles",
   "submission_voltage_readings",

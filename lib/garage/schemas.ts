@@ -52,7 +52,7 @@ export const packInput = z.object({
 /** Resting volts outside 2.5–4.45 V a cell are no lithium cell at rest (our own plausibility rule). */
 const RESTING_VOLTS = { min: 2.5, max: 4.45 } as const;
 
-export const chargeInput = z.object({
+const chargeInput = z.object({
   chargedOn: isoDate("The charge date"),
   chargedMah: mahField("The charged mAh"),
   restingVoltsPerCell: numberField("The resting voltage per cell")

@@ -10,10 +10,10 @@ import { daysAfter, isoDate, monthsBefore } from "./timeline";
 // entries are that submission's evidence). Every figure is invented; rows refer to each other by
 // index and to the catalogue by revision key and family slug, as the rest of the scenario does.
 
-export type DemoQuad = { name: string; revisionKey: string; familySlug: string; firmwareVersion: string; esc: string; notes: string | null; createdAt: Date };
-export type DemoCharge = { chargedOn: string; chargedMah: number; restingVoltsPerCell: number | null; afterFullFlight: boolean };
-export type DemoPack = { label: string; chemistry: Chemistry; cells: number; ratedMah: number; purchasedOn: string; charges: DemoCharge[]; createdAt: Date };
-export type DemoWorksheet = {
+type DemoQuad = { name: string; revisionKey: string; familySlug: string; firmwareVersion: string; esc: string; notes: string | null; createdAt: Date };
+type DemoCharge = { chargedOn: string; chargedMah: number; restingVoltsPerCell: number | null; afterFullFlight: boolean };
+type DemoPack = { label: string; chemistry: Chemistry; cells: number; ratedMah: number; purchasedOn: string; charges: DemoCharge[]; createdAt: Date };
+type DemoWorksheet = {
   quad: number;
   pack: number | null;
   kind: WorksheetKind;

@@ -96,6 +96,8 @@ export function associate(): void {
   Worksheet.belongsTo(User, { foreignKey: "ownerId", as: "owner" });
   Quad.hasMany(Worksheet, { foreignKey: "quadId", as: "worksheets" });
   Worksheet.belongsTo(Quad, { foreignKey: "quadId", as: "quad" });
+  Pack.hasMany(Worksheet, { foreignKey: "packId", as: "worksheets" });
+  Worksheet.belongsTo(Pack, { foreignKey: "packId", as: "pack" });
   Worksheet.belongsTo(FirmwareFamily, { foreignKey: "firmwareFamilyId", as: "firmwareFamily" });
   Worksheet.hasMany(WorksheetStep, { foreignKey: "worksheetId", as: "steps" });
   WorksheetStep.belongsTo(Worksheet, { foreignKey: "worksheetId", as: "worksheet" });

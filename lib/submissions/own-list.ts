@@ -10,7 +10,7 @@ import { loadOwnPage, type SubmissionView } from "./view";
 // on a phone). Plans: the page comes from submissions_contributor_status_created_idx (or
 // submissions_contributor_created_idx without a status), the counts from the same index.
 
-export const OWN_LIST_PAGE_SIZE = 10;
+const OWN_LIST_PAGE_SIZE = 10;
 const OWN_LIST_MAX_PAGE_SIZE = 50;
 
 /** The query string's parameters, one schema for the page and the API. */

@@ -12,6 +12,8 @@ export class Pack extends Model<InferAttributes<Pack>, InferCreationAttributes<P
   declare ratedMah: number;
   /** A DATEONLY: "YYYY-MM-DD". */
   declare purchasedOn: string | null;
+  /** Set when a delete found a published worksheet behind the row (migrations/20261215006100-…): hidden, kept. */
+  declare archivedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -24,6 +26,7 @@ export class Pack extends Model<InferAttributes<Pack>, InferCreationAttributes<P
         cells: { type: DataTypes.SMALLINT, allowNull: false },
         ratedMah: { type: DataTypes.INTEGER, allowNull: false },
         purchasedOn: { type: DataTypes.DATEONLY, allowNull: true },
+        archivedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

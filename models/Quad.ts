@@ -13,6 +13,8 @@ export class Quad extends Model<InferAttributes<Quad>, InferCreationAttributes<Q
   declare firmwareVersion: string | null;
   declare esc: string | null;
   declare notes: string | null;
+  /** Set when a delete found a published worksheet behind the row (migrations/20261215006100-…): hidden, kept. */
+  declare archivedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -24,6 +26,7 @@ export class Quad extends Model<InferAttributes<Quad>, InferCreationAttributes<Q
         firmwareVersion: { type: DataTypes.STRING(40), allowNull: true },
         esc: { type: DataTypes.STRING(120), allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: true },
+        archivedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -1,6 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { WorksheetKind } from "@/lib/vocabulary";
 import type { FirmwareFamily } from "./FirmwareFamily";
+import type { Pack } from "./Pack";
 import type { Quad } from "./Quad";
 import type { Submission } from "./Submission";
 import type { User } from "./User";
@@ -20,6 +21,8 @@ export class Worksheet extends Model<InferAttributes<Worksheet>, InferCreationAt
   declare startingScale: number;
   declare startingOffset: CreationOptional<number | null>;
   declare startingSource: "published" | "own";
+  /** The garage pack a fly-and-recharge worksheet was started from, if any (migrations/20261215006100-…). */
+  declare packId: CreationOptional<ForeignKey<Pack["id"]> | null>;
   declare submissionId: ForeignKey<Submission["id"]> | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -34,6 +37,7 @@ export class Worksheet extends Model<InferAttributes<Worksheet>, InferCreationAt
         startingScale: { type: DataTypes.INTEGER, allowNull: false },
         startingOffset: { type: DataTypes.INTEGER, allowNull: true },
         startingSource: { type: DataTypes.STRING(16), allowNull: false },
+        packId: { type: DataTypes.INTEGER, allowNull: true },
         submissionId: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -1,6 +1,7 @@
 import { Account } from "./Account";
 import { AuditEvent } from "./AuditEvent";
 import { AuthSession } from "./AuthSession";
+import { EndedSession } from "./EndedSession";
 import { BoardAlias, BoardModel, BoardRevision } from "./Board";
 import { BoardStat } from "./BoardStat";
 import { EvidencePhoto } from "./EvidencePhoto";
@@ -65,6 +66,8 @@ export function associate(): void {
   Account.belongsTo(User, { foreignKey: "userId", as: "user" });
   User.hasMany(AuthSession, { foreignKey: "userId", as: "authSessions" });
   AuthSession.belongsTo(User, { foreignKey: "userId", as: "user" });
+  User.hasMany(EndedSession, { foreignKey: "userId", as: "endedSessions" });
+  EndedSession.belongsTo(User, { foreignKey: "userId", as: "user" });
   User.hasMany(PasswordResetToken, { foreignKey: "userId", as: "passwordResetTokens" });
   PasswordResetToken.belongsTo(User, { foreignKey: "userId", as: "user" });
 
@@ -93,6 +96,8 @@ export function associate(): void {
   Worksheet.belongsTo(User, { foreignKey: "ownerId", as: "owner" });
   Quad.hasMany(Worksheet, { foreignKey: "quadId", as: "worksheets" });
   Worksheet.belongsTo(Quad, { foreignKey: "quadId", as: "quad" });
+  Pack.hasMany(Worksheet, { foreignKey: "packId", as: "worksheets" });
+  Worksheet.belongsTo(Pack, { foreignKey: "packId", as: "pack" });
   Worksheet.belongsTo(FirmwareFamily, { foreignKey: "firmwareFamilyId", as: "firmwareFamily" });
   Worksheet.hasMany(WorksheetStep, { foreignKey: "worksheetId", as: "steps" });
   WorksheetStep.belongsTo(Worksheet, { foreignKey: "worksheetId", as: "worksheet" });

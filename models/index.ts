@@ -6,6 +6,7 @@ import { AuthSession } from "./AuthSession";
 import { BoardAlias, BoardModel, BoardRevision } from "./Board";
 import { BoardStat, type BoardStatRow } from "./BoardStat";
 import { getSequelize } from "./connection";
+import { EndedSession } from "./EndedSession";
 import { EvidencePhoto } from "./EvidencePhoto";
 import { FirmwareFamily } from "./FirmwareFamily";
 import { IdempotencyKey } from "./IdempotencyKey";
@@ -16,6 +17,7 @@ import { PasswordResetToken } from "./PasswordResetToken";
 import { PublishedValueHistory } from "./PublishedValueHistory";
 import { Quad } from "./Quad";
 import { RateLimit } from "./RateLimit";
+import { SignUpToken } from "./SignUpToken";
 import { Submission } from "./Submission";
 import { SubmissionBenchPoint } from "./SubmissionBenchPoint";
 import { SubmissionCycle } from "./SubmissionCycle";
@@ -29,7 +31,7 @@ import { WorksheetVoltageReading } from "./WorksheetVoltageReading";
 
 export { BoardAlias, BoardModel, BoardRevision, EvidencePhoto, FirmwareFamily, Manufacturer, Submission, User };
 export { SubmissionBenchPoint, SubmissionCycle, SubmissionVoltageReading };
-export { Account, AuthSession, PasswordResetToken, VerificationToken };
+export { Account, AuthSession, EndedSession, PasswordResetToken, SignUpToken, VerificationToken };
 export { Pack, PackCharge, Quad, Worksheet, WorksheetStep, WorksheetVoltageReading, WorksheetBenchPoint };
 export { familyUnitFieldsOf } from "./FirmwareFamily";
 export { AuditEvent, BoardStat, PublishedValueHistory, type BoardStatRow };
@@ -55,8 +57,10 @@ export function db(): Sequelize {
       IdempotencyKey,
       Account,
       AuthSession,
+      EndedSession,
       VerificationToken,
       PasswordResetToken,
+      SignUpToken,
       RateLimit,
       Quad,
       Pack,

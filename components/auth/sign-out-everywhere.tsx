@@ -12,7 +12,8 @@ export function SignOutEverywhere() {
   return (
     <div className="space-y-3">
       <p className="text-small text-muted">
-        Lost a phone, or signed in on a shared computer? This signs your account out on every device at once, this one too. Signing out anywhere does the same.
+        Lost a phone, or signed in on a shared computer? This signs your account out on every device at once, this one too. Signing out the usual way ends only
+        the session on the device you use.
       </p>
       {problem && <FormMessage tone="fault">{problem}</FormMessage>}
       <button

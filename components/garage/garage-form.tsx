@@ -5,22 +5,32 @@ import type { z } from "zod";
 import { showServerErrors } from "@/components/form-errors";
 import { useSchemaForm } from "@/components/hooks/use-schema-form";
 import { useGarageSave } from "@/components/hooks/use-garage";
+import type { ChosenBoard } from "@/lib/submissions/form-data";
+import { BoardRevisionField } from "./board-revision-field";
+import { useCloseEdit } from "./edit-toggle";
 
 // One small form of the garage (a quad, a pack, a charge). The same zod schema as the server
 // checks it first, so a bad reading is explained under its field before anything is sent; the
 // server's field errors land in the same places. Saved rows appear by refreshing the server page.
+// The same form adds a row (POST, then empties) and corrects one (PUT with its values, then closes).
 
 export type GarageField = {
   name: string;
   label: string;
-  type?: "text" | "number" | "date" | "textarea" | "select" | "checkbox";
+  type?: "text" | "number" | "date" | "textarea" | "select" | "checkbox" | "board";
   options?: readonly { value: string; label: string }[];
   hint?: string;
   step?: string;
   defaultValue?: string | boolean;
+  /** For type "board": the board the revision belongs to, when one is chosen already. */
+  board?: ChosenBoard | null;
+  /** Shown (and sent) only while this holds for the values typed so far. */
+  showWhen?: (values: Values) => boolean;
+  /** A warning above the field, while it shows. */
+  warning?: (values: Values) => string;
 };
 
-type Values = Record<string, string | boolean>;
+export type Values = Record<string, string | boolean>;
 
 /** A field's value as the schema reads it: numbers and ids as numbers, empty text as null. */
 function valueOf(field: GarageField, values: Values): unknown {
@@ -28,7 +38,7 @@ function valueOf(field: GarageField, values: Values): unknown {
   if (field.type === "checkbox") return raw === true;
   const text = typeof raw === "string" ? raw.trim() : "";
   if (field.type === "number") return text === "" ? null : Number(text);
-  if (field.type === "select" && /^\d+$/.test(text) && field.name.endsWith("Id")) return Number(text);
+  if ((field.type === "select" || field.type === "board") && /^\d+$/.test(text) && field.name.endsWith("Id")) return Number(text);
   return text === "" ? null : text;
 }
 
@@ -46,6 +56,7 @@ export function GarageForm({
   fields,
   submitLabel,
   testId,
+  method = "POST",
 }: {
   title: string;
   action: string;
@@ -53,19 +64,24 @@ export function GarageForm({
   fields: GarageField[];
   submitLabel: string;
   testId?: string;
+  method?: "POST" | "PUT";
 }) {
   const router = useRouter();
-  const save = useGarageSave(action);
+  const close = useCloseEdit();
+  const save = useGarageSave(action, method);
+  const shown = (f: GarageField, values: Values) => !f.showWhen || f.showWhen(values);
   const { form, errors } = useSchemaForm<Values>(schema, {
     defaultValues: Object.fromEntries(fields.map((f) => [f.name, defaultOf(f)])),
-    toBody: (values) => Object.fromEntries(fields.map((f) => [f.name, valueOf(f, values)])),
+    toBody: (values) => Object.fromEntries(fields.filter((f) => shown(f, values)).map((f) => [f.name, valueOf(f, values)])),
     raw: true,
   });
+  const values = form.watch();
   const busy = save.isPending;
   const submit = form.handleSubmit((body) =>
     save.mutate(body, {
       onSuccess: () => {
-        form.reset();
+        if (method === "POST") form.reset();
+        close?.();
         router.refresh();
       },
       onError: (e) => showServerErrors(form.setError, e),
@@ -83,6 +99,7 @@ export function GarageForm({
       )}
       <div className="grid gap-3 sm:grid-cols-2">
         {fields.map((f) => {
+          if (!shown(f, values)) return null;
           const message = errors[f.name]?.join(" ");
           const common = {
             id: id(f.name),
@@ -91,8 +108,21 @@ export function GarageForm({
             "aria-describedby": message ? `${id(f.name)}-error` : undefined,
           };
           return (
-            <div key={f.name} className={f.type === "textarea" ? "sm:col-span-2" : undefined}>
-              {f.type === "checkbox" ? (
+            <div key={f.name} className={f.type === "textarea" || f.type === "board" || f.warning ? "sm:col-span-2" : undefined}>
+              {f.warning && (
+                <p role="alert" className="mb-2 rounded-md border-2 border-caution-edge bg-caution p-2 font-semibold">
+                  ⚠ {f.warning(values)}
+                </p>
+              )}
+              {f.type === "board" ? (
+                <BoardRevisionField
+                  id={id(f.name)}
+                  initialBoard={f.board ?? null}
+                  register={form.register(f.name)}
+                  setRevision={(value) => form.setValue(f.name, value)}
+                  error={message}
+                />
+              ) : f.type === "checkbox" ? (
                 <label className="flex items-center gap-2 font-semibold">
                   <input type="checkbox" {...common} className="size-5" /> {f.label}
                 </label>
@@ -117,7 +147,7 @@ export function GarageForm({
                 </>
               )}
               {f.hint && <p className="mt-1 text-small text-muted">{f.hint}</p>}
-              {message && (
+              {message && f.type !== "board" && (
                 <p id={`${id(f.name)}-error`} className="mt-1 font-semibold text-fault">
                   <span aria-hidden="true">⚠ </span>
                   {message}

@@ -2,7 +2,15 @@
 
 import { useMutation } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api-fetch";
-import type { ChangePasswordInput, ProfileNameInput, ResetConfirmInput, ResetRequestInput, SetPasswordInput, SignUpInput } from "@/lib/auth/schemas";
+import type {
+  ChangePasswordInput,
+  ProfileNameInput,
+  ResetConfirmInput,
+  ResetRequestInput,
+  SetPasswordInput,
+  SignUpConfirmInput,
+  SignUpInput,
+} from "@/lib/auth/schemas";
 
 // The account endpoints (app/api/auth, outside next-auth's own), one mutation each over apiFetch.
 // A refusal rejects with ApiFetchError, whose field errors the forms put on their fields. Nothing
@@ -10,8 +18,14 @@ import type { ChangePasswordInput, ProfileNameInput, ResetConfirmInput, ResetReq
 
 type Message = { message: string };
 
-export const useSignUp = () =>
-  useMutation({ mutationFn: (values: SignUpInput) => apiFetch<{ user: { id: string; name: string } }>("/api/auth/sign-up", { method: "POST", json: values }) });
+/** Asks for an account: the answer is "check your mail" whether or not the address has one. */
+export const useSignUp = () => useMutation({ mutationFn: (values: SignUpInput) => apiFetch<Message>("/api/auth/sign-up", { method: "POST", json: values }) });
+
+/** Finishes a sign-up from the mailed link; answers the account's address so the page can sign in. */
+export const useConfirmSignUp = () =>
+  useMutation({
+    mutationFn: (values: SignUpConfirmInput) => apiFetch<Message & { email: string }>("/api/auth/sign-up/confirm", { method: "POST", json: values }),
+  });
 
 export const useSaveName = () =>
   useMutation({ mutationFn: (values: ProfileNameInput) => apiFetch<{ user: { name: string } }>("/api/auth/profile", { method: "PATCH", json: values }) });

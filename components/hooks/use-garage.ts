@@ -33,9 +33,23 @@ export function usePacks() {
 
 const NO_ANSWER = "The server did not answer; try again.";
 
-/** POSTs one garage form's body to its endpoint (a quad, a pack, a charge). */
-export function useGarageSave(endpoint: string) {
+/** Sends one garage form's body to its endpoint: POST to add (a quad, a pack, a charge), PUT to correct one. */
+export function useGarageSave(endpoint: string, method: "POST" | "PUT" = "POST") {
   return useMutation({
-    mutationFn: (body: unknown) => apiFetch<unknown>(endpoint, { json: body, unreachableMessage: NO_ANSWER, fallbackMessage: () => NO_ANSWER }),
+    mutationFn: (body: unknown) => apiFetch<unknown>(endpoint, { method, json: body, unreachableMessage: NO_ANSWER, fallbackMessage: () => NO_ANSWER }),
+  });
+}
+
+/** DELETEs one garage row; answers whether the server archived it instead (a published worksheet used it). */
+export function useGarageDelete(endpoint: string) {
+  return useMutation({
+    mutationFn: async () => {
+      const body = await apiFetch<{ archived?: boolean } | undefined>(endpoint, {
+        method: "DELETE",
+        unreachableMessage: NO_ANSWER,
+        fallbackMessage: () => NO_ANSWER,
+      });
+      return { archived: body?.archived === true };
+    },
   });
 }

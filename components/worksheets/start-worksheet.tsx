@@ -13,7 +13,7 @@ import { numberOrNull } from "./saved-worksheet";
 // Starts a fly-and-recharge worksheet on a quad. The starting scale field offers the board's
 // published value when there is one; whatever the builder leaves there is what the worksheet uses.
 // Choosing one of the builder's packs (GET /api/v1/garage/packs) fills in its cells and rated mAh,
-// which stay editable; which pack it was is not stored, so the worksheet is the same either way.
+// which stay editable; which pack it was is stored too, so that pack is archived rather than deleted once the worksheet is published.
 
 type StartFields = { cells: string; ratedMah: string; startingScale: string };
 const NO_ANSWER = "The server did not answer; try again.";
@@ -24,7 +24,13 @@ export function StartWorksheet({ quadId, publishedScale }: { quadId: number; pub
   const packs = usePacks();
   const { form, errors } = useSchemaForm<StartFields>(startInput, {
     defaultValues: { cells: "", ratedMah: "", startingScale: publishedScale == null ? "" : String(publishedScale) },
-    toBody: (v) => ({ quadId, ratedMah: numberOrNull(v.ratedMah), cells: numberOrNull(v.cells), startingScale: numberOrNull(v.startingScale) }),
+    toBody: (v) => ({
+      quadId,
+      packId: packId === "" ? null : Number(packId),
+      ratedMah: numberOrNull(v.ratedMah),
+      cells: numberOrNull(v.cells),
+      startingScale: numberOrNull(v.startingScale),
+    }),
     raw: true,
   });
   const start = useStartWorksheet<{ id: number }>((sheet) => router.push(`/garage/worksheets/${sheet.id}`), {

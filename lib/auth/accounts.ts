@@ -1,4 +1,4 @@
-import { col, fn, UniqueConstraintError, where } from "sequelize";
+import { col, fn, where } from "sequelize";
 import { ApiError } from "@/lib/http/errors";
 import { enqueue } from "@/lib/jobs";
 import { passwordChangedMail } from "@/lib/mail/templates";
@@ -7,31 +7,14 @@ import type { SessionUser } from "./guard";
 import { hashPassword, verifyPassword } from "./passwords";
 import { siteUrl } from "./site-url";
 
-// Accounts: sign-up, password sign-in, and the profile's changes. Inputs arrive already parsed by
+// Accounts: password sign-in and the profile's changes (sign-up is ./sign-up.ts). Inputs arrive already parsed by
 // the schemas in ./schemas.ts (e-mail trimmed and lower-cased); these functions enforce what only
-// the database can tell (is the address taken, is the current password right).
+// the database can tell (is the current password right).
 
 /** Finds a user by address the way the unique index users_email_lower_idx compares them, so the index serves it. */
 export const byEmail = (email: string) => where(fn("lower", col("email")), email.toLowerCase());
 
 const sessionUser = (u: User): SessionUser => ({ id: u.id, email: u.email, name: u.name, role: u.role });
-
-const EMAIL_TAKEN = "An account with this address already exists. Sign in, or reset its password.";
-
-/** A new contributor account with a password. 409 with a field error when the address is taken. */
-export async function signUp(input: { name: string; email: string; password: string }): Promise<SessionUser> {
-  db();
-  const existing = await User.findOne({ where: byEmail(input.email), attributes: ["id"] });
-  if (existing) throw new ApiError(409, EMAIL_TAKEN, { email: [EMAIL_TAKEN] });
-  try {
-    const user = await User.create({ name: input.name, email: input.email, passwordHash: await hashPassword(input.password), role: "contributor" });
-    return sessionUser(user);
-  } catch (error) {
-    // two sign-ups with one address at the same moment: the unique index decides
-    if (error instanceof UniqueConstraintError) throw new ApiError(409, EMAIL_TAKEN, { email: [EMAIL_TAKEN] });
-    throw error;
-  }
-}
 
 /** The user whose address and password these are, or null (same answer, same time, for either mistake). */
 export async function authenticate(email: string, password: string): Promise<SessionUser | null> {

@@ -6,6 +6,7 @@ import type { Role } from "@/lib/vocabulary";
 import { roleSatisfies } from "./roles";
 import { signInPath } from "./safe-next";
 import { decodeSessionToken, parseCookieHeader, sessionTokenFrom } from "./session-cookie";
+import { isSessionEnded } from "./sessions";
 
 // Authorisation in one place. Every page, server action and route handler that needs a signed-in
 // person or a role asks here; nothing else reads the session.
@@ -15,7 +16,8 @@ import { decodeSessionToken, parseCookieHeader, sessionTokenFrom } from "./sessi
 // request, so a promotion or demotion applies to the very next request with the same cookie. The
 // role inside the JWT is only a hint for display. A deleted user's cookie stops working the same way,
 // and so does every session that signed in before the user's last password change, or before
-// the user last signed out (users.session_version, ./sessions.ts).
+// the user signed out everywhere (users.session_version), and a session signed out on its own
+// device (ended_sessions, ./sessions.ts).
 
 export type SessionUser = { id: string; email: string; name: string; role: Role };
 
@@ -33,6 +35,7 @@ async function userForToken(token: string | undefined): Promise<SessionUser | nu
   if (user.passwordChangedAt && authTime < user.passwordChangedAt.getTime()) return null;
   // a sign-out (here or "everywhere") ends every session issued before it (./sessions.ts)
   if ((claims?.sessionVersion ?? 0) !== user.sessionVersion) return null;
+  if (await isSessionEnded(claims?.sid)) return null;
   return { id: user.id, email: user.email, name: user.name, role: user.role };
 }
 

@@ -1,4 +1,5 @@
 import { NextRequest } from "next/server";
+import { readBodyText } from "@/lib/http/body-stream";
 import { ApiError, badRequest } from "@/lib/http/errors";
 import { ACCOUNT_BODY_BYTES } from "./schemas";
 import { siteUrl } from "./site-url";
@@ -6,7 +7,8 @@ import { siteUrl } from "./site-url";
 // What reaches next-auth's own endpoints is checked here first, since next-auth answers odd input
 // with a 500 (a JSON body that does not parse, a callbackUrl that is not a URL) or acts on part of
 // it (a field sent twice: next-auth takes the last, a limiter reading the first would count
-// another account). Every refusal is a 400 naming the field, in the API's error shape.
+// another account). Every refusal is a 400 naming the field (a body past the cap a 413), in the
+// API's error shape.
 // next-auth's browser side and ours (components/auth/next-auth-client.ts) post HTML-form bodies
 // only, so that is the one body type accepted.
 
@@ -39,11 +41,7 @@ async function readForm(request: NextRequest): Promise<string> {
   if (!FORM_TYPE.test(request.headers.get("content-type") ?? "")) {
     throw badRequest({ "Content-Type": ["Send the fields as an HTML form, with Content-Type: application/x-www-form-urlencoded"] });
   }
-  const tooLarge = () => badRequest({ body: [`The body is larger than ${ACCOUNT_BODY_BYTES / 1024} kB`] });
-  if (Number(request.headers.get("content-length")) > ACCOUNT_BODY_BYTES) throw tooLarge();
-  const text = await request.text();
-  if (text.length > ACCOUNT_BODY_BYTES) throw tooLarge();
-  return text;
+  return readBodyText(request, ACCOUNT_BODY_BYTES); // 413 past the cap, read no further
 }
 
 /**

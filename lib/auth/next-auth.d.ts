@@ -18,5 +18,6 @@ declare module "next-auth/jwt" {
     authTime?: number;
     /** users.session_version when this session began; a sign-out moves the user's on (lib/auth/sessions.ts). */
     sessionVersion?: number;
+    sid?: string;
   }
 }

@@ -9,7 +9,7 @@ import { authenticate } from "./accounts";
 import { shuntbookAdapter } from "./adapter";
 import { isOwnCallbackUrl } from "./next-auth-input";
 import { SignInSchema } from "./schemas";
-import { currentSessionVersion, endSessions } from "./sessions";
+import { currentSessionVersion, endSession, isSessionEnded, newSessionId } from "./sessions";
 import { authSecret, SESSION_MAX_AGE_SECONDS } from "./session-cookie";
 
 // next-auth's configuration: two ways in (a magic link by e-mail, or e-mail and password), one
@@ -50,9 +50,10 @@ export function authOptions(): NextAuthOptions {
       }),
     ],
     events: {
-      // ends this session on the server, and with it the account's others (./sessions.ts)
+      // ends this session on the server, every copy of its cookie included (./sessions.ts)
       async signOut({ token }) {
-        if (token?.sub) await endSessions(token.sub);
+        if (token?.sub)
+          await endSession(token.sid, token.sub, new Date(typeof token.exp === "number" ? token.exp * 1000 : Date.now() + SESSION_MAX_AGE_SECONDS * 1000));
       },
     },
     callbacks: {
@@ -65,7 +66,8 @@ export function authOptions(): NextAuthOptions {
           token.role = user.role ?? "contributor";
           token.authTime = Date.now();
           token.sessionVersion = await currentSessionVersion(user.id);
-        } else if (!token.sub || (token.sessionVersion ?? 0) !== (await currentSessionVersion(token.sub))) {
+          token.sid = newSessionId();
+        } else if (!token.sub || (token.sessionVersion ?? 0) !== (await currentSessionVersion(token.sub)) || (await isSessionEnded(token.sid))) {
           // next-auth's session endpoint: a session ended by a sign-out is refused here too; a throw
           // makes next-auth answer "no session" and delete the cookie (core/routes/session.js)
           throw new Error("this session was ended by a sign-out");

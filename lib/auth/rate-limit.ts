@@ -6,13 +6,14 @@ import { db } from "@/models";
 // instance shares one count. Three kinds of key:
 //  - address + account ("signIn", "passwordReset"): one person mistyping does not lock out the
 //    rest of a shared network, and one address cannot be hammered from one network;
-//  - account alone ("accountLock", "resetMailbox"): holds whatever address the tries come from
+//  - account alone ("accountLock", "resetMailbox", "signUpMailbox"): holds whatever address the tries come from
 //    (see ./account-lock.ts for the growing delay);
 //  - address alone ("signInAddress", "signUp"): one network cannot spray many accounts or open
 //    unlimited new ones.
 // The address is the one lib/auth/client-address.ts gives, never a header the client chose.
 
-export type LimitName = "signIn" | "signInAddress" | "accountFailures" | "accountLock" | "passwordReset" | "resetMailbox" | "resetAddress" | "signUp";
+export type LimitName =
+  "signIn" | "signInAddress" | "accountFailures" | "accountLock" | "passwordReset" | "resetMailbox" | "resetAddress" | "signUp" | "signUpMailbox";
 
 /** Points per window; each attempt costs one point. */
 export const LIMITS: Record<LimitName, { points: number; durationSeconds: number; what: string }> = {
@@ -30,6 +31,8 @@ export const LIMITS: Record<LimitName, { points: number; durationSeconds: number
   resetAddress: { points: 10, durationSeconds: 60 * 60, what: "password reset requests" },
   // keyed on the address alone: accounts per network, not per network and e-mail
   signUp: { points: 5, durationSeconds: 60 * 60, what: "new accounts" },
+  // sign-up mails to one mailbox from anywhere: a flood of sign-ups cannot flood one person's inbox
+  signUpMailbox: { points: 3, durationSeconds: 60 * 60, what: "sign-ups" },
 };
 
 const globalForLimits = globalThis as unknown as { shuntbookLimiters?: { sequelize: unknown; limiters: Map<LimitName, RateLimiterPostgres> } };
@@ -79,6 +82,7 @@ const WHO: Record<LimitName, string> = {
   resetMailbox: "for this address",
   resetAddress: "from your network",
   signUp: "from your network",
+  signUpMailbox: "for this address",
 };
 
 /** Spends one attempt; `ok: false` once the window's attempts are used up. */

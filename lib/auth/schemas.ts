@@ -44,6 +44,11 @@ export const resetTokenField = z
   .string({ error: "The reset link is incomplete." })
   .regex(/^[A-Za-z0-9_-]{43}$/, "This reset link is damaged; ask for a new one.");
 
+/** The token in a sign-up confirmation link: 32 random bytes, base64url, like a reset link's. */
+export const signUpTokenField = z
+  .string({ error: "The link is incomplete." })
+  .regex(/^[A-Za-z0-9_-]{43}$/, "This link is damaged; copy the whole address from the mail, or sign up again.");
+
 const confirmField = z.string({ error: "Type the password again." }).min(1, "Type the password again.");
 
 /** The "type it again" check, reported on the confirm field. */
@@ -55,6 +60,8 @@ function sameAs<K extends string>(field: K): [(v: Record<K | "confirm", string>)
 export const SignInSchema = z.object({ email: emailField, password: existingPasswordField });
 export const MagicLinkSchema = z.object({ email: emailField });
 export const SignUpSchema = z.object({ name: nameField, email: emailField, password: newPasswordField, confirm: confirmField }).refine(...sameAs("password"));
+/** Finishing a sign-up from the mailed link: the password chosen on the form, checked against the one stored with the token. */
+export const SignUpConfirmSchema = z.object({ token: signUpTokenField, password: existingPasswordField });
 export const ResetRequestSchema = z.object({ email: emailField });
 export const ResetConfirmSchema = z.object({ token: resetTokenField, password: newPasswordField, confirm: confirmField }).refine(...sameAs("password"));
 export const ProfileNameSchema = z.object({ name: nameField });
@@ -67,6 +74,7 @@ export const SetPasswordSchema = z.object({ newPassword: newPasswordField, confi
 export type SignInInput = z.input<typeof SignInSchema>;
 export type MagicLinkInput = z.input<typeof MagicLinkSchema>;
 export type SignUpInput = z.input<typeof SignUpSchema>;
+export type SignUpConfirmInput = z.input<typeof SignUpConfirmSchema>;
 export type ResetRequestInput = z.input<typeof ResetRequestSchema>;
 export type ResetConfirmInput = z.input<typeof ResetConfirmSchema>;
 export type ProfileNameInput = z.input<typeof ProfileNameSchema>;

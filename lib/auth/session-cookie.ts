@@ -73,6 +73,8 @@ export type SessionClaims = {
   authTime: number;
   /** users.session_version at sign-in; the session ends when the user's moves on. */
   sessionVersion?: number;
+  /** This session's id, made at sign-in; a sign-out lists it in ended_sessions. */
+  sid?: string;
 };
 
 export async function encodeSessionToken(claims: SessionClaims, maxAgeSeconds = SESSION_MAX_AGE_SECONDS): Promise<string> {

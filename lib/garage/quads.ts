@@ -1,4 +1,5 @@
-import { db, Quad } from "@/models";
+import { Op } from "sequelize";
+import { db, Quad, Worksheet } from "@/models";
 import { notYours, parseOrThrow } from "./owned";
 import { quadInput } from "./schemas";
 
@@ -12,6 +13,8 @@ export type QuadView = {
   firmwareVersion: string | null;
   esc: string | null;
   notes: string | null;
+  /** Set when a delete kept the quad because one of its worksheets was published. */
+  archivedAt: string | null;
   createdAt: string;
 };
 
@@ -23,14 +26,16 @@ const view = (q: Quad): QuadView => ({
   firmwareVersion: q.firmwareVersion,
   esc: q.esc,
   notes: q.notes,
+  archivedAt: q.archivedAt ? q.archivedAt.toISOString() : null,
   createdAt: q.createdAt.toISOString(),
 });
 
-export async function listQuads(ownerId: string): Promise<QuadView[]> {
+/** The caller's quads; archived ones only when asked for. */
+export async function listQuads(ownerId: string, { archived = false }: { archived?: boolean } = {}): Promise<QuadView[]> {
   db();
   return (
     await Quad.findAll({
-      where: { ownerId },
+      where: archived ? { ownerId } : { ownerId, archivedAt: null },
       order: [
         ["createdAt", "DESC"],
         ["id", "DESC"],
@@ -60,6 +65,17 @@ export async function updateQuad(ownerId: string, id: number, input: unknown): P
   return view(await quad.update(data));
 }
 
-export async function deleteQuad(ownerId: string, id: number): Promise<void> {
-  await (await ownQuad(ownerId, id)).destroy();
+/**
+ * Deletes the quad with its worksheets, or, when one of them was published, only archives it:
+ * hidden from the garage, its worksheets kept, the published submission untouched.
+ */
+export async function deleteQuad(ownerId: string, id: number): Promise<{ archived: boolean }> {
+  const quad = await ownQuad(ownerId, id);
+  const published = await Worksheet.count({ where: { quadId: quad.id, ownerId, submissionId: { [Op.ne]: null } } });
+  if (published > 0) {
+    if (!quad.archivedAt) await quad.update({ archivedAt: new Date() });
+    return { archived: true };
+  }
+  await quad.destroy();
+  return { archived: false };
 }

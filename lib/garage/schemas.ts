@@ -52,7 +52,7 @@ export const packInput = z.object({
 /** Resting volts outside 2.5–4.45 V a cell are no lithium cell at rest (our own plausibility rule). */
 const RESTING_VOLTS = { min: 2.5, max: 4.45 } as const;
 
-export const chargeInput = z.object({
+const chargeInput = z.object({
   chargedOn: isoDate("The charge date"),
   chargedMah: mahField("The charged mAh"),
   restingVoltsPerCell: numberField("The resting voltage per cell")
@@ -68,3 +68,42 @@ export const chargeInput = z.object({
     .transform((v) => v ?? null),
   afterFullFlight: z.boolean({ error: "Say whether the flight before this charge went to the landing voltage" }).default(true),
 });
+
+/**
+ * More than half again the rated capacity put back in one charge is almost always a typo (an extra
+ * digit) or a charger set for another pack: a healthy pack takes back no more than its capacity plus
+ * the charger's losses (common practice, no source). Such a charge is kept only when the builder
+ * says it is right.
+ */
+export const OVER_CAPACITY_FACTOR = 1.5;
+
+/** What the charge rules need to know about the pack. */
+export type ChargeLimits = { ratedMah: number; purchasedOn: string | null };
+
+export const isOverCapacity = (chargedMah: unknown, ratedMah: number) => typeof chargedMah === "number" && chargedMah > OVER_CAPACITY_FACTOR * ratedMah;
+
+/**
+ * A charge of one pack: the shared rules, a date no earlier than the pack's purchase, and above
+ * 150 % of the rated capacity only with confirmOverCapacity ticked. The form and the server both
+ * build it from the pack, so the same words land under the same field.
+ */
+export function chargeInputFor(pack: ChargeLimits) {
+  return chargeInput
+    .extend({ confirmOverCapacity: z.boolean({ error: "Say whether the large charge is right: yes or no" }).default(false) })
+    .superRefine((c, ctx) => {
+      if (pack.purchasedOn && c.chargedOn < pack.purchasedOn) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["chargedOn"],
+          message: `The charge date cannot be before the pack's purchase date (${pack.purchasedOn})`,
+        });
+      }
+      if (isOverCapacity(c.chargedMah, pack.ratedMah) && !c.confirmOverCapacity) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["chargedMah"],
+          message: `${c.chargedMah} mAh is more than 150 % of this pack's rated ${pack.ratedMah} mAh: check the figure, or tick "Yes, this is right" to keep it`,
+        });
+      }
+    });
+}

@@ -11,6 +11,8 @@ export const ERROR_CODES = {
   405: "method_not_allowed",
   // a stale version or a state that no longer allows the change (RFC 9110 §15.5.10)
   409: "conflict",
+  // a body past its endpoint's size cap, refused while it streams (RFC 9110 §15.5.14)
+  413: "content_too_large",
   // well-formed but refused, e.g. an Idempotency-Key reused with a different body (RFC 9110 §15.5.21)
   422: "unprocessable_content",
   // a rate limit (sign-in, password reset); sent with Retry-After (RFC 6585 §4)
@@ -45,6 +47,14 @@ export function badRequest(fieldErrors: FieldErrors): ApiError {
     ? `Bad ${fields.length === 1 ? "parameter" : "parameters"}: ${fields.join(", ")}. See fieldErrors.`
     : "The request could not be read.";
   return new ApiError(400, message, fieldErrors);
+}
+
+/**
+ * 413 for a body past `maxBytes`, named by `field` ("body", or the upload's "file"); the message
+ * says the cap so a client knows how far to shrink.
+ */
+export function contentTooLarge(message: string, field = "body"): ApiError {
+  return new ApiError(413, message, { [field]: [message] });
 }
 
 /** 404 for something the client named that does not exist; `field` says which parameter named it. */

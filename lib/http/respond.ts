@@ -1,3 +1,4 @@
+import { refusedMidStream } from "./body-stream";
 import { ApiError } from "./errors";
 import { etagOf, ifNoneMatchHits } from "./etag";
 import type { ErrorBody } from "./error-body";
@@ -64,10 +65,17 @@ function errorBody(error: ApiError): ErrorBody {
   return { error: { status: error.status, code: error.code, message: error.message, fieldErrors: error.fieldErrors } };
 }
 
+/**
+ * After a body was refused part-way through, the rest of it is still on its way, unread
+ * (lib/http/body-stream.ts): the connection is closed once the answer is out instead of kept
+ * alive to drain it.
+ */
+const closeAfter = (error: ApiError): Record<string, string> => (refusedMidStream(error) ? { Connection: "close" } : {});
+
 export function errorResponse(error: ApiError, extraHeaders: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(errorBody(error)), {
     status: error.status,
-    headers: { ...CORS_HEADERS, "Content-Type": JSON_TYPE, "Cache-Control": ERROR_CACHE_CONTROL, ...extraHeaders },
+    headers: { ...CORS_HEADERS, "Content-Type": JSON_TYPE, "Cache-Control": ERROR_CACHE_CONTROL, ...closeAfter(error), ...extraHeaders },
   });
 }
 

@@ -1,5 +1,5 @@
-// The browser security headers every response carries (issue 12, item 6). proxy.ts sets them
-// on the way out of every request; pages also get a fresh script nonce per request, which
+// The browser security headers every response carries (issue 12, item 6). next.config.mjs sets
+// the fixed ones on every response (./static-security-headers.mjs); pages also get a fresh script nonce per request, which
 // Next.js reads back from the request's Content-Security-Policy header and puts on its own
 // scripts (Next.js 16 docs, guides/content-security-policy: "Adding a nonce with Proxy").
 // Sources: MDN, Content-Security-Policy, X-Content-Type-Options, Referrer-Policy,
@@ -41,22 +41,4 @@ export function pagePolicy(o: PolicyOptions): string {
   return directives.join("; ");
 }
 
-/** JSON, images and files: nothing in them may run or be framed. */
-export const RESOURCE_POLICY = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
-
-/** The headers that do not change per request. */
-export const STATIC_SECURITY_HEADERS: Readonly<Record<string, string>> = {
-  "X-Content-Type-Options": "nosniff",
-  // for browsers without CSP frame-ancestors; same meaning
-  "X-Frame-Options": "DENY",
-  // reset and sign-in links carry tokens in their address: never send the address to another site
-  "Referrer-Policy": "same-origin",
-  // Shuntbook uses none of these; file inputs (photo uploads) need no camera permission
-  "Permissions-Policy": "camera=(), microphone=(), geolocation=(), payment=(), usb=(), serial=(), bluetooth=(), midi=(), browsing-topics=()",
-  "Cross-Origin-Opener-Policy": "same-origin",
-};
-
-/** Paths answered with JSON or files rather than an HTML page. */
-export function isResourcePath(pathname: string): boolean {
-  return pathname.startsWith("/api/") || pathname === "/api" || pathname.startsWith("/_next/static/") || pathname.startsWith("/_next/image");
-}
+export { RESOURCE_POLICY, STATIC_SECURITY_HEADERS } from "./static-security-headers.mjs";

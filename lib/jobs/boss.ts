@@ -1,6 +1,6 @@
 import PgBoss from "pg-boss";
 import { databaseUrl } from "@/lib/env";
-import { JOBS } from "./handlers";
+import { jobDefinition, type JobDefinition } from "./handlers";
 
 // pg-boss keeps its jobs in PostgreSQL, in its own schema `pgboss` (created by the migration
 // 20261202001000-create-pgboss-schema from pg-boss's own construction plan, so that a fresh
@@ -10,10 +10,10 @@ import { JOBS } from "./handlers";
 
 const BOSS_SCHEMA = "pgboss";
 
-type BossHolder = { url: string; boss: PgBoss; started: Promise<PgBoss> };
+type BossHolder = { url: string; boss: PgBoss; started: Promise<PgBoss>; queues: Map<string, Promise<void>> };
 const globalForJobs = globalThis as unknown as { shuntbookBoss?: BossHolder };
 
-/** The started pg-boss instance for DATABASE_URL, with every queue in JOBS created. */
+/** The started pg-boss instance for DATABASE_URL (queues are made by bossWithQueue). */
 export function boss(): Promise<PgBoss> {
   const url = databaseUrl();
   const held = globalForJobs.shuntbookBoss;
@@ -33,18 +33,38 @@ export function boss(): Promise<PgBoss> {
   instance.on("error", (error) => console.error("[jobs] pg-boss:", error));
   const started = (async () => {
     await instance.start();
-    for (const [name, def] of Object.entries(JOBS)) {
-      const options = { name, retryLimit: def.retryLimit, retryDelay: def.retryDelay, retryBackoff: def.retryBackoff, expireInSeconds: def.expireInSeconds };
-      await instance.createQueue(name, options); // ON CONFLICT DO NOTHING inside pg-boss
-      await instance.updateQueue(name, options); // so a changed retry policy applies to an existing queue
-    }
     return instance;
   })();
-  globalForJobs.shuntbookBoss = { url, boss: instance, started };
+  globalForJobs.shuntbookBoss = { url, boss: instance, started, queues: new Map() };
   started.catch(() => {
     if (globalForJobs.shuntbookBoss?.boss === instance) globalForJobs.shuntbookBoss = undefined;
   });
   return started;
+}
+
+async function createQueue(instance: PgBoss, name: string, def: JobDefinition): Promise<void> {
+  const options = { name, retryLimit: def.retryLimit, retryDelay: def.retryDelay, retryBackoff: def.retryBackoff, expireInSeconds: def.expireInSeconds };
+  await instance.createQueue(name, options); // ON CONFLICT DO NOTHING inside pg-boss
+  await instance.updateQueue(name, options); // so a changed retry policy applies to an existing queue
+}
+
+/**
+ * The started pg-boss instance with the queue of job `name` made (once per process, on first use:
+ * a concept's job may be defined after pg-boss started). Throws for a job nobody defined.
+ */
+export async function bossWithQueue(name: string): Promise<PgBoss> {
+  const instance = await boss();
+  const def = jobDefinition(name);
+  if (!def) throw new Error(`unknown job '${name}': add it to lib/jobs/handlers.ts or define it with defineJob`);
+  const queues = globalForJobs.shuntbookBoss!.queues;
+  let made = queues.get(name);
+  if (!made) {
+    made = createQueue(instance, name, def);
+    queues.set(name, made);
+    made.catch(() => queues.delete(name)); // so that a later call tries again
+  }
+  await made;
+  return instance;
 }
 
 /** Stops this process's pg-boss (workers finish their current job first). Tests call it in afterAll. */

@@ -1,7 +1,7 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { db } from "@/models";
-import { boss } from "./boss";
-import { isJobName, JOBS } from "./handlers";
+import { bossWithQueue } from "./boss";
+import { jobDefinition } from "./handlers";
 
 type Executor = { executeSql(text: string, values: unknown[]): Promise<{ rows: unknown[] }> };
 
@@ -34,9 +34,10 @@ export async function enqueue(
   data: object,
   opts: { transaction?: Transaction; priority?: (typeof JOB_PRIORITY)[keyof typeof JOB_PRIORITY] } = {},
 ): Promise<void> {
-  if (!isJobName(name)) throw new Error(`unknown job '${name}': add it to lib/jobs/handlers.ts`);
-  const checked = JOBS[name].parse(data) as object; // refuse bad data now, not at 3 a.m. in the worker
-  const queue = await boss();
+  const def = jobDefinition(name);
+  if (!def) throw new Error(`unknown job '${name}': add it to lib/jobs/handlers.ts`);
+  const checked = def.parse(data) as object; // refuse bad data now, not at 3 a.m. in the worker
+  const queue = await bossWithQueue(name);
   const priority = opts.priority ?? JOB_PRIORITY.normal;
   const id = await queue.send(name, checked, opts.transaction ? { priority, db: inTransaction(opts.transaction) } : { priority });
   // pg-boss returns null when the insert matched no queue row; never drop a job silently

@@ -43,7 +43,7 @@ function job<T>(
   return def as unknown as JobDefinition;
 }
 
-export const JOBS = {
+const JOBS = {
   /**
    * One mail: { to, subject, text, html? }. Retried for about an hour of relay trouble (30 s · 2^n,
    * 7 tries). Drained 2 × 25 at a time over SMTP_CONNECTIONS pooled connections: a backlog of
@@ -63,8 +63,37 @@ export const JOBS = {
   }),
 } as const satisfies Record<string, JobDefinition>;
 
-export type JobName = keyof typeof JOBS;
+type JobName = keyof typeof JOBS;
 
-export function isJobName(name: string): name is JobName {
+function isJobName(name: string): name is JobName {
   return Object.hasOwn(JOBS, name);
+}
+
+// A concept's own jobs. A job that needs a concept which itself enqueues through lib/jobs (the
+// sign-up and reset requests of lib/auth) cannot sit in JOBS without an import cycle, so the
+// concept defines it here when its module loads; enqueue() and the worker then treat it as one of
+// JOBS. The worker imports the defining modules, so every process that works jobs knows them.
+const defined = new Map<string, JobDefinition>();
+
+/** A concept's job unless it says otherwise: someone is usually waiting for it (a sign-up, a reset), so poll every second, a few at once. */
+const CONCEPT_JOB_DRAIN: DrainSettings = { workers: 1, batchSize: 10, concurrency: 5, pollingIntervalSeconds: 1 };
+
+/** Adds a concept's job and returns its name (for enqueue). A reload of the concept's module replaces it. */
+export function defineJob<T>(
+  name: string,
+  def: { parse: (data: unknown) => T; run: (data: T) => Promise<void>; drain?: DrainSettings } & Omit<JobDefinition, "parse" | "run" | "drain" | "holdBack">,
+): string {
+  if (isJobName(name)) throw new Error(`job '${name}' is already in JOBS`);
+  defined.set(name, job({ ...def, drain: def.drain ?? CONCEPT_JOB_DRAIN }));
+  return name;
+}
+
+/** The definition of a job in JOBS or defined by a concept, or undefined. */
+export function jobDefinition(name: string): JobDefinition | undefined {
+  return isJobName(name) ? JOBS[name] : defined.get(name);
+}
+
+/** Every job name the queue knows in this process: JOBS, then the concepts' own. */
+export function jobNames(): string[] {
+  return [...Object.keys(JOBS), ...defined.keys()];
 }

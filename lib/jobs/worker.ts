@@ -1,18 +1,23 @@
 import type PgBoss from "pg-boss";
+import { AUTH_JOBS } from "@/lib/auth/jobs";
 import { registerModerationJobs } from "@/lib/moderation/jobs";
 import { registerSubmissionJobs } from "@/lib/submissions/jobs";
 import { db } from "@/models";
-import { boss } from "./boss";
+import { bossWithQueue } from "./boss";
 import { inTransaction } from "./enqueue";
-import { JOBS, type JobName } from "./handlers";
+import { jobDefinition, jobNames } from "./handlers";
 
 // The job worker. In the app it runs inside the Next.js server process (instrumentation.ts starts
 // it once per process); several app instances may each run one, since pg-boss hands every job to
 // exactly one fetcher (SELECT … FOR UPDATE SKIP LOCKED). Tests call drainJobsOnce() instead, or
 // startJobWorker() to see the worker's own draining (tests/integration/mail-queue.test.ts).
 
-async function runOne(name: JobName, data: unknown): Promise<void> {
-  const def = JOBS[name];
+// Every job this process works: lib/auth's sign-up and reset requests (defined by their modules,
+// see defineJob) first, since they enqueue mails, so one drainJobsOnce() also sends those mails.
+const workedHere = () => [...new Set([...AUTH_JOBS, ...jobNames()])];
+
+async function runOne(name: string, data: unknown): Promise<void> {
+  const def = jobDefinition(name)!;
   await def.run(def.parse(data) as never);
 }
 
@@ -29,7 +34,7 @@ async function eachLimited<T>(items: T[], limit: number, fn: (item: T) => Promis
  * Puts a held-back job back on the queue, due in `seconds`, with its priority, and completes the
  * fetched one: both in one transaction, so the mail is neither lost nor doubled.
  */
-async function holdBack(queue: PgBoss, name: JobName, job: PgBoss.JobWithMetadata<object>, seconds: number): Promise<void> {
+async function holdBack(queue: PgBoss, name: string, job: PgBoss.JobWithMetadata<object>, seconds: number): Promise<void> {
   await db().transaction(async (transaction) => {
     const executor = { db: inTransaction(transaction) };
     const id = await queue.send(name, job.data, { priority: job.priority, startAfter: seconds, ...executor });
@@ -43,8 +48,8 @@ async function holdBack(queue: PgBoss, name: JobName, job: PgBoss.JobWithMetadat
  * job that throws is failed by itself (pg-boss retries it per the queue's policy); pg-boss then
  * completes the rest of the batch, leaving the failed and held-back ones as they are.
  */
-async function runBatch(queue: PgBoss, name: JobName, jobs: PgBoss.JobWithMetadata<object>[]): Promise<void> {
-  const def = JOBS[name];
+async function runBatch(queue: PgBoss, name: string, jobs: PgBoss.JobWithMetadata<object>[]): Promise<void> {
+  const def = jobDefinition(name)!;
   await eachLimited(jobs, def.drain.concurrency, async (job) => {
     try {
       const data = def.parse(job.data);
@@ -59,21 +64,22 @@ async function runBatch(queue: PgBoss, name: JobName, jobs: PgBoss.JobWithMetada
   });
 }
 
-/** Starts the pollers of every queue in JOBS (per its drain settings). Safe to call twice: the second call does nothing. */
+/** Starts the pollers of every job's queue (per its drain settings). Safe to call twice: the second call does nothing. */
 export async function startJobWorker(): Promise<void> {
   const g = globalThis as unknown as { shuntbookWorker?: Promise<void> };
   g.shuntbookWorker ??= (async () => {
-    const queue = await boss();
-    for (const name of Object.keys(JOBS) as JobName[]) {
-      const { workers, batchSize, pollingIntervalSeconds } = JOBS[name].drain;
+    let queue: PgBoss | undefined;
+    for (const name of workedHere()) {
+      const q = (queue = await bossWithQueue(name));
+      const { workers, batchSize, pollingIntervalSeconds } = jobDefinition(name)!.drain;
       for (let i = 0; i < workers; i++) {
-        await queue.work<object>(name, { batchSize, pollingIntervalSeconds, includeMetadata: true }, (jobs) => runBatch(queue, name, jobs));
+        await q.work<object>(name, { batchSize, pollingIntervalSeconds, includeMetadata: true }, (jobs) => runBatch(q, name, jobs));
       }
     }
     // scheduled jobs with their own queue policies: the moderators' daily digest, the hourly key purge
-    await registerModerationJobs(queue);
-    await registerSubmissionJobs(queue);
-    console.log(`[jobs] worker polling ${Object.keys(JOBS).join(", ")}, the moderation digest and the idempotency-key purge`);
+    await registerModerationJobs(queue!);
+    await registerSubmissionJobs(queue!);
+    console.log(`[jobs] worker polling ${workedHere().join(", ")}, the moderation digest and the idempotency-key purge`);
   })();
   try {
     await g.shuntbookWorker;
@@ -89,8 +95,7 @@ export async function stopJobWorker(): Promise<void> {
   if (!g.shuntbookWorker) return;
   await g.shuntbookWorker.catch(() => undefined);
   g.shuntbookWorker = undefined;
-  const queue = await boss();
-  for (const name of Object.keys(JOBS)) await queue.offWork(name);
+  for (const name of workedHere()) await (await bossWithQueue(name)).offWork(name);
 }
 
 export type DrainResult = { completed: number; failed: number; errors: string[] };
@@ -101,9 +106,9 @@ export type DrainResult = { completed: number; failed: number; errors: string[] 
  * unlike the worker it holds nothing back (no per-recipient throttle), so a test sees every mail.
  */
 export async function drainJobsOnce(): Promise<DrainResult> {
-  const queue = await boss();
   const result: DrainResult = { completed: 0, failed: 0, errors: [] };
-  for (const name of Object.keys(JOBS) as JobName[]) {
+  for (const name of workedHere()) {
+    const queue = await bossWithQueue(name);
     let jobs: PgBoss.Job<object>[];
     while ((jobs = await queue.fetch<object>(name, { batchSize: 20 })).length > 0) {
       for (const job of jobs) {

@@ -64,3 +64,33 @@ export function passwordChangedMail(opts: { name: string; signInUrl: string }): 
     html: layout({ heading, paragraphs: lines, action: { label: "Open the sign-in page", url: opts.signInUrl }, footer }),
   };
 }
+
+export function signUpConfirmMail(opts: { name: string; url: string; hours: number }): MailContent {
+  const heading = "Finish your account";
+  const lines = [
+    `Hello ${opts.name},`,
+    "Someone (hopefully you) asked for a Shuntbook account with this e-mail address.",
+    `Follow the link and enter the password you chose to finish it. The link works once, for the next ${opts.hours} hours.`,
+  ];
+  const footer = "Did not ask for this? Ignore this mail; no account is made without the link.";
+  return {
+    subject: "Finish your Shuntbook account",
+    text: `${heading}\n\n${lines.join("\n\n")}\n\n${opts.url}\n\n${footer}\n`,
+    html: layout({ heading, paragraphs: lines, action: { label: "Finish my account", url: opts.url }, footer }),
+  };
+}
+
+export function signUpExistingMail(opts: { name: string; signInUrl: string; resetUrl: string }): MailContent {
+  const heading = "You already have an account";
+  const lines = [
+    `Hello ${opts.name},`,
+    "Someone just tried to open a new Shuntbook account with this e-mail address. It already has one: yours.",
+    `If it was you, sign in instead. Forgotten the password? Ask for a new one here: ${opts.resetUrl}`,
+  ];
+  const footer = "Did not ask for this? Ignore this mail; nothing about your account has changed.";
+  return {
+    subject: "Your Shuntbook account already exists",
+    text: `${heading}\n\n${lines.join("\n\n")}\n\n${opts.signInUrl}\n\n${footer}\n`,
+    html: layout({ heading, paragraphs: lines, action: { label: "Open the sign-in page", url: opts.signInUrl }, footer }),
+  };
+}

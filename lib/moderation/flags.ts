@@ -25,7 +25,7 @@ const statsJoin = (q: Quantity) =>
 /**
  * Submissions (alias s) with their joins and scores, for a WHERE on s, bm (board_models), br,
  * ff and u. Columns: see ScoredRow. Every lookup is by primary key or by
- * submissions_contributor_status_idx (the first-time-contributor test).
+ * submissions_contributor_status_created_idx (the first-time-contributor test).
  */
 function scoredSql(where: string): string {
   return `

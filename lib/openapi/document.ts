@@ -7,8 +7,10 @@ import { submissionSchema } from "@/lib/submissions/schema";
 import { VersionSchema } from "@/lib/submissions/update";
 import { etagOf } from "@/lib/http/etag";
 import { BoardDetailResponseSchema, BoardListResponseSchema } from "@/lib/catalogue/api-schemas";
+import { MAX_JSON_DEPTH } from "@/lib/http/json-depth";
 import { ErrorBodySchema } from "@/lib/http/error-body";
 import { SubmissionListResponseSchema, SubmissionResponseSchema } from "@/lib/submissions/api-schemas";
+import { OwnListQuerySchema } from "@/lib/submissions/own-list";
 import { BoardValuesResponseSchema, ValuesQuerySchema } from "@/lib/published/api-schemas";
 
 // The OpenAPI 3 document of /api/v1, generated from the same zod schemas that parse the requests
@@ -56,6 +58,7 @@ const conditional = z.object({
 const json = (schema: z.ZodType) => ({ "application/json": { schema } });
 const error = (description: string) => ({ description, content: json(ErrorBodySchema) });
 const unavailable = { 500: error("Unexpected server error (logged)."), 503: error("The database is unreachable; try again.") };
+const bodyCapped = { 413: error("The body is larger than 256 kB; it is refused as it arrives, and the connection closed.") };
 const signedIn = {
   401: error("Not signed in: send the session cookie the site sets at sign-in."),
 };
@@ -155,8 +158,11 @@ function buildDocument(): OpenAPIObject {
         }),
         content: json(SubmissionResponseSchema),
       },
-      400: error("The body is refused: fieldErrors is keyed by each field's dotted path, like cycles.2.chargedMah. Nothing is stored."),
+      400: error(
+        `The body is refused: fieldErrors is keyed by each field's dotted path, like cycles.2.chargedMah (JSON nested more than ${MAX_JSON_DEPTH} levels deep: under body). Nothing is stored.`,
+      ),
       ...signedIn,
+      ...bodyCapped,
       422: error(`The ${IDEMPOTENCY_HEADER} was used before with a different body.`),
       ...unavailable,
     },
@@ -166,10 +172,12 @@ function buildDocument(): OpenAPIObject {
     method: "get",
     path: "/submissions",
     operationId: "listOwnSubmissions",
-    summary: "The caller's own submissions, newest first",
+    summary: "The caller's own submissions, newest first, a page at a time",
     security: session,
+    request: { query: OwnListQuerySchema },
     responses: {
       200: { description: "The caller's submissions.", headers: privateHeaders, content: json(SubmissionListResponseSchema) },
+      400: error("A query parameter is not one the list takes; fieldErrors names it."),
       ...signedIn,
       ...unavailable,
     },
@@ -206,6 +214,7 @@ function buildDocument(): OpenAPIObject {
       403: error("Only its contributor may edit a submission."),
       404: error("No submission has this id."),
       409: error("Someone acted on it first: the version is stale, or it was already decided."),
+      ...bodyCapped,
       ...unavailable,
     },
   });

@@ -1,8 +1,8 @@
 import { randomUUID } from "node:crypto";
-import { Op, Transaction } from "sequelize";
+import { Op, Transaction, type CreationAttributes } from "sequelize";
 import { z } from "zod";
 import { ApiError, badRequest, notFound } from "@/lib/http/errors";
-import { EvidencePhoto, Submission, db } from "@/models";
+import { EvidencePhoto, Submission, User, db } from "@/models";
 import type { Role } from "@/lib/vocabulary";
 import { MAX_PHOTOS_PER_SUBMISSION, MAX_UNATTACHED_PHOTOS_PER_USER } from "./limits";
 import { deleteOrphanObject, getObject, putObject } from "./object-store";
@@ -43,24 +43,47 @@ function canView(photo: EvidencePhoto, viewer: PhotoViewer): boolean {
 
 const hidden = () => notFound("There is no photo with this id.", "id");
 
+function tooManyWaiting(waiting: number): ApiError {
+  return badRequest({
+    [PHOTO_FIELD]: [`You have ${waiting} photos not yet part of a submission (the limit is ${MAX_UNATTACHED_PHOTOS_PER_USER}). Submit or remove some first.`],
+  });
+}
+
+function countWaiting(uploaderId: string, transaction?: Transaction): Promise<number> {
+  return EvidencePhoto.count({ where: { uploaderId, submissionId: null }, transaction });
+}
+
+/**
+ * Writes the photo's row unless its uploader already holds MAX_UNATTACHED_PHOTOS_PER_USER
+ * photos not yet part of a submission. Count and insert are one step per uploader: the uploader's
+ * row is locked FOR NO KEY UPDATE first, so concurrent uploads by one person queue here (for a
+ * count and an insert, not for the decode) and each counts the others' rows. The lock leaves the
+ * row's key alone, so inserts elsewhere that reference the user are not held up.
+ */
+async function insertWithinCap(values: CreationAttributes<EvidencePhoto> & { uploaderId: string }): Promise<EvidencePhoto> {
+  return db().transaction(async (transaction) => {
+    await User.findByPk(values.uploaderId, { attributes: ["id"], transaction, lock: transaction.LOCK.NO_KEY_UPDATE });
+    const waiting = await countWaiting(values.uploaderId, transaction);
+    if (waiting >= MAX_UNATTACHED_PHOTOS_PER_USER) throw tooManyWaiting(waiting);
+    return EvidencePhoto.create(values, { transaction });
+  });
+}
+
 /**
  * Checks, re-encodes (dropping EXIF/GPS) and stores one uploaded photo for `uploaderId`. Every
- * refusal is an ApiError 400 naming the `file` field, raised before anything is written.
+ * refusal is an ApiError 400 naming the `file` field, and leaves no row and no object behind.
  */
 export async function storeEvidencePhoto(uploaderId: string, bytes: Uint8Array): Promise<PhotoSummary> {
   db();
-  const waiting = await EvidencePhoto.count({ where: { uploaderId, submissionId: null } });
-  if (waiting >= MAX_UNATTACHED_PHOTOS_PER_USER) {
-    throw badRequest({
-      [PHOTO_FIELD]: [`You have ${waiting} photos not yet part of a submission (the limit is ${MAX_UNATTACHED_PHOTOS_PER_USER}). Submit or remove some first.`],
-    });
-  }
+  // a quick answer before the decode for someone already at the cap; insertWithinCap decides
+  const waiting = await countWaiting(uploaderId);
+  if (waiting >= MAX_UNATTACHED_PHOTOS_PER_USER) throw tooManyWaiting(waiting);
   const image = await sanitisePhoto(bytes);
   const id = randomUUID();
   const objectKey = `${OBJECT_PREFIX}/${id}.${image.extension}`;
   await putObject(objectKey, image.data, image.contentType);
   try {
-    const photo = await EvidencePhoto.create({
+    const photo = await insertWithinCap({
       id,
       uploaderId,
       submissionId: null,

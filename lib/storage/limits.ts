@@ -5,10 +5,15 @@
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
 
 /**
- * 40 megapixels decoded: above any phone camera, and it bounds the memory a decoder may claim
- * (about 160 MB as RGBA), so a small file that decompresses to a huge raster is refused.
+ * 24 megapixels decoded: a camera's 6000 × 4000 frame and twice a phone's usual 12 MP photo
+ * (4032 × 3024; common practice, no source), enough to read a meter or a pad. It bounds what a
+ * decoder may claim (about 96 MB as RGBA), so a small file that decompresses to a huge raster is
+ * refused from its header: a 38 kB PNG of 6300 × 6300 (39.7 MP) once took 4.4 s and 189 MB.
  */
-export const MAX_PHOTO_PIXELS = 40_000_000;
+export const MAX_PHOTO_PIXELS = 24_000_000;
+
+/** Photos decoded at once per server process; more wait their turn, so memory stays a few rasters. */
+export const PHOTO_DECODES_AT_ONCE = 2;
 
 /** Photos on one submission; enough for a meter, the board, the OSD and a charger screen or two. */
 export const MAX_PHOTOS_PER_SUBMISSION = 8;

@@ -1,8 +1,9 @@
 import { createHash } from "node:crypto";
+import pLimit from "p-limit";
 import sharp, { type Metadata, type OutputInfo } from "sharp";
 import { badRequest } from "@/lib/http/errors";
 import { PHOTO_FIELD } from "./photo-api";
-import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, formatMegabytes } from "./limits";
+import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, PHOTO_DECODES_AT_ONCE, formatMegabytes } from "./limits";
 import { ACCEPTED_INPUT_TYPES, ACCEPTED_LABEL, type AcceptedInputType, type StoredType } from "@/lib/vocabulary";
 
 // Turns an uploaded file into the bytes we store. Phone photos carry EXIF with GPS position, the
@@ -22,6 +23,9 @@ export type SanitisedPhoto = {
 };
 
 const LABEL: Record<AcceptedInputType, string> = { "image/jpeg": "JPEG", "image/png": "PNG", "image/webp": "WebP" };
+
+/** At most PHOTO_DECODES_AT_ONCE rasters in memory per process, however many uploads arrive together. */
+const decodeSlot = pLimit(PHOTO_DECODES_AT_ONCE);
 
 function refuse(message: string): never {
   throw badRequest({ [PHOTO_FIELD]: [message] });
@@ -61,13 +65,14 @@ export async function sanitisePhoto(bytes: Uint8Array): Promise<SanitisedPhoto> 
     );
   }
 
+  // libvips refuses more pixels itself too, whatever the header claimed
   const image = sharp(bytes, { limitInputPixels: MAX_PHOTO_PIXELS, failOn: "error", autoOrient: true });
   // JPEG stays JPEG (a photo); PNG and WebP become WebP, which keeps a screenshot's transparency.
   const jpeg = type === "image/jpeg";
   const encoded = jpeg ? image.jpeg({ quality: 85, mozjpeg: true }) : image.webp({ quality: 88 });
   let out: { data: Buffer; info: OutputInfo };
   try {
-    out = await encoded.toBuffer({ resolveWithObject: true });
+    out = await decodeSlot(() => encoded.toBuffer({ resolveWithObject: true }));
   } catch {
     refuse(`The ${LABEL[type]} file could not be decoded; it may be damaged or incomplete.`);
   }

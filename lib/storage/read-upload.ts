@@ -1,47 +1,20 @@
-import { badRequest } from "@/lib/http/errors";
+import { readBodyBytes } from "@/lib/http/body-stream";
+import { badRequest, contentTooLarge } from "@/lib/http/errors";
 import { MAX_PHOTO_BYTES, formatMegabytes } from "./limits";
 import { PHOTO_FIELD } from "./photo-api";
 
-// Reads one uploaded file from a request without ever holding more than the limit in memory. A
-// body announced as too large is refused before a byte is read; a body without a length (chunked)
-// is read until it passes the limit and then abandoned. Only then is multipart/form-data parsed,
-// by the platform's own parser (Response.formData), from the bounded buffer.
+// Reads one uploaded file from a request without ever holding more than the limit in memory:
+// lib/http's body reader refuses a body announced as too large before a byte is read, and one
+// without a length (chunked) the moment it passes the limit, with 413 naming the `file` field.
+// Only then is multipart/form-data parsed, by the platform's own parser (Response.formData),
+// from the bounded buffer.
 
 /** Room for the multipart boundaries and part headers around the one file. */
 const MULTIPART_OVERHEAD = 64 * 1024;
 
 export type Upload = { bytes: Uint8Array; declaredType: string | null; fileName: string | null };
 
-const tooLarge = () => badRequest({ [PHOTO_FIELD]: [`The photo is larger than ${formatMegabytes(MAX_PHOTO_BYTES)}, the limit.`] });
-
-async function readBounded(request: Request, limit: number): Promise<Uint8Array> {
-  const announced = Number(request.headers.get("content-length"));
-  if (Number.isFinite(announced) && announced > limit) {
-    await request.body?.cancel().catch(() => undefined);
-    throw tooLarge();
-  }
-  if (!request.body) return new Uint8Array(0);
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limit) {
-      await reader.cancel().catch(() => undefined);
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  const bytes = new Uint8Array(total);
-  let at = 0;
-  for (const chunk of chunks) {
-    bytes.set(chunk, at);
-    at += chunk.byteLength;
-  }
-  return bytes;
-}
+const tooLarge = () => contentTooLarge(`The photo is larger than ${formatMegabytes(MAX_PHOTO_BYTES)}, the limit.`, PHOTO_FIELD);
 
 /**
  * The one file of an upload: the `file` part of a multipart/form-data body (or its only file
@@ -51,7 +24,7 @@ async function readBounded(request: Request, limit: number): Promise<Uint8Array>
 export async function readUpload(request: Request): Promise<Upload> {
   const contentType = request.headers.get("content-type");
   if (contentType?.toLowerCase().startsWith("multipart/form-data")) {
-    const raw = await readBounded(request, MAX_PHOTO_BYTES + MULTIPART_OVERHEAD);
+    const raw = await readBodyBytes(request, MAX_PHOTO_BYTES + MULTIPART_OVERHEAD, tooLarge);
     let form: FormData;
     try {
       form = await new Response(raw as BodyInit, { headers: { "content-type": contentType } }).formData();
@@ -67,11 +40,11 @@ export async function readUpload(request: Request): Promise<Upload> {
       });
     }
     if (file.size > MAX_PHOTO_BYTES) {
-      throw badRequest({ [PHOTO_FIELD]: [`The photo is ${formatMegabytes(file.size)}; the limit is ${formatMegabytes(MAX_PHOTO_BYTES)}.`] });
+      throw contentTooLarge(`The photo is ${formatMegabytes(file.size)}; the limit is ${formatMegabytes(MAX_PHOTO_BYTES)}.`, PHOTO_FIELD);
     }
     return { bytes: new Uint8Array(await file.arrayBuffer()), declaredType: file.type || null, fileName: file.name || null };
   }
-  const bytes = await readBounded(request, MAX_PHOTO_BYTES);
+  const bytes = await readBodyBytes(request, MAX_PHOTO_BYTES, tooLarge);
   if (bytes.byteLength === 0) throw badRequest({ [PHOTO_FIELD]: ["The request has no photo in it. Choose a photo to upload."] });
   return { bytes, declaredType: contentType, fileName: null };
 }

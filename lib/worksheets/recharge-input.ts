@@ -8,6 +8,13 @@ import { quadIdField, type Removed } from "./common-input";
 
 export const startInput = z.object({
   quadId: quadIdField,
+  /** The garage pack the figures came from, if any: remembered so that pack is archived, not deleted, once the worksheet is published. */
+  packId: z
+    .number({ error: "Choose the pack from the list" })
+    .int()
+    .positive("Choose the pack from the list")
+    .nullish()
+    .transform((v) => v ?? null),
   ratedMah: mahField("The pack's rated mAh").int("The rated mAh is a whole number, as printed on the label"),
   cells: cellsField(),
   startingScale: numberField("The starting current scale")

@@ -3,7 +3,7 @@ import { rechargeWorksheet } from "@/lib/calibration";
 import { notYours, parseOrThrow } from "@/lib/garage/owned";
 import { startInput, stepInput, type RechargeStepRow, type WorksheetView } from "./recharge-input";
 import { checkSetting, entriesOf, newEntryErrors, ownSheet, publishedSetting, quadContext, takeBackLast } from "./shared";
-import { db, FirmwareFamily, Quad, Worksheet, WorksheetStep } from "@/models";
+import { db, FirmwareFamily, Pack, Quad, Worksheet, WorksheetStep } from "@/models";
 
 // Server side of the fly-and-recharge worksheet: start it on a quad, add one iteration per request
 // (checked with every earlier one by lib/calibration/recharge.ts and stored whole in a
@@ -20,11 +20,15 @@ export async function startRechargeWorksheet(ownerId: string, input: unknown): P
     throw badRequest({ startingScale: ["Nothing is published for this board and family yet: enter the current scale the quad flies with now"] });
   }
   checkSetting(startingScale, "The starting current scale", family, "currentScale", "startingScale");
+  if (data.packId != null && (await Pack.count({ where: { id: data.packId, ownerId } })) === 0) {
+    throw badRequest({ packId: ["Choose one of your own packs, or type the figures"] });
+  }
   const sheet = await Worksheet.create({
     ownerId,
     quadId: quad.id,
     kind: "fly_recharge",
     firmwareFamilyId: family.id,
+    packId: data.packId,
     ratedMah: data.ratedMah,
     cells: data.cells,
     startingScale,

@@ -49,7 +49,8 @@ export type InsertCounts = Record<
   | "submissions"
   | "evidenceRows"
   | "auditEvents"
-  | "valueHistory",
+  | "valueHistory"
+  | "garageRows",
   number
 >;
 
@@ -131,6 +132,7 @@ export async function insertDemoScenario(qi: QueryInterface, s: DemoScenario, tr
 
   const evidence = await insertEvidence(qi, s, submissionIds, transaction);
   const history = await insertModerationPast(qi, s, { submissionIds, revisionIds, familyIds }, transaction);
+  const garageRows = await insertDemoGarage(qi, s, { submissionIds, revisionIds, familyIds }, transaction);
 
   return {
     manufacturers: makerIds.size,
@@ -143,7 +145,74 @@ export async function insertDemoScenario(qi: QueryInterface, s: DemoScenario, tr
     evidenceRows: evidence,
     auditEvents: s.approvals.length,
     valueHistory: history,
+    garageRows,
   };
+}
+
+/** The demo contributor's quads, packs, charges and worksheets with their entries; returns the rows written. */
+async function insertDemoGarage(
+  qi: QueryInterface,
+  s: DemoScenario,
+  ids: { submissionIds: number[]; revisionIds: Map<string, number>; familyIds: Map<string, number> },
+  transaction: Transaction,
+): Promise<number> {
+  const g = s.garage;
+  const ownerId = g.ownerId;
+  const quadIds = await insertReturningIds(
+    qi,
+    "quads",
+    g.quads.map(({ revisionKey, familySlug, ...cols }) => ({
+      ...cols,
+      ownerId,
+      boardRevisionId: idOf(ids.revisionIds, revisionKey, "board revision"),
+      firmwareFamilyId: idOf(ids.familyIds, familySlug, "firmware family"),
+      updatedAt: cols.createdAt,
+    })),
+    "name",
+    transaction,
+  );
+  const packIds = await insertReturningIds(
+    qi,
+    "packs",
+    g.packs.map(({ charges: _charges, ...cols }) => ({ ...cols, ownerId, updatedAt: cols.createdAt })),
+    "label",
+    transaction,
+  );
+  const packId = (i: number) => idOf(packIds, g.packs[i].label, "demo pack");
+  const charges = g.packs.flatMap((p, i) => p.charges.map((c) => ({ ...c, packId: packId(i), createdAt: new Date(`${c.chargedOn}T18:00:00Z`) })));
+  await bulkInsertChunked(qi, "pack_charges", charges, transaction);
+  let rows = g.quads.length + g.packs.length + charges.length;
+  for (const w of g.worksheets) {
+    const [sheet] = (await qi.bulkInsert(
+      "worksheets",
+      [
+        toColumns({
+          ownerId,
+          quadId: idOf(quadIds, g.quads[w.quad].name, "demo quad"),
+          packId: w.pack == null ? null : packId(w.pack),
+          kind: w.kind,
+          firmwareFamilyId: idOf(ids.familyIds, w.familySlug, "firmware family"),
+          ratedMah: w.ratedMah,
+          cells: w.cells,
+          startingScale: w.startingScale,
+          startingOffset: w.startingOffset,
+          startingSource: "own",
+          submissionId: w.submission == null ? null : ids.submissionIds[w.submission],
+          createdAt: w.createdAt,
+          updatedAt: w.createdAt,
+        }),
+      ],
+      returning(transaction, ["id"]),
+    )) as unknown as Array<{ id: number }>;
+    const worksheetId = Number(sheet.id);
+    const entry = <T extends object>(list: T[]) => list.map((e, position) => ({ ...e, worksheetId, position, createdAt: w.createdAt }));
+    rows +=
+      1 +
+      (await bulkInsertChunked(qi, "worksheet_steps", entry(w.steps), transaction)) +
+      (await bulkInsertChunked(qi, "worksheet_voltage_readings", entry(w.readings), transaction)) +
+      (await bulkInsertChunked(qi, "worksheet_bench_points", entry(w.points), transaction));
+  }
+  return rows;
 }
 
 async function bulkInsertChunked(qi: QueryInterface, table: string, rows: Record<string, unknown>[], transaction: Transaction): Promise<number> {
@@ -224,6 +293,11 @@ export async function deleteDemoScenario(qi: QueryInterface, s: DemoScenario, tr
   const revisions = `SELECT id FROM board_revisions WHERE board_model_id IN (${boards})`;
   const families = `SELECT id FROM firmware_families WHERE slug IN (:families)`;
   const statements: string[] = [];
+  // the demo people's garages first: their worksheets hold on to demo firmware families
+  statements.push(
+    "DELETE FROM quads WHERE owner_id IN (SELECT id FROM users WHERE lower(email) IN (:emails))",
+    "DELETE FROM packs WHERE owner_id IN (SELECT id FROM users WHERE lower(email) IN (:emails))",
+  );
   // derived statistics (migration 20261202000900) point at revisions and families: drop those first
   const [{ exists }] = await qi.sequelize.query<{ exists: boolean }>("SELECT to_regclass('board_stats') IS NOT NULL AS exists", {
     transaction,

@@ -1,5 +1,6 @@
 import { buildDemoCatalogue, type DemoBoardAlias, type DemoBoardModel, type DemoBoardRevision, type DemoTruth } from "./catalogue";
 import { attachDemoEvidence } from "./evidence";
+import { buildDemoGarage, type DemoGarage } from "./garage";
 import { DEMO_FIRMWARE_FAMILIES, type DemoFirmwareFamily } from "./firmware-families";
 import { buildDemoHistory, type DemoApproval, type DemoHistoryRow } from "./history";
 import { DEMO_MANUFACTURERS, type DemoManufacturer } from "./manufacturers";
@@ -26,6 +27,8 @@ export type DemoScenario = {
   approvals: DemoApproval[];
   /** the published-value timeline those approvals made, oldest first */
   valueHistory: DemoHistoryRow[];
+  /** the demo contributor's garage: quads, packs with charge logs, worksheets (one published) */
+  garage: DemoGarage;
   /** the values a perfect calibration would give: for tests of the statistics, never inserted */
   truths: DemoTruth[];
 };
@@ -55,6 +58,7 @@ export function buildDemoScenario({ now = new Date(), seed = DEMO_SEED }: BuildO
     submissions,
     approvals,
     valueHistory: history,
+    garage: buildDemoGarage(users, submissions, anchor),
     truths: catalogue.truths,
   };
 }

@@ -10,15 +10,21 @@ const inboxUrl = process.env.MAIL_INBOX_URL;
 
 type Mail = { subject: string; text: string; to: { address: string }[] };
 
-async function magicLinkFor(address: string): Promise<string> {
-  for (let tries = 0; tries < 50; tries++) {
+/** The newest link to `address` whose path matches `path` (the app's worker sends queued mails every 2 s or so). */
+async function linkFor(address: string, path: RegExp, what: string): Promise<string> {
+  for (let tries = 0; tries < 100; tries++) {
     const mails = ((await (await fetch(new URL("/api/email", inboxUrl))).json()) as Mail[]).filter((m) => m.to.some((t) => t.address === address));
-    const link = mails.at(-1)?.text.match(/https?:\/\/\S+\/api\/auth\/callback\/email\S+/)?.[0];
+    const link = mails
+      .at(-1)
+      ?.text.match(/https?:\/\/\S+/g)
+      ?.find((u) => path.test(new URL(u).pathname));
     if (link) return link;
     await new Promise((r) => setTimeout(r, 200));
   }
-  throw new Error(`no sign-in mail reached ${address}`);
+  throw new Error(`no ${what} mail reached ${address}`);
 }
+
+const magicLinkFor = (address: string) => linkFor(address, /^\/api\/auth\/callback\/email$/, "sign-in");
 
 describe.skipIf(!appUrl || !inboxUrl)("auth in Chromium: magic link, password, sign-out", () => {
   const chrome = useChromium();
@@ -84,6 +90,34 @@ describe.skipIf(!appUrl || !inboxUrl)("auth in Chromium: magic link, password, s
     // signed out, the profile sends you to sign-in and back
     await page.goto("/profile");
     await page.waitForURL(/\/signin\?next=%2Fprofile$/);
+    await context.close();
+  });
+
+  // issue 12 deliver 8 changed sign-up: the form says "check your mail" and the mailed link finishes the account
+  it("sign-up says 'check your mail'; the mailed link and the chosen password finish the account and sign in", async () => {
+    const context = await chrome.browser.newContext({ baseURL: appUrl, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    const page = await context.newPage();
+    const address = `sign-up-${Date.now()}@example.test`;
+    await page.goto("/signup");
+    await page.getByLabel("Name").fill("Test Pilot");
+    await page.getByLabel("E-mail address").fill(address);
+    await page.getByLabel("Password", { exact: true }).fill("ten chars or more");
+    await page.getByLabel("Password again").fill("ten chars or more");
+    await page.getByRole("button", { name: "Create my account" }).click();
+    const checkMail = page.getByRole("status").filter({ hasText: "Check your mail" });
+    await checkMail.waitFor();
+    expect(await checkMail.textContent()).toContain(address);
+    await shot(page, "auth-signup-check-mail-phone");
+
+    await page.goto(await linkFor(address, /^\/signup\/confirm$/, "sign-up"));
+    expect(await page.getByRole("heading", { name: "Finish your account" }).isVisible()).toBe(true);
+    await page.getByLabel("Password", { exact: true }).fill("not what I chose");
+    await page.getByRole("button", { name: "Finish and sign in" }).click();
+    await page.getByText("That is not the password you chose when you signed up.").waitFor();
+    await page.getByLabel("Password", { exact: true }).fill("ten chars or more");
+    await Promise.all([page.waitForURL(/\/profile$/), page.getByRole("button", { name: "Finish and sign in" }).click()]);
+    expect(await page.getByTestId("profile-email").textContent()).toBe(address);
+    await shot(page, "auth-signup-done-phone");
     await context.close();
   });
 

@@ -15,7 +15,7 @@ type Values = {
 };
 
 /** A board revision and family with a published current scale, read from the public API. */
-async function publishedGroup(): Promise<{ revisionOption: string; familyName: string; setting: number }> {
+async function publishedGroup(): Promise<{ boardName: string; revisionLabel: string; familyName: string; setting: number }> {
   const { boards } = (await (await fetch(new URL("/api/v1/boards?pageSize=50", appUrl))).json()) as { boards: { slug: string }[] };
   for (const b of boards) {
     const v = (await (await fetch(new URL(`/api/v1/boards/${b.slug}/values`, appUrl))).json()) as Values;
@@ -23,7 +23,8 @@ async function publishedGroup(): Promise<{ revisionOption: string; familyName: s
       const g = r.families.find((f) => f.currentScale);
       if (g)
         return {
-          revisionOption: `${v.board.name} ${r.label}`,
+          boardName: v.board.name,
+          revisionLabel: r.label,
           familyName: v.families.find((f) => f.slug === g.family)!.name,
           setting: g.currentScale!.recommended.setting,
         };
@@ -52,14 +53,19 @@ describe.skipIf(!appUrl)("garage and fly-and-recharge worksheet in Chromium", ()
     expect(await quadForm.getByText("Enter the quad's name").isVisible()).toBe(true);
     const name = `Test quad ${Date.now()}`;
     await quadForm.getByLabel("Name").fill(name);
-    await quadForm.getByLabel("Board revision").selectOption({ label: group.revisionOption });
+    // the quad form's board picker is the contribution form's searchable one (issue 13, item 5)
+    await quadForm.getByLabel("Board", { exact: true }).fill(group.boardName);
+    await quadForm.getByRole("list", { name: "Matching boards" }).getByRole("button", { name: group.boardName }).first().click();
+    const revision = quadForm.getByLabel("Revision", { exact: true });
+    await revision.waitFor();
+    if (await revision.locator("option", { hasText: "Choose the revision" }).count()) await revision.selectOption({ label: group.revisionLabel });
     await quadForm.getByLabel("Firmware family").selectOption({ label: group.familyName });
     await quadForm.getByLabel("Firmware version").fill("1.0.0");
     await quadForm.getByRole("button", { name: "Save quad" }).click();
-    await page.getByRole("link", { name }).waitFor();
+    await page.getByRole("link", { name, exact: true }).waitFor();
     await shot(page, "garage-phone");
 
-    await Promise.all([page.waitForURL(/\/garage\/quads\/\d+$/), page.getByRole("link", { name }).click()]);
+    await Promise.all([page.waitForURL(/\/garage\/quads\/\d+$/), page.getByRole("link", { name, exact: true }).click()]);
     const quadUrl = page.url();
     const start = page.getByTestId("start-worksheet");
     await start.getByLabel("Pack cells (S)").fill("4");

@@ -126,7 +126,7 @@ describe("GET /api/v1/openapi.json", () => {
       ]),
     );
     expect(create.parameters.find((p: { name: string }) => p.name === "Idempotency-Key")).toMatchObject({ in: "header", required: false });
-    expect(Object.keys(create.responses).sort()).toEqual(["201", "400", "401", "422", "500", "503"]);
+    expect(Object.keys(create.responses).sort()).toEqual(["201", "400", "401", "413", "422", "500", "503"]);
     expect(create.security).toEqual([{ session: [] }]);
     expect(doc.components.securitySchemes.session).toMatchObject({ type: "apiKey", in: "cookie" });
     const edit = doc.paths["/submissions/{id}"].patch;

@@ -79,6 +79,7 @@ describe("finding 1: limits that a client cannot step around", () => {
     expect(await fieldsOf(res)).toEqual(["email"]);
   });
 
+  // sign-up now answers 202 "check your mail" instead of 201 (issue 12 deliver 8, tests/integration/auth-enumeration.test.ts)
   it(`sign-up is limited per network: the ${LIMITS.signUp.points + 1}th new account from one address gets 429, whatever the e-mail`, async () => {
     const signUp = (i: number) =>
       callRoute(
@@ -89,7 +90,7 @@ describe("finding 1: limits that a client cannot step around", () => {
           body: JSON.stringify({ name: `Many ${i}`, email: `many-${i}@example.test`, password: "long enough pw", confirm: "long enough pw" }),
         }),
       );
-    for (let i = 0; i < LIMITS.signUp.points; i++) expect((await signUp(i)).status).toBe(201);
+    for (let i = 0; i < LIMITS.signUp.points; i++) expect((await signUp(i)).status).toBe(202);
     expect((await signUp(99)).status).toBe(429);
   });
 
@@ -128,6 +129,22 @@ describe("finding 5: sign-out ends the session on the server", () => {
     expect(await inRequest(withCookie(new Request(`${base()}/profile`), session), currentUser)).toBeNull();
     const read = await nextAuth("GET", "session", undefined, { cookie: session });
     expect(await read.json()).toEqual({});
+  });
+
+  it("signing out on one device leaves the account's other sessions signed in (only 'sign out everywhere' ends them all)", async () => {
+    const account = DEMO_ACCOUNTS.admin;
+    const cookieOf = (res: Response) =>
+      res.headers
+        .getSetCookie()
+        .find((c) => c.startsWith(`${sessionCookieName()}=`))!
+        .split(";")[0];
+    const phone = cookieOf(await passwordAttempt(account.email, account.password, "192.0.2.95"));
+    const laptop = cookieOf(await passwordAttempt(account.email, account.password, "192.0.2.96"));
+    const { token, cookie } = await csrf();
+    const out = await nextAuth("POST", "signout", new URLSearchParams({ csrfToken: token, json: "true" }).toString(), { cookie: `${cookie}; ${phone}` });
+    expect(out.status).toBe(200);
+    expect(await inRequest(withCookie(new Request(`${base()}/profile`), phone), currentUser)).toBeNull();
+    expect(await inRequest(withCookie(new Request(`${base()}/profile`), laptop), currentUser)).toMatchObject({ email: account.email });
   });
 
   it("sign out everywhere ends every device's session", async () => {

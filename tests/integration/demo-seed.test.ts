@@ -1,6 +1,9 @@
 import { QueryTypes } from "sequelize";
 import { afterAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "@/seeders/demo/accounts";
+import { listPacks } from "@/lib/garage/packs";
+import { listQuads } from "@/lib/garage/quads";
+import { getWorksheet } from "@/lib/worksheets";
 import { stopBoss } from "@/lib/jobs";
 import { listAuditEvents, revertEvent } from "@/lib/moderation";
 import { getValueHistory } from "@/lib/published/history";
@@ -113,5 +116,46 @@ describe("the seeded demo", () => {
     );
     expect(newest.caused).toBe(result.event.id);
     expect(newest.n).toBe(stats?.n ?? 0);
+  });
+
+  it("the demo contributor's garage is at work: two quads, three packs with logs, a worksheet of each kind in progress and one published", async () => {
+    const [owner] = await select<{ id: string }>("SELECT id FROM users WHERE lower(email) = :email", { email: DEMO_ACCOUNTS.contributor.email });
+    const quads = await listQuads(owner.id);
+    const packs = await listPacks(owner.id);
+    expect(quads).toHaveLength(2);
+    expect(packs).toHaveLength(3);
+    for (const p of packs) {
+      expect(p.charges.length).toBeGreaterThanOrEqual(3);
+      // the seeded logs obey the live rules: no charge before the purchase, none in the future, none above 150 % of rated
+      for (const c of p.charges) {
+        expect(c.chargedOn >= p.purchasedOn!).toBe(true);
+        expect(c.chargedOn <= new Date().toISOString().slice(0, 10)).toBe(true);
+        expect(c.chargedMah).toBeLessThanOrEqual(1.5 * p.ratedMah);
+      }
+      expect(p.landing).not.toBeNull();
+    }
+    const sheets = await select<{
+      id: number;
+      kind: string;
+      submissionId: number | null;
+      packId: number | null;
+      status: string | null;
+      contributor: string | null;
+    }>(
+      `SELECT w.id, w.kind, w.submission_id AS "submissionId", w.pack_id AS "packId", s.status, s.contributor_id AS contributor
+         FROM worksheets w LEFT JOIN submissions s ON s.id = w.submission_id WHERE w.owner_id = :owner ORDER BY w.id`,
+      { owner: owner.id },
+    );
+    const inProgress = sheets.filter((w) => w.submissionId == null);
+    expect(inProgress.map((w) => w.kind).sort()).toEqual(["bench", "fly_recharge", "voltage"]);
+    const published = sheets.filter((w) => w.submissionId != null);
+    expect(published).toHaveLength(1);
+    expect(published[0]).toMatchObject({ status: "approved", contributor: owner.id });
+    // every worksheet reads back through the live code, with its entries
+    for (const w of sheets) {
+      const view = (await getWorksheet(owner.id, w.id)) as unknown as Record<string, unknown[]>;
+      const entries = view.steps ?? view.readings ?? view.points;
+      expect(entries.length).toBeGreaterThan(0);
+    }
   });
 });

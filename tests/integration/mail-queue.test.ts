@@ -3,7 +3,7 @@ import { QueryTypes } from "sequelize";
 import { afterAll, describe, expect, it } from "vitest";
 import { env } from "@/lib/env";
 import { JOB_PRIORITY, enqueue, stopBoss } from "@/lib/jobs";
-import { JOBS } from "@/lib/jobs/handlers";
+import { jobDefinition } from "@/lib/jobs/handlers";
 import { startJobWorker, stopJobWorker } from "@/lib/jobs/worker";
 import { RECIPIENT_THROTTLE } from "@/lib/mail/recipient-throttle";
 import { closeMailTransport } from "@/lib/mail/transport";
@@ -20,7 +20,7 @@ const tag = randomBytes(4).toString("hex");
 const address = (who: string) => `${who}-${tag}@mailqueue.test`;
 const mail = (to: string, subject: string) => ({ to, subject, text: `${subject}\n` });
 
-const drain = JOBS["mail.send"].drain;
+const drain = jobDefinition("mail.send")!.drain;
 const BACKLOG = 300;
 const URGENT = 3;
 // Generous for a loaded 2-core machine: a whole second per mail in each lane of a batch.

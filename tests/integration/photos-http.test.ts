@@ -57,7 +57,7 @@ describe.skipIf(!appUrl)("evidence photos served by next start", () => {
     expect((await fetch(`${appUrl}/api/v1/photos/${photo.id}`, { headers: { cookie } })).status).toBe(404);
   });
 
-  it("refusals leave the app as JSON with the field named: anonymous 401, a GIF named .jpg 400, a huge body 400", async () => {
+  it("refusals leave the app as JSON with the field named: anonymous 401, a GIF named .jpg 400, a huge body 413", async () => {
     const anon = await post(ANONYMOUS, form(await jpegWithGps()));
     expect(anon.status).toBe(401);
     const cookie = await seededCookie("contributor@shuntbook.test");
@@ -65,7 +65,7 @@ describe.skipIf(!appUrl)("evidence photos served by next start", () => {
     expect(wrong.status).toBe(400);
     expect((await wrong.json()).error.fieldErrors.file[0]).toMatch(/not a JPEG, PNG or WebP image/);
     const huge = await post(cookie, new Uint8Array(9 * 1024 * 1024), { "content-type": "image/jpeg" });
-    expect(huge.status).toBe(400);
+    expect(huge.status).toBe(413);
     expect((await huge.json()).error.fieldErrors.file[0]).toMatch(/larger than 8 MB/);
   });
 });

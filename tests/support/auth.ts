@@ -1,3 +1,4 @@
+import { randomUUID } from "node:crypto";
 import { randomBytes } from "node:crypto";
 import { env, resetEnvCache } from "@/lib/env";
 import { encodeSessionToken, sessionCookieName, SESSION_MAX_AGE_SECONDS } from "@/lib/auth/session-cookie";
@@ -82,7 +83,7 @@ export async function testAccount(role: Role, opts: { email?: string; name?: str
 export async function sessionCookieForAccount(account: TestAccount, opts: { maxAgeSeconds?: number; signedInAt?: Date } = {}): Promise<string> {
   ensureSecret();
   const token = await encodeSessionToken(
-    { sub: account.id, email: account.email, name: account.name, role: account.role, authTime: (opts.signedInAt ?? new Date()).getTime() },
+    { sub: account.id, email: account.email, name: account.name, role: account.role, authTime: (opts.signedInAt ?? new Date()).getTime(), sid: randomUUID() },
     opts.maxAgeSeconds ?? SESSION_MAX_AGE_SECONDS,
   );
   return `${sessionCookieName()}=${token}`;

@@ -5,13 +5,13 @@ import { readUpload } from "@/lib/storage/read-upload";
 
 const URL_ = "http://test.local/api/v1/photos";
 
-async function refusal(request: Request): Promise<string> {
+async function refusal(request: Request, status = 400): Promise<string> {
   const error = await readUpload(request).then(
     () => undefined,
     (e: unknown) => e,
   );
   expect(error).toBeInstanceOf(ApiError);
-  expect((error as ApiError).status).toBe(400);
+  expect((error as ApiError).status).toBe(status);
   return (error as ApiError).fieldErrors.file[0];
 }
 
@@ -78,15 +78,17 @@ describe("readUpload", () => {
   it("refuses a body announced as too large without reading any of it", async () => {
     const { stream, seen } = countingStream(MAX_PHOTO_BYTES * 4);
     const request = streamed(stream, { "content-type": "image/jpeg", "content-length": String(MAX_PHOTO_BYTES * 4) });
-    expect(await refusal(request)).toMatch(/larger than 8 MB/);
+    expect(await refusal(request, 413)).toMatch(/larger than 8 MB/);
     expect(seen.pulled).toBeLessThanOrEqual(64 * 1024); // at most the stream's first eager pull
   });
 
-  it("stops reading a body without a length as soon as it passes the limit, and cancels it", async () => {
+  // Not cancelled (issue 12): cancelling the platform's request stream destroys the socket before
+  // the 413 is written; the rest stays unread and lib/http closes the connection after answering.
+  it("stops reading a body without a length as soon as it passes the limit, leaving the rest unread", async () => {
     const { stream, seen } = countingStream(MAX_PHOTO_BYTES * 10);
-    expect(await refusal(streamed(stream, { "content-type": "image/jpeg" }))).toMatch(/larger than 8 MB/);
+    expect(await refusal(streamed(stream, { "content-type": "image/jpeg" }), 413)).toMatch(/larger than 8 MB/);
     expect(seen.pulled).toBeLessThan(MAX_PHOTO_BYTES + 3 * 64 * 1024);
-    expect(seen.cancelled).toBe(true);
+    expect(seen.cancelled).toBe(false);
   });
 
   it("accepts exactly the limit as a raw body", async () => {
@@ -97,7 +99,7 @@ describe("readUpload", () => {
   it("refuses a multipart body whose file is over the limit, whatever the form's total", async () => {
     const form = new FormData();
     form.append("file", new File([new Uint8Array(MAX_PHOTO_BYTES + 1)], "big.jpg", { type: "image/jpeg" }));
-    expect(await refusal(new Request(URL_, { method: "POST", body: form }))).toMatch(/limit is 8 MB/);
+    expect(await refusal(new Request(URL_, { method: "POST", body: form }), 413)).toMatch(/limit is 8 MB/);
   });
 
   it("refuses multipart that cannot be parsed, naming the field", async () => {

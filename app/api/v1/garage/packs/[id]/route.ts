@@ -9,7 +9,8 @@ export const { GET, POST, PUT, PATCH, DELETE } = routes({
   GET: route({ auth: "user", params }, async ({ user, params }) => privateJson({ pack: await getPack(user.id, params.id) })),
   PUT: route({ auth: "user", params, body: "json" }, async ({ user, params, body }) => privateJson({ pack: await updatePack(user.id, params.id, body) })),
   DELETE: route({ auth: "user", params }, async ({ user, params }) => {
-    await deletePack(user.id, params.id);
-    return noContent();
+    // 204 when gone; 200 { archived: true } when a published worksheet keeps it (archived instead)
+    const { archived } = await deletePack(user.id, params.id);
+    return archived ? privateJson({ archived }) : noContent();
   }),
 });

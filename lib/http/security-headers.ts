@@ -41,4 +41,4 @@ export function pagePolicy(o: PolicyOptions): string {
   return directives.join("; ");
 }
 
-export { RESOURCE_POLICY, STATIC_SECURITY_HEADERS } from "./static-security-headers.mjs";
+export { RESOURCE_POLICY } from "./static-security-headers.mjs";

@@ -67,7 +67,7 @@ function errorBody(error: ApiError): ErrorBody {
 export function errorResponse(error: ApiError, extraHeaders: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(errorBody(error)), {
     status: error.status,
-    headers: { ...CORS_HEADERS, "Content-Type": JSON_TYPE, "Cache-Control": ERROR_CACHE_CONTROL, ...extraHeaders },
+    headers: { ...CORS_HEADERS, "Content-Type": JSON_TYPE, "Cache-Control": ERROR_CACHE_CONTROL, ...error.headers, ...extraHeaders },
   });
 }
 

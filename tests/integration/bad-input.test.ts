@@ -1,3 +1,4 @@
+import http from "node:http";
 import { NextRequest } from "next/server";
 import { DatabaseError, ForeignKeyConstraintError } from "sequelize";
 import { afterAll, describe, expect, it, vi } from "vitest";
@@ -205,4 +206,36 @@ describe("next-auth's routes refuse odd input with a 400 naming the field", () =
   ])("a callback URL on another host in %s", async (_, send) => {
     await expectFieldError(await send(), "callbackUrl");
   });
+});
+
+// Over HTTP only: Next.js itself parses the raw request target (npm test with the built app).
+const appUrl = env().SHUNTBOOK_TEST_APP_URL;
+describe.skipIf(!appUrl)("addresses Next.js would misread (built app)", () => {
+  // node:http sends the path as written; fetch would resolve the encoded dots before sending
+  const get = (path: string) =>
+    new Promise<{ status: number; type: string; body: string }>((resolve, reject) => {
+      const { hostname, port } = new URL(appUrl!);
+      http
+        .get({ hostname, port, path }, (res) => {
+          let body = "";
+          res.setEncoding("utf8").on("data", (chunk: string) => (body += chunk));
+          res.on("end", () => resolve({ status: res.statusCode ?? 0, type: String(res.headers["content-type"]), body }));
+        })
+        .on("error", reject);
+    });
+
+  it("/boards/%ZZ renders the not-found page, not a bare 500", async () => {
+    const res = await get("/boards/%ZZ");
+    expect(res.status).toBe(404);
+    expect(res.type).toMatch(/^text\/html/);
+  });
+
+  it.each(["/api/v1/%2e%2e/%2e%2e/admin", "/api/%2e%2e/boards", "/api/v1/boards/%2e%2e", "/api/v1/%ZZ"])(
+    "%s is the API's JSON 404, not a redirect",
+    async (path) => {
+      const res = await get(path);
+      expect(res.status).toBe(404);
+      expect(JSON.parse(res.body).error).toMatchObject({ status: 404, code: "not_found" });
+    },
+  );
 });

@@ -66,6 +66,15 @@ export function methodNotAllowed(method: string, allowed: readonly string[]): Ap
 // (too many connections) (PostgreSQL 15 manual, Appendix A "Error Codes").
 const UNAVAILABLE = [ConnectionError, ConnectionAcquireTimeoutError, TimeoutError];
 const UNAVAILABLE_STATES = /^(08...|57P0[123]|53300)$/;
+// node-postgres's own errors for a connection that died under a query carry no SQLSTATE, only
+// these messages (pg 8 lib/client.js), and Sequelize wraps them as a DatabaseError
+const LOST_CONNECTION =
+  /^(Client has encountered a connection error and is not queryable|Connection terminated( unexpectedly)?|Client was closed and is not queryable)$/;
+
+function lostConnection(error: unknown): boolean {
+  const messages = [error, (error as { parent?: unknown })?.parent].map((e) => (e instanceof Error ? e.message : ""));
+  return messages.some((m) => LOST_CONNECTION.test(m));
+}
 /** Seconds a client should wait before retrying: a restart of the local cluster takes a few. */
 export const UNAVAILABLE_RETRY_AFTER_SECONDS = 5;
 
@@ -104,7 +113,7 @@ export function toApiError(error: unknown, request?: Request): ApiError {
   if (error instanceof ApiError) return error;
   const where = request ? `${request.method} ${new URL(request.url).pathname}` : "API";
   const state = sqlState(error);
-  if (UNAVAILABLE.some((type) => error instanceof type) || (state && UNAVAILABLE_STATES.test(state))) {
+  if (UNAVAILABLE.some((type) => error instanceof type) || (state && UNAVAILABLE_STATES.test(state)) || lostConnection(error)) {
     console.error(`[api] ${where}: database unavailable`, error instanceof Error ? error.message : error);
     return serviceUnavailable();
   }

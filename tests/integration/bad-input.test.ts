@@ -160,6 +160,16 @@ describe("database errors the kernel maps", () => {
     expect(res.headers.get("retry-after")).toMatch(/^\d+$/);
   });
 
+  it.each(["Client has encountered a connection error and is not queryable", "Connection terminated unexpectedly"])(
+    "node-postgres's '%s' (no SQLSTATE, seen by npm run chaos) is a 503",
+    async (message) => {
+      vi.spyOn(console, "error").mockImplementation(() => undefined);
+      const res = await throwing(new DatabaseError(new Error(message) as never))(new Request("http://test/api/v1/x"));
+      expect(res.status).toBe(503);
+      expect(res.headers.get("retry-after")).toMatch(/^\d+$/);
+    },
+  );
+
   it("a foreign-key error that reaches the kernel is a 400 naming the column, not a 500", async () => {
     vi.spyOn(console, "error").mockImplementation(() => undefined);
     const error = new ForeignKeyConstraintError({ fields: { board_revision_id: "999999" }, parent: pgError("23503", "fk") as never });

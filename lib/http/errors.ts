@@ -76,7 +76,7 @@ function lostConnection(error: unknown): boolean {
   return messages.some((m) => LOST_CONNECTION.test(m));
 }
 /** Seconds a client should wait before retrying: a restart of the local cluster takes a few. */
-export const UNAVAILABLE_RETRY_AFTER_SECONDS = 5;
+const UNAVAILABLE_RETRY_AFTER_SECONDS = 5;
 
 /** The SQLSTATE of a pg error, whether thrown as is or wrapped by Sequelize (parent/original). */
 function sqlState(error: unknown): string | null {
@@ -96,7 +96,7 @@ function foreignKeyField(error: ForeignKeyConstraintError): string {
   return typeof first === "string" ? camel(first) : "body";
 }
 
-export function serviceUnavailable(): ApiError {
+function serviceUnavailable(): ApiError {
   const error = new ApiError(503, "The catalogue database is not reachable right now. Try again in a moment.");
   error.headers = { "Retry-After": String(UNAVAILABLE_RETRY_AFTER_SECONDS) };
   return error;

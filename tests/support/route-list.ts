@@ -8,7 +8,7 @@ import type { RouteHandler, RouteSpec } from "@/lib/http/route";
 
 const API_DIR = join(process.cwd(), "app/api/v1");
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
-export type Method = (typeof METHODS)[number];
+type Method = (typeof METHODS)[number];
 
 export type ListedRoute = {
   /** "/api/v1/garage/packs/[id]/charges" */

@@ -140,7 +140,7 @@ export async function runChaos(args: string[]): Promise<number> {
         }
         if (res.status < 300) figures.acknowledged++;
         else {
-          const key = `${res.status} ${pathname.replace(/\d+/g, "{id}")}`;
+          const key = `${res.status} ${pathname.replace(/\/\d+/g, "/{id}")}`;
           figures.refused[key] = (figures.refused[key] ?? 0) + 1;
         }
         return { status: res.status, json };

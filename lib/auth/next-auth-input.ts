@@ -1,6 +1,7 @@
 import { NextRequest } from "next/server";
 import { readBodyText } from "@/lib/http/body-stream";
 import { ApiError, badRequest } from "@/lib/http/errors";
+import { hasLineControl } from "@/lib/input/text";
 import { ACCOUNT_BODY_BYTES } from "./schemas";
 import { siteUrl } from "./site-url";
 
@@ -13,7 +14,6 @@ import { siteUrl } from "./site-url";
 // only, so that is the one body type accepted.
 
 const FORM_TYPE = /^application\/x-www-form-urlencoded\s*(;|$)/i;
-const CONTROL = /[\u0000-\u001f\u007f]/;
 const MAX_FIELD_CHARS = 2000;
 
 export type CheckedAuthRequest = { request: NextRequest; form: URLSearchParams | null };
@@ -31,7 +31,7 @@ function checkFields(params: URLSearchParams, where: string): void {
     const field = name.slice(0, 60);
     if (seen.has(name)) throw badRequest({ [field]: [`${field} is given twice in the ${where}; send it once.`] });
     seen.add(name);
-    if (CONTROL.test(value)) throw badRequest({ [field]: ["Leave out control characters (such as NUL or line breaks)."] });
+    if (hasLineControl(value)) throw badRequest({ [field]: ["Leave out control characters (such as NUL or line breaks)."] });
     if (value.length > MAX_FIELD_CHARS) throw badRequest({ [field]: [`Use at most ${MAX_FIELD_CHARS} characters.`] });
     if (name === "callbackUrl" && !isOwnCallbackUrl(value)) throw badRequest({ callbackUrl: ["Give a page on this site to come back to."] });
   }

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { oneLine } from "@/lib/input/text";
 
 // The fields of every sign-in form, checked with the same schema in the browser (react-hook-form
 // with zodResolver) and in the handler, so the messages a person sees are the ones the server
@@ -32,12 +33,10 @@ export const newPasswordField = z
 /** A password being checked, not chosen: any length we can hash, no hints about the rules. */
 const existingPasswordField = z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(200, "That is longer than any password here.");
 
-const nameField = z
-  .string({ error: "Enter a name." })
-  .trim()
-  .min(1, "Enter a name others will see beside your contributions.")
-  .max(80, "Use at most 80 characters.")
-  .refine((s) => !/[\u0000-\u001f\u007f]/.test(s), "Leave out control characters.");
+const nameField = oneLine(
+  z.string({ error: "Enter a name." }).trim().min(1, "Enter a name others will see beside your contributions.").max(80, "Use at most 80 characters."),
+  "A name",
+);
 
 /** The token in a reset link: 32 random bytes, base64url. */
 export const resetTokenField = z

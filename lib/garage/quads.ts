@@ -1,5 +1,6 @@
 import { Op } from "sequelize";
-import { db, Quad, Worksheet } from "@/models";
+import { badRequest } from "@/lib/http/errors";
+import { BoardRevision, db, FirmwareFamily, Quad, Worksheet } from "@/models";
 import { notYours, parseOrThrow } from "./owned";
 import { quadInput } from "./schemas";
 
@@ -53,14 +54,31 @@ async function ownQuad(ownerId: string, id: number): Promise<Quad> {
 
 export const getQuad = async (ownerId: string, id: number): Promise<QuadView> => view(await ownQuad(ownerId, id));
 
-export async function createQuad(ownerId: string, input: unknown): Promise<QuadView> {
+/**
+ * The quad's input, with its board revision and firmware family checked against the catalogue:
+ * an id that names nothing is a 400 on that field (the foreign key would otherwise fail the insert).
+ */
+async function checkedInput(input: unknown) {
   const data = parseOrThrow(quadInput, input);
   db();
+  const [revision, family] = await Promise.all([
+    data.boardRevisionId == null ? true : BoardRevision.findByPk(data.boardRevisionId, { attributes: ["id"] }),
+    data.firmwareFamilyId == null ? true : FirmwareFamily.findByPk(data.firmwareFamilyId, { attributes: ["id"] }),
+  ]);
+  const errors: Record<string, string[]> = {};
+  if (!revision) errors.boardRevisionId = ["There is no such board revision: choose one from the list"];
+  if (!family) errors.firmwareFamilyId = ["There is no such firmware family: choose one from the list"];
+  if (Object.keys(errors).length) throw badRequest(errors);
+  return data;
+}
+
+export async function createQuad(ownerId: string, input: unknown): Promise<QuadView> {
+  const data = await checkedInput(input);
   return view(await Quad.create({ ...data, ownerId }));
 }
 
 export async function updateQuad(ownerId: string, id: number, input: unknown): Promise<QuadView> {
-  const data = parseOrThrow(quadInput, input);
+  const data = await checkedInput(input);
   const quad = await ownQuad(ownerId, id);
   return view(await quad.update(data));
 }

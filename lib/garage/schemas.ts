@@ -1,34 +1,38 @@
 import { z } from "zod";
 import { CHEMISTRIES, CHEMISTRY_LIMITS } from "@/lib/calibration/chemistry";
 import { cellsField, mahField, numberField } from "@/lib/calibration/fields";
+import { pastIsoDate, rowIdField } from "@/lib/input/bounds";
+import { multiLine, oneLine } from "@/lib/input/text";
 
 // The garage's input rules, shared by the route handlers and the forms (zod on both sides). Bounds
 // match the CHECKs of migrations/20261209000100…300; messages name the field in plain words.
 
+const capital = (label: string) => label.charAt(0).toUpperCase() + label.slice(1);
 const text = (label: string, max: number) =>
-  z
-    .string({ error: `Enter ${label}` })
-    .trim()
-    .min(1, `Enter ${label}`)
-    .max(max, `Keep ${label} to ${max} characters`);
-const optionalText = (label: string, max: number) =>
-  z
-    .string({ error: `${label} must be text` })
-    .trim()
-    .max(max, `Keep ${label} to ${max} characters`)
+  oneLine(
+    z
+      .string({ error: `Enter ${label}` })
+      .trim()
+      .min(1, `Enter ${label}`)
+      .max(max, `Keep ${label} to ${max} characters`),
+    capital(label),
+  );
+const optionalText = (label: string, max: number, lines: "one line" | "lines" = "one line") =>
+  (lines === "one line" ? oneLine : multiLine)(
+    z
+      .string({ error: `${label} must be text` })
+      .trim()
+      .max(max, `Keep ${label} to ${max} characters`),
+    capital(label),
+  )
     .nullish()
     .transform((v) => (v ? v : null));
+// whether the revision or family exists is checked in lib/garage/quads.ts, which reads the catalogue
 const optionalId = (label: string) =>
-  z
-    .number({ error: `${label} must be chosen from the list` })
-    .int()
-    .positive(`${label} must be chosen from the list`)
+  rowIdField(`${label} must be chosen from the list`)
     .nullish()
     .transform((v) => v ?? null);
-const isoDate = (label: string) =>
-  z.iso
-    .date({ error: `${label} must be a date like 2026-11-30` })
-    .refine((d) => d <= new Date().toISOString().slice(0, 10), `${label} cannot be in the future`);
+const isoDate = pastIsoDate;
 
 export const quadInput = z.object({
   name: text("the quad's name", 80),
@@ -36,7 +40,7 @@ export const quadInput = z.object({
   firmwareFamilyId: optionalId("The firmware family"),
   firmwareVersion: optionalText("the firmware version", 40),
   esc: optionalText("the ESC", 120),
-  notes: optionalText("the notes", 4000),
+  notes: optionalText("the notes", 4000, "lines"),
 });
 
 export const packInput = z.object({

@@ -75,7 +75,7 @@ const closeAfter = (error: ApiError): Record<string, string> => (refusedMidStrea
 export function errorResponse(error: ApiError, extraHeaders: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(errorBody(error)), {
     status: error.status,
-    headers: { ...CORS_HEADERS, "Content-Type": JSON_TYPE, "Cache-Control": ERROR_CACHE_CONTROL, ...closeAfter(error), ...extraHeaders },
+    headers: { ...CORS_HEADERS, "Content-Type": JSON_TYPE, "Cache-Control": ERROR_CACHE_CONTROL, ...closeAfter(error), ...error.headers, ...extraHeaders },
   });
 }
 

@@ -58,7 +58,10 @@ export type RouteInput<S extends RouteSpec> = {
 
 /** What Next.js passes a route handler besides the request (tests may pass nothing). */
 type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> } | undefined;
-export type RouteHandler = (request: Request, context?: RouteContext) => Promise<Response>;
+export type RouteHandler = ((request: Request, context?: RouteContext) => Promise<Response>) & {
+  /** What the handler declared: the fuzz and authorisation-matrix tests walk it (tests/integration/route-list.ts). */
+  readonly spec?: RouteSpec;
+};
 
 const NEEDS_ROLE = { moderator: ["moderator"], admin: ["admin"] } as const;
 
@@ -91,7 +94,7 @@ async function readBody(spec: NonNullable<RouteSpec["body"]>, request: Request, 
 
 /** One method of a route file: authorised, parsed, and answering errors in the one shape. */
 export function route<const S extends RouteSpec>(spec: S, handle: (input: RouteInput<S>) => Promise<Response>): RouteHandler {
-  return async (request, context) => {
+  const handler = async (request: Request, context?: RouteContext) => {
     try {
       const user = await authorise(request, spec.auth);
       const params = spec.params ? await readParams(spec.params, context) : undefined;
@@ -102,6 +105,7 @@ export function route<const S extends RouteSpec>(spec: S, handle: (input: RouteI
       return errorResponse(toApiError(error, request));
     }
   };
+  return Object.assign(handler, { spec });
 }
 
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { multiLine } from "@/lib/input/text";
 import { BULK_MAX_ITEMS, NOTE_MAX_LENGTH, ROLES } from "@/lib/vocabulary";
 
 // The bodies of the moderation and admin endpoints, with field-level messages. Plain zod and
@@ -11,7 +12,7 @@ const version = z
 
 /** A text a person reads later (the contributor, or an admin reading the log): trimmed, 1–4000 characters. */
 const text = (what: string, missing: string) =>
-  z.string({ error: missing }).trim().min(1, missing).max(NOTE_MAX_LENGTH, `${what} is at most ${NOTE_MAX_LENGTH} characters`);
+  multiLine(z.string({ error: missing }).trim().min(1, missing).max(NOTE_MAX_LENGTH, `${what} is at most ${NOTE_MAX_LENGTH} characters`), what);
 
 export const ApproveBodySchema = z.object({
   version,

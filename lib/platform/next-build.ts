@@ -54,10 +54,12 @@ export function buildIfNeeded(root: string, env: NodeJS.ProcessEnv): void {
 
 /**
  * The environment for the app's server process: NODE_OPTIONS gains lib/platform/peer-address.cjs,
- * which records each request's socket address in X-Forwarded-For (lib/auth/client-address.ts);
+ * which records each request's socket address in X-Forwarded-For (lib/auth/client-address.ts),
+ * and lib/platform/raw-path.cjs, which re-points malformed request paths before Next.js reads them;
  * Next.js's telemetry is off.
  */
 export function serverEnv<E extends NodeJS.ProcessEnv>(root: string, env: E): E {
-  const preload = `--require ${JSON.stringify(path.join(root, "lib", "platform", "peer-address.cjs"))}`;
+  // raw-path.cjs: malformed or dot-climbing request paths answer the not-found page or the API's JSON 404
+  const preload = ["peer-address.cjs", "raw-path.cjs"].map((file) => `--require ${JSON.stringify(path.join(root, "lib", "platform", file))}`).join(" ");
   return { ...env, ...NO_TELEMETRY, NODE_OPTIONS: [env.NODE_OPTIONS, preload].filter(Boolean).join(" ") };
 }

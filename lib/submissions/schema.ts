@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { multiLine } from "@/lib/input/text";
 import { LineFitError, fitLine } from "@/lib/calibration/least-squares";
 import { formatCells, formatFigure } from "@/lib/catalogue/format";
 import { MAX_PHOTOS_PER_SUBMISSION } from "@/lib/storage/limits";
@@ -228,9 +229,7 @@ export function submissionSchema(context: SchemaContext = {}) {
           voltageScale: setting("Voltage scale", { positive: true, range: r.voltage }).nullable(),
           currentScale: setting("Current scale", { positive: true, range: r.current }).nullable(),
           currentOffset: setting("Current offset", { positive: false, range: r.offset }).nullable(),
-          notes: z
-            .string()
-            .max(NOTES_MAX_LENGTH, `Notes are limited to ${NOTES_MAX_LENGTH.toLocaleString("en")} characters`)
+          notes: multiLine(z.string().max(NOTES_MAX_LENGTH, `Notes are limited to ${NOTES_MAX_LENGTH.toLocaleString("en")} characters`), "Notes")
             .nullish()
             .transform((v) => (v && v.trim() !== "" ? v : null)),
           voltageCheck: voltageCheck.nullish().transform((v) => v ?? null),

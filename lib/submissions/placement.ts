@@ -22,14 +22,3 @@ export function placeValue(value: number, published: { n: number; median: number
   const rule = zScaleRuleOf(published.n, spread);
   return { ...modifiedZScore(value, rule, spread), rule };
 }
-
-/**
- * A modified z-score as words anyone reads: "about 38× the usual spread" away from the median.
- * |M| is the distance from the median in robust standard deviations (the MAD scaled by 1/0.6745,
- * NIST/SEMATECH e-Handbook §1.3.5.17), which is what "the usual spread" stands for on screen; the
- * raw score never shows. One decimal below 10, whole numbers above.
- */
-export function spreadTimes(modifiedZ: number): string {
-  const x = Math.abs(modifiedZ);
-  return `about ${x < 10 ? x.toFixed(1) : Math.round(x).toLocaleString("en-GB")}× the usual spread`;
-}

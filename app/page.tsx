@@ -22,8 +22,8 @@ export default async function HomePage() {
       <section aria-labelledby="home-title" className="grid gap-8 lg:grid-cols-[1.15fr_1fr] lg:items-end">
         <div>
           <h1 id="home-title" className="font-display text-display font-extrabold uppercase">
-            Get your OSD voltage and mAh{" "}
-            <span className="bg-[linear-gradient(transparent_62%,var(--sb-signal)_62%,var(--sb-signal)_92%,transparent_92%)] px-1">right.</span>
+            Get your OSD voltage and mAh {/* Dark ink on the yellow in both schemes: cream on yellow fails contrast in dark mode. */}
+            <span className="bg-signal px-1 text-on-signal">right.</span>
           </h1>
           <p className="mt-5 max-w-prose text-lead">
             Shuntbook is the pilots&rsquo; logbook of voltage scale, current scale and current offset for each FPV board revision, measured with multimeters and

@@ -5,13 +5,15 @@ import { useBoardValues } from "@/components/hooks/use-board-values";
 import { formatFigure, plural } from "@/lib/catalogue/format";
 import type { QuantityKey, QuantityValues } from "@/lib/published/board-values-types";
 import { placeValue } from "@/lib/submissions/placement";
+import { spreadMultiple } from "@/lib/stats";
 import { findGroup } from "@/components/values/selection";
 import type { ChosenBoard, FamilyOption, SubmissionDraft } from "./draft";
 import { TitledPanel } from "@/components/titled-section";
 
 // Before sending: where the contributor's values fall among the approved ones for the same board
 // revision and firmware family (GET /api/v1/boards/{slug}/values), as the median, its 95 % range
-// and the value's modified z-score (lib/submissions/placement.ts). The read is the board page's
+// and how far the value lies from the others in multiples of the usual spread (its modified
+// z-score, lib/submissions/placement.ts, in plain words). The read is the board page's
 // own (useBoardValues), so both share react-query's cache for the same view.
 
 const QUANTITIES: { key: QuantityKey; title: string }[] = [
@@ -41,7 +43,9 @@ function Row({ title, value, q }: { title: string; value: number; q: QuantityVal
   if (p.rule === "too_few") where = "too few approved values to judge how far off it is.";
   else if (p.modifiedZ === null) where = "every approved value is the same and yours differs.";
   else
-    where = `modified z-score ${formatFigure(p.modifiedZ, 2)}${p.outlier ? " — far from the others (beyond ±3.5), so a moderator will look twice" : " — in line with the others"}.`;
+    where = p.outlier
+      ? `far from the others (about ${spreadMultiple(p.modifiedZ)}× the usual spread), so a moderator will look twice.`
+      : `in line with the others (about ${spreadMultiple(p.modifiedZ)}× the usual spread from the median).`;
   return (
     <li className={p.outlier ? "font-semibold" : ""}>
       <strong>

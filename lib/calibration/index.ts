@@ -18,7 +18,7 @@ export { hardwareWorksheet, type HardwareWorksheet } from "./hardware";
 export { adcLsbVolts, adcCountToVolts, packVoltsFromAdcCount } from "./adc";
 export { packLandingGuide, USED_CAPACITY_ALERT_FRACTION, type PackLandingGuide } from "./pack";
 export { CHEMISTRY_LIMITS } from "./chemistry";
-export { roundBothWays, predictedReadingError, safeRoundingSide, type RoundedSetting } from "./rounding";
+export { roundBothWays, predictedReadingError, safeRoundingSide, CURRENT_ROUNDING_WHY, VOLTAGE_ROUNDING_WHY, type RoundedSetting } from "./rounding";
 
 export { unwrapWorksheet, WorksheetInputError, type FieldIssue } from "./result";
 export type { WorksheetFamily } from "./fields";

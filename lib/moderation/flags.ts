@@ -25,8 +25,8 @@ const statsJoin = (q: Quantity) =>
 /**
  * Submissions (alias s) with their joins and scores (and each quantity's published median and n,
  * what the score is taken against), for a WHERE on s, bm (board_models), br, ff and u. Columns:
- * see ScoredRow. Every lookup is by primary key or by
- * submissions_contributor_status_idx (the first-time-contributor test).
+ * see ScoredRow. Every lookup is by primary key or by submissions_contributor_status_created_idx
+ * (the first-time-contributor test).
  */
 function scoredSql(where: string): string {
   return `

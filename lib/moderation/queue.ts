@@ -23,7 +23,7 @@ import { FLAG_CONDITIONS, flaggedSql, flagsOfRow, type ScoredRow, type Submissio
 // scores them there), with a badge count per flag. Plans: the pending rows come from
 // submissions_review_queue_idx (status first), the board filter from board_models' unique slug,
 // each score from board_stats' primary key, first-time contributors from
-// submissions_contributor_status_idx.
+// submissions_contributor_status_created_idx.
 
 export type QueueParams = { page: number; pageSize: number; sort: QueueSort; board: string | null; flag: QueueFlag | null; age: QueueAge | null };
 

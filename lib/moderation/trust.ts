@@ -17,7 +17,7 @@ export function trustThreshold(): number {
 /** A contributor's submissions by current status (a reverted approval no longer counts). */
 export type ContributorRecord = Record<SubmissionStatus, number> & { total: number };
 
-/** Counts by status, through submissions_contributor_status_idx. */
+/** Counts by status, through submissions_contributor_status_created_idx. */
 export async function contributorRecord(userId: string, transaction?: Transaction): Promise<ContributorRecord> {
   const [row] = await db().query<ContributorRecord>(
     `SELECT count(*) FILTER (WHERE status = 'pending')::int AS pending,

@@ -38,7 +38,7 @@ type UserRow = {
   changesRequested: number;
 };
 
-// each person's counts come from submissions_contributor_status_idx
+// each person's counts come from submissions_contributor_status_created_idx
 const USER_SELECT = `
   SELECT u.id, u.name, u.email, u.role, u.trusted, u.created_at AS "createdAt", c.pending, c.approved, c.rejected, c."changesRequested"
     FROM users u

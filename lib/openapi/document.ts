@@ -9,6 +9,7 @@ import { etagOf } from "@/lib/http/etag";
 import { BoardDetailResponseSchema, BoardListResponseSchema } from "@/lib/catalogue/api-schemas";
 import { ErrorBodySchema } from "@/lib/http/error-body";
 import { SubmissionListResponseSchema, SubmissionResponseSchema } from "@/lib/submissions/api-schemas";
+import { OwnListQuerySchema } from "@/lib/submissions/own-list";
 import { BoardValuesResponseSchema, ValuesQuerySchema } from "@/lib/published/api-schemas";
 
 // The OpenAPI 3 document of /api/v1, generated from the same zod schemas that parse the requests
@@ -166,10 +167,12 @@ function buildDocument(): OpenAPIObject {
     method: "get",
     path: "/submissions",
     operationId: "listOwnSubmissions",
-    summary: "The caller's own submissions, newest first",
+    summary: "The caller's own submissions, newest first, a page at a time",
     security: session,
+    request: { query: OwnListQuerySchema },
     responses: {
       200: { description: "The caller's submissions.", headers: privateHeaders, content: json(SubmissionListResponseSchema) },
+      400: error("A query parameter is not one the list takes; fieldErrors names it."),
       ...signedIn,
       ...unavailable,
     },

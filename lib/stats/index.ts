@@ -6,6 +6,7 @@ export {
   modifiedZScore,
   zScaleRuleOf,
   describeFlags,
+  spreadMultiple,
   tukeyFences,
   MODIFIED_Z_FACTOR,
   MODIFIED_Z_CUTOFF,

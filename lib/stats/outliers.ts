@@ -124,3 +124,14 @@ export function describeFlags(values: number[]): FlagReport {
 export function flagPoints(values: number[]): FlaggedPoint[] {
   return describeFlags(values).points;
 }
+
+/**
+ * A modified z-score in plain words for the screen: "about 4.2× the usual spread" away from the
+ * middle value. The modified z-score already measures distance in units of a robust standard
+ * deviation (MAD ÷ 0.6745, same NIST source as above), so |M| is that multiple; below 10 it is
+ * given to one decimal, above to a whole number, since nobody acts on "38.45".
+ */
+export function spreadMultiple(modifiedZ: number): string {
+  const m = Math.abs(modifiedZ);
+  return m < 10 ? (Math.round(m * 10) / 10).toFixed(1) : String(Math.round(m));
+}

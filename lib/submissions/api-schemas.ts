@@ -70,8 +70,16 @@ const SubmissionSchema = z
 
 export const SubmissionResponseSchema = z.object({ submission: SubmissionSchema }).meta({ id: "SubmissionResponse", description: "One submission." });
 export const SubmissionListResponseSchema = z
-  .object({ submissions: z.array(SubmissionSchema) })
-  .meta({ id: "SubmissionList", description: "The caller's submissions, newest first." });
+  .object({
+    submissions: z.array(SubmissionSchema),
+    status: z.enum(STATUSES).nullable().meta({ description: "The status filter, or null for all." }),
+    page: z.number().int(),
+    pageSize: z.number().int(),
+    total: z.number().int().meta({ description: "Submissions under the status filter, over all pages." }),
+    pageCount: z.number().int(),
+    counts: z.record(z.enum([...STATUSES, "all"]), z.number().int()).meta({ description: "The caller's submissions per status, and in all." }),
+  })
+  .meta({ id: "SubmissionList", description: "A page of the caller's submissions, newest first." });
 
 // Compile-time proof that what lib/submissions returns is what the schema describes.
 const fits = (view: SubmissionView): z.infer<typeof SubmissionSchema> => view;

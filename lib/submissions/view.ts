@@ -41,6 +41,11 @@ const submissionApiPath = (id: number) => `/api/v1/submissions/${id}`;
 export const submissionEditPath = (id: number) => `/my/submissions/${id}/edit`;
 export const MY_SUBMISSIONS_PATH = "/my/submissions";
 
+const NEWEST_FIRST: [string, string][] = [
+  ["createdAt", "DESC"],
+  ["id", "DESC"],
+];
+
 const INCLUDE = [
   { model: BoardRevision, as: "boardRevision", include: [{ model: BoardModel, as: "boardModel" }] },
   { model: FirmwareFamily, as: "firmwareFamily" },
@@ -82,17 +87,21 @@ export async function loadSubmissionView(id: number, transaction?: Transaction):
   return s ? toView(s as Loaded) : null;
 }
 
-/** The contributor's own submissions, newest first (uses submissions_contributor_created_idx). */
-export async function listOwnSubmissions(contributorId: string): Promise<SubmissionView[]> {
+/** A page of the contributor's own submissions, newest first, optionally of one status (own-list.ts pages and counts). */
+export async function loadOwnPage(contributorId: string, status: SubmissionStatus | null, limit: number, offset: number): Promise<SubmissionView[]> {
   db();
-  const rows = await Submission.findAll({
-    where: { contributorId },
-    include: INCLUDE,
-    order: [
-      ["createdAt", "DESC"],
-      ["id", "DESC"],
-    ],
+  // Ids first, then the rows with their evidence: LIMIT on a query with has-many includes would
+  // page the joined rows, not the submissions.
+  const ids = await Submission.findAll({
+    attributes: ["id"],
+    where: status ? { contributorId, status } : { contributorId },
+    order: NEWEST_FIRST,
+    limit,
+    offset,
+    raw: true,
   });
+  if (ids.length === 0) return [];
+  const rows = await Submission.findAll({ where: { id: ids.map((r) => r.id) }, include: INCLUDE, order: NEWEST_FIRST });
   return rows.map((s) => toView(s as Loaded));
 }
 

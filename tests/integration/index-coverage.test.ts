@@ -155,6 +155,7 @@ describe("every query an endpoint or page runs has an index behind it", () => {
     const created = await ok(send(submissionsRoute.POST, "POST", "/api/v1/submissions", contributor, validBody(target)), 201);
     const id = String(created.submission.id);
     await ok(get(submissionsRoute.GET, "/api/v1/submissions", contributor));
+    await ok(get(submissionsRoute.GET, "/api/v1/submissions?status=pending&page=2&pageSize=1", contributor));
     await ok(get(ownRoute.GET, `/api/v1/submissions/${id}`, contributor, { id }));
     await ok(send(quadsRoute.POST, "POST", "/api/v1/garage/quads", contributor, { name: "Index check quad" }), 201);
     await ok(get(quadsRoute.GET, "/api/v1/garage/quads", contributor));

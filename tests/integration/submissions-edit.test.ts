@@ -1,6 +1,7 @@
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { GET as getOne } from "@/app/api/v1/submissions/[id]/route";
+import { GET as listRoute } from "@/app/api/v1/submissions/route";
 import { stopBoss } from "@/lib/jobs";
 import { getOwnSubmission, listOwnSubmissions } from "@/lib/submissions";
 import { db } from "@/models";
@@ -133,7 +134,7 @@ describe("My submissions", () => {
   it("lists the owner's submissions newest first with status, moderator note and whether each can be edited", async () => {
     const s = await created();
     await setStatus(s.id, "changes_requested", "Which pack was this?");
-    const list = await listOwnSubmissions(ownerAccount.id);
+    const { submissions: list } = await listOwnSubmissions(ownerAccount.id);
     expect(list[0]).toMatchObject({
       id: s.id,
       status: "changes_requested",
@@ -144,5 +145,34 @@ describe("My submissions", () => {
     const times = list.map((x) => x.createdAt);
     expect([...times].sort().reverse()).toEqual(times);
     expect(list.every((x) => x.editable === (x.status === "pending" || x.status === "changes_requested"))).toBe(true);
+  });
+
+  it("filters by status and pages newest first, with counts per status for the filter (issue 13: 25 cards were 12,800 px on a phone)", async () => {
+    const ids: number[] = [];
+    for (let i = 0; i < 3; i++) ids.push((await created()).id);
+    await setStatus(ids[0], "rejected", "No evidence.");
+    const all = await listOwnSubmissions(ownerAccount.id, { status: null, page: 1, pageSize: 2 });
+    expect(all.submissions).toHaveLength(2);
+    expect(all.total).toBe(all.counts.all);
+    expect(all.pageCount).toBe(Math.ceil(all.counts.all / 2));
+    expect(all.counts.pending + all.counts.approved + all.counts.rejected + all.counts.changes_requested).toBe(all.counts.all);
+    // newest first across pages: page 2 starts where page 1 ends
+    const second = await listOwnSubmissions(ownerAccount.id, { status: null, page: 2, pageSize: 2 });
+    expect(second.submissions[0].createdAt <= all.submissions[1].createdAt).toBe(true);
+    expect(second.submissions.map((x) => x.id)).not.toContain(all.submissions[1].id);
+    const rejected = await listOwnSubmissions(ownerAccount.id, { status: "rejected", page: 1, pageSize: 10 });
+    expect(rejected.submissions.map((x) => x.id)).toContain(ids[0]);
+    expect(rejected.submissions.every((x) => x.status === "rejected")).toBe(true);
+    expect(rejected.total).toBe(rejected.counts.rejected);
+  });
+
+  it("GET /api/v1/submissions refuses an unknown status or page 0 with the field named, and pages with the query", async () => {
+    await expectError(await callRoute(listRoute, withCookie(new Request("http://localhost/api/v1/submissions?status=lost"), owner)), 400, "status");
+    await expectError(await callRoute(listRoute, withCookie(new Request("http://localhost/api/v1/submissions?page=0"), owner)), 400, "page");
+    const res = await callRoute(listRoute, withCookie(new Request("http://localhost/api/v1/submissions?pageSize=1"), owner));
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body.submissions).toHaveLength(1);
+    expect(body).toMatchObject({ page: 1, pageSize: 1, status: null });
   });
 });

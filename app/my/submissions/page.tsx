@@ -4,14 +4,50 @@ import { StatusBadge } from "@/components/submission/status-badge";
 import { requirePageUser } from "@/lib/auth";
 import { formatFigure } from "@/lib/catalogue/format";
 import { renderMarkdown } from "@/lib/content/markdown";
-import { listOwnSubmissions, type SubmissionView } from "@/lib/submissions";
+import { listOwnSubmissions, parseOwnListQuery, type OwnListPage, type SubmissionView } from "@/lib/submissions";
+import { ChipCount, FilterChip } from "@/components/filter-chip";
+import { ParamErrors } from "@/components/param-errors";
+import { Pagination } from "@/components/pagination";
 import { When } from "@/components/when";
-import { METHOD_LABELS, SENSING_SOURCE_LABELS } from "@/lib/vocabulary";
+import { METHOD_LABELS, SENSING_SOURCE_LABELS, STATUSES, STATUS_LABELS, type SubmissionStatus } from "@/lib/vocabulary";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "My submissions" };
 
-type Props = { searchParams: Promise<{ sent?: string; updated?: string }> };
+type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
+
+const first = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
+
+function listHref(status: SubmissionStatus | null, page = 1): string {
+  const q = new URLSearchParams();
+  if (status) q.set("status", status);
+  if (page > 1) q.set("page", String(page));
+  const s = q.toString();
+  return s ? `/my/submissions?${s}` : "/my/submissions";
+}
+
+function withoutField(sp: Record<string, string | string[] | undefined>, field: string): string {
+  const status = field === "status" ? null : (first(sp.status) ?? null);
+  return listHref(status as SubmissionStatus | null, field === "page" ? 1 : Number(first(sp.page)) || 1);
+}
+
+function StatusFilter({ list }: { list: OwnListPage }) {
+  const choices: (SubmissionStatus | null)[] = [null, ...STATUSES];
+  return (
+    <nav aria-label="Show by status">
+      <ul className="flex flex-wrap gap-2">
+        {choices.map((status) => (
+          <li key={status ?? "all"}>
+            <FilterChip href={listHref(status)} active={list.status === status}>
+              {status ? STATUS_LABELS[status] : "All"}
+              <ChipCount n={list.counts[status ?? "all"]} what="submissions" />
+            </FilterChip>
+          </li>
+        ))}
+      </ul>
+    </nav>
+  );
+}
 
 // Contributors' and moderators' Markdown goes through the one sanitising renderer.
 function Markdown({ text, className = "" }: { text: string; className?: string }) {
@@ -106,9 +142,26 @@ function SubmissionCard({ s, highlight }: { s: SubmissionView; highlight: boolea
 // the moderator's feedback; pending and changes-requested ones can be edited.
 export default async function MySubmissionsPage({ searchParams }: Props) {
   const user = await requirePageUser("/my/submissions");
-  const { sent, updated } = await searchParams;
-  const submissions = await listOwnSubmissions(user.id);
-  const justNow = Number(sent ?? updated);
+  const sp = await searchParams;
+  const sent = first(sp.sent);
+  const justNow = Number(sent ?? first(sp.updated));
+  const parsed = parseOwnListQuery(sp);
+  if (!parsed.ok) {
+    return (
+      <div className="space-y-4 pb-12">
+        <h1 className="font-display text-title uppercase">My submissions</h1>
+        <ParamErrors
+          fieldErrors={parsed.fieldErrors}
+          withoutField={(field) => withoutField(sp, field)}
+          list="list of your submissions"
+          showWhat="your submissions"
+          startOver={{ href: "/my/submissions", label: "Show all your submissions" }}
+        />
+      </div>
+    );
+  }
+  const list = await listOwnSubmissions(user.id, parsed.params);
+  const submissions = list.submissions;
   return (
     <div className="space-y-8 pb-12">
       <header className="flex flex-wrap items-end justify-between gap-4">
@@ -125,9 +178,15 @@ export default async function MySubmissionsPage({ searchParams }: Props) {
           {sent ? `Submission #${justNow} received: it is pending review. We have sent you an e-mail.` : `Submission #${justNow} saved.`}
         </p>
       )}
-      {submissions.length === 0 ? (
+      {list.counts.all > 0 && <StatusFilter list={list} />}
+      {list.counts.all === 0 ? (
         <p className="max-w-prose rounded-md border-3 border-rule bg-surface p-4">
           You have not sent any values yet. <Link href="/submit">Send the values you measured</Link> and they will show here while a moderator reviews them.
+        </p>
+      ) : submissions.length === 0 ? (
+        <p className="max-w-prose rounded-md border-3 border-rule bg-surface p-4">
+          {list.total === 0 ? "None of your submissions has this status." : "This page is past the last one."}{" "}
+          <Link href={listHref(null)}>Show all your submissions</Link>
         </p>
       ) : (
         <ol className="space-y-4" aria-label="Your submissions, newest first">
@@ -136,6 +195,7 @@ export default async function MySubmissionsPage({ searchParams }: Props) {
           ))}
         </ol>
       )}
+      <Pagination page={list.page} pageCount={list.pageCount} hrefFor={(page) => listHref(list.status, page)} />
     </div>
   );
 }

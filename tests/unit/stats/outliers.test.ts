@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { describeFlags, flagPoints, MODIFIED_Z_CUTOFF, tukeyFences } from "@/lib/stats";
+import { describeFlags, flagPoints, MODIFIED_Z_CUTOFF, spreadMultiple, tukeyFences } from "@/lib/stats";
 
 const CHECK_SET = [10.9, 11, 11, 11.1, 11.2, 25]; // worked by hand: median 11.05, MAD 0.1, M(25) ≈ 94.09
 
@@ -16,6 +16,13 @@ describe("modified z-score (NIST e-Handbook §1.3.5.17)", () => {
     expect(Math.abs(m25 - 94.09275)).toBeLessThan(1e-9);
     expect(m25).toBeCloseTo(94.09, 1);
     expect(report.points.map((p) => p.outlier)).toEqual([false, false, false, false, false, true]);
+  });
+
+  it("in words: M(25) ≈ 94.09 is 'about 94×' the usual spread, M = −1.01175 'about 1.0×' (worked from the same figures)", () => {
+    const [low, , , , , far] = flagPoints(CHECK_SET);
+    expect(spreadMultiple(far.modifiedZ!)).toBe("94");
+    expect(spreadMultiple(low.modifiedZ!)).toBe("1.0");
+    expect(spreadMultiple(MODIFIED_Z_CUTOFF)).toBe("3.5");
   });
 
   it("is symmetric up to float error (float8 makes M slightly asymmetric, so compare with a tolerance)", () => {

@@ -1,5 +1,5 @@
 import { privateJson, route, routes } from "@/lib/http";
-import { createSubmission, listOwnSubmissions, parseIdempotencyKey } from "@/lib/submissions";
+import { createSubmission, listOwnSubmissions, OwnListQuerySchema, parseIdempotencyKey } from "@/lib/submissions";
 
 export const { GET, POST, PUT, PATCH, DELETE } = routes({
   // POST /api/v1/submissions: a contribution with its evidence, as JSON, from a signed-in person.
@@ -12,6 +12,7 @@ export const { GET, POST, PUT, PATCH, DELETE } = routes({
     const replayed: Record<string, string> = result.replayed ? { "Idempotent-Replayed": "true" } : {};
     return privateJson(result.body, result.status, { Location: result.body.submission.links.self, ...replayed });
   }),
-  // GET /api/v1/submissions: the caller's own submissions, newest first.
-  GET: route({ auth: "user" }, async ({ user }) => privateJson({ submissions: await listOwnSubmissions(user.id) })),
+  // GET /api/v1/submissions?status&page&pageSize: a page of the caller's own submissions, newest
+  // first, with counts per status.
+  GET: route({ auth: "user", query: OwnListQuerySchema }, async ({ user, query }) => privateJson(await listOwnSubmissions(user.id, query))),
 });

@@ -98,7 +98,7 @@ type RevertFacts = {
   contributorId: string | null;
 };
 
-export function revertBlock(e: RevertFacts, viewer?: Viewer | null): RevertBlock | null {
+function revertBlock(e: RevertFacts, viewer?: Viewer | null): RevertBlock | null {
   if (viewer && viewer.role !== "admin") return "not_admin";
   if (e.entityType !== "submission") return "not_submission";
   if (e.revertedByEventId !== null) return "already_reverted";

@@ -85,7 +85,8 @@ export async function decide(actor: Actor, submissionId: number, decision: Decis
   };
 }
 
-export const approveSubmission = (actor: Actor, id: number, body: { version: number; note?: string | null }) => decide(actor, id, "approve", body);
+export const approveSubmission = (actor: Actor, id: number, body: { version: number; note?: string | null; reason?: string | null }) =>
+  decide(actor, id, "approve", body);
 
 type BulkItemResult =
   | { id: number; outcome: "approved"; version: number; eventId: number; changed: QuantityKey[] }

@@ -71,8 +71,9 @@ export function StripPlot({
   const lo = Math.min(...values);
   const hi = Math.max(...values);
   const span = Math.max(hi - lo, Math.abs(median ?? lo) * 0.02, 1);
-  // far outside the approved values (more than their whole span beyond them): at the edge, with an arrow
-  const offScale = highlight !== null && (highlight < lo - 1.5 * span || highlight > hi + 1.5 * span);
+  // far outside the approved values (more than eight times their span beyond them, which would squeeze
+  // them into one stack): at the edge, with an arrow and its number
+  const offScale = highlight !== null && (highlight < lo - 8 * span || highlight > hi + 8 * span);
   const shown = highlight !== null && !offScale ? [...values, highlight] : values;
   const axis = niceAxis(Math.min(...shown), Math.max(...shown));
   const [d0, d1] = axis.domain;

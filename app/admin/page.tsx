@@ -1,24 +1,41 @@
 import type { Metadata } from "next";
 import { RevertForm, UserForm } from "@/components/admin/admin-forms";
+import { EventSummary } from "@/components/moderation/event-words";
+import { Pagination } from "@/components/pagination";
+import { When } from "@/components/when";
 import { requirePageRole } from "@/lib/auth";
-import { listAuditEvents } from "@/lib/moderation/audit";
-import { TRUST_LABELS } from "@/lib/vocabulary";
+import { listAuditEvents, submissionState } from "@/lib/moderation/audit";
 import { listUsers } from "@/lib/moderation/users";
+import { ROLE_LABELS, STATUS_LABELS, TRUST_LABELS } from "@/lib/vocabulary";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Admin" };
 
 type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
-const dateTime = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
 const box = "space-y-3 rounded-md border-3 border-rule bg-surface p-4";
 
-// /admin: people's roles and trust, and the moderation log with a revert for each decision that
-// can still be undone. Everything goes through lib/moderation, which writes the audit trail.
+/** The page's own params, leniently: a bad page is page 1, a search is trimmed and cut to the API's 100 characters. */
+function parseParams(sp: Record<string, string | string[] | undefined>) {
+  const one = (k: string) => (typeof sp[k] === "string" ? (sp[k] as string) : "");
+  const page = Number(one("page"));
+  return { page: Number.isSafeInteger(page) && page >= 1 && page <= 10_000 ? page : 1, q: one("q").trim().slice(0, 100) };
+}
+
+function adminHref(q: string, page: number): string {
+  const p = new URLSearchParams();
+  if (q) p.set("q", q);
+  if (page > 1) p.set("page", String(page));
+  const qs = p.toString();
+  return qs ? `/admin?${qs}` : "/admin";
+}
+
+// /admin: people's roles and trust (searched by name or e-mail, paged), and the moderation log with
+// a revert, asked for twice, for each decision that can be undone now. Everything goes through
+// lib/moderation, which writes the audit trail.
 export default async function AdminPage({ searchParams }: Props) {
-  await requirePageRole("/admin", "admin");
-  const sp = await searchParams;
-  const page = Number(sp.page) >= 1 ? Math.floor(Number(sp.page)) : 1;
-  const [users, events] = await Promise.all([listUsers({ page }), listAuditEvents({ pageSize: 30 })]);
+  const { page, q } = parseParams(await searchParams);
+  const admin = await requirePageRole(adminHref(q, page), "admin");
+  const [users, events] = await Promise.all([listUsers({ page, q }), listAuditEvents({ pageSize: 30 }, admin)]);
   return (
     <div className="space-y-8 pb-12">
       <header>
@@ -29,44 +46,58 @@ export default async function AdminPage({ searchParams }: Props) {
         <h2 id="people" className="font-display text-heading uppercase">
           People
         </h2>
+        {/* a plain GET form: the search works without JavaScript and stays in the URL */}
+        <form method="get" action="/admin" role="search" aria-label="Find people" className="flex flex-wrap items-end gap-2">
+          <label className="flex flex-col text-small font-semibold">
+            Name or e-mail
+            <input type="search" name="q" defaultValue={q} maxLength={100} className="sb-field min-h-11" />
+          </label>
+          <button type="submit" className="sb-button min-h-11">
+            Find
+          </button>
+          {q && (
+            <a href="/admin" className="inline-flex min-h-11 items-center">
+              Show everyone
+            </a>
+          )}
+        </form>
+        <p className="text-small text-muted" role="status">
+          {users.total === 0
+            ? `Nobody matches “${q}”.`
+            : `${users.total} ${users.total === 1 ? "person" : "people"}${q ? ` matching “${q}”` : ""} · page ${users.page} of ${users.pageCount}`}
+        </p>
         <ul className="space-y-3">
           {users.users.map((u) => (
             <li key={u.id} className={box}>
-              <p>
+              <p className="break-words">
                 <strong>{u.name}</strong> <span className="text-small text-muted">{u.email}</span>
               </p>
               <p className="text-small">
-                {u.record.approved} approved · {u.record.rejected} rejected · {u.record.pending} pending · {TRUST_LABELS[u.trust.reason]}
+                {ROLE_LABELS[u.role]} since <When at={u.createdAt} /> · {u.record.approved} approved · {u.record.rejected} rejected · {u.record.pending} pending
+                · {TRUST_LABELS[u.trust.reason]}
               </p>
               <UserForm user={{ id: u.id, name: u.name, role: u.role, override: u.trust.override }} />
             </li>
           ))}
         </ul>
-        <p className="text-small text-muted">
-          Page {users.page} of {users.pageCount} · {users.total} people{" "}
-          {users.page < users.pageCount && <a href={`/admin?page=${users.page + 1}`}>Next page</a>}
-        </p>
+        <Pagination page={users.page} pageCount={users.pageCount} hrefFor={(p) => adminHref(q, p)} />
       </section>
       <section aria-labelledby="log" className="space-y-3">
         <h2 id="log" className="font-display text-heading uppercase">
           Latest decisions
         </h2>
         <ol className="space-y-3">
-          {events.events.map((e) => (
-            <li key={e.id} className={box}>
-              <p>
-                <strong>{e.actionLabel}</strong>{" "}
-                {e.entity.type === "submission" ? <a href={`/moderation/${e.entity.id}`}>submission #{e.entity.id}</a> : e.entity.name}
-                <span className="text-small text-muted">
-                  {" "}
-                  · {e.actor?.name ?? "Shuntbook"} · {dateTime.format(new Date(e.at))} UTC
-                </span>
-              </p>
-              {e.reason && <p className="text-small">“{e.reason}”</p>}
-              {e.revertedByEventId !== null && <p className="text-small text-muted">Reverted by event {e.revertedByEventId}.</p>}
-              {e.revertable && <RevertForm eventId={e.id} />}
-            </li>
-          ))}
+          {events.events.map((e) => {
+            const before = e.entity.type === "submission" ? submissionState(e.before) : null;
+            return (
+              <li key={e.id} className={box}>
+                <EventSummary e={e} linkSubmission />
+                {e.revertable && e.entity.type === "submission" && before && (
+                  <RevertForm eventId={e.id} submissionId={e.entity.id} restores={STATUS_LABELS[before.status]} />
+                )}
+              </li>
+            );
+          })}
         </ol>
       </section>
     </div>

@@ -110,7 +110,7 @@ export default async function ModerationQueuePage({ searchParams }: Props) {
           Nothing is waiting here. {q.flag || q.board || q.age ? <Link href="/moderation">Show the whole queue</Link> : null}
         </p>
       ) : (
-        <QueueView rows={data.rows} />
+        <QueueView rows={data.rows} filters={queueHref(q, { page: 1 }).slice("/moderation".length)} />
       )}
       <p className="text-small text-muted">
         {data.total} pending · page {q.page} of {data.pageCount}

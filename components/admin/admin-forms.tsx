@@ -7,7 +7,7 @@ import { z } from "zod";
 import { asApiFetchError } from "@/components/form-errors";
 import { useRevertEvent, useUpdateUser } from "@/components/hooks/use-moderation";
 import { RevertBodySchema, UserPatchBodySchema, type RevertBody, type UserPatchBody } from "@/lib/moderation/schemas";
-import { ROLES, ROLE_LABELS } from "@/lib/vocabulary";
+import { ROLES, ROLE_LABELS, STATUS_LABELS } from "@/lib/vocabulary";
 
 // The admin page's two forms, each checked in the browser with the schema its endpoint uses and
 // sent through apiFetch; a refusal's field messages show under the form, its message below them.
@@ -118,30 +118,61 @@ export function UserForm({ user }: { user: { id: string; name: string; role: str
   );
 }
 
-export function RevertForm({ eventId }: { eventId: number }) {
+/**
+ * Reverting takes two steps: "Revert…" says what will happen and asks for the reason; only
+ * "Yes, revert" sends it. Cancel closes it without a word to the server.
+ */
+export function RevertForm({ eventId, submissionId, restores }: { eventId: number; submissionId: number; restores: string }) {
   const revertEvent = useRevertEvent(eventId);
+  const [confirming, setConfirming] = useState(false);
   const { register, formState, outcome, onSubmit } = useAdminForm<RevertBody, RevertBody>(
     zodResolver(RevertBodySchema),
     { reason: "" },
     "reason",
     async (body) => {
       const { submission } = await revertEvent.mutateAsync(body);
-      return `Reverted: submission #${submission.id} is ${submission.status.replace("_", " ")} again.`;
+      setConfirming(false);
+      return `Reverted: submission #${submission.id} is ${STATUS_LABELS[submission.status].toLowerCase()} again.`;
     },
   );
   const reasonError = formState.errors.reason?.message;
+  const explained = `revert-explained-${eventId}`;
+  if (!confirming)
+    return (
+      <div className="space-y-2">
+        <button type="button" className="sb-button sb-button-quiet min-h-11" aria-expanded="false" onClick={() => setConfirming(true)}>
+          Revert…
+        </button>
+        <OutcomeLine outcome={outcome} />
+      </div>
+    );
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-end gap-2" aria-label={`Revert event ${eventId}`}>
-      <label className="flex flex-col text-small font-semibold">
-        Why revert (required)
-        <input {...register("reason")} className="sb-field min-h-11" aria-invalid={reasonError ? "true" : undefined} />
-      </label>
-      <button type="submit" className="sb-button sb-button-quiet min-h-11" disabled={formState.isSubmitting}>
-        Revert
-      </button>
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      className="space-y-2 rounded-md border-2 border-caution-edge p-3"
+      aria-label={`Revert this action on submission #${submissionId}`}
+      aria-describedby={explained}
+    >
+      <p id={explained} className="text-small font-semibold">
+        Submission #{submissionId} goes back to “{restores.toLowerCase()}”, the published figures are worked out again, and the contributor gets an e-mail.
+        Nothing is deleted: the revert is logged too.
+      </p>
+      <div className="flex flex-wrap items-end gap-2">
+        <label className="flex flex-col text-small font-semibold">
+          Why revert (required)
+          <input {...register("reason")} className="sb-field min-h-11" aria-invalid={reasonError ? "true" : undefined} />
+        </label>
+        <button type="submit" className="sb-button min-h-11" disabled={formState.isSubmitting}>
+          {formState.isSubmitting ? "Reverting…" : "Yes, revert"}
+        </button>
+        <button type="button" className="sb-button sb-button-quiet min-h-11" onClick={() => setConfirming(false)} disabled={formState.isSubmitting}>
+          Cancel
+        </button>
+      </div>
       <FieldProblem message={reasonError} />
-      {/* a refusal about the reason is said beside it; anything else (or a success) below */}
-      {(outcome?.ok || !reasonError) && <OutcomeLine outcome={outcome} />}
+      {/* a refusal about the reason is said beside it; anything else below */}
+      {!reasonError && <OutcomeLine outcome={outcome} />}
     </form>
   );
 }

@@ -8,9 +8,14 @@ import type { QueueRow } from "@/lib/moderation/queue";
 import { QueueTable } from "./queue-table";
 
 // Bulk approval is only offered for rows with no flag at all: anything far off, with disagreeing
-// evidence or from a first-time contributor is reviewed one by one. (The server refuses flagged
-// ones too, not only this page hiding them.)
+// evidence or from a first-time contributor is reviewed one by one. Unverified values (nobody
+// measured them) are approved in batches of their own, never together with measured ones: one
+// "select all" button per kind, and the other kind's boxes wait until the selection is empty.
+// (The server refuses flagged ones and mixed batches too, not only this page.)
 const unflagged = (r: QueueRow) => !r.flags.outlier && !r.flags.mismatch && !r.flags.newContributor;
+type Kind = "measured" | "unverified";
+const kindOf = (r: QueueRow): Kind => (r.method === "unverified" ? "unverified" : "measured");
+const SEPARATE = "Unverified and measured values are approved in separate batches: clear the selection first.";
 
 /** What came of a bulk approval, in one sentence; ok only when every chosen item was approved. */
 function bulkOutcome(r: BulkResult): { ok: boolean; text: string } {
@@ -26,7 +31,7 @@ function bulkOutcome(r: BulkResult): { ok: boolean; text: string } {
   return { ok: r.conflicted.length === 0 && r.refused.length === 0, text: `${parts.join("; ")}.` };
 }
 
-export function QueueView({ rows }: { rows: QueueRow[] }) {
+export function QueueView({ rows, filters }: { rows: QueueRow[]; filters: string }) {
   const bulkApprove = useBulkApprove();
   const [selected, setSelected] = useState<Set<number>>(new Set());
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
@@ -38,6 +43,10 @@ export function QueueView({ rows }: { rows: QueueRow[] }) {
       return next;
     });
   const candidates = rows.filter(unflagged);
+  const measured = candidates.filter((r) => kindOf(r) === "measured");
+  const unverified = candidates.filter((r) => kindOf(r) === "unverified");
+  const selectedKind = rows.find((r) => selected.has(r.id));
+  const blockedWhy = (r: QueueRow) => (selectedKind && kindOf(selectedKind) !== kindOf(r) ? SEPARATE : null);
 
   async function approveSelected() {
     setMessage(null);
@@ -55,9 +64,21 @@ export function QueueView({ rows }: { rows: QueueRow[] }) {
     <div className="space-y-3">
       {candidates.length > 0 && (
         <div className="flex flex-wrap items-center gap-3">
-          <button type="button" className="sb-button sb-button-quiet min-h-11" onClick={() => setSelected(new Set(candidates.map((r) => r.id)))}>
-            Select all unflagged ({candidates.length})
-          </button>
+          {measured.length > 0 && (
+            <button type="button" className="sb-button sb-button-quiet min-h-11" onClick={() => setSelected(new Set(measured.map((r) => r.id)))}>
+              Select all unflagged measured ({measured.length})
+            </button>
+          )}
+          {unverified.length > 0 && (
+            <button type="button" className="sb-button sb-button-quiet min-h-11" onClick={() => setSelected(new Set(unverified.map((r) => r.id)))}>
+              Select all unflagged unverified ({unverified.length})
+            </button>
+          )}
+          {selected.size > 0 && (
+            <button type="button" className="sb-button sb-button-quiet min-h-11" onClick={() => setSelected(new Set())}>
+              Clear selection
+            </button>
+          )}
           <button type="button" className="sb-button min-h-11" disabled={selected.size === 0 || bulkApprove.isPending} onClick={approveSelected}>
             {bulkApprove.isPending ? "Approving…" : `Approve selected (${selected.size})`}
           </button>
@@ -68,7 +89,8 @@ export function QueueView({ rows }: { rows: QueueRow[] }) {
           {message.text}
         </p>
       )}
-      <QueueTable rows={rows} selectable={unflagged} selected={selected} onToggle={toggle} />
+      {candidates.length > 0 && <p className="text-small text-muted">{SEPARATE.split(":")[0]}.</p>}
+      <QueueTable rows={rows} selectable={unflagged} selected={selected} onToggle={toggle} blockedWhy={blockedWhy} filters={filters} />
     </div>
   );
 }

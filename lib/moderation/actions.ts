@@ -1,12 +1,13 @@
+import { QueryTypes } from "sequelize";
 import type { z } from "zod";
 import { ApiError, badRequest } from "@/lib/http/errors";
 import type { QuantityKey } from "@/lib/published/board-values-types";
 import { db } from "@/models";
-import { type Decision, QUEUE_FLAG_LABELS, type SubmissionStatus } from "@/lib/vocabulary";
+import { type Decision, type Method, QUEUE_FLAG_LABELS, type SubmissionStatus } from "@/lib/vocabulary";
 import { getAuditEvent, type AuditEventView } from "./audit";
-import { flagsOfRow, scoredSubmission } from "./flags";
+import { flagsOfRow, scoredSubmission, type SubmissionFlags } from "./flags";
 import { fieldErrorsOf } from "@/lib/http/field-errors";
-import { ApproveBodySchema, BulkApproveBodySchema, RejectBodySchema, RequestChangesBodySchema } from "./schemas";
+import { ApproveBodySchema, BulkApproveBodySchema, FlaggedApproveBodySchema, RejectBodySchema, RequestChangesBodySchema } from "./schemas";
 import { applyTransition, ModerationRefusal, type TransitionInput } from "./transition";
 
 // A moderator's decisions on a pending submission: approve, reject (with a reason), request
@@ -32,13 +33,26 @@ function parse<S extends z.ZodType>(schema: S, body: unknown): z.output<S> {
   return parsed.data;
 }
 
-type DecisionPlan = Pick<TransitionInput, "expectedVersion" | "to" | "reason" | "action">;
+type DecisionPlan = Pick<TransitionInput, "expectedVersion" | "to" | "reason" | "action" | "check">;
+
+/** Approving a value far from the others, or one its own evidence disagrees with, needs a reason (FlaggedApproveBodySchema). */
+export const approvalNeedsReason = (flags: Pick<SubmissionFlags, "outlier" | "mismatch">) => flags.outlier || flags.mismatch;
 
 function plan(decision: Decision, body: unknown): DecisionPlan {
   switch (decision) {
     case "approve": {
       const b = parse(ApproveBodySchema, body);
-      return { action: "approve", expectedVersion: b.version, to: { status: "approved", moderatorNote: b.note ?? null }, reason: b.note ?? null };
+      return {
+        action: "approve",
+        expectedVersion: b.version,
+        to: { status: "approved", moderatorNote: b.note ?? null },
+        reason: b.reason ?? b.note ?? null,
+        // on the locked row, so the flags judged are the ones the approval meets
+        check: async (row, transaction) => {
+          const scored = await scoredSubmission(row.id, transaction);
+          if (scored && approvalNeedsReason(flagsOfRow(scored))) parse(FlaggedApproveBodySchema, body);
+        },
+      };
     }
     case "reject": {
       const b = parse(RejectBodySchema, body);
@@ -53,7 +67,8 @@ function plan(decision: Decision, body: unknown): DecisionPlan {
 }
 
 /**
- * One decision on one submission. `body` is the request's JSON: { version, note? } to approve,
+ * One decision on one submission. `body` is the request's JSON: { version, note?, reason? } to
+ * approve (reason required when a value is far off or the evidence disagrees),
  * { version, reason } to reject, { version, message } to request changes. Throws ApiError: 400
  * naming the field, 404 unknown id, 403 own submission, 409 "Someone else acted on this first"
  * for a stale version, 409 when the submission is no longer undecided.
@@ -70,7 +85,8 @@ export async function decide(actor: Actor, submissionId: number, decision: Decis
   };
 }
 
-export const approveSubmission = (actor: Actor, id: number, body: { version: number; note?: string | null }) => decide(actor, id, "approve", body);
+export const approveSubmission = (actor: Actor, id: number, body: { version: number; note?: string | null; reason?: string | null }) =>
+  decide(actor, id, "approve", body);
 
 type BulkItemResult =
   | { id: number; outcome: "approved"; version: number; eventId: number; changed: QuantityKey[] }
@@ -89,11 +105,22 @@ export type BulkResult = {
  * Approves several unflagged pending submissions, each in its own transaction with its own
  * version check, in the order given. An item that is flagged (far off, evidence disagrees,
  * first-time contributor) is refused: those need a look of their own. Never throws for one item;
- * a bad body is a 400 before anything is written.
+ * a bad body, or a batch mixing unverified values with measured ones, is a 400 before anything is
+ * written.
  */
 export async function bulkApprove(actor: Actor, body: unknown): Promise<BulkResult> {
   const { items } = parse(BulkApproveBodySchema, body);
   const sequelize = db();
+  // values nobody measured are never approved in one batch with measured ones: a quick "approve all"
+  // must not give a guess the weight of a meter reading without the moderator choosing that batch
+  const methods = await sequelize.query<{ method: Method }>("SELECT DISTINCT method FROM submissions WHERE id IN (:ids)", {
+    replacements: { ids: items.map((i) => i.id) },
+    type: QueryTypes.SELECT,
+  });
+  const unverified = methods.some((m) => m.method === "unverified");
+  if (unverified && methods.length > 1) {
+    throw badRequest({ items: ["Approve unverified values in a batch of their own, apart from measured ones."] });
+  }
   const results: BulkItemResult[] = [];
   for (const item of items) {
     try {

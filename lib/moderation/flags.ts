@@ -23,9 +23,10 @@ const statsJoin = (q: Quantity) =>
      AND st_${q}.firmware_family_id = s.firmware_family_id AND st_${q}.quantity = '${q}'`;
 
 /**
- * Submissions (alias s) with their joins and scores, for a WHERE on s, bm (board_models), br,
- * ff and u. Columns: see ScoredRow. Every lookup is by primary key or by
- * submissions_contributor_status_created_idx (the first-time-contributor test).
+ * Submissions (alias s) with their joins and scores (and each quantity's published median and n,
+ * what the score is taken against), for a WHERE on s, bm (board_models), br, ff and u. Columns:
+ * see ScoredRow. Every lookup is by primary key or by submissions_contributor_status_created_idx
+ * (the first-time-contributor test).
  */
 function scoredSql(where: string): string {
   return `
@@ -37,7 +38,7 @@ function scoredSql(where: string): string {
          s.voltage_scale AS "voltageScale", s.current_scale AS "currentScale", s.current_offset AS "currentOffset",
          s.evidence_mismatch AS mismatch,
          NOT EXISTS (SELECT 1 FROM submissions a WHERE a.contributor_id = s.contributor_id AND a.status = 'approved') AS "newContributor",
-         ${QUANTITIES.map((q) => `${zOf(q)} AS "z_${q}"`).join(",\n         ")}
+         ${QUANTITIES.map((q) => `${zOf(q)} AS "z_${q}", st_${q}.median AS "median_${q}", st_${q}.n AS "n_${q}"`).join(",\n         ")}
     FROM submissions s
     JOIN board_revisions br ON br.id = s.board_revision_id
     JOIN board_models bm ON bm.id = br.board_model_id
@@ -85,7 +86,7 @@ export type ScoredRow = {
   newContributor: boolean;
   maxAbsZ: number | null;
   outlier: boolean;
-} & Record<`z_${Quantity}`, number | null>;
+} & Record<`z_${Quantity}` | `median_${Quantity}` | `n_${Quantity}`, number | null>;
 
 /** JSON has no Infinity: an unbounded score is reported as null with outlier = true. */
 const finiteOrNull = (v: number | null): number | null => (v === null || !Number.isFinite(Number(v)) ? null : Number(v));

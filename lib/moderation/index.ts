@@ -3,7 +3,7 @@
 // trusted contributors and the daily digest. The history of published values that decisions
 // cause lives in lib/published/history.ts. Route handlers in app/api/v1/moderation and
 // app/api/v1/admin, and the moderation pages, go through these.
-export { listQueue, parseQueueParams, type QueueRow } from "./queue";
+export { listQueue, nextInQueue, parseQueueParams, type QueueRow } from "./queue";
 export { getReview } from "./review";
 export { approveSubmission, bulkApprove, decide } from "./actions";
 export { revertEvent } from "./revert";

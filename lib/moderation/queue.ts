@@ -2,10 +2,12 @@ import { QueryTypes } from "sequelize";
 import { z } from "zod";
 import { badRequest } from "@/lib/http/errors";
 import { pageParam, pageSizeParam, parseQueryOrRefuse } from "@/lib/http/query";
-import type { QuantityKey } from "@/lib/published/board-values-types";
+import { QUANTITY_KEYS, type QuantityKey } from "@/lib/published/board-values-types";
 import { db } from "@/models";
 import {
   type Method,
+  QUANTITIES,
+  type Quantity,
   QUEUE_AGES,
   QUEUE_DEFAULT_PAGE_SIZE,
   QUEUE_FLAGS,
@@ -65,8 +67,14 @@ export type QueueRow = {
   contributor: { id: string; name: string };
   method: Method;
   values: Record<QuantityKey, number | null>;
+  /** Each quantity's published median and number of approved values (what the flags compare against); null when nothing is approved yet. */
+  group: Record<QuantityKey, { median: number; n: number } | null>;
+  /** The evidence sent with it: voltage readings, fly-and-recharge cycles, bench points, photos (removed ones not counted). */
+  evidence: EvidenceCounts;
   flags: SubmissionFlags;
 };
+
+export type EvidenceCounts = { readings: number; cycles: number; benchPoints: number; photos: number };
 
 export type QueueCounts = Record<QueueFlag | "all", number>;
 
@@ -97,7 +105,25 @@ const ORDERS: Record<QueueSort, string> = {
   newest: `"createdAt" DESC, id DESC`,
 };
 
-function toRow(r: ScoredRow): QueueRow {
+type QueueSqlRow = ScoredRow & EvidenceCounts;
+
+// per row of the page only: each count by its table's (submission_id, position) unique index, photos by evidence_photos_submission_idx
+const EVIDENCE_COUNTS = `
+  (SELECT count(*)::int FROM submission_voltage_readings r WHERE r.submission_id = q.id) AS readings,
+  (SELECT count(*)::int FROM submission_cycles c WHERE c.submission_id = q.id) AS cycles,
+  (SELECT count(*)::int FROM submission_bench_points b WHERE b.submission_id = q.id) AS "benchPoints",
+  (SELECT count(*)::int FROM evidence_photos p WHERE p.submission_id = q.id AND p.deleted_at IS NULL) AS photos`;
+
+function groupOf(r: ScoredRow): QueueRow["group"] {
+  const one = (q: Quantity) => {
+    const median = r[`median_${q}`];
+    const n = r[`n_${q}`];
+    return median === null || n === null ? null : { median: Number(median), n: Number(n) };
+  };
+  return Object.fromEntries(QUANTITIES.map((q) => [QUANTITY_KEYS[q], one(q)])) as QueueRow["group"];
+}
+
+function toRow(r: QueueSqlRow): QueueRow {
   return {
     id: r.id,
     version: r.version,
@@ -108,6 +134,8 @@ function toRow(r: ScoredRow): QueueRow {
     contributor: { id: r.contributorId, name: r.contributorName },
     method: r.method as Method,
     values: { voltageScale: r.voltageScale, currentScale: r.currentScale, currentOffset: r.currentOffset },
+    group: groupOf(r),
+    evidence: { readings: r.readings, cycles: r.cycles, benchPoints: r.benchPoints, photos: r.photos },
     flags: flagsOfRow(r),
   };
 }
@@ -147,8 +175,8 @@ export async function listQueue(input: Partial<QueueParams> = {}): Promise<Queue
   const where = common.length ? common.join(" AND ") : "TRUE";
   const flagWhere = params.flag ? FLAG_CONDITIONS[params.flag] : "TRUE";
   const [rows, counts, boards] = await Promise.all([
-    sequelize.query<ScoredRow>(
-      `SELECT * FROM (${flaggedSql(`s.status = 'pending' AND ${where}`)}) q WHERE ${flagWhere}
+    sequelize.query<QueueSqlRow>(
+      `SELECT q.*, ${EVIDENCE_COUNTS} FROM (${flaggedSql(`s.status = 'pending' AND ${where}`)}) q WHERE ${flagWhere}
         ORDER BY ${ORDERS[params.sort]} LIMIT :limit OFFSET :offset`,
       { replacements: { ...replacements, limit: params.pageSize, offset: (params.page - 1) * params.pageSize }, type: QueryTypes.SELECT },
     ),
@@ -172,4 +200,19 @@ export async function listQueue(input: Partial<QueueParams> = {}): Promise<Queue
     boards,
     params,
   };
+}
+
+/**
+ * The submission a moderator meets next: the first pending one in the queue's order under the same
+ * filters, other than `currentId` (the one on screen, decided or not). Null when nothing else waits.
+ * A board filter that no longer matches a board falls back to the whole queue.
+ */
+export async function nextInQueue(params: Partial<Omit<QueueParams, "page" | "pageSize">>, currentId: number): Promise<QueueRow | null> {
+  const first = (p: Partial<QueueParams>) => listQueue({ ...p, page: 1, pageSize: 2 }).then((page) => page.rows.find((r) => r.id !== currentId) ?? null);
+  try {
+    return await first(params);
+  } catch (error) {
+    if (params.board) return first({ ...params, board: null });
+    throw error;
+  }
 }

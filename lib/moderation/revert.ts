@@ -1,8 +1,9 @@
 import { UniqueConstraintError } from "sequelize";
 import { badRequest } from "@/lib/http/errors";
 import { db } from "@/models";
-import { STATUSES } from "@/lib/vocabulary";
-import { getAuditEvent, type SubmissionState } from "./audit";
+import { formatDateTime } from "@/lib/dates/format";
+import { STATUS_LABELS, STATUSES } from "@/lib/vocabulary";
+import { eventForRevert, getAuditEvent, submissionState, type AuditEventView, type RevertBlock } from "./audit";
 import { fieldErrorsOf } from "@/lib/http/field-errors";
 import { RevertBodySchema } from "./schemas";
 import { applyTransition, ModerationRefusal } from "./transition";
@@ -19,33 +20,45 @@ import type { Actor, DecisionResult } from "./actions";
 const missingEvent = (id: number) =>
   new ModerationRefusal(404, "not_found", `There is no audit event with id ${id}.`, { id: [`There is no audit event with id ${id}.`] });
 
-function submissionState(value: Record<string, unknown>): SubmissionState | null {
-  const { status, moderatorNote, version } = value as Partial<SubmissionState>;
-  if (!STATUSES.includes(status as never) || typeof version !== "number" || (moderatorNote !== null && typeof moderatorNote !== "string")) return null;
-  return { status: status!, moderatorNote: moderatorNote ?? null, version };
+/** The refusal for each reason audit.ts's revertBlock gives: the same rule sets `revertable` in the log. */
+function refusal(block: RevertBlock, event: AuditEventView): ModerationRefusal {
+  switch (block) {
+    case "not_admin":
+      return new ModerationRefusal(403, "not_revertable", "Only an admin can revert a decision.");
+    case "not_submission":
+      return new ModerationRefusal(
+        409,
+        "not_revertable",
+        "Only decisions on submissions can be reverted; change a user's role or trust back with another change.",
+      );
+    case "already_reverted": {
+      const by = event.revertedBy;
+      const who = by ? `${by.actor?.name ?? "someone"} on ${formatDateTime(by.at)}` : "someone";
+      return new ModerationRefusal(409, "already_reverted", `This action was already reverted by ${who}; revert that revert to redo it.`);
+    }
+    case "no_state":
+      return new ModerationRefusal(409, "not_revertable", "This event does not record a submission's status, so there is nothing to restore.");
+    case "moved_on":
+      return new ModerationRefusal(409, "conflict", "The submission changed after this action; revert its later actions first, newest first.", {
+        id: ["the submission has moved on since this action"],
+      });
+    case "own_submission":
+      return new ModerationRefusal(403, "own_submission", "Another admin has to revert a decision on your own submission.");
+  }
 }
 
-/** Reverts event `eventId`; body { reason }. 404 unknown event, 409 when it cannot be undone (see above). */
+/** Reverts event `eventId`; body { reason }. 404 unknown event, 403 own submission, 409 when it cannot be undone (see above). */
 export async function revertEvent(actor: Actor, eventId: number, body: unknown): Promise<DecisionResult> {
   const parsed = RevertBodySchema.safeParse(body ?? {});
   if (!parsed.success) throw badRequest(fieldErrorsOf(parsed.error.issues));
   const { reason } = parsed.data;
-  const event = await getAuditEvent(eventId);
-  if (!event) throw missingEvent(eventId);
-  if (event.entity.type !== "submission") {
-    throw new ModerationRefusal(
-      409,
-      "not_revertable",
-      "Only decisions on submissions can be reverted; change a user's role or trust back with another change.",
-    );
-  }
-  if (event.revertedByEventId !== null) {
-    throw new ModerationRefusal(409, "already_reverted", `This action was already reverted by event ${event.revertedByEventId}; revert that one to redo it.`);
-  }
-  const before = submissionState(event.before);
-  const after = submissionState(event.after);
-  if (!before || !after)
-    throw new ModerationRefusal(409, "not_revertable", "This event does not record a submission's status, so there is nothing to restore.");
+  // the route lets only admins call this (role("admin")), so the actor is judged as one
+  const found = await eventForRevert(eventId, { id: actor.id, role: "admin" });
+  if (!found) throw missingEvent(eventId);
+  const { event, block } = found;
+  if (block || event.entity.type !== "submission") throw refusal(block ?? "not_submission", event);
+  const before = submissionState(event.before)!;
+  const after = submissionState(event.after)!;
 
   const submissionId = event.entity.id;
   const sequelize = db();
@@ -66,8 +79,8 @@ export async function revertEvent(actor: Actor, eventId: number, body: unknown):
             new ModerationRefusal(
               409,
               "conflict",
-              `Submission ${submissionId} changed after this action (it is now ${current.status}, version ${current.version}); revert its later actions first, newest first.`,
-              { id: [`submission ${submissionId} has moved on since event ${eventId}`] },
+              `Submission ${submissionId} changed after this action (it is now ${STATUS_LABELS[current.status].toLowerCase()}); revert its later actions first, newest first.`,
+              { id: ["the submission has moved on since this action"] },
             ),
         },
         transaction,

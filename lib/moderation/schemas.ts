@@ -18,6 +18,17 @@ export const ApproveBodySchema = z.object({
   version,
   /** Optional word to the contributor, shown with the approval. */
   note: text("The note", "Leave the note out, or write something").nullish(),
+  /** Why it is approved, for the log; required when a value is far from the others or the evidence disagrees (FlaggedApproveBodySchema). */
+  reason: text("The reason", "Leave the reason out, or write something").nullish(),
+});
+
+/**
+ * Approving a flagged submission (a value far from the approved ones, or evidence that disagrees
+ * with the values): the moderator must say why, in words that stay in the log. The server applies
+ * it to the locked row's flags, so a value that became flagged meanwhile cannot slip through.
+ */
+export const FlaggedApproveBodySchema = ApproveBodySchema.extend({
+  reason: text("The reason", "Say why you approve it although it is flagged: the reason stays in the log"),
 });
 
 export const RejectBodySchema = z.object({

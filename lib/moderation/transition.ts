@@ -157,7 +157,7 @@ export async function applyTransition(input: TransitionInput, transaction: Trans
   }
 
   if (input.action === "revert") await queueRevertMail(row.id, before.status, transaction);
-  else await queueStatusMail(row.id, transaction, "decided");
+  else await queueStatusMail(row.id, transaction, input.action === "auto_approve" ? "auto_approved" : "decided");
 
   return { submissionId: row.id, before, after, eventId: event.id, changed, group: row.group };
 }

@@ -2,6 +2,7 @@ import { QueryTypes } from "sequelize";
 import { z } from "zod";
 import { ApiError, badRequest } from "@/lib/http/errors";
 import { pageParam, parseQueryOrRefuse } from "@/lib/http/query";
+import { whereOf } from "@/lib/db/where";
 import { db } from "@/models";
 import { type Role, ROLES } from "@/lib/vocabulary";
 import { writeAuditEvent, type AuditEventView, type UserState, getAuditEvent } from "./audit";
@@ -66,11 +67,19 @@ export async function getUserSummary(id: string): Promise<UserSummary | null> {
   return row ? toSummary(row, trustThreshold()) : null;
 }
 
-const USERS_PAGE_SIZE = 50;
+const USERS_PAGE_SIZE = 20;
+const SEARCH_MAX_LENGTH = 100;
 
 const UsersQuerySchema = z.object({
   page: pageParam(),
   role: z.enum(ROLES, { error: `role is one of: ${ROLES.join(", ")}` }).optional(),
+  /** Any part of a name or e-mail address, case-insensitive; empty means everyone. */
+  q: z
+    .string()
+    .trim()
+    .max(SEARCH_MAX_LENGTH, `q (the search) is at most ${SEARCH_MAX_LENGTH} characters`)
+    .optional()
+    .transform((v) => v || undefined),
 });
 export type UsersQuery = z.output<typeof UsersQuerySchema>;
 
@@ -78,13 +87,26 @@ export function parseUsersQuery(input: Record<string, string | string[] | undefi
   return parseQueryOrRefuse(UsersQuerySchema, input);
 }
 
-export type UsersPage = { users: UserSummary[]; page: number; pageSize: number; total: number; pageCount: number };
+export type UsersPage = { users: UserSummary[]; page: number; pageSize: number; total: number; pageCount: number; q: string | null };
 
-/** People for the admin's list: admins, then moderators, then contributors; by name. users_role_idx serves the role filter. */
+/** "50%_off\\" as an ILIKE pattern that finds exactly that text anywhere: its wildcards and the escape taken literally. */
+const containsPattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/**
+ * People for the admin's list: admins, then moderators, then contributors; by name; paged. The
+ * role filter is served by users_role_idx, the search (any part of name or e-mail) by
+ * users_name_email_trgm_idx over the same expression.
+ */
 export async function listUsers(query: Partial<UsersQuery> = {}): Promise<UsersPage> {
   const q = UsersQuerySchema.parse(query);
-  const where = q.role ? "WHERE u.role = :role" : "";
-  const replacements = { role: q.role ?? null, limit: USERS_PAGE_SIZE, offset: (q.page - 1) * USERS_PAGE_SIZE };
+  const replacements: Record<string, unknown> = { limit: USERS_PAGE_SIZE, offset: (q.page - 1) * USERS_PAGE_SIZE };
+  const where = whereOf(
+    [
+      ["u.role = :role", "role", q.role],
+      ["(u.name || ' ' || u.email) ILIKE :like", "like", q.q === undefined ? undefined : containsPattern(q.q)],
+    ],
+    replacements,
+  );
   const sequelize = db();
   const [rows, [{ total }]] = await Promise.all([
     sequelize.query<UserRow>(
@@ -100,6 +122,7 @@ export async function listUsers(query: Partial<UsersQuery> = {}): Promise<UsersP
     pageSize: USERS_PAGE_SIZE,
     total,
     pageCount: Math.max(1, Math.ceil(total / USERS_PAGE_SIZE)),
+    q: q.q ?? null,
   };
 }
 

@@ -11,7 +11,8 @@ import { loadSubmissionView, type SubmissionView } from "./view";
 
 // Creating a submission: validate (nothing is written for a refused request), then one transaction
 // writes the submission, its evidence rows, the evidence verdict, the attached photos, the
-// "received" mail job and the idempotency record. Any failure rolls all of it back.
+// contributor's one mail job ("received", or "published automatically") and the idempotency
+// record. Any failure rolls all of it back.
 //
 // A caller that must write more in the same transaction (a worksheet linking the submission it
 // became, lib/worksheets/publish.ts) passes its own `transaction`: then everything here happens in
@@ -75,9 +76,10 @@ async function writeSubmission(
   );
   await writeEvidence(submission.id, payload, transaction);
   await attachPhotosToSubmission(payload.photoIds, submission.id, user.id, transaction);
-  await queueStatusMail(submission.id, transaction, "created");
-  // a trusted contributor's unflagged submission is approved at once, in this same transaction
-  await applyTrustOnCreate(submission.id, transaction);
+  // a trusted contributor's unflagged submission is approved at once, in this same transaction, and
+  // its one mail says so (queued by the approval); only one that waits is told it is pending review
+  const trust = await applyTrustOnCreate(submission.id, transaction);
+  if (!trust.autoApproved) await queueStatusMail(submission.id, transaction, "created");
   const created = (await loadSubmissionView(submission.id, transaction))!;
   const response = { status: 201 as const, body: { submission: created } };
   if (idempotency && !(await claimKey(user.id, idempotency.key, idempotency.hash, { ...response, submissionId: submission.id }, transaction))) {

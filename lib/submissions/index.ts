@@ -3,7 +3,7 @@
 export { createSubmission } from "./create";
 export { updateSubmission } from "./update";
 
-export { getOwnSubmission, loadSubmissionView, type SubmissionView } from "./view";
+export { getOwnSubmission, type SubmissionView } from "./view";
 export { listOwnSubmissions, OwnListQuerySchema, parseOwnListQuery, type OwnListPage } from "./own-list";
 export { queueStatusMail } from "./status-mail";
 export { KEY_TTL_HOURS, parseIdempotencyKey } from "./idempotency";

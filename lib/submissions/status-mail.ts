@@ -10,9 +10,12 @@ import { MY_SUBMISSIONS_PATH, submissionEditPath } from "./view";
 // transaction that makes the change: the change and its mail commit together or not at all, and a
 // relay outage only delays the mail (lib/jobs retries it). Creation counts as a change to
 // 'pending'. Moderation calls queueStatusMail after it sets status (and moderator_note).
+// A submission approved at once (a trusted contributor, nothing flagged) gets ONE mail, saying it
+// was published automatically: createSubmission queues the "received" mail only when it stays
+// pending, so no "pending review" mail follows the approval.
 
-/** Why the submission is in its status now; only 'pending' has more than one reason. */
-export type StatusChange = "created" | "resubmitted" | "decided";
+/** Why the submission is in its status now: 'pending' after creation or an edit, 'approved' by a moderator or automatically. */
+export type StatusChange = "created" | "resubmitted" | "decided" | "auto_approved";
 
 type Facts = {
   id: number;
@@ -45,7 +48,13 @@ export function statusMail(to: string, name: string, f: Facts, change: StatusCha
             subject: `Submission #${f.id} received: pending review`,
             body: `Thank you: we received ${what}. It is pending review; a moderator will check the values against the evidence.\n\nYou can change it while it waits:\n${edit}`,
           },
-    approved: { subject: `Submission #${f.id} approved`, body: `A moderator approved ${what}. Its values now count in the board's published figures.` },
+    approved:
+      change === "auto_approved"
+        ? {
+            subject: `Submission #${f.id} published automatically`,
+            body: `Thank you: ${what} was published automatically. You are a trusted contributor and nothing in it needed a closer look, so it did not wait for a moderator. Its values now count in the board's published figures.\n\nModerators can still look at it, and an admin can take it back if something turns out to be wrong.`,
+          }
+        : { subject: `Submission #${f.id} approved`, body: `A moderator approved ${what}. Its values now count in the board's published figures.` },
     rejected: { subject: `Submission #${f.id} not accepted`, body: `A moderator did not accept ${what}.` },
     changes_requested: {
       subject: `Submission #${f.id}: changes requested`,

@@ -206,7 +206,16 @@ describe("every query an endpoint or page runs has an index behind it", () => {
     }
     await ok(get(reviewRoute.GET, `/api/v1/moderation/submissions/${id}`, moderator, { id }));
     await contributorRecord((await testAccount("contributor")).id);
-    await ok(send(approveRoute.POST, "POST", `/api/v1/moderation/submissions/${id}/approve`, moderator, { version: created.submission.version }, { id }));
+    await ok(
+      send(
+        approveRoute.POST,
+        "POST",
+        `/api/v1/moderation/submissions/${id}/approve`,
+        moderator,
+        { version: created.submission.version, reason: "Index check." },
+        { id },
+      ),
+    );
     const second = await ok(
       send(
         submissionsRoute.POST,
@@ -233,6 +242,9 @@ describe("every query an endpoint or page runs has an index behind it", () => {
     const eventId = String(log.events[0].id);
     await ok(send(revertRoute.POST, "POST", `/api/v1/admin/events/${eventId}/revert`, admin, { reason: "Index check." }, { id: eventId }));
     await ok(get(usersRoute.GET, "/api/v1/admin/users?role=contributor", admin));
+    // the admin's people search (issue 13): any part of a name or address, paged
+    await ok(get(usersRoute.GET, "/api/v1/admin/users?q=demo", admin));
+    await ok(get(usersRoute.GET, "/api/v1/admin/users?q=example&page=2&role=contributor", admin));
 
     const readWhole = [...(await seqScansOnceReported())].filter(([table, n]) => n > 0 && !(table in READ_WHOLE)).map(([table, n]) => `${table} (${n}×)`);
     expect(readWhole, "tables read whole although enable_seqscan is off: add the index their query needs").toEqual([]);

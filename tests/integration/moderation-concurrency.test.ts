@@ -25,7 +25,11 @@ beforeAll(async () => {
 });
 
 const body = (decision: Decision) =>
-  decision === "approve" ? { version: 0 } : decision === "reject" ? { version: 0, reason: "Too far off." } : { version: 0, message: "Add evidence." };
+  decision === "approve"
+    ? { version: 0, reason: "Checked: this board's shunt differs." }
+    : decision === "reject"
+      ? { version: 0, reason: "Too far off." }
+      : { version: 0, message: "Add evidence." };
 
 const eventsFor = (id: number) =>
   db().query<{ action: string }>("SELECT action FROM audit_events WHERE submission_id = :id", { replacements: { id }, type: QueryTypes.SELECT });

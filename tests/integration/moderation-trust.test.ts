@@ -96,7 +96,7 @@ describe("applyTrustOnCreate", () => {
     expect(stats).toEqual(await helpers.rebuiltStats(setup.group));
     expect(stats[0]).toMatchObject({ n: 8 });
     expect((await helpers.historyRows(setup.group)).at(-1)).toMatchObject({ n: 8, eventId: outcome.autoApproved ? outcome.eventId : -1 });
-    expect((await helpers.queuedMails("fixture@example.test")).some((m) => m.subject.includes(`#${id} approved`))).toBe(true);
+    expect((await helpers.queuedMails("fixture@example.test")).some((m) => m.subject.includes(`#${id} published automatically`))).toBe(true); // issue 13: its own words
   });
 
   it.each([

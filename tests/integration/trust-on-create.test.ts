@@ -5,6 +5,7 @@ import { createSubmission } from "@/lib/submissions/create";
 import { db } from "@/models";
 import { testAccount } from "@/tests/support/auth";
 import { setupTestDatabase } from "@/tests/support/database";
+import { queuedMails } from "./moderation-helpers";
 import { pickTarget, validBody, type Target } from "./submissions-helpers";
 
 vi.mock("next/headers", () => import("@/tests/support/next-headers"));
@@ -52,6 +53,25 @@ describe("trusted contributors on create (applyTrustOnCreate wired into createSu
       replacements: { id },
     });
     expect(event?.n).toBe(1);
+  });
+
+  it("an auto-approved submission gets exactly one mail, saying it was published automatically, and no 'pending review' mail", async () => {
+    const user = await testAccount("contributor", { email: "one-mail@trust.test" });
+    await db().query("UPDATE users SET trusted = true WHERE id = :id", { replacements: { id: user.id } });
+    const result = await createSubmission(user, unverifiedAtMedian());
+    const id = result.body.submission.id;
+    expect(await statusOf(id)).toBe("approved");
+    const mails = (await queuedMails("one-mail@trust.test")).filter((m) => m.subject.includes(`#${id} `));
+    expect(mails.map((m) => m.subject)).toEqual([`Shuntbook: Submission #${id} published automatically`]);
+    expect(mails[0].text).toMatch(/was published automatically/);
+    expect(mails[0].text).not.toMatch(/pending review|A moderator approved/);
+  });
+
+  it("a submission that waits gets the one 'received: pending review' mail", async () => {
+    const user = await testAccount("contributor", { email: "waits@trust.test" });
+    const id = (await createSubmission(user, unverifiedAtMedian())).body.submission.id;
+    const mails = (await queuedMails("waits@trust.test")).filter((m) => m.subject.includes(`#${id} `));
+    expect(mails.map((m) => m.subject)).toEqual([`Shuntbook: Submission #${id} received: pending review`]);
   });
 
   it("even a trusted contributor's far-off value waits for a moderator", async () => {

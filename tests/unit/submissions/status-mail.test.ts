@@ -31,3 +31,12 @@ describe("status mails", () => {
     expect(m.text).toMatch(/All your submissions: \S+\/my\/submissions/);
   });
 });
+
+describe("the automatic approval's mail (issue 13: one mail, no 'pending review' after it)", () => {
+  it("says it was published automatically, not that a moderator approved it", () => {
+    const m = statusMail("a@example.test", "Ann", { ...facts, status: "approved" }, "auto_approved");
+    expect(m.subject).toBe("Shuntbook: Submission #42 published automatically");
+    expect(m.text).toMatch(/was published automatically/);
+    expect(m.text).not.toMatch(/A moderator approved|pending review/);
+  });
+});

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { ChipCount, FilterChip } from "@/components/filter-chip";
 import { QueueView } from "@/components/moderation/queue-view";
 import { Pagination } from "@/components/pagination";
 import { requirePageRole } from "@/lib/auth";
@@ -18,18 +19,6 @@ const FLAG_LABELS: Record<QueueFlag | "all", string> = {
   new: "First-time contributor",
   none: "No flags",
 };
-
-function Chip({ href, active, children }: { href: string; active: boolean; children: React.ReactNode }) {
-  return (
-    <Link
-      href={href}
-      aria-current={active ? "true" : undefined}
-      className={`inline-flex min-h-11 items-center gap-2 rounded-md border-2 px-3 font-semibold no-underline ${active ? "border-ink bg-ink text-paper hover:text-paper" : "border-rule text-ink hover:bg-sunken hover:text-ink"}`}
-    >
-      {children}
-    </Link>
-  );
-}
 
 function FilterForm({ q, boards }: { q: QueueQuery; boards: { slug: string; name: string }[] }) {
   // a plain GET form, so filters work before (and without) JavaScript and stay in the URL
@@ -94,12 +83,10 @@ export default async function ModerationQueuePage({ searchParams }: Props) {
         <ul className="flex flex-wrap gap-2">
           {flags.map((f) => (
             <li key={f ?? "all"}>
-              <Chip href={queueHref(q, { flag: f })} active={q.flag === f}>
+              <FilterChip href={queueHref(q, { flag: f })} active={q.flag === f}>
                 {FLAG_LABELS[f ?? "all"]}
-                <span className="rounded-sm bg-sunken px-1.5 font-mono text-small text-ink" aria-label={`${data.counts[f ?? "all"]} pending`}>
-                  {data.counts[f ?? "all"]}
-                </span>
-              </Chip>
+                <ChipCount n={data.counts[f ?? "all"]} what="pending" />
+              </FilterChip>
             </li>
           ))}
         </ul>

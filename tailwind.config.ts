@@ -41,7 +41,7 @@ const config: Config = {
         heading: ["clamp(1.5rem, 1.25rem + 1.2vw, 2rem)", { lineHeight: "1.05", letterSpacing: "0.01em" }],
         title: ["clamp(2.25rem, 1.6rem + 3.2vw, 3.5rem)", { lineHeight: "0.98", letterSpacing: "0.005em" }],
         display: ["clamp(2.75rem, 1.8rem + 5vw, 5rem)", { lineHeight: "0.92", letterSpacing: "0" }],
-        readout: ["clamp(2rem, 1.6rem + 2vw, 2.75rem)", { lineHeight: "1" }],
+        readout: ["clamp(1.75rem, 1.2rem + 2.4vw, 2.75rem)", { lineHeight: "1" }],
       },
       borderWidth: { 3: "3px" },
       maxWidth: { page: "72rem" },

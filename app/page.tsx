@@ -41,7 +41,7 @@ export default async function HomePage() {
             // dt before dd in the markup (as the spec wants), figure shown on top
             <div key={r.label} className="flex flex-col-reverse justify-end px-2 py-4 text-center sm:px-4">
               <dt className="mt-1 font-display text-base font-semibold tracking-wide text-muted uppercase sm:text-lg">{r.label}</dt>
-              <dd className="font-mono text-readout font-bold tabular-nums">{nf.format(r.value)}</dd>
+              <dd className="font-mono text-readout font-bold whitespace-nowrap tabular-nums">{nf.format(r.value)}</dd>
             </div>
           ))}
         </dl>

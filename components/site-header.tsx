@@ -23,7 +23,7 @@ export function SiteHeader() {
           <span className="font-display text-[1.9rem] leading-none font-extrabold tracking-wide uppercase">Shuntbook</span>
         </Link>
         <nav aria-label="Main" className="col-span-2 row-start-2 min-w-0 sm:col-auto sm:row-auto">
-          <ul className="-mx-1 flex flex-nowrap items-center gap-x-4 overflow-x-auto px-1 whitespace-nowrap sm:gap-x-5">
+          <ul className="relative -mx-1 flex flex-nowrap items-center gap-x-4 overflow-x-auto px-1 whitespace-nowrap sm:gap-x-5">
             {NAV_ITEMS.map((item) => (
               <li key={item.href}>
                 <NavLink href={item.href}>{item.label}</NavLink>

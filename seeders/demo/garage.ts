@@ -1,5 +1,6 @@
 import type { Chemistry, WorksheetKind } from "@/lib/vocabulary";
 import { DEMO_ACCOUNTS } from "./accounts";
+import { DEMO_FIRMWARE_FAMILIES } from "./firmware-families";
 import type { DemoSubmission } from "./submissions";
 import type { DemoUser } from "./people";
 import { daysAfter, isoDate, monthsBefore } from "./timeline";
@@ -9,6 +10,12 @@ import { daysAfter, isoDate, monthsBefore } from "./timeline";
 // progress, and one published worksheet linked to one of their own approved submissions (its
 // entries are that submission's evidence). Every figure is invented; rows refer to each other by
 // index and to the catalogue by revision key and family slug, as the rest of the scenario does.
+
+/** The family's newest release (its own codename), as a builder who just flashed would type it. */
+function newestVersion(familySlug: string): string {
+  const versions = DEMO_FIRMWARE_FAMILIES.find((f) => f.slug === familySlug)?.versions ?? [];
+  return versions[versions.length - 1]?.version ?? "";
+}
 
 type DemoQuad = { name: string; revisionKey: string; familySlug: string; firmwareVersion: string; esc: string; notes: string | null; createdAt: Date };
 type DemoCharge = { chargedOn: string; chargedMah: number; restingVoltsPerCell: number | null; afterFullFlight: boolean };
@@ -60,7 +67,7 @@ export function buildDemoGarage(users: DemoUser[], submissions: DemoSubmission[]
       name: "Ridge five",
       revisionKey: mine.revisionKey,
       familySlug: mine.familySlug,
-      firmwareVersion: "2.3",
+      firmwareVersion: newestVersion(mine.familySlug),
       esc: "45 A 4-in-1",
       notes: "Freestyle, 5 inch.",
       createdAt: created,
@@ -69,7 +76,7 @@ export function buildDemoGarage(users: DemoUser[], submissions: DemoSubmission[]
       name: "Long-range seven",
       revisionKey: second.revisionKey,
       familySlug: second.familySlug,
-      firmwareVersion: "2.3",
+      firmwareVersion: newestVersion(second.familySlug),
       esc: "55 A 4-in-1",
       notes: null,
       createdAt: daysAfter(created, 20),

@@ -111,7 +111,7 @@ describe("the cache follows moderation", () => {
     const n = await currentScaleN(first);
 
     const id = await insertSubmission(setup.fx, { currentScale: 460 });
-    const approved = await decideAs("approve", id, { version: 0 }, moderator);
+    const approved = await decideAs("approve", id, { version: 0, reason: "Checked against the photo." }, moderator);
     expect(approved.status).toBe(200);
     const eventId = (await approved.json()).event.id as number;
 

@@ -1,12 +1,11 @@
 import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
 import { ApiError } from "@/lib/http/errors";
-import { db, User } from "@/models";
 import type { Role } from "@/lib/vocabulary";
 import { roleSatisfies } from "./roles";
 import { signInPath } from "./safe-next";
 import { decodeSessionToken, parseCookieHeader, sessionTokenFrom } from "./session-cookie";
-import { isSessionEnded } from "./sessions";
+import { liveSessionUser } from "./sessions";
 
 // Authorisation in one place. Every page, server action and route handler that needs a signed-in
 // person or a role asks here; nothing else reads the session.
@@ -15,28 +14,14 @@ import { isSessionEnded } from "./sessions";
 // user id), but the role is re-read from the users table (a primary-key lookup) on every guarded
 // request, so a promotion or demotion applies to the very next request with the same cookie. The
 // role inside the JWT is only a hint for display. A deleted user's cookie stops working the same way,
-// and so does every session that signed in before the user's last password change, or before
-// the user signed out everywhere (users.session_version), and a session signed out on its own
-// device (ended_sessions, ./sessions.ts).
+// and so does a session ended by a password change or a sign-out (./sessions.ts, liveSessionUser).
 
 export type SessionUser = { id: string; email: string; name: string; role: Role };
 
 /** The user behind a session token, read fresh from the database; null for no, bad or stale tokens. */
 async function userForToken(token: string | undefined): Promise<SessionUser | null> {
-  const claims = await decodeSessionToken(token);
-  const id = typeof claims?.sub === "string" ? claims.sub : undefined;
-  // a uuid check first, so that a token from elsewhere never reaches PostgreSQL as a bad uuid
-  if (!id || !/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id)) return null;
-  db();
-  const user = await User.findByPk(id, { attributes: ["id", "email", "name", "role", "passwordChangedAt", "sessionVersion"] });
-  if (!user) return null;
-  // a password change (or reset) ends every session signed in before it
-  const authTime = typeof claims?.authTime === "number" ? claims.authTime : 0;
-  if (user.passwordChangedAt && authTime < user.passwordChangedAt.getTime()) return null;
-  // a sign-out (here or "everywhere") ends every session issued before it (./sessions.ts)
-  if ((claims?.sessionVersion ?? 0) !== user.sessionVersion) return null;
-  if (await isSessionEnded(claims?.sid)) return null;
-  return { id: user.id, email: user.email, name: user.name, role: user.role };
+  const user = await liveSessionUser(await decodeSessionToken(token));
+  return user ? { id: user.id, email: user.email, name: user.name, role: user.role } : null;
 }
 
 /** The signed-in user of the current request (pages, server actions, route handlers), or null. */

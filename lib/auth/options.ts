@@ -9,7 +9,7 @@ import { authenticate } from "./accounts";
 import { shuntbookAdapter } from "./adapter";
 import { isOwnCallbackUrl } from "./next-auth-input";
 import { SignInSchema } from "./schemas";
-import { currentSessionVersion, endSession, isSessionEnded, newSessionId } from "./sessions";
+import { currentSessionVersion, endSession, liveSessionUser, newSessionId } from "./sessions";
 import { authSecret, SESSION_MAX_AGE_SECONDS } from "./session-cookie";
 
 // next-auth's configuration: two ways in (a magic link by e-mail, or e-mail and password), one
@@ -67,8 +67,8 @@ export function authOptions(): NextAuthOptions {
           token.authTime = Date.now();
           token.sessionVersion = await currentSessionVersion(user.id);
           token.sid = newSessionId();
-        } else if (!token.sub || (token.sessionVersion ?? 0) !== (await currentSessionVersion(token.sub)) || (await isSessionEnded(token.sid))) {
-          // next-auth's session endpoint: a session ended by a sign-out is refused here too; a throw
+        } else if (!(await liveSessionUser(token))) {
+          // next-auth's session endpoint: a session the guard would refuse is refused here too; a throw
           // makes next-auth answer "no session" and delete the cookie (core/routes/session.js)
           throw new Error("this session was ended by a sign-out");
         }

@@ -9,7 +9,9 @@ import { db, EndedSession, User } from "@/models";
 //   devices stay signed in;
 // - each user has a session version (users.session_version) that every session JWT carries from
 //   sign-in; "sign out everywhere" and a password change move it on, ending all of them.
-// The guard (./guard.ts) and next-auth's own session endpoint (./options.ts) apply both.
+// A password change (or reset) also ends every session signed in before it (users.password_changed_at).
+// liveSessionUser applies all three in one query; the guard (./guard.ts) and next-auth's own
+// session endpoint (./options.ts) both ask it, so neither can forget a rule.
 
 /** A fresh session id for a sign-in. */
 export const newSessionId = (): string => randomUUID();
@@ -36,9 +38,29 @@ export async function endSession(sid: unknown, userId: string, expiresAt: Date):
   await EndedSession.upsert({ sid, userId, expiresAt });
 }
 
-/** True when a sign-out ended this session (a primary-key lookup). Tokens without a sid predate the rule. */
-export async function isSessionEnded(sid: unknown): Promise<boolean> {
-  if (typeof sid !== "string" || !UUID_RE.test(sid)) return false;
+/** What a session JWT says about itself (next-auth's JWT and lib/auth/session-cookie's claims alike). */
+type SessionClaimsLike = { sub?: unknown; authTime?: unknown; sessionVersion?: unknown; sid?: unknown } | null | undefined;
+
+/**
+ * The user behind a session that is still live, read fresh from the database (so the role is the
+ * current one), or null: no such user, or a session ended by a password change, by "sign out
+ * everywhere" or by its own sign-out. One primary-key lookup, with ended_sessions joined by its
+ * primary key when the token has a sid (tokens without one predate the rule).
+ */
+export async function liveSessionUser(claims: SessionClaimsLike): Promise<User | null> {
+  const id = claims?.sub;
+  // a uuid check first, so that a token from elsewhere never reaches PostgreSQL as a bad uuid
+  if (typeof id !== "string" || !UUID_RE.test(id)) return null;
+  const sid = typeof claims?.sid === "string" && UUID_RE.test(claims.sid) ? claims.sid : null;
   db();
-  return (await EndedSession.findByPk(sid, { attributes: ["sid"] })) !== null;
+  const user = await User.findByPk(id, {
+    attributes: ["id", "email", "name", "role", "passwordChangedAt", "sessionVersion"],
+    include: sid ? [{ model: EndedSession, as: "endedSessions", attributes: ["sid"], where: { sid }, required: false }] : [],
+  });
+  if (!user) return null;
+  const authTime = typeof claims?.authTime === "number" ? claims.authTime : 0;
+  if (user.passwordChangedAt && authTime < user.passwordChangedAt.getTime()) return null;
+  if ((typeof claims?.sessionVersion === "number" ? claims.sessionVersion : 0) !== user.sessionVersion) return null;
+  if (((user as User & { endedSessions?: EndedSession[] }).endedSessions?.length ?? 0) > 0) return null;
+  return user;
 }

@@ -1,4 +1,3 @@
-import { createHash, randomBytes } from "node:crypto";
 import { Op } from "sequelize";
 import { z } from "zod";
 import { ApiError } from "@/lib/http/errors";
@@ -6,6 +5,7 @@ import { JOB_PRIORITY, defineJob, enqueue } from "@/lib/jobs";
 import { passwordChangedMail, passwordResetMail } from "@/lib/mail/templates";
 import { db, PasswordResetToken, User } from "@/models";
 import { byEmail } from "./accounts";
+import { hashLinkToken, newLinkToken } from "./link-token";
 import { hashPassword } from "./passwords";
 import { siteUrl } from "./site-url";
 
@@ -20,8 +20,6 @@ import { siteUrl } from "./site-url";
 
 export const RESET_TOKEN_MINUTES = 60;
 
-export const hashResetToken = (token: string) => createHash("sha256").update(token).digest("hex");
-
 /**
  * Starts a reset for `email` if an account has it. Says nothing about whether one does: the
  * caller answers the same either way, so the form cannot be used to find out who has an account.
@@ -31,12 +29,12 @@ export async function requestPasswordReset(email: string): Promise<string | null
   const sequelize = db();
   const user = await User.findOne({ where: byEmail(email) });
   if (!user) return null;
-  const token = randomBytes(32).toString("base64url");
+  const { token, tokenHash } = newLinkToken();
   await sequelize.transaction(async (transaction) => {
     const now = new Date();
     await PasswordResetToken.update({ usedAt: now }, { where: { userId: user.id, usedAt: null }, transaction });
     await PasswordResetToken.create(
-      { userId: user.id, tokenHash: hashResetToken(token), expiresAt: new Date(now.getTime() + RESET_TOKEN_MINUTES * 60_000), createdAt: now },
+      { userId: user.id, tokenHash, expiresAt: new Date(now.getTime() + RESET_TOKEN_MINUTES * 60_000), createdAt: now },
       { transaction },
     );
     const url = siteUrl(`/reset-password?token=${encodeURIComponent(token)}`);
@@ -73,7 +71,7 @@ export async function completePasswordReset(token: string, newPassword: string):
   return sequelize.transaction(async (transaction) => {
     // the row lock makes two submissions of one link race for it: the second finds it used
     const row = await PasswordResetToken.findOne({
-      where: { tokenHash: hashResetToken(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },
+      where: { tokenHash: hashLinkToken(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },
       transaction,
       lock: transaction.LOCK.UPDATE,
     });

@@ -1,4 +1,3 @@
-import { createHash, randomBytes } from "node:crypto";
 import { Op, UniqueConstraintError } from "sequelize";
 import { z } from "zod";
 import { ApiError } from "@/lib/http/errors";
@@ -6,6 +5,7 @@ import { JOB_PRIORITY, defineJob, enqueue } from "@/lib/jobs";
 import { signUpConfirmMail, signUpExistingMail } from "@/lib/mail/templates";
 import { db, SignUpToken, User } from "@/models";
 import { byEmail } from "./accounts";
+import { hashLinkToken, newLinkToken } from "./link-token";
 import { hashPassword, verifyPassword } from "./passwords";
 import { siteUrl } from "./site-url";
 
@@ -23,8 +23,6 @@ import { siteUrl } from "./site-url";
 //     signed up with your address cannot get you to confirm an account whose password they know.
 
 export const SIGN_UP_TOKEN_HOURS = 24;
-
-const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
 
 /** What the job carries: the form's fields with the password already hashed (bcrypt). */
 const SignUpJobSchema = z.object({
@@ -45,7 +43,7 @@ export async function startSignUp(data: z.infer<typeof SignUpJobSchema>): Promis
     await enqueue("mail.send", { to: existing.email, ...mail }, { priority: JOB_PRIORITY.urgent });
     return null;
   }
-  const token = randomBytes(32).toString("base64url");
+  const { token, tokenHash } = newLinkToken();
   await sequelize.transaction(async (transaction) => {
     const now = new Date();
     // this address's finished or lapsed sign-ups are dead weight (and hold a password hash)
@@ -53,10 +51,7 @@ export async function startSignUp(data: z.infer<typeof SignUpJobSchema>): Promis
       where: { email: data.email, [Op.or]: [{ usedAt: { [Op.ne]: null } }, { expiresAt: { [Op.lte]: now } }] },
       transaction,
     });
-    await SignUpToken.create(
-      { ...data, tokenHash: hashToken(token), expiresAt: new Date(now.getTime() + SIGN_UP_TOKEN_HOURS * 3_600_000), createdAt: now },
-      { transaction },
-    );
+    await SignUpToken.create({ ...data, tokenHash, expiresAt: new Date(now.getTime() + SIGN_UP_TOKEN_HOURS * 3_600_000), createdAt: now }, { transaction });
     const url = siteUrl(`/signup/confirm?token=${encodeURIComponent(token)}`);
     await enqueue(
       "mail.send",
@@ -92,7 +87,7 @@ export async function completeSignUp(token: string, password: string): Promise<{
   const sequelize = db();
   return sequelize.transaction(async (transaction) => {
     // the row lock makes two submissions of one link race for it: the second finds it used
-    const row = await SignUpToken.findOne({ where: { tokenHash: hashToken(token) }, transaction, lock: transaction.LOCK.UPDATE });
+    const row = await SignUpToken.findOne({ where: { tokenHash: hashLinkToken(token) }, transaction, lock: transaction.LOCK.UPDATE });
     if (!row || row.usedAt || row.expiresAt.getTime() <= Date.now()) throw new ApiError(400, BAD_LINK, { token: [BAD_LINK] });
     if (!(await verifyPassword(password, row.passwordHash))) throw new ApiError(400, WRONG_PASSWORD, { password: [WRONG_PASSWORD] });
     if (await User.findOne({ where: byEmail(row.email), attributes: ["id"], transaction })) throw new ApiError(400, TAKEN, { token: [TAKEN] });

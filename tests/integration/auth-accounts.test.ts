@@ -9,7 +9,7 @@ import { POST as signUpConfirmRoute } from "@/app/api/auth/sign-up/confirm/route
 import { POST as signUpRoute } from "@/app/api/auth/sign-up/route";
 import { authenticate } from "@/lib/auth/accounts";
 import { currentUser } from "@/lib/auth/guard";
-import { hashResetToken } from "@/lib/auth/password-reset";
+import { hashLinkToken } from "@/lib/auth/link-token";
 import { LIMITS } from "@/lib/auth/rate-limit";
 import { DEMO_ACCOUNT_LIST } from "@/seeders/demo/accounts";
 import { stopBoss } from "@/lib/jobs";
@@ -171,7 +171,7 @@ describe("password reset by e-mail", () => {
     const link = new URL(linkIn(mail, "/reset-password?token="));
     const token = link.searchParams.get("token")!;
 
-    const row = await PasswordResetToken.findOne({ where: { tokenHash: hashResetToken(token) } });
+    const row = await PasswordResetToken.findOne({ where: { tokenHash: hashLinkToken(token) } });
     expect(row).not.toBeNull();
     const minutes = (row!.expiresAt.getTime() - row!.createdAt.getTime()) / 60_000;
     expect(minutes).toBe(60);

@@ -15,7 +15,7 @@ import { toApiError } from "@/lib/http/errors";
 import { route } from "@/lib/http";
 import { stopBoss } from "@/lib/jobs";
 import { BoardRevision, db, FirmwareFamily, Pack, Quad } from "@/models";
-import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
+import { callRoute, sessionCookieFor, jsonRequest as json, routeParams as params } from "@/tests/support/auth";
 import { setupTestDatabase } from "@/tests/support/database";
 
 // Finding 6 of issue 12 (hardening), one case each: every bad input answers a 4xx naming the
@@ -23,17 +23,6 @@ import { setupTestDatabase } from "@/tests/support/database";
 
 setupTestDatabase("seeded");
 afterAll(() => stopBoss());
-
-const json = (url: string, cookie: string, method: string, body?: unknown) =>
-  withCookie(
-    new Request(`http://test${url}`, {
-      method,
-      headers: body === undefined ? {} : { "content-type": "application/json" },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    }),
-    cookie,
-  );
-const params = <P>(p: P) => ({ params: Promise.resolve(p) });
 
 async function expectFieldError(res: Response, field: string, status = 400) {
   const body = await res.json();

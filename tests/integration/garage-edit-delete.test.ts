@@ -14,7 +14,7 @@ import { listPacks } from "@/lib/garage/packs";
 import { listQuads } from "@/lib/garage/quads";
 import { stopBoss } from "@/lib/jobs";
 import { db, Pack, PackCharge, Quad, Submission, Worksheet } from "@/models";
-import { callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
+import { callRoute, sessionCookieFor, jsonRequest as call, routeParams as params } from "@/tests/support/auth";
 import { setupTestDatabase } from "@/tests/support/database";
 import { insertFixture, type Fixture } from "@/tests/support/fixtures";
 
@@ -24,16 +24,6 @@ import { insertFixture, type Fixture } from "@/tests/support/fixtures";
 setupTestDatabase("migrated");
 afterAll(() => stopBoss());
 
-const call = (url: string, cookie: string, method: string, body?: unknown) =>
-  withCookie(
-    new Request(`http://test${url}`, {
-      method,
-      headers: body === undefined ? {} : { "content-type": "application/json" },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    }),
-    cookie,
-  );
-const params = <P>(p: P) => ({ params: Promise.resolve(p) });
 const isoDay = (offsetDays: number) => new Date(Date.now() + offsetDays * 86_400_000).toISOString().slice(0, 10);
 
 let fx: Fixture;

@@ -7,21 +7,10 @@ import { POST as postPack } from "@/app/api/v1/garage/packs/route";
 import { GET as getPackRoute } from "@/app/api/v1/garage/packs/[id]/route";
 import { POST as postCharge } from "@/app/api/v1/garage/packs/[id]/charges/route";
 import { db, PackCharge } from "@/models";
-import { ANONYMOUS, callRoute, sessionCookieFor, withCookie } from "@/tests/support/auth";
+import { ANONYMOUS, callRoute, sessionCookieFor, jsonRequest as json, routeParams as params } from "@/tests/support/auth";
 import { setupTestDatabase } from "@/tests/support/database";
 
 setupTestDatabase("migrated");
-
-const json = (url: string, cookie: string, method: string, body?: unknown) =>
-  withCookie(
-    new Request(`http://test${url}`, {
-      method,
-      headers: body === undefined ? {} : { "content-type": "application/json" },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    }),
-    cookie,
-  );
-const params = <P>(p: P) => ({ params: Promise.resolve(p) });
 
 describe("garage quads (app/api/v1/garage/quads)", () => {
   it("needs a sign-in, and keeps each owner's quads private (404 for others)", async () => {

@@ -102,6 +102,15 @@ export function withCookie(request: Request, cookie: string): Request {
   return copy;
 }
 
+/** A request to `url` (on http://test) as the holder of `cookie`: JSON when there is a body, bare when `body` is undefined. */
+export function jsonRequest(url: string, cookie: string, method = "GET", body?: unknown): Request {
+  const init: RequestInit = body === undefined ? { method } : { method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) };
+  return withCookie(new Request(`http://test${url}`, init), cookie);
+}
+
+/** The context Next passes a dynamic route: its params, as a promise. */
+export const routeParams = <P>(params: P) => ({ params: Promise.resolve(params) });
+
 /** Runs fn (a server action, a page component, lib code using next/headers) as if serving `request`. */
 export function inRequest<T>(request: Request, fn: () => T): T {
   return runWithRequest(request, fn);
